@@ -1,0 +1,55 @@
+/**
+ * `npm start`: the whole of Quietband on this machine, from one command.
+ * Ensures the local services (unless real ones are configured), migrates, seeds the demo
+ * on an empty database, builds the web app when needed, and serves web + API on one port.
+ * Ctrl-C stops everything it started.
+ */
+import { ConfigError, loadEnv } from '../server/config/env'
+import { createPool, runMigrations } from '../server/db/client'
+import { startServer } from '../server/main'
+import { ensureLocalServices, loadDotEnv } from './local/services'
+import { ensureWebBuild, WEB_DIST } from './local/web-build'
+import { DEMO_PASSWORD, DEMO_USERS, seedDemo } from './seed-demo'
+
+const t0 = performance.now()
+loadDotEnv()
+process.env.AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED ??= 'true'
+const services = await ensureLocalServices()
+Object.assign(process.env, services.env)
+const port = process.env.PORT ?? '3000'
+process.env.PUBLIC_URL ??= `http://127.0.0.1:${port}`
+process.env.STATIC_DIR ??= WEB_DIST
+
+let stopping = false
+async function shutdown(code: number, running?: { close(): Promise<void> }) {
+  if (stopping) return
+  stopping = true
+  console.log('\nStopping Quietband…')
+  await running?.close().catch((e) => console.error(e))
+  await services.stop()
+  process.exit(code)
+}
+
+try {
+  const env = loadEnv()
+  await runMigrations(env.DATABASE_URL)
+  const pool = createPool(env.DATABASE_URL, 2)
+  const seeded = await seedDemo(pool)
+  await pool.end()
+  const build = ensureWebBuild()
+  const running = await startServer(env)
+  const secs = ((performance.now() - t0) / 1000).toFixed(1)
+  console.log(`
+Quietband is running at ${env.PUBLIC_URL}   (ready in ${secs} s; web build ${build}${seeded ? '; demo data seeded' : ''})
+Local services: ${services.started.join('; ') || 'none (real services configured)'}
+${env.DEV_MAILBOX_DIR ? `Development mailbox: ${env.PUBLIC_URL}/dev/mailbox\n` : ''}
+Demo sign-ins (password "${DEMO_PASSWORD}"):
+${DEMO_USERS.map((u) => `  ${u.role.padEnd(13)} ${u.email.padEnd(30)} ${u.office ?? ''}`).join('\n')}
+
+Press Ctrl-C to stop.`)
+  process.once('SIGINT', () => void shutdown(0, running))
+  process.once('SIGTERM', () => void shutdown(0, running))
+} catch (e) {
+  console.error(e instanceof ConfigError ? e.message : e)
+  await shutdown(1)
+}

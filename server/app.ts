@@ -1,0 +1,111 @@
+/**
+ * createApp(deps): the whole HTTP application, without listening. Tests import this.
+ */
+import path from 'node:path'
+import fs from 'node:fs'
+import express, { Router } from 'express'
+import session from 'express-session'
+import connectPgSimple from 'connect-pg-simple'
+import helmet from 'helmet'
+import type pg from 'pg'
+import type PgBoss from 'pg-boss'
+import { createDb } from './db/client'
+import type { ServiceContext } from './context'
+import { DEFAULT_MAIL_QUEUE_OPTIONS, type MailQueueOptions } from './jobs/boss'
+import { apiNotFound, errorHandler } from './http/error-handler'
+import { requestId } from './http/request-id'
+import { sameOrigin } from './http/same-origin'
+import { configurePassport } from './modules/auth/passport'
+import { authRoutes } from './modules/auth/auth.routes'
+import { usersRoutes } from './modules/users/users.routes'
+import { officesRoutes } from './modules/offices/offices.routes'
+import { mailboxRoutes } from './modules/dev/mailbox.routes'
+
+export interface AppDeps {
+  pool: pg.Pool
+  boss: PgBoss
+  sessionSecret: string
+  publicUrl: string
+  /** Built web app to serve (dist/web); absent in API-only tests. */
+  staticDir?: string
+  /** Folder of the local SMTP fake; absent when a real SMTP server is configured. */
+  mailboxDir?: string
+  mailQueue?: MailQueueOptions
+  /** Prune expired sessions periodically (off in tests). */
+  pruneSessions?: boolean
+  /** Number of proxies in front (for req.ip and secure cookies behind a load balancer). */
+  trustProxy?: number
+}
+
+export interface AppHandle {
+  app: express.Express
+  /** The API router, for route listings (the route × role matrix test). */
+  api: Router
+  close(): void
+}
+
+export function createApp(deps: AppDeps): AppHandle {
+  const db = createDb(deps.pool)
+  const ctx: ServiceContext = {
+    pool: deps.pool,
+    db,
+    boss: deps.boss,
+    publicUrl: deps.publicUrl.replace(/\/$/, ''),
+    mailQueue: deps.mailQueue ?? DEFAULT_MAIL_QUEUE_OPTIONS,
+  }
+  const app = express()
+  app.disable('x-powered-by')
+  if (deps.trustProxy) app.set('trust proxy', deps.trustProxy)
+  app.use(requestId)
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        directives: { 'default-src': ["'self'"], 'img-src': ["'self'", 'data:', 'blob:'], 'style-src': ["'self'", "'unsafe-inline'"], 'upgrade-insecure-requests': null },
+      },
+      crossOriginEmbedderPolicy: false,
+    }),
+  )
+
+  const PgStore = connectPgSimple(session)
+  const store = new PgStore({ pool: deps.pool, tableName: 'session', pruneSessionInterval: deps.pruneSessions ? 15 * 60 : false })
+  const secureCookies = deps.publicUrl.startsWith('https://')
+  const passport = configurePassport(db)
+
+  const api = Router()
+  api.use(express.json({ limit: '200kb' }))
+  api.use(sameOrigin([deps.publicUrl]))
+  api.use(
+    session({
+      name: 'qb.sid',
+      store,
+      secret: deps.sessionSecret,
+      resave: false,
+      saveUninitialized: false,
+      rolling: true,
+      proxy: secureCookies && !!deps.trustProxy,
+      cookie: { httpOnly: true, sameSite: 'lax', secure: secureCookies, maxAge: 10 * 3600 * 1000 },
+    }),
+  )
+  api.use(passport.session())
+
+  api.get('/health', async (_req, res) => {
+    await deps.pool.query('SELECT 1')
+    res.json({ ok: true })
+  })
+  api.use(authRoutes(ctx, passport))
+  api.use(usersRoutes(ctx))
+  api.use(officesRoutes(ctx))
+  api.use(mailboxRoutes(deps.mailboxDir))
+  api.use(apiNotFound)
+  app.use('/api', api)
+
+  if (deps.staticDir && fs.existsSync(path.join(deps.staticDir, 'index.html'))) {
+    const indexHtml = path.join(deps.staticDir, 'index.html')
+    app.use(express.static(deps.staticDir, { index: false, maxAge: '1h' }))
+    // every other path is the web app, which shows its own 404 page for unknown paths
+    app.get('/{*splat}', (_req, res) => res.sendFile(indexHtml))
+  }
+  app.use(errorHandler)
+
+  return { app, api, close: () => store.close() }
+}

@@ -1,0 +1,42 @@
+/**
+ * Configuration from environment variables, validated at start. A missing or invalid
+ * variable stops the server with a message naming it. `npm start` (ops/start.ts) fills in
+ * the embedded local services when a variable is unset; set it to use a real service.
+ */
+import { z } from 'zod'
+
+const url = (what: string) => z.string({ message: `${what} is required` }).url({ message: `${what} must be a URL` })
+
+const envSchema = z.object({
+  NODE_ENV: z.enum(['development', 'production', 'test']).default('development'),
+  HOST: z.string().default('127.0.0.1'),
+  PORT: z.coerce.number().int().min(0).max(65535).default(3000),
+  PUBLIC_URL: url('PUBLIC_URL'),
+  DATABASE_URL: url('DATABASE_URL').refine((v) => /^postgres(ql)?:\/\//.test(v), 'DATABASE_URL must start with postgres://'),
+  SESSION_SECRET: z.string({ message: 'SESSION_SECRET is required' }).min(32, 'SESSION_SECRET must be at least 32 characters'),
+  S3_ENDPOINT: url('S3_ENDPOINT').optional(),
+  S3_REGION: z.string().default('us-east-1'),
+  S3_BUCKET: z.string({ message: 'S3_BUCKET is required' }).min(3),
+  S3_ACCESS_KEY_ID: z.string({ message: 'S3_ACCESS_KEY_ID is required' }).min(1),
+  S3_SECRET_ACCESS_KEY: z.string({ message: 'S3_SECRET_ACCESS_KEY is required' }).min(1),
+  S3_FORCE_PATH_STYLE: z.enum(['true', 'false']).default('true').transform((v) => v === 'true'),
+  SMTP_URL: url('SMTP_URL').refine((v) => /^smtps?:\/\//.test(v), 'SMTP_URL must start with smtp:// or smtps://'),
+  MAIL_FROM: z.string().default('Quietband <no-reply@quietband.test>'),
+  /** Folder where the local SMTP fake keeps messages; set only with the embedded fake. */
+  DEV_MAILBOX_DIR: z.string().optional(),
+  STATIC_DIR: z.string().optional(),
+  /** Run the e-mail worker in this process (default yes; set false for API-only processes). */
+  RUN_WORKERS: z.enum(['true', 'false']).default('true').transform((v) => v === 'true'),
+})
+
+export type Env = z.infer<typeof envSchema>
+
+export class ConfigError extends Error {}
+
+/** Parses the environment; throws a ConfigError listing every bad variable by name. */
+export function loadEnv(source: NodeJS.ProcessEnv = process.env): Env {
+  const parsed = envSchema.safeParse(source)
+  if (parsed.success) return parsed.data
+  const lines = parsed.error.issues.map((i) => `  ${i.path.join('.')}: ${i.message}`)
+  throw new ConfigError(`Quietband cannot start: the configuration is incomplete or invalid.\n${lines.join('\n')}\nSee .env.example.`)
+}

@@ -1,0 +1,3 @@
+export * from './offices'
+export * from './users'
+export * from './sessions'

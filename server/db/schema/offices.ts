@@ -1,0 +1,27 @@
+import { sql } from 'drizzle-orm'
+import { check, doublePrecision, integer, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core'
+
+/** A field office. Reports are routed to the office whose region centre is nearest. */
+export const offices = pgTable(
+  'offices',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    name: text('name').notNull().unique(),
+    regionName: text('region_name').notNull(),
+    centreLatDeg: doublePrecision('centre_lat_deg').notNull(),
+    centreLonDeg: doublePrecision('centre_lon_deg').notNull(),
+    /** Response targets per priority, in hours (office-configurable). */
+    targetP1Hours: integer('target_p1_hours').notNull().default(4),
+    targetP2Hours: integer('target_p2_hours').notNull().default(24),
+    targetP3Hours: integer('target_p3_hours').notNull().default(72),
+    targetP4Hours: integer('target_p4_hours').notNull().default(240),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [
+    check('offices_lat_range', sql`${t.centreLatDeg} between -90 and 90`),
+    check('offices_lon_range', sql`${t.centreLonDeg} between -180 and 180`),
+    check('offices_targets_positive', sql`least(${t.targetP1Hours}, ${t.targetP2Hours}, ${t.targetP3Hours}, ${t.targetP4Hours}) > 0`),
+  ],
+)
+
+export type Office = typeof offices.$inferSelect

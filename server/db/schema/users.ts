@@ -1,0 +1,58 @@
+import { sql } from 'drizzle-orm'
+import { boolean, check, index, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core'
+import { offices } from './offices'
+
+/**
+ * People who sign in. Roles are text with a CHECK rather than a pg enum, so that a later
+ * migration can add a role without the one-transaction enum trap of the migrator.
+ */
+export const users = pgTable(
+  'users',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    email: text('email').notNull().unique(),
+    name: text('name').notNull(),
+    role: text('role', { enum: ['complainant', 'investigator', 'supervisor', 'admin'] }).notNull(),
+    officeId: uuid('office_id').references(() => offices.id, { onDelete: 'restrict' }),
+    /** argon2id; null until an invited staff member sets a password. */
+    passwordHash: text('password_hash'),
+    active: boolean('active').notNull().default(true),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [
+    check('users_role_valid', sql`${t.role} in ('complainant', 'investigator', 'supervisor', 'admin')`),
+    check('users_staff_have_office', sql`${t.role} not in ('investigator', 'supervisor') or ${t.officeId} is not null`),
+    check('users_email_lowercase', sql`${t.email} = lower(${t.email})`),
+    index('users_office_idx').on(t.officeId),
+  ],
+)
+
+export type User = typeof users.$inferSelect
+
+/** Single-use tokens for password reset and staff invitation; only the SHA-256 hash is stored. */
+export const passwordTokens = pgTable(
+  'password_tokens',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    userId: uuid('user_id').notNull().references(() => users.id, { onDelete: 'cascade' }),
+    tokenHash: text('token_hash').notNull().unique(),
+    purpose: text('purpose', { enum: ['reset', 'invite'] }).notNull(),
+    expiresAt: timestamp('expires_at', { withTimezone: true }).notNull(),
+    usedAt: timestamp('used_at', { withTimezone: true }),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [check('password_tokens_purpose_valid', sql`${t.purpose} in ('reset', 'invite')`)],
+)
+
+/** Sign-in attempts, for per-account and per-address limits that hold across app processes. */
+export const signInAttempts = pgTable(
+  'sign_in_attempts',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    email: text('email').notNull(),
+    ip: text('ip').notNull(),
+    succeeded: boolean('succeeded').notNull(),
+    at: timestamp('at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index('sign_in_attempts_email_at_idx').on(t.email, t.at), index('sign_in_attempts_ip_at_idx').on(t.ip, t.at)],
+)

@@ -1,0 +1,46 @@
+import type { ErrorRequestHandler, RequestHandler } from 'express'
+import { ZodError } from 'zod'
+import type { ApiErrorBody } from '../../shared/schemas/errors'
+import { HttpError } from './errors'
+
+function body(req: { id: string }, code: string, message: string, details?: ApiErrorBody['error']['details']): ApiErrorBody {
+  return { error: { code, message, ...(details ? { details } : {}), requestId: req.id } }
+}
+
+/** Unknown /api routes answer 404 JSON (the web app answers other paths). */
+export const apiNotFound: RequestHandler = (req, res) => {
+  res.status(404).json(body(req, 'route_not_found', `No API route ${req.method} ${req.path}.`))
+}
+
+/** The one error shape; unknown errors become a logged 500 with a generic message. */
+export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
+  if (res.headersSent) return
+  if (err instanceof HttpError) {
+    res.status(err.status).json(body(req, err.code, err.message, err.details))
+    return
+  }
+  if (err instanceof ZodError) {
+    res.status(400).json(body(req, 'validation_failed', 'Some fields need attention.', zodDetails(err)))
+    return
+  }
+  // body-parser: malformed JSON, oversize payloads
+  const e = err as { type?: string; status?: number; code?: string }
+  if (e.type === 'entity.parse.failed') {
+    res.status(400).json(body(req, 'malformed_json', 'The request body is not valid JSON.'))
+    return
+  }
+  if (e.type === 'entity.too.large' || e.code === 'LIMIT_FILE_SIZE') {
+    res.status(413).json(body(req, 'payload_too_large', 'The request is too large.'))
+    return
+  }
+  if (typeof e.status === 'number' && e.status >= 400 && e.status < 500) {
+    res.status(e.status).json(body(req, 'bad_request', 'The request could not be processed.'))
+    return
+  }
+  console.error(`[${req.id}]`, err)
+  res.status(500).json(body(req, 'internal_error', 'Something went wrong on our side. Quote the request id if you report it.'))
+}
+
+export function zodDetails(err: ZodError): { path: string; message: string }[] {
+  return err.issues.map((i) => ({ path: i.path.join('.'), message: i.message }))
+}

@@ -1,0 +1,52 @@
+/**
+ * Background jobs in PostgreSQL (pg-boss 10). E-mail is queued as a job in the same
+ * transaction as the change that causes it, so a message is never lost: if the SMTP
+ * server is down, the worker retries with backoff until it returns.
+ */
+import PgBoss from 'pg-boss'
+import type pg from 'pg'
+import type { OutgoingMail, Mailer } from '../mail/mailer'
+
+export const MAIL_QUEUE = 'mail-send'
+
+export async function startBoss(databaseUrl: string): Promise<PgBoss> {
+  const boss = new PgBoss({ connectionString: databaseUrl, schema: 'pgboss', max: 4 })
+  boss.on('error', (err) => console.error('job queue error:', err))
+  await boss.start()
+  await boss.createQueue(MAIL_QUEUE)
+  return boss
+}
+
+export interface MailQueueOptions {
+  /** First retry delay in seconds; doubles each time (pg-boss backoff). */
+  retryDelaySeconds: number
+  retryLimit: number
+}
+
+export const DEFAULT_MAIL_QUEUE_OPTIONS: MailQueueOptions = { retryDelaySeconds: 10, retryLimit: 30 }
+
+/** Queues an e-mail on the given transaction's connection (commits or rolls back with it). */
+export async function queueMail(
+  boss: PgBoss,
+  client: pg.PoolClient | pg.Pool,
+  mail: OutgoingMail,
+  opts: MailQueueOptions = DEFAULT_MAIL_QUEUE_OPTIONS,
+): Promise<void> {
+  await boss.send(MAIL_QUEUE, mail, {
+    retryLimit: opts.retryLimit,
+    retryDelay: opts.retryDelaySeconds,
+    retryBackoff: true,
+    db: { executeSql: (text, values) => client.query(text, values) },
+  })
+}
+
+/** Sends queued mail; a failure throws, and pg-boss retries the job later. */
+export async function startMailWorker(boss: PgBoss, mailer: Mailer, pollingIntervalSeconds = 1): Promise<string> {
+  return boss.work<OutgoingMail>(MAIL_QUEUE, { pollingIntervalSeconds, batchSize: 1 }, async (jobs) => {
+    // one job per batch: a failure retries only the message that failed, so none arrives twice
+    for (const job of jobs) {
+      // the job id doubles as Message-ID, so a rare resend after a crash is recognisable
+      await mailer.send({ ...job.data, messageId: `<${job.id}@quietband.mail>` })
+    }
+  })
+}

@@ -1,0 +1,51 @@
+/**
+ * Starts Quietband from a validated configuration: migrations (advisory-locked), the job
+ * queue, the e-mail worker and the HTTP server. Returns a handle that stops all of it.
+ */
+import type { AddressInfo } from 'node:net'
+import type { Server } from 'node:http'
+import type { Env } from './config/env'
+import { createPool, runMigrations } from './db/client'
+import { startBoss, startMailWorker } from './jobs/boss'
+import { createMailer } from './mail/mailer'
+import { createApp } from './app'
+
+export interface RunningServer {
+  url: string
+  port: number
+  close(): Promise<void>
+}
+
+export async function startServer(env: Env): Promise<RunningServer> {
+  await runMigrations(env.DATABASE_URL)
+  const pool = createPool(env.DATABASE_URL)
+  const boss = await startBoss(env.DATABASE_URL)
+  const mailer = createMailer({ smtpUrl: env.SMTP_URL, from: env.MAIL_FROM })
+  if (env.RUN_WORKERS) await startMailWorker(boss, mailer)
+  const handle = createApp({
+    pool,
+    boss,
+    sessionSecret: env.SESSION_SECRET,
+    publicUrl: env.PUBLIC_URL,
+    staticDir: env.STATIC_DIR,
+    mailboxDir: env.DEV_MAILBOX_DIR,
+    pruneSessions: true,
+  })
+  const server: Server = await new Promise((resolve, reject) => {
+    const s = handle.app.listen(env.PORT, env.HOST, () => resolve(s))
+    s.once('error', reject)
+  })
+  const port = (server.address() as AddressInfo).port
+  return {
+    url: `http://${env.HOST}:${port}`,
+    port,
+    async close() {
+      await new Promise<void>((r) => server.close(() => r()))
+      server.closeAllConnections?.()
+      await boss.stop({ graceful: true, wait: true, timeout: 5000 })
+      handle.close()
+      mailer.close()
+      await pool.end()
+    },
+  }
+}

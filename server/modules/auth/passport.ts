@@ -1,0 +1,23 @@
+import passport from 'passport'
+import { Strategy as LocalStrategy } from 'passport-local'
+import type { Db } from '../../db/client'
+import { findUserById } from '../users/users.repo'
+import { checkCredentials } from './auth.service'
+
+/** One Passport instance per app (keeps tests isolated). The session holds the user id only. */
+export function configurePassport(db: Db): passport.PassportStatic {
+  const p = new passport.Passport() as unknown as passport.PassportStatic
+  p.use(
+    new LocalStrategy({ usernameField: 'email' }, (email, password, done) => {
+      checkCredentials(db, email, password).then((user) => done(null, user ?? false), done)
+    }),
+  )
+  p.serializeUser((user, done) => done(null, user.id))
+  p.deserializeUser((id: string, done) => {
+    findUserById(db, id).then(
+      (u) => done(null, u && u.active ? { id: u.id, email: u.email, name: u.name, role: u.role, officeId: u.officeId, officeName: u.officeName } : false),
+      done,
+    )
+  })
+  return p
+}

@@ -1,0 +1,21 @@
+import { Router } from 'express'
+import { z } from 'zod'
+import type { ServiceContext } from '../../context'
+import { actorOf, requireRole } from '../../http/authenticate'
+import { parseWith } from '../../http/validate'
+import { getOffice, listOffices } from './offices.service'
+
+const idParam = z.object({ id: z.uuid({ message: 'Not a valid id.' }) })
+
+export function officesRoutes(ctx: ServiceContext): Router {
+  const r = Router()
+  const staffOrAdmin = requireRole('investigator', 'supervisor', 'admin')
+  r.get('/offices', staffOrAdmin, async (req, res) => {
+    res.json({ offices: await listOffices(ctx, actorOf(req)) })
+  })
+  r.get('/offices/:id', staffOrAdmin, async (req, res) => {
+    const { id } = parseWith(idParam, req.params)
+    res.json({ office: await getOffice(ctx, actorOf(req), id) })
+  })
+  return r
+}

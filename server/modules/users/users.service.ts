@@ -1,0 +1,76 @@
+/** Staff accounts, managed by an administrator. */
+import { eq, sql } from 'drizzle-orm'
+import { withTransaction } from '../../db/client'
+import { offices, passwordTokens, users } from '../../db/schema'
+import type { ServiceContext } from '../../context'
+import { badRequest, conflict, forbidden, notFound } from '../../http/errors'
+import { queueMail } from '../../jobs/boss'
+import { staffInvitationMail } from '../../mail/templates'
+import { can, officeScope, type Actor } from '../../policy/policy'
+import type { CreateStaffInput } from '../../../shared/schemas/auth'
+import { newToken } from '../auth/passwords'
+import { findUserById, listUsers, type PublicUser } from './users.repo'
+
+export const INVITE_TOKEN_HOURS = 72
+
+export async function listAllUsers(ctx: ServiceContext, actor: Actor): Promise<PublicUser[]> {
+  if (!can(actor, 'user.list')) throw forbidden()
+  return listUsers(ctx.db)
+}
+
+/** Creates a staff account without a password and e-mails a single-use set-password link. */
+export async function createStaffUser(ctx: ServiceContext, actor: Actor, input: CreateStaffInput): Promise<PublicUser> {
+  if (!can(actor, 'user.create')) throw forbidden()
+  const officeId = input.role === 'admin' ? null : input.officeId
+  if (officeId) {
+    const [o] = await ctx.db.select({ id: offices.id }).from(offices).where(eq(offices.id, officeId))
+    if (!o) throw badRequest('validation_failed', 'Some fields need attention.', [{ path: 'officeId', message: 'No such office.' }])
+  }
+  const id = await withTransaction(ctx.pool, async ({ db, client }) => {
+    const inserted = await db
+      .insert(users)
+      .values({ email: input.email, name: input.name, role: input.role, officeId })
+      .onConflictDoNothing({ target: users.email })
+      .returning({ id: users.id })
+    if (inserted.length === 0) throw conflict('email_taken', 'An account with this e-mail address already exists.')
+    const userId = inserted[0]!.id
+    const { token, tokenHash } = newToken()
+    await db.insert(passwordTokens).values({
+      userId,
+      tokenHash,
+      purpose: 'invite',
+      expiresAt: sql`now() + make_interval(hours => ${INVITE_TOKEN_HOURS})`,
+    })
+    const link = `${ctx.publicUrl}/set-password?token=${encodeURIComponent(token)}`
+    await queueMail(ctx.boss, client, staffInvitationMail({ to: input.email, name: input.name, link, expiresHours: INVITE_TOKEN_HOURS }), ctx.mailQueue)
+    return userId
+  })
+  return (await findUserById(ctx.db, id))!
+}
+
+/** Activates or deactivates an account; an administrator cannot deactivate themself. */
+export async function setUserActive(ctx: ServiceContext, actor: Actor, userId: string, active: boolean): Promise<PublicUser> {
+  if (!can(actor, 'user.update')) throw forbidden()
+  if (userId === actor.id && !active) throw conflict('cannot_deactivate_self', 'You cannot deactivate your own account.')
+  const [u] = await ctx.db.update(users).set({ active }).where(eq(users.id, userId)).returning({ id: users.id })
+  if (!u) throw notFound('user_not_found', 'No such user.')
+  return (await findUserById(ctx.db, userId))!
+}
+
+/** Staff of the actor's office (all offices for an administrator). */
+export async function listStaff(ctx: ServiceContext, actor: Actor): Promise<PublicUser[]> {
+  if (!can(actor, 'staff.list')) throw forbidden()
+  const scope = officeScope(actor)
+  if ('none' in scope) return []
+  return listUsers(ctx.db, { staffOnly: true, ...('officeId' in scope ? { officeId: scope.officeId } : {}) })
+}
+
+/** One staff member; another office's staff member is not found (404), not forbidden. */
+export async function getStaffMember(ctx: ServiceContext, actor: Actor, userId: string): Promise<PublicUser> {
+  if (!can(actor, 'staff.list')) throw forbidden()
+  const u = await findUserById(ctx.db, userId)
+  if (!u || (u.role !== 'investigator' && u.role !== 'supervisor') || !can(actor, 'staff.read', u)) {
+    throw notFound('user_not_found', 'No such staff member.')
+  }
+  return u
+}

@@ -1,0 +1,176 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import request from 'supertest'
+import { createTestContext, DEMO, DEMO_PASSWORD, signedInAgent, uniqueAddress, type TestContext } from '../support/harness'
+
+let t: TestContext
+beforeAll(async () => {
+  t = await createTestContext()
+})
+afterAll(() => t.close())
+
+const anon = () => request.agent(t.app).set('X-Forwarded-For', uniqueAddress())
+
+/** The link of the newest queued e-mail to an address (mail jobs are rows in pg-boss). */
+async function linkFromQueuedMail(to: string): Promise<string> {
+  const { rows } = await t.pool.query(
+    `SELECT data FROM pgboss.job WHERE name = 'mail-send' AND data->>'to' = $1 ORDER BY created_on DESC LIMIT 1`,
+    [to],
+  )
+  expect(rows, `a mail to ${to} was queued`).toHaveLength(1)
+  const m = /https?:\/\/\S+\/set-password\?token=([A-Za-z0-9_-]+)/.exec(rows[0].data.text)
+  expect(m, 'the mail carries a set-password link').not.toBeNull()
+  return m![1]!
+}
+
+describe('sign-in', () => {
+  it.each([
+    ['admin', DEMO.admin],
+    ['supervisor', DEMO.supervisor],
+    ['investigator', DEMO.investigator],
+    ['complainant', DEMO.complainant],
+  ])('signs in the demo %s and /api/me returns them with their role', async (role, email) => {
+    const agent = await signedInAgent(t.app, email)
+    const me = await agent.get('/api/me').expect(200)
+    expect(me.body.user).toMatchObject({ email, role })
+    if (role === 'supervisor' || role === 'investigator') expect(me.body.user.officeName).toBe('Harrowmere')
+  })
+
+  it('sets an HttpOnly, SameSite=Lax session cookie and a new session id at sign-in', async () => {
+    const agent = anon()
+    await agent.post('/api/auth/password-reset').send({ email: 'nobody-cookie@example.test' }) // no session created
+    const res = await agent.post('/api/auth/sign-in').send({ email: DEMO.admin, password: DEMO_PASSWORD }).expect(200)
+    const cookie = res.headers['set-cookie']![0]!
+    expect(cookie).toMatch(/^qb\.sid=/)
+    expect(cookie).toMatch(/HttpOnly/i)
+    expect(cookie).toMatch(/SameSite=Lax/i)
+    const first = cookie.split(';')[0]
+    const again = await agent.post('/api/auth/sign-in').send({ email: DEMO.admin, password: DEMO_PASSWORD }).expect(200)
+    expect(again.headers['set-cookie']![0]!.split(';')[0]).not.toBe(first)
+  })
+
+  it('answers a wrong password and an unknown account with the same generic 401', async () => {
+    const wrong = await anon().post('/api/auth/sign-in').send({ email: DEMO.investigator, password: 'not-the-password' }).expect(401)
+    const unknown = await anon().post('/api/auth/sign-in').send({ email: 'nobody-at-all@example.test', password: 'not-the-password' }).expect(401)
+    expect(wrong.body.error.code).toBe('invalid_credentials')
+    expect(wrong.body.error.message).toBe('E-mail or password is not correct.')
+    expect(unknown.body.error).toMatchObject({ code: wrong.body.error.code, message: wrong.body.error.message })
+  })
+
+  it('refuses with 429 after repeated failures on one account, even with the right password', async () => {
+    const email = DEMO.otherInvestigator
+    for (let i = 0; i < 5; i++) {
+      await anon().post('/api/auth/sign-in').send({ email, password: `wrong-${i}-password` }).expect(401)
+    }
+    const res = await anon().post('/api/auth/sign-in').send({ email, password: DEMO_PASSWORD }).expect(429)
+    expect(res.body.error.code).toBe('too_many_attempts')
+    await t.pool.query(`DELETE FROM sign_in_attempts WHERE email = $1`, [email]) // leave the demo account usable
+  })
+
+  it('refuses with 429 after repeated failures from one address across accounts', async () => {
+    const agent = anon()
+    for (let i = 0; i < 20; i++) {
+      await agent.post('/api/auth/sign-in').send({ email: `spray-${i}@example.test`, password: 'guess-guess' }).expect(401)
+    }
+    await agent.post('/api/auth/sign-in').send({ email: DEMO.admin, password: DEMO_PASSWORD }).expect(429)
+  })
+
+  it('signs out: the session no longer answers /api/me', async () => {
+    const agent = await signedInAgent(t.app, DEMO.supervisor)
+    await agent.post('/api/auth/sign-out').expect(204)
+    await agent.get('/api/me').expect(401)
+  })
+
+  it('lists every field error of a malformed sign-in', async () => {
+    const res = await anon().post('/api/auth/sign-in').send({ email: 'not-an-address' }).expect(400)
+    expect(res.body.error.code).toBe('validation_failed')
+    expect(res.body.error.details.map((d: { path: string }) => d.path).sort()).toEqual(['email', 'password'])
+  })
+})
+
+describe('complainant registration', () => {
+  it('creates a complainant account and signs it in; the same address again is 409', async () => {
+    const agent = anon()
+    const email = `reg-${Date.now()}@example.test`
+    const res = await agent.post('/api/auth/register').send({ name: 'Nell Ashgrove', email, password: 'a-long-enough-pass' }).expect(201)
+    expect(res.body.user).toMatchObject({ email, role: 'complainant', officeId: null })
+    await agent.get('/api/me').expect(200)
+    const again = await anon().post('/api/auth/register').send({ name: 'Nell', email: email.toUpperCase(), password: 'a-long-enough-pass' }).expect(409)
+    expect(again.body.error.code).toBe('email_taken')
+  })
+})
+
+describe('password reset', () => {
+  it('e-mails a single-use link that sets a new password', async () => {
+    const email = `reset-${Date.now()}@example.test`
+    await anon().post('/api/auth/register').send({ name: 'Ola Reset', email, password: 'first-password-1' }).expect(201)
+    await anon().post('/api/auth/password-reset').send({ email }).expect(202)
+    const token = await linkFromQueuedMail(email)
+    const { rows } = await t.pool.query(`SELECT count(*)::int AS n FROM password_tokens WHERE token_hash = $1`, [token])
+    expect(rows[0].n, 'the raw token is never stored').toBe(0)
+    await anon().post('/api/auth/set-password').send({ token, password: 'second-password-2' }).expect(200)
+    await anon().post('/api/auth/set-password').send({ token, password: 'third-password-3' }).expect(400)
+    await anon().post('/api/auth/sign-in').send({ email, password: 'first-password-1' }).expect(401)
+    await anon().post('/api/auth/sign-in').send({ email, password: 'second-password-2' }).expect(200)
+  })
+
+  it('refuses an expired link', async () => {
+    const email = `expired-${Date.now()}@example.test`
+    await anon().post('/api/auth/register').send({ name: 'Ola Late', email, password: 'first-password-1' }).expect(201)
+    await anon().post('/api/auth/password-reset').send({ email }).expect(202)
+    const token = await linkFromQueuedMail(email)
+    await t.pool.query(`UPDATE password_tokens SET expires_at = now() - interval '1 minute' WHERE user_id = (SELECT id FROM users WHERE email = $1)`, [email])
+    const res = await anon().post('/api/auth/set-password').send({ token, password: 'second-password-2' }).expect(400)
+    expect(res.body.error.code).toBe('invalid_token')
+  })
+
+  it('answers 202 for an unknown address and queues nothing', async () => {
+    const email = `ghost-${Date.now()}@example.test`
+    await anon().post('/api/auth/password-reset').send({ email }).expect(202)
+    const { rows } = await t.pool.query(`SELECT count(*)::int AS n FROM pgboss.job WHERE data->>'to' = $1`, [email])
+    expect(rows[0].n).toBe(0)
+  })
+})
+
+describe('staff accounts', () => {
+  it('lets an administrator create an investigator, who sets a password from the e-mailed link and signs in', async () => {
+    const admin = await signedInAgent(t.app, DEMO.admin)
+    const { rows } = await t.pool.query(`SELECT id FROM offices WHERE name = 'Kestrel Bay'`)
+    const email = `new.staff.${Date.now()}@quietband.test`
+    const created = await admin.post('/api/admin/users').send({ name: 'Pia Hollow', email, role: 'investigator', officeId: rows[0].id }).expect(201)
+    expect(created.body.user).toMatchObject({ email, role: 'investigator', officeName: 'Kestrel Bay' })
+    await anon().post('/api/auth/sign-in').send({ email, password: 'anything-at-all' }).expect(401)
+    const token = await linkFromQueuedMail(email)
+    await anon().post('/api/auth/set-password').send({ token, password: 'my-own-password' }).expect(200)
+    const agent = await signedInAgent(t.app, email, 'my-own-password')
+    expect((await agent.get('/api/me').expect(200)).body.user.role).toBe('investigator')
+  })
+
+  it('refuses an investigator or supervisor without an office', async () => {
+    const admin = await signedInAgent(t.app, DEMO.admin)
+    const res = await admin.post('/api/admin/users').send({ name: 'No Office', email: `no-office-${Date.now()}@quietband.test`, role: 'supervisor', officeId: null }).expect(400)
+    expect(res.body.error.details).toEqual([{ path: 'officeId', message: 'Investigators and supervisors belong to an office.' }])
+  })
+
+  it('deactivated accounts cannot sign in', async () => {
+    const admin = await signedInAgent(t.app, DEMO.admin)
+    const email = `leaver-${Date.now()}@example.test`
+    const reg = await anon().post('/api/auth/register').send({ name: 'Leaver', email, password: 'leaver-password' }).expect(201)
+    await admin.patch(`/api/admin/users/${reg.body.user.id}`).send({ active: false }).expect(200)
+    await anon().post('/api/auth/sign-in').send({ email, password: 'leaver-password' }).expect(401)
+  })
+})
+
+describe('cross-site protection', () => {
+  it('refuses a state-changing request whose Origin is another site', async () => {
+    const res = await anon().post('/api/auth/sign-in').set('Origin', 'https://evil.example').send({ email: DEMO.admin, password: DEMO_PASSWORD }).expect(403)
+    expect(res.body.error.code).toBe('cross_site_request')
+  })
+
+  it('accepts the same request from the app’s own origin', async () => {
+    await anon().post('/api/auth/sign-in').set('Origin', 'http://127.0.0.1:3999').send({ email: DEMO.admin, password: DEMO_PASSWORD }).expect(200)
+  })
+
+  it('refuses a cross-site request that carries only Sec-Fetch-Site', async () => {
+    await anon().post('/api/auth/sign-out').set('Sec-Fetch-Site', 'cross-site').expect(403)
+  })
+})

@@ -1,0 +1,34 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import request from 'supertest'
+import { createTestContext, type TestContext } from '../support/harness'
+
+let t: TestContext
+beforeAll(async () => {
+  t = await createTestContext()
+})
+afterAll(() => t.close())
+
+describe('the one error shape', () => {
+  it('answers malformed JSON with 400 malformed_json and a request id', async () => {
+    const res = await request(t.app).post('/api/auth/sign-in').set('Content-Type', 'application/json').send('{"email": ').expect(400)
+    expect(res.body).toEqual({ error: { code: 'malformed_json', message: expect.any(String), requestId: expect.any(String) } })
+    expect(res.headers['x-request-id']).toBe(res.body.error.requestId)
+  })
+
+  it('answers an unknown /api route with 404 JSON', async () => {
+    const res = await request(t.app).get('/api/no-such-thing').expect(404)
+    expect(res.body.error.code).toBe('route_not_found')
+  })
+
+  it('answers an oversize body with 413', async () => {
+    const res = await request(t.app).post('/api/auth/sign-in').send({ email: 'a@b.test', password: 'x'.repeat(300_000) }).expect(413)
+    expect(res.body.error.code).toBe('payload_too_large')
+  })
+
+  it('answers a malformed id with 400 and the field named', async () => {
+    const { signedInAgent, DEMO } = await import('../support/harness')
+    const admin = await signedInAgent(t.app, DEMO.admin)
+    const res = await admin.get('/api/offices/not-a-uuid').expect(400)
+    expect(res.body.error.details[0].path).toBe('id')
+  })
+})

@@ -1,0 +1,64 @@
+/**
+ * Starts a throwaway PostgreSQL cluster for the API and browser tests (its own folder and
+ * port, deleted afterwards), migrates and seeds the demo once, and always stops it — also
+ * when setup itself fails (vitest does not call teardown then).
+ */
+import { execFileSync } from 'node:child_process'
+import fs from 'node:fs'
+import net from 'node:net'
+import os from 'node:os'
+import path from 'node:path'
+import { fileURLToPath } from 'node:url'
+import type { TestProject } from 'vitest/node'
+import { createPool, runMigrations } from '../../server/db/client'
+import { seedDemo } from '../../ops/seed-demo'
+
+const dbScript = fileURLToPath(new URL('../../ops/db.sh', import.meta.url))
+
+async function freePort(): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const s = net.createServer()
+    s.once('error', reject)
+    s.listen(0, '127.0.0.1', () => {
+      const port = (s.address() as net.AddressInfo).port
+      s.close(() => resolve(port))
+    })
+  })
+}
+
+export default async function setup(project: TestProject) {
+  if (process.env.TEST_DATABASE_URL) {
+    await runMigrations(process.env.TEST_DATABASE_URL)
+    project.provide('databaseUrl', process.env.TEST_DATABASE_URL)
+    return
+  }
+  const base = fs.mkdtempSync(path.join(os.tmpdir(), 'quietband-test-'))
+  fs.chmodSync(base, 0o755)
+  const env = { ...process.env, PGDATA_DIR: path.join(base, 'pgdata'), PGPORT: String(await freePort()), DB_NAME: 'quietband_test', PG_FAST_UNSAFE: '1' }
+  const teardown = () => {
+    try {
+      execFileSync('bash', [dbScript, 'stop'], { env, stdio: 'ignore' })
+    } finally {
+      fs.rmSync(base, { recursive: true, force: true })
+    }
+  }
+  try {
+    const out = execFileSync('bash', [dbScript, 'start'], { env, encoding: 'utf8' })
+    const databaseUrl = /DATABASE_URL=(\S+)/.exec(out)![1]!
+    await runMigrations(databaseUrl)
+    const pool = createPool(databaseUrl, 2)
+    await seedDemo(pool)
+    await pool.end()
+    project.provide('databaseUrl', databaseUrl)
+  } catch (e) {
+    teardown()
+    throw e
+  }
+  return teardown
+}
+
+declare module 'vitest' {
+  export interface ProvidedContext {
+    databaseUrl: string
+  }
+}

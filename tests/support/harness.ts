@@ -1,0 +1,70 @@
+/** An app wired to the throwaway test database, with helpers to act as each demo role. */
+import { inject } from 'vitest'
+import request from 'supertest'
+import type PgBoss from 'pg-boss'
+import type pg from 'pg'
+import { createApp, type AppHandle } from '../../server/app'
+import { createPool } from '../../server/db/client'
+import { startBoss } from '../../server/jobs/boss'
+import { DEMO_PASSWORD } from '../../ops/seed-demo'
+
+export const DEMO = {
+  admin: 'admin@quietband.test',
+  supervisor: 's.okafor@quietband.test',
+  investigator: 'm.ferreira@quietband.test',
+  complainant: 'rosa.lindqvist@example.test',
+  otherSupervisor: 'l.brandt@quietband.test',
+  otherInvestigator: 'a.kowalczyk@quietband.test',
+} as const
+export { DEMO_PASSWORD }
+
+export interface TestContext {
+  handle: AppHandle
+  app: AppHandle['app']
+  pool: pg.Pool
+  boss: PgBoss
+  databaseUrl: string
+  close(): Promise<void>
+}
+
+export async function createTestContext(opts: { mailboxDir?: string; publicUrl?: string } = {}): Promise<TestContext> {
+  const databaseUrl = inject('databaseUrl')
+  const pool = createPool(databaseUrl, 5)
+  const boss = await startBoss(databaseUrl)
+  const handle = createApp({
+    pool,
+    boss,
+    sessionSecret: 'test-session-secret-that-is-long-enough-0123',
+    publicUrl: opts.publicUrl ?? 'http://127.0.0.1:3999',
+    mailboxDir: opts.mailboxDir,
+    mailQueue: { retryDelaySeconds: 1, retryLimit: 10 },
+    trustProxy: 1,
+  })
+  return {
+    handle,
+    app: handle.app,
+    pool,
+    boss,
+    databaseUrl,
+    async close() {
+      await boss.stop({ graceful: false, wait: true, timeout: 3000 })
+      handle.close()
+      await pool.end()
+    },
+  }
+}
+
+let addressCounter = 0
+/** A distinct client address per agent, so sign-in limits of one test never touch another. */
+export function uniqueAddress(): string {
+  addressCounter += 1
+  return `10.${process.pid % 250}.${Math.floor(addressCounter / 250)}.${addressCounter % 250}`
+}
+
+/** A supertest agent signed in as the given e-mail (demo password by default). */
+export async function signedInAgent(app: TestContext['app'], email: string, password = DEMO_PASSWORD) {
+  const agent = request.agent(app).set('X-Forwarded-For', uniqueAddress())
+  const res = await agent.post('/api/auth/sign-in').send({ email, password })
+  if (res.status !== 200) throw new Error(`sign-in as ${email} failed: ${res.status} ${JSON.stringify(res.body)}`)
+  return agent
+}

@@ -1,0 +1,17 @@
+import { defineConfig } from 'vite'
+import react from '@vitejs/plugin-react'
+import tailwindcss from '@tailwindcss/vite'
+
+// The web app lives in web/; the build lands in dist/web, served by the Express process.
+export default defineConfig({
+  root: 'web',
+  plugins: [react(), tailwindcss()],
+  build: { outDir: '../dist/web', emptyOutDir: true, chunkSizeWarningLimit: 600 },
+  server: {
+    host: '127.0.0.1',
+    port: 5173,
+    strictPort: true,
+    proxy: { '/api': `http://127.0.0.1:${process.env.PORT ?? 3000}` },
+  },
+  preview: { host: '127.0.0.1', port: 4173, strictPort: true },
+})
