@@ -1,0 +1,42 @@
+/**
+ * `npm run dev`: the local services, a watching API server and the Vite dev server with
+ * its /api proxy. Open http://127.0.0.1:5173. Ctrl-C stops everything it started.
+ */
+import { spawn, type ChildProcess } from 'node:child_process'
+import path from 'node:path'
+import { createPool, runMigrations } from '../server/db/client'
+import { ensureLocalServices, loadDotEnv, ROOT } from './local/services'
+import { seedDemo } from './seed-demo'
+
+loadDotEnv()
+const services = await ensureLocalServices()
+const port = process.env.PORT ?? '3000'
+const env: NodeJS.ProcessEnv = {
+  ...process.env,
+  ...services.env,
+  PORT: port,
+  PUBLIC_URL: process.env.PUBLIC_URL ?? 'http://127.0.0.1:5173',
+  AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED: 'true',
+}
+await runMigrations(env.DATABASE_URL!)
+const pool = createPool(env.DATABASE_URL!, 2)
+await seedDemo(pool)
+await pool.end()
+
+const children: ChildProcess[] = [
+  spawn(process.execPath, ['--watch', '--import', 'tsx', 'server/index.ts'], { cwd: ROOT, env, stdio: 'inherit' }),
+  spawn(process.execPath, [path.join(ROOT, 'node_modules/vite/bin/vite.js')], { cwd: ROOT, env, stdio: 'inherit' }),
+]
+console.log(`\nQuietband (development): http://127.0.0.1:5173  — API on :${port}; mailbox at /dev/mailbox\n`)
+
+let stopping = false
+async function stop() {
+  if (stopping) return
+  stopping = true
+  for (const c of children) c.kill('SIGTERM')
+  await Promise.all(children.map((c) => new Promise((r) => (c.exitCode !== null ? r(null) : c.once('exit', r)))))
+  await services.stop()
+  process.exit(0)
+}
+process.once('SIGINT', () => void stop())
+process.once('SIGTERM', () => void stop())
