@@ -1,0 +1,7 @@
+/** Measurement chain: analyser reading → field strength, pfd and received power; EIRP/ERP helpers. */
+export * from './antenna'
+export * from './received-power'
+export * from './far-field'
+export * from './measurement-chain'
+export * from './channel-power'
+export * from './eirp'

@@ -1,0 +1,5 @@
+export * from './isotropic-power'
+export * from './eirp-from-measurement'
+export * from './fit-eirp-exponent'
+export * from './levenberg-marquardt'
+export * from './locate-source'

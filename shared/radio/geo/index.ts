@@ -1,0 +1,3 @@
+export * from './geodesic'
+export * from './nearest-office'
+export * from './local-tangent-plane'

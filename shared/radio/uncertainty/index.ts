@@ -1,0 +1,5 @@
+export * from './gum-budget'
+export * from './distance-sensitivity'
+export * from './prng'
+export * from './monte-carlo'
+export * from './student-t'

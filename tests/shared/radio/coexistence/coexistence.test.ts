@@ -1,0 +1,197 @@
+import fc from 'fast-check'
+import { describe, expect, it } from 'vitest'
+import checks from '../../../fixtures/radio/coexistence-checks.json'
+import {
+  assessCoexistence,
+  bandwidthOverlapLossDb,
+  DEFAULT_PROTECTION_CRITERION,
+  desensitisationDb,
+  inrForDesensitisationDb,
+  interferencePowerDbm,
+  noiseBandwidthHz,
+  noiseFloorDbm,
+  PROTECTION_CRITERIA,
+  separationDistanceM,
+  thermalNoiseDensityDbmPerHz,
+} from '../../../../shared/radio/coexistence'
+import { createPropagationModel } from '../../../../shared/radio/propagation/registry'
+import { powerLawModel } from './power-law-model'
+
+const within = (actual: number, expected: number, tol: number) => expect(Math.abs(actual - expected)).toBeLessThanOrEqual(tol)
+
+describe('noiseFloorDbm', () => {
+  for (const row of checks.noiseFloor) {
+    it(`${row.id}: matches the exact kT0B value ${row.exactDbm} dBm within ${row.exactToleranceDb} dB (${row.source}, ${row.status})`, () => {
+      within(noiseFloorDbm(row).value.noiseDbm, row.exactDbm, row.exactToleranceDb)
+    })
+    it(`${row.id}: matches the "−174 dBm/Hz" value ${row.rounded174Dbm} dBm within ${row.rounded174ToleranceDb} dB (rounded constant)`, () => {
+      within(noiseFloorDbm(row).value.noiseDbm, row.rounded174Dbm, row.rounded174ToleranceDb)
+    })
+  }
+  it('gives kT at 300 K as −173.83 dBm/Hz, not the 290 K value (CHECKS §9 trap, [D])', () => {
+    within(thermalNoiseDensityDbmPerHz({ temperatureK: 300 }), -173.83, 0.01)
+  })
+  it('warns when the reference temperature is not 290 K', () => {
+    expect(noiseFloorDbm({ bandwidthHz: 1e6, temperatureK: 300 }).warnings.length).toBe(1)
+    expect(noiseFloorDbm({ bandwidthHz: 1e6 }).warnings).toEqual([])
+  })
+  it('bandwidth → noise floor → bandwidth returns the bandwidth', () => {
+    fc.assert(
+      fc.property(fc.double({ min: 1, max: 1e10, noNaN: true }), fc.double({ min: 0, max: 30, noNaN: true }), (bandwidthHz, noiseFigureDb) => {
+        const n = noiseFloorDbm({ bandwidthHz, noiseFigureDb }).value.noiseDbm
+        expect(noiseBandwidthHz({ noiseDbm: n, noiseFigureDb }) / bandwidthHz).toBeCloseTo(1, 9)
+      }),
+    )
+  })
+  it('throws a RangeError naming bandwidthHz for a zero bandwidth', () => {
+    expect(() => noiseFloorDbm({ bandwidthHz: 0 })).toThrow(/bandwidthHz/)
+  })
+  it('throws a RangeError naming noiseFigureDb for a negative noise figure', () => {
+    expect(() => noiseFloorDbm({ bandwidthHz: 1e6, noiseFigureDb: -1 })).toThrow(/noiseFigureDb/)
+  })
+})
+
+describe('desensitisationDb', () => {
+  for (const row of checks.desensitisation) {
+    it(`${row.id}: I/N ${row.inrDb} dB gives ${row.expectedDb} dB within ${row.toleranceDb} dB (${row.source}, ${row.status})`, () => {
+      within(desensitisationDb(row.inrDb), row.expectedDb, row.toleranceDb)
+    })
+  }
+  it('I/N → desensitisation → I/N returns the I/N', () => {
+    fc.assert(
+      fc.property(fc.double({ min: -60, max: 60, noNaN: true }), (inr) => {
+        expect(inrForDesensitisationDb(desensitisationDb(inr))).toBeCloseTo(inr, 6)
+      }),
+    )
+  })
+})
+
+describe('protection criteria', () => {
+  it('defaults to I/N = −6 dB', () => {
+    expect(PROTECTION_CRITERIA[DEFAULT_PROTECTION_CRITERION].inrDb).toBe(-6)
+  })
+  it('offers −6, −10 and −20 dB presets, each marked [M] in its description', () => {
+    expect(Object.values(PROTECTION_CRITERIA).map((c) => c.inrDb)).toEqual([-6, -10, -20])
+    for (const c of Object.values(PROTECTION_CRITERIA)) {
+      expect(c.status).toBe('[M]')
+      expect(c.description).toContain('[M]')
+    }
+  })
+})
+
+interface LinkRow {
+  id: string
+  source: string
+  status: string
+  toleranceDb: number
+  distanceToleranceRelative: number
+  inputs: Record<string, number>
+  expected: Record<string, number>
+}
+
+describe('interferencePowerDbm and assessCoexistence', () => {
+  const [row, row2] = checks.linkBudget as unknown as LinkRow[]
+  const i = row.inputs
+  const opts = {
+    interfererEirpDbm: i.interfererEirpDbm,
+    model: powerLawModel({ freqHz: i.freqHz }),
+    victimAntennaGainDbi: i.victimAntennaGainDbi,
+    victimFeederLossDb: i.victimFeederLossDb,
+    victimNoise: { bandwidthHz: i.bandwidthHz, noiseFigureDb: i.noiseFigureDb },
+    distanceM: i.distanceM,
+  }
+  it(`${row.id}: matches the worked link budget within ${row.toleranceDb} dB (${row.source}, ${row.status})`, () => {
+    const r = assessCoexistence(opts).value
+    const e = row.expected
+    within(interferencePowerDbm(opts).value.pathLossDb, e.pathLossDb, row.toleranceDb)
+    within(r.interferenceDbm, e.interferenceDbm, row.toleranceDb)
+    within(r.noiseDbm, e.noiseDbm, row.toleranceDb)
+    within(r.inrDb, e.inrDb, row.toleranceDb)
+    within(r.desensitisationDb, e.desensitisationDb, row.toleranceDb)
+    within(r.marginDb, e.marginDbAgainstMinus6, row.toleranceDb)
+    within(r.eirpReductionDb, e.marginDbAgainstMinus6, row.toleranceDb)
+    within(r.requiredPathLossDb, e.requiredPathLossDb, row.toleranceDb)
+    expect(Math.abs(r.separationDistanceM / e.separationDistanceM - 1)).toBeLessThanOrEqual(row.distanceToleranceRelative)
+    expect(r.meetsCriterion).toBe(false)
+  })
+  it(`${row2.id}: applies bandwidth overlap and frequency-dependent rejection (${row2.source}, ${row2.status})`, () => {
+    const j = row2.inputs
+    const r = assessCoexistence({
+      ...opts,
+      bandwidthOverlap: { overlapBandwidthHz: j.overlapBandwidthHz, interfererBandwidthHz: j.interfererBandwidthHz },
+      frequencyDependentRejectionDb: j.frequencyDependentRejectionDb,
+    }).value
+    within(r.interferenceDbm, row2.expected.interferenceDbm, row2.toleranceDb)
+    within(r.inrDb, row2.expected.inrDb, row2.toleranceDb)
+  })
+  it('meets the criterion with zero EIRP reduction when I/N is below it', () => {
+    const r = assessCoexistence({ ...opts, distanceM: 500e3 }).value
+    expect(r.meetsCriterion).toBe(true)
+    expect(r.eirpReductionDb).toBe(0)
+    expect(r.marginDb).toBeLessThan(0)
+  })
+  it('uses the −10 dB preset when asked, 4 dB stricter than the default', () => {
+    const a = assessCoexistence(opts).value
+    const b = assessCoexistence({ ...opts, criterion: 'i-n-minus-10' }).value
+    expect(b.marginDb - a.marginDb).toBeCloseTo(4, 12)
+    expect(b.criterionDescription).toContain('[M]')
+  })
+  it('accepts a custom criterion and a victim noise given directly', () => {
+    const r = assessCoexistence({ ...opts, victimNoise: { noiseDbm: -100 }, criterion: { inrDb: 0 } }).value
+    expect(r.noiseDbm).toBe(-100)
+    expect(r.criterionInrDb).toBe(0)
+  })
+  it('puts I/N exactly at the criterion when the separation distance is fed back, for any power-law model', () => {
+    fc.assert(
+      fc.property(
+        fc.double({ min: 0, max: 80, noNaN: true }),
+        fc.double({ min: 30e6, max: 60e9, noNaN: true }),
+        fc.double({ min: 1.6, max: 5, noNaN: true }),
+        fc.double({ min: -10, max: 40, noNaN: true }),
+        fc.constantFrom('i-n-minus-6', 'i-n-minus-10', 'i-n-minus-20' as const),
+        (eirp, freqHz, exponent, gainDbi, criterion) => {
+          const base = {
+            interfererEirpDbm: eirp,
+            model: powerLawModel({ freqHz, exponent }),
+            victimAntennaGainDbi: gainDbi,
+            victimFeederLossDb: 1,
+            victimNoise: { bandwidthHz: 1e6, noiseFigureDb: 6 },
+            criterion,
+          }
+          const d = separationDistanceM(base).value.separationDistanceM
+          const back = assessCoexistence({ ...base, distanceM: d }).value
+          expect(back.inrDb).toBeCloseTo(PROTECTION_CRITERIA[criterion].inrDb, 6)
+          expect(back.marginDb).toBeCloseTo(0, 6)
+        },
+      ),
+    )
+  })
+  it('gives the same separation distance with the library free-space model as with the exact free-space formula', () => {
+    const viaRegistry = separationDistanceM({ ...opts, model: createPropagationModel({ kind: 'free-space', freqHz: i.freqHz }) })
+    const viaFormula = separationDistanceM(opts)
+    expect(viaRegistry.value.separationDistanceM / viaFormula.value.separationDistanceM).toBeCloseTo(1, 9)
+  })
+  it('meets the criterion after the EIRP reduction it asks for', () => {
+    const r = assessCoexistence(opts).value
+    const after = assessCoexistence({ ...opts, interfererEirpDbm: opts.interfererEirpDbm - r.eirpReductionDb }).value
+    expect(after.inrDb).toBeCloseTo(-6, 9)
+    expect(r.maxEirpDbm).toBeCloseTo(opts.interfererEirpDbm - r.eirpReductionDb, 9)
+  })
+  it('gives a bandwidth-overlap loss of 3.01 dB for half the interferer bandwidth (10 log 2, [D])', () => {
+    within(bandwidthOverlapLossDb({ overlapBandwidthHz: 5e6, interfererBandwidthHz: 10e6 }), 3.01, 0.01)
+    expect(bandwidthOverlapLossDb(undefined)).toBe(0)
+  })
+  it('throws a RangeError when the overlap is wider than the interferer', () => {
+    expect(() => bandwidthOverlapLossDb({ overlapBandwidthHz: 20e6, interfererBandwidthHz: 10e6 })).toThrow(/overlapBandwidthHz/)
+  })
+  it('throws a RangeError naming distanceM for a zero distance', () => {
+    expect(() => assessCoexistence({ ...opts, distanceM: 0 })).toThrow(/distanceM/)
+  })
+  it('throws a RangeError naming victimFeederLossDb for a negative feeder loss', () => {
+    expect(() => interferencePowerDbm({ ...opts, victimFeederLossDb: -2 })).toThrow(/victimFeederLossDb/)
+  })
+  it('throws a RangeError for an unknown criterion preset', () => {
+    const criterion = 'i-n-minus-3' as unknown as 'i-n-minus-6'
+    expect(() => assessCoexistence({ ...opts, criterion })).toThrow(/criterion/)
+  })
+})

@@ -1,0 +1,41 @@
+import { describe, expect, it } from 'vitest'
+import { landingPathFor, safeNextPath, signInPathFor } from '../../../web/src/features/auth/lib/landing'
+
+describe('landingPathFor', () => {
+  it('sends field staff to /work, administrators to /admin/users and complainants to /my-reports', () => {
+    expect(landingPathFor('investigator')).toBe('/work')
+    expect(landingPathFor('supervisor')).toBe('/work')
+    expect(landingPathFor('admin')).toBe('/admin/users')
+    expect(landingPathFor('complainant')).toBe('/my-reports')
+  })
+})
+
+describe('safeNextPath', () => {
+  it('keeps a path on this site, with its query and hash', () => {
+    expect(safeNextPath('/admin/users?sort=name#top')).toBe('/admin/users?sort=name#top')
+  })
+
+  it('refuses addresses that would leave the site', () => {
+    for (const next of ['https://elsewhere.test/', '//elsewhere.test/x', '/\\elsewhere.test', 'javascript:alert(1)', 'work', '/work\n']) {
+      expect(safeNextPath(next)).toBeNull()
+    }
+  })
+
+  it('refuses the sign-in and password pages themselves, so sign-in cannot loop', () => {
+    expect(safeNextPath('/sign-in?next=/work')).toBeNull()
+    expect(safeNextPath('/set-password?token=abc')).toBeNull()
+  })
+
+  it('gives null for a missing value', () => {
+    expect(safeNextPath(null)).toBeNull()
+    expect(safeNextPath('')).toBeNull()
+  })
+})
+
+describe('signInPathFor', () => {
+  it('round-trips the current page through next=', () => {
+    const path = signInPathFor({ pathname: '/admin/users', search: '?q=a&b=1' })
+    expect(path).toBe('/sign-in?next=%2Fadmin%2Fusers%3Fq%3Da%26b%3D1')
+    expect(safeNextPath(new URLSearchParams(path.split('?')[1]).get('next'))).toBe('/admin/users?q=a&b=1')
+  })
+})

@@ -1,0 +1,26 @@
+/** What a signed-in person sees on a page meant for another role. */
+import { Link } from 'react-router-dom'
+import { ROLE_LABELS } from '../../../../shared/domain/roles'
+import type { SessionUser } from '../../../../shared/schemas/auth'
+import { PageHeader } from '../../components/ui/page-header'
+import { buttonClass } from '../../components/ui/button'
+import { landingPathFor } from '../../features/auth/lib/landing'
+
+export function NotAvailable({ user }: { user: SessionUser }) {
+  return (
+    <>
+      <PageHeader
+        title="Not available for your role"
+        lead={
+          <p>
+            You are signed in as {user.name} ({ROLE_LABELS[user.role]}). This page belongs to another kind of account, so there
+            is nothing here for you.
+          </p>
+        }
+      />
+      <Link to={landingPathFor(user.role)} className={buttonClass('primary')}>
+        Go to your start page
+      </Link>
+    </>
+  )
+}

@@ -1,0 +1,50 @@
+/** /admin/users — every account; add staff; let accounts in or keep them out. */
+import { useState } from 'react'
+import { FormAlert } from '../../components/ui/form-alert'
+import { Loading } from '../../components/ui/loading'
+import { PageHeader } from '../../components/ui/page-header'
+import { Panel } from '../../components/ui/panel'
+import { QueryError } from '../../components/ui/query-error'
+import { useUsers } from '../../features/admin-users/api/get-users'
+import { useSetUserActive } from '../../features/admin-users/api/set-user-active'
+import { CreateUserForm } from '../../features/admin-users/components/create-user-form'
+import { UsersTable } from '../../features/admin-users/components/users-table'
+import { useMe } from '../../features/auth/api/get-me'
+import { useOffices } from '../../features/offices/api/get-offices'
+import { formProblem, type FormProblem } from '../../lib/form-errors'
+
+export function Component() {
+  const users = useUsers()
+  const offices = useOffices()
+  const me = useMe()
+  const setActive = useSetUserActive()
+  const [problem, setProblem] = useState<FormProblem | null>(null)
+
+  return (
+    <>
+      <PageHeader title="Users" lead={<p>Staff accounts and complainant accounts. New staff choose their own password from an e-mailed link.</p>} />
+      <div className="flex flex-col gap-8">
+        <section aria-label="All users" className="flex flex-col gap-3">
+          <FormAlert problem={problem} />
+          {users.isPending && <Loading label="Loading users…" />}
+          {users.isError && <QueryError error={users.error} what="users" onRetry={() => void users.refetch()} />}
+          {users.data && (
+            <UsersTable
+              users={users.data.users}
+              currentUserId={me.data?.id ?? null}
+              pendingUserId={setActive.isPending ? (setActive.variables?.userId ?? null) : null}
+              onSetActive={(user, active) => {
+                setProblem(null)
+                setActive.mutate({ userId: user.id, active }, { onError: (error) => setProblem(formProblem(error)) })
+              }}
+            />
+          )}
+        </section>
+        <Panel className="max-w-3xl">
+          {offices.isError && <QueryError error={offices.error} what="offices" onRetry={() => void offices.refetch()} />}
+          <CreateUserForm offices={offices.data?.offices ?? []} />
+        </Panel>
+      </div>
+    </>
+  )
+}

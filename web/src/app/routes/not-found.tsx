@@ -1,0 +1,6 @@
+/** Any unknown path. */
+import { NotFoundContent } from './route-error'
+
+export function Component() {
+  return <NotFoundContent />
+}

@@ -1,0 +1,38 @@
+/** /set-password?token=… — one page for password resets and new-staff invitations. */
+import { useState } from 'react'
+import { Link, useNavigate, useSearchParams } from 'react-router-dom'
+import { PageHeader } from '../../components/ui/page-header'
+import { Notice } from '../../components/ui/notice'
+import { Panel } from '../../components/ui/panel'
+import { SetPasswordForm } from '../../features/auth/components/set-password-form'
+import { landingPathFor } from '../../features/auth/lib/landing'
+
+export function Component() {
+  const [params] = useSearchParams()
+  const navigate = useNavigate()
+  const token = params.get('token') ?? ''
+  const [tokenRejected, setTokenRejected] = useState(false)
+  const usable = token.length >= 20 && !tokenRejected
+
+  return (
+    <div className="max-w-lg">
+      <PageHeader title="Choose a password" lead={usable ? <p>You will be signed in once it is saved.</p> : undefined} />
+      {usable ? (
+        <Panel>
+          <SetPasswordForm
+            token={token}
+            onDone={(user) => navigate(landingPathFor(user.role), { replace: true })}
+            onInvalidToken={() => setTokenRejected(true)}
+          />
+        </Panel>
+      ) : (
+        <Notice tone="caution" title="This link cannot be used." live>
+          <p>
+            It may be incomplete, already used, or expired. <Link to="/forgot-password">Ask for a new link</Link>; staff who were
+            invited can also ask their administrator to send the invitation again.
+          </p>
+        </Notice>
+      )}
+    </div>
+  )
+}

@@ -1,0 +1,128 @@
+/** All accounts, sortable by any column, with activate/deactivate per row (TanStack Table v9). */
+import {
+  createColumnHelper,
+  createSortedRowModel,
+  rowSortingFeature,
+  sortFn_alphanumeric,
+  sortFn_basic,
+  sortFn_text,
+  tableFeatures,
+  useTable,
+} from '@tanstack/react-table'
+import { format, parseISO } from 'date-fns'
+import { ROLE_LABELS } from '../../../../../shared/domain/roles'
+import type { AdminUser } from '../api/get-users'
+
+const features = tableFeatures({
+  rowSortingFeature,
+  sortedRowModel: createSortedRowModel(),
+  sortFns: { alphanumeric: sortFn_alphanumeric, text: sortFn_text, basic: sortFn_basic },
+})
+const helper = createColumnHelper<typeof features, AdminUser>()
+
+// Module scope: stable columns keep the row models from being rebuilt on every render.
+const columns = helper.columns([
+  helper.accessor('name', { header: 'Name', sortFn: 'text' }),
+  helper.accessor('email', { header: 'E-mail', sortFn: 'text', cell: (c) => <span className="font-mono text-sm">{c.getValue()}</span> }),
+  helper.accessor((u) => ROLE_LABELS[u.role], { id: 'role', header: 'Role', sortFn: 'text' }),
+  helper.accessor((u) => u.officeName ?? '', { id: 'office', header: 'Office', sortFn: 'text', cell: (c) => c.getValue() || <span className="text-ink-muted">—</span> }),
+  helper.accessor('active', { header: 'Status', sortFn: 'basic', cell: (c) => <ActiveState active={c.getValue()} /> }),
+  helper.accessor('createdAt', {
+    header: 'Created',
+    sortFn: 'alphanumeric',
+    cell: (c) => <time dateTime={c.getValue()} className="font-mono text-sm">{format(parseISO(c.getValue()), 'd MMM yyyy')}</time>,
+  }),
+])
+
+export interface UsersTableProps {
+  users: AdminUser[]
+  currentUserId: string | null
+  /** Id of the row whose change is on its way to the server. */
+  pendingUserId: string | null
+  onSetActive: (user: AdminUser, active: boolean) => void
+}
+
+export function UsersTable({ users, currentUserId, pendingUserId, onSetActive }: UsersTableProps) {
+  const table = useTable({ features, columns, data: users, initialState: { sorting: [{ id: 'name', desc: false }] } })
+
+  return (
+    <div className="overflow-x-auto rounded-panel border border-rule bg-surface">
+      <table className="w-full border-collapse text-left">
+        <caption className="sr-only">Users. Column headers sort the table.</caption>
+        <thead className="border-b-2 border-ink text-sm">
+          {table.getHeaderGroups().map((group) => (
+            <tr key={group.id}>
+              {group.headers.map((header) => {
+                const sorted = header.column.getIsSorted()
+                const canSort = header.column.getCanSort()
+                return (
+                  <th
+                    key={header.id}
+                    scope="col"
+                    aria-sort={sorted === 'asc' ? 'ascending' : sorted === 'desc' ? 'descending' : undefined}
+                    className="px-4 py-2 whitespace-nowrap"
+                  >
+                    {canSort ? (
+                      <button type="button" onClick={header.column.getToggleSortingHandler()} className="inline-flex min-h-11 items-center gap-1 font-semibold">
+                        <table.FlexRender header={header} />
+                        <span aria-hidden="true" className="font-mono text-ink-muted">{sorted === 'asc' ? '▲' : sorted === 'desc' ? '▼' : '↕'}</span>
+                      </button>
+                    ) : (
+                      <table.FlexRender header={header} />
+                    )}
+                  </th>
+                )
+              })}
+              <th scope="col" className="px-4 py-2">
+                <span className="sr-only">Actions</span>
+              </th>
+            </tr>
+          ))}
+        </thead>
+        <tbody>
+          {table.getRowModel().rows.map((row) => (
+            <tr key={row.id} className={`border-b border-rule last:border-b-0 ${row.original.active ? '' : 'bg-paper text-ink-muted'}`}>
+              {row.getAllCells().map((cell) => (
+                <td key={cell.id} className="px-4 py-2 whitespace-nowrap">
+                  <table.FlexRender cell={cell} />
+                </td>
+              ))}
+              <td className="px-4 py-2">
+                <RowAction user={row.original} isSelf={row.original.id === currentUserId} pending={pendingUserId === row.original.id} onSetActive={onSetActive} />
+              </td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </div>
+  )
+}
+
+function RowAction({ user, isSelf, pending, onSetActive }: { user: AdminUser; isSelf: boolean; pending: boolean; onSetActive: UsersTableProps['onSetActive'] }) {
+  // Deactivating yourself would lock you out; another administrator has to do that.
+  if (isSelf) return <span className="text-sm text-ink-muted">Your account</span>
+  return (
+    <button
+      type="button"
+      disabled={pending}
+      onClick={() => onSetActive(user, !user.active)}
+      className={`min-h-11 rounded-control border bg-surface px-3 text-sm font-semibold whitespace-nowrap disabled:opacity-60 ${
+        user.active ? 'border-danger text-danger hover:bg-danger-soft' : 'border-signal text-signal hover:bg-signal-soft'
+      }`}
+    >
+      {pending ? 'Saving…' : user.active ? 'Deactivate' : 'Activate'}
+      <span className="sr-only"> {user.name}</span>
+    </button>
+  )
+}
+
+function ActiveState({ active }: { active: boolean }) {
+  return (
+    <span className={`inline-flex items-center gap-1.5 text-sm font-semibold ${active ? 'text-ok' : 'text-ink-muted'}`}>
+      <svg aria-hidden="true" width="10" height="10" viewBox="0 0 10 10">
+        {active ? <circle cx="5" cy="5" r="5" fill="currentColor" /> : <circle cx="5" cy="5" r="4" fill="none" stroke="currentColor" strokeWidth="2" />}
+      </svg>
+      {active ? 'Active' : 'Inactive'}
+    </span>
+  )
+}

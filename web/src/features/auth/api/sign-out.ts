@@ -1,0 +1,21 @@
+/** POST /api/auth/sign-out, then leave for the home page and forget everything cached. */
+import { useMutation, useQueryClient } from '@tanstack/react-query'
+import { useNavigate } from 'react-router-dom'
+import { api } from '../../../lib/api-client'
+import { meQueryKey } from './get-me'
+
+export const signOut = () => api.post<void>('/api/auth/sign-out')
+
+export function useSignOut() {
+  const queryClient = useQueryClient()
+  const navigate = useNavigate()
+  return useMutation({
+    mutationFn: signOut,
+    onSuccess: async () => {
+      // Leave the signed-in page first, so its guard does not bounce to sign-in mid-way.
+      await navigate('/', { replace: true })
+      queryClient.clear()
+      queryClient.setQueryData(meQueryKey, null)
+    },
+  })
+}

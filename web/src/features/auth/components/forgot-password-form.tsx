@@ -1,0 +1,65 @@
+/**
+ * Asks for a reset link. The answer is the same whether or not an account exists, so the page
+ * never reveals who has one.
+ */
+import { zodResolver } from '@hookform/resolvers/zod'
+import { useEffect, useState } from 'react'
+import { useForm } from 'react-hook-form'
+import { resetRequestSchema, type ResetRequestInput } from '../../../../../shared/schemas/auth'
+import { Button } from '../../../components/ui/button'
+import { FormAlert } from '../../../components/ui/form-alert'
+import { Notice } from '../../../components/ui/notice'
+import { TextField } from '../../../components/ui/text-field'
+import { applyFieldErrors, formProblem, type FormProblem } from '../../../lib/form-errors'
+import { useRequestPasswordReset } from '../api/request-password-reset'
+
+export const RESET_SENT_MESSAGE = 'If an account exists for that address, we have sent a link.'
+
+export function ForgotPasswordForm() {
+  const { register, handleSubmit, setError, setFocus, formState } = useForm<ResetRequestInput>({
+    resolver: zodResolver(resetRequestSchema),
+    defaultValues: { email: '' },
+  })
+  const requestReset = useRequestPasswordReset()
+  const [problem, setProblem] = useState<FormProblem | null>(null)
+
+  useEffect(() => setFocus('email'), [setFocus])
+
+  const onSubmit = handleSubmit(async (values) => {
+    setProblem(null)
+    try {
+      await requestReset.mutateAsync(values)
+    } catch (error) {
+      if (applyFieldErrors({ error, setError, fields: ['email'] })) return
+      setProblem(formProblem(error, { byStatus: { 429: 'Too many requests. Wait a few minutes and try again.' } }))
+    }
+  })
+
+  if (requestReset.isSuccess) {
+    return (
+      <Notice tone="ok" title={RESET_SENT_MESSAGE} live>
+        <p>The link works once and expires after a while. Check your spam folder if nothing arrives within a few minutes.</p>
+      </Notice>
+    )
+  }
+
+  return (
+    <form noValidate onSubmit={onSubmit} className="flex flex-col gap-5">
+      <TextField
+        label="E-mail"
+        type="email"
+        autoComplete="email"
+        inputMode="email"
+        spellCheck={false}
+        error={formState.errors.email?.message}
+        {...register('email')}
+      />
+      <FormAlert problem={problem} />
+      <div>
+        <Button type="submit" disabled={formState.isSubmitting}>
+          {formState.isSubmitting ? 'Sending…' : 'Send me a link'}
+        </Button>
+      </div>
+    </form>
+  )
+}

@@ -1,0 +1,33 @@
+/** Where people go after signing in. Pure: shared by the forms, the guard and the nav. */
+import type { Role } from '../../../../../shared/domain/roles'
+
+/** Each role's first page. */
+export function landingPathFor(role: Role): string {
+  switch (role) {
+    case 'admin':
+      return '/admin/users'
+    case 'complainant':
+      return '/my-reports'
+    case 'investigator':
+    case 'supervisor':
+      return '/work'
+  }
+}
+
+/**
+ * Accepts a `next` value only if it is a path on this site; anything else (absolute URLs,
+ * protocol-relative `//host`, back-slash tricks, the auth pages themselves) gives null.
+ */
+export function safeNextPath(next: string | null | undefined): string | null {
+  if (!next || next.length > 2000) return null
+  if (!next.startsWith('/') || next.startsWith('//') || next.includes('\\')) return null
+  if (/[\u0000-\u001f]/.test(next)) return null
+  const pathname = next.split(/[?#]/)[0] ?? ''
+  if (['/sign-in', '/register', '/forgot-password', '/set-password'].includes(pathname)) return null
+  return next
+}
+
+/** Sign-in URL that brings the person back to where they were. */
+export function signInPathFor(location: { pathname: string; search: string }): string {
+  return `/sign-in?next=${encodeURIComponent(location.pathname + location.search)}`
+}

@@ -1,0 +1,50 @@
+/** Offices with their region, centre and response targets (hours per priority). */
+import { PriorityShape, type PriorityLevel } from '../../../components/ui/priority-badge'
+import type { Office } from '../api/get-offices'
+
+const LEVELS: PriorityLevel[] = [1, 2, 3, 4]
+const SHAPE_COLOUR: Record<PriorityLevel, string> = { 1: 'text-priority-1', 2: 'text-priority-2', 3: 'text-priority-3', 4: 'text-priority-4' }
+
+export function OfficesTable({ offices }: { offices: Office[] }) {
+  if (offices.length === 0) return <p className="text-ink-muted">No offices yet.</p>
+  return (
+    <div className="overflow-x-auto rounded-panel border border-rule bg-surface">
+      <table className="w-full border-collapse text-left">
+        <caption className="sr-only">Field offices</caption>
+        <thead className="border-b-2 border-ink text-sm">
+          <tr>
+            <th scope="col" className="px-4 py-3">Office</th>
+            <th scope="col" className="px-4 py-3">Region</th>
+            <th scope="col" className="px-4 py-3">Centre (lat, lon)</th>
+            {LEVELS.map((level) => (
+              <th key={level} scope="col" className="px-4 py-3 text-right">
+                <span className="inline-flex items-center gap-1.5">
+                  <span className={SHAPE_COLOUR[level]}>
+                    <PriorityShape level={level} />
+                  </span>
+                  P{level} target
+                </span>
+              </th>
+            ))}
+          </tr>
+        </thead>
+        <tbody>
+          {offices.map((o) => (
+            <tr key={o.id} className="border-b border-rule last:border-b-0">
+              <th scope="row" className="px-4 py-3 font-semibold">{o.name}</th>
+              <td className="px-4 py-3">{o.regionName}</td>
+              <td className="px-4 py-3 font-mono text-sm">
+                {o.centreLatDeg.toFixed(4)}°, {o.centreLonDeg.toFixed(4)}°
+              </td>
+              {LEVELS.map((level) => (
+                <td key={level} className="px-4 py-3 text-right font-mono text-sm">
+                  {o.responseTargetsHours[`p${level}`]} h
+                </td>
+              ))}
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </div>
+  )
+}
