@@ -20,6 +20,8 @@ import { authRoutes } from './modules/auth/auth.routes'
 import { usersRoutes } from './modules/users/users.routes'
 import { officesRoutes } from './modules/offices/offices.routes'
 import { mailboxRoutes } from './modules/dev/mailbox.routes'
+import { casesRoutes } from './modules/cases/cases.routes'
+import { publicCaseRoutes } from './modules/cases/public.routes'
 
 export interface AppDeps {
   pool: pg.Pool
@@ -95,6 +97,8 @@ export function createApp(deps: AppDeps): AppHandle {
   api.use(authRoutes(ctx, passport))
   api.use(usersRoutes(ctx))
   api.use(officesRoutes(ctx))
+  api.use(publicCaseRoutes(ctx))
+  api.use(casesRoutes(ctx))
   api.use(mailboxRoutes(deps.mailboxDir))
   api.use(apiNotFound)
   app.use('/api', api)

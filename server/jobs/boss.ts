@@ -40,13 +40,20 @@ export async function queueMail(
   })
 }
 
-/** Sends queued mail; a failure throws, and pg-boss retries the job later. */
-export async function startMailWorker(boss: PgBoss, mailer: Mailer, pollingIntervalSeconds = 1): Promise<string> {
-  return boss.work<OutgoingMail>(MAIL_QUEUE, { pollingIntervalSeconds, batchSize: 1 }, async (jobs) => {
-    // one job per batch: a failure retries only the message that failed, so none arrives twice
+/**
+ * Sends queued mail, up to `batchSize` per poll. A message that fails is failed on its own
+ * (pg-boss retries it later with backoff); the others in the batch complete. So one bad
+ * address or an SMTP outage never resends a message that already went out.
+ */
+export async function startMailWorker(boss: PgBoss, mailer: Mailer, opts: { pollingIntervalSeconds?: number; batchSize?: number } = {}): Promise<string> {
+  return boss.work<OutgoingMail>(MAIL_QUEUE, { pollingIntervalSeconds: opts.pollingIntervalSeconds ?? 1, batchSize: opts.batchSize ?? 20 }, async (jobs) => {
     for (const job of jobs) {
-      // the job id doubles as Message-ID, so a rare resend after a crash is recognisable
-      await mailer.send({ ...job.data, messageId: `<${job.id}@quietband.mail>` })
+      try {
+        // the job id doubles as Message-ID, so a rare resend after a crash is recognisable
+        await mailer.send({ ...job.data, messageId: `<${job.id}@quietband.mail>` })
+      } catch (err) {
+        await boss.fail(MAIL_QUEUE, job.id, { message: (err as Error).message })
+      }
     }
   })
 }

@@ -20,6 +20,7 @@ export interface OfficeScoped {
 export type Action =
   | 'office.list'
   | 'office.read'
+  | 'office.configure'
   | 'staff.list'
   | 'staff.read'
   | 'user.list'
@@ -31,6 +32,7 @@ const STAFF: Role[] = ['investigator', 'supervisor']
 const rules: Record<Action, (actor: Actor, resource?: OfficeScoped) => boolean> = {
   'office.list': (a) => a.role === 'admin' || STAFF.includes(a.role),
   'office.read': (a, r) => a.role === 'admin' || (STAFF.includes(a.role) && sameOffice(a, r)),
+  'office.configure': (a, r) => a.role === 'admin' || (a.role === 'supervisor' && sameOffice(a, r)),
   'staff.list': (a) => a.role === 'admin' || STAFF.includes(a.role),
   'staff.read': (a, r) => a.role === 'admin' || (STAFF.includes(a.role) && sameOffice(a, r)),
   'user.list': (a) => a.role === 'admin',

@@ -52,3 +52,11 @@ export const sessionUserSchema = z.object({
   officeName: z.string().nullable(),
 })
 export type SessionUser = z.infer<typeof sessionUserSchema>
+
+/** Response targets of an office, in hours per priority. */
+export const responseTargetsSchema = z.object({
+  p1: z.number().int().min(1, { message: 'At least 1 hour.' }).max(24 * 90),
+  p2: z.number().int().min(1, { message: 'At least 1 hour.' }).max(24 * 90),
+  p3: z.number().int().min(1, { message: 'At least 1 hour.' }).max(24 * 90),
+  p4: z.number().int().min(1, { message: 'At least 1 hour.' }).max(24 * 90),
+})

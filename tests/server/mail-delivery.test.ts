@@ -31,7 +31,7 @@ async function waitFor<T>(fn: () => Promise<T>, ok: (v: T) => boolean, timeoutMs
 beforeAll(async () => {
   t = await createTestContext()
   smtp = await startSmtpFake({ dir })
-  await startMailWorker(t.boss, createMailer({ smtpUrl: smtp.url, from: 'Quietband <no-reply@quietband.test>' }), 0.5)
+  await startMailWorker(t.boss, createMailer({ smtpUrl: smtp.url, from: 'Quietband <no-reply@quietband.test>' }), { pollingIntervalSeconds: 0.5 })
 })
 afterAll(async () => {
   await smtp.close().catch(() => {})
@@ -69,9 +69,12 @@ describe('the e-mail outbox', () => {
     const recipients = [1, 2, 3].map((i) => `down-${i}-${stamp}@example.test`)
     for (const to of recipients) await queueMail(t.boss, t.pool, composeMail(to, `While down ${to}`, ['queued while the server was down']), { retryDelaySeconds: 1, retryLimit: 20 })
     // the worker tries and fails while the server is down
-    await new Promise((r) => setTimeout(r, 2500))
-    const { rows } = await t.pool.query(`SELECT max(retry_count)::int AS n FROM pgboss.job WHERE data->>'to' = ANY($1)`, [recipients])
-    expect(rows[0].n, 'at least one attempt failed and was rescheduled').toBeGreaterThan(0)
+    const retried = await waitFor(
+      async () => (await t.pool.query(`SELECT min(retry_count)::int AS n FROM pgboss.job WHERE data->>'to' = ANY($1)`, [recipients])).rows[0].n as number,
+      (n) => n > 0,
+      30_000,
+    )
+    expect(retried, 'every message failed at least once and was rescheduled').toBeGreaterThan(0)
     smtp = await startSmtpFake({ dir, port })
     const all = await waitFor(
       () => readMailbox(dir),
@@ -79,5 +82,5 @@ describe('the e-mail outbox', () => {
       45_000,
     )
     for (const to of recipients) expect(all.filter((m) => m.to.includes(to)), to).toHaveLength(1)
-  }, 60_000)
+  }, 90_000)
 })

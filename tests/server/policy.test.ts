@@ -16,6 +16,8 @@ const TABLE: [Action, string | null, boolean, boolean, boolean, boolean][] = [
   ['office.list', null, false, true, true, true],
   ['office.read', HOME, false, true, true, true],
   ['office.read', OTHER, false, false, false, true],
+  ['office.configure', HOME, false, false, true, true],
+  ['office.configure', OTHER, false, false, false, true],
   ['staff.list', null, false, true, true, true],
   ['staff.read', HOME, false, true, true, true],
   ['staff.read', OTHER, false, false, false, true],

@@ -10,6 +10,7 @@ import os from 'node:os'
 import path from 'node:path'
 import { createTestContext, DEMO, signedInAgent, uniqueAddress, type TestContext } from '../support/harness'
 import { listRoutes } from '../support/routes'
+import { fileReport, NEAR_HARROWMERE, NEAR_KESTREL_BAY } from '../support/cases'
 
 type Who = 'anonymous' | 'complainant' | 'investigator' | 'supervisor' | 'admin'
 const WHO: Who[] = ['anonymous', 'complainant', 'investigator', 'supervisor', 'admin']
@@ -31,6 +32,11 @@ interface Ids {
   otherOfficeId: string
   otherOfficeStaffId: string
   ownOfficeId: string
+  /** A case of the Harrowmere office (the staff actors' own office). */
+  ownCaseId: string
+  /** A case of the Kestrel Bay office. */
+  otherCaseId: string
+  trackingToken: string
 }
 
 const MATRIX: Row[] = [
@@ -53,7 +59,36 @@ const MATRIX: Row[] = [
   { route: 'GET /api/staff/:id', path: (ids) => `/api/staff/${ids.otherOfficeStaffId}`, expect: [401, 403, 404, 404, 200] },
   { route: 'GET /api/offices', expect: [401, 403, 200, 200, 200] },
   { route: 'GET /api/offices/:id', path: (ids) => `/api/offices/${ids.otherOfficeId}`, expect: [401, 403, 404, 404, 200] },
+  { route: 'PUT /api/offices/:id/response-targets', path: (ids) => `/api/offices/${ids.otherOfficeId}/response-targets`, body: { p1: 4, p2: 24, p3: 72, p4: 240 }, expect: [401, 403, 403, 404, 200] },
   { route: 'GET /api/dev/mailbox', expect: [200, 200, 200, 200, 200] },
+  // reports and tracking (public); a bad body is 400 for everyone, a good one is covered in reports.test.ts
+  { route: 'POST /api/reports', body: {}, expect: [400, 400, 400, 400, 400] },
+  { route: 'GET /api/track/:token', path: (ids) => `/api/track/${ids.trackingToken}`, expect: [200, 200, 200, 200, 200] },
+  { route: 'POST /api/track/:token/information', path: (ids) => `/api/track/${ids.trackingToken}/information`, body: { body: 'Still there at night.' }, expect: [201, 201, 201, 201, 201] },
+  { route: 'POST /api/track/:token/withdraw', path: () => `/api/track/${'Z'.repeat(43)}/withdraw`, body: {}, expect: [404, 404, 404, 404, 404] },
+  // a signed-in complainant's reports; the Kestrel Bay case is not theirs
+  { route: 'GET /api/my/reports', expect: [401, 200, 403, 403, 403] },
+  { route: 'GET /api/my/reports/:id', path: (ids) => `/api/my/reports/${ids.otherCaseId}`, expect: [401, 404, 403, 403, 403] },
+  { route: 'POST /api/my/reports/:id/information', path: (ids) => `/api/my/reports/${ids.otherCaseId}/information`, body: { body: 'x' }, expect: [401, 404, 403, 403, 403] },
+  { route: 'POST /api/my/reports/:id/withdraw', path: (ids) => `/api/my/reports/${ids.otherCaseId}/withdraw`, body: {}, expect: [401, 404, 403, 403, 403] },
+  // staff case routes: another office's case is 404 to staff, visible to an administrator
+  { route: 'GET /api/cases', expect: [401, 403, 200, 200, 200] },
+  { route: 'GET /api/cases/export.csv', expect: [401, 403, 200, 200, 200] },
+  { route: 'GET /api/cases/:id', path: (ids) => `/api/cases/${ids.otherCaseId}`, expect: [401, 403, 404, 404, 200] },
+  { route: 'GET /api/cases/:id/merge-candidates', path: (ids) => `/api/cases/${ids.otherCaseId}/merge-candidates`, expect: [401, 403, 404, 404, 200] },
+  { route: 'GET /api/cases/:id/investigators', path: (ids) => `/api/cases/${ids.otherCaseId}/investigators`, expect: [401, 403, 404, 404, 200] },
+  { route: 'POST /api/cases/:id/notes', path: (ids) => `/api/cases/${ids.ownCaseId}/notes`, body: { body: 'Checked the licence register.', visibility: 'internal' }, expect: [401, 403, 201, 201, 403] },
+  // moves on the own office's new report: only the supervisor may triage; the state decides the rest
+  { route: 'POST /api/cases/:id/triage', path: (ids) => `/api/cases/${ids.otherCaseId}/triage`, body: { version: 1, priority: 2 }, expect: [401, 403, 404, 404, 403] },
+  { route: 'POST /api/cases/:id/assign', path: (ids) => `/api/cases/${ids.otherCaseId}/assign`, body: { version: 1, investigatorId: '00000000-0000-4000-8000-000000000000' }, expect: [401, 403, 404, 404, 403] },
+  { route: 'POST /api/cases/:id/transfer', path: (ids) => `/api/cases/${ids.otherCaseId}/transfer`, body: { version: 1, officeId: '00000000-0000-4000-8000-000000000000', reason: 'Closer office' }, expect: [401, 403, 404, 404, 403] },
+  { route: 'POST /api/cases/:id/merge', path: (ids) => `/api/cases/${ids.otherCaseId}/merge`, body: { version: 1, intoCaseId: '00000000-0000-4000-8000-000000000000' }, expect: [401, 403, 404, 404, 403] },
+  { route: 'POST /api/cases/:id/dismiss', path: (ids) => `/api/cases/${ids.otherCaseId}/dismiss`, body: { version: 1, resolution: 'referred', reason: 'For the aviation authority' }, expect: [401, 403, 404, 404, 403] },
+  { route: 'POST /api/cases/:id/start-field-work', path: (ids) => `/api/cases/${ids.ownCaseId}/start-field-work`, body: { version: 1 }, expect: [401, 403, 403, 403, 403] },
+  { route: 'POST /api/cases/:id/propose-finding', path: (ids) => `/api/cases/${ids.ownCaseId}/propose-finding`, body: { version: 1, reason: 'Found it' }, expect: [401, 403, 403, 403, 403] },
+  { route: 'POST /api/cases/:id/return-finding', path: (ids) => `/api/cases/${ids.ownCaseId}/return-finding`, body: { version: 1, reason: 'More work' }, expect: [401, 403, 403, 409, 403] },
+  { route: 'POST /api/cases/:id/close', path: (ids) => `/api/cases/${ids.ownCaseId}/close`, body: { version: 1, resolution: 'source_corrected', reason: 'Fixed' }, expect: [401, 403, 403, 409, 403] },
+  { route: 'POST /api/cases/:id/reopen', path: (ids) => `/api/cases/${ids.ownCaseId}/reopen`, body: { version: 1, reason: 'Back again' }, expect: [401, 403, 403, 409, 403] },
 ]
 
 let t: TestContext
@@ -68,6 +103,9 @@ beforeAll(async () => {
     ownOfficeId: offices.find((o) => o.name === 'Harrowmere').id,
     otherOfficeId: offices.find((o) => o.name === 'Kestrel Bay').id,
     otherOfficeStaffId: staff[0].id,
+    ownCaseId: (await fileReport(t, NEAR_HARROWMERE)).id,
+    otherCaseId: (await fileReport(t, NEAR_KESTREL_BAY)).id,
+    trackingToken: (await fileReport(t, NEAR_KESTREL_BAY)).trackingToken,
   }
 })
 afterAll(async () => {

@@ -1,3 +1,4 @@
 export * from './offices'
 export * from './users'
 export * from './sessions'
+export * from './cases'

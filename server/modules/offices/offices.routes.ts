@@ -3,7 +3,8 @@ import { z } from 'zod'
 import type { ServiceContext } from '../../context'
 import { actorOf, requireRole } from '../../http/authenticate'
 import { parseWith } from '../../http/validate'
-import { getOffice, listOffices } from './offices.service'
+import { responseTargetsSchema } from '../../../shared/schemas/auth'
+import { getOffice, listOffices, setResponseTargets } from './offices.service'
 
 const idParam = z.object({ id: z.uuid({ message: 'Not a valid id.' }) })
 
@@ -16,6 +17,10 @@ export function officesRoutes(ctx: ServiceContext): Router {
   r.get('/offices/:id', staffOrAdmin, async (req, res) => {
     const { id } = parseWith(idParam, req.params)
     res.json({ office: await getOffice(ctx, actorOf(req), id) })
+  })
+  r.put('/offices/:id/response-targets', requireRole('supervisor', 'admin'), async (req, res) => {
+    const { id } = parseWith(idParam, req.params)
+    res.json({ office: await setResponseTargets(ctx, actorOf(req), id, parseWith(responseTargetsSchema, req.body)) })
   })
   return r
 }

@@ -1,0 +1,134 @@
+import { sql } from 'drizzle-orm'
+import {
+  bigserial,
+  check,
+  date,
+  doublePrecision,
+  index,
+  integer,
+  pgSequence,
+  pgTable,
+  text,
+  timestamp,
+  uuid,
+  type AnyPgColumn,
+} from 'drizzle-orm/pg-core'
+import { offices } from './offices'
+import { users } from './users'
+
+/** Yearly-looking but global sequence behind case references (QB-26-000123). */
+export const caseReferenceSeq = pgSequence('case_reference_seq', { startWith: 1 })
+
+/**
+ * A case: born as a complainant's report ('received'), worked by an office, closed with a
+ * resolution. States and moves live in shared/domain/case-lifecycle.ts; every change of
+ * state bumps `version` (optimistic concurrency) and writes a case_events row.
+ */
+export const cases = pgTable(
+  'cases',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    reference: text('reference').notNull().unique(),
+    officeId: uuid('office_id').notNull().references(() => offices.id),
+    status: text('status').notNull().default('received'),
+    /** Priority set (or confirmed) at triage; the suggested one until then. */
+    priority: integer('priority').notNull(),
+    suggestedPriority: integer('suggested_priority').notNull(),
+    service: text('service').notNull(),
+    licenceRef: text('licence_ref'),
+    freqLowHz: doublePrecision('freq_low_hz').notNull(),
+    freqHighHz: doublePrecision('freq_high_hz').notNull(),
+    address: text('address').notNull(),
+    latDeg: doublePrecision('lat_deg').notNull(),
+    lonDeg: doublePrecision('lon_deg').notNull(),
+    sinceDate: date('since_date').notNull(),
+    pattern: text('pattern').notNull(),
+    patternDetail: text('pattern_detail'),
+    experience: text('experience').notNull(),
+    description: text('description').notNull(),
+    complainantName: text('complainant_name').notNull(),
+    complainantEmail: text('complainant_email').notNull(),
+    complainantPhone: text('complainant_phone'),
+    complainantOrganisation: text('complainant_organisation'),
+    complainantUserId: uuid('complainant_user_id').references(() => users.id, { onDelete: 'set null' }),
+    investigatorId: uuid('investigator_id').references(() => users.id),
+    mergedIntoCaseId: uuid('merged_into_case_id').references((): AnyPgColumn => cases.id),
+    resolution: text('resolution'),
+    closingSummary: text('closing_summary'),
+    receivedAt: timestamp('received_at', { withTimezone: true }).notNull().defaultNow(),
+    /** Response target: received_at + the office's target hours for the priority. */
+    dueAt: timestamp('due_at', { withTimezone: true }).notNull(),
+    closedAt: timestamp('closed_at', { withTimezone: true }),
+    version: integer('version').notNull().default(1),
+    updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
+    searchText: text('search_text').generatedAlwaysAs(
+      sql`lower(reference || ' ' || address || ' ' || complainant_name || ' ' || coalesce(complainant_organisation, '') || ' ' || coalesce(licence_ref, '') || ' ' || description)`,
+    ),
+  },
+  (t) => [
+    check('cases_status_valid', sql`${t.status} in ('received','triaged','assigned','field_work','finding_proposed','returned','closed')`),
+    check('cases_priority_valid', sql`${t.priority} between 1 and 4 and ${t.suggestedPriority} between 1 and 4`),
+    check('cases_freq_valid', sql`${t.freqLowHz} > 0 and ${t.freqHighHz} >= ${t.freqLowHz}`),
+    check('cases_lat_valid', sql`${t.latDeg} between -90 and 90 and ${t.lonDeg} between -180 and 180`),
+    check(
+      'cases_resolution_valid',
+      sql`${t.resolution} is null or ${t.resolution} in ('source_corrected','enforcement_action','no_interference_found','referred','withdrawn','duplicate')`,
+    ),
+    check('cases_closed_has_resolution', sql`(${t.status} = 'closed') = (${t.resolution} is not null and ${t.closedAt} is not null)`),
+    index('cases_office_status_idx').on(t.officeId, t.status),
+    index('cases_office_received_idx').on(t.officeId, t.receivedAt),
+    index('cases_office_due_idx').on(t.officeId, t.dueAt),
+    index('cases_office_priority_received_idx').on(t.officeId, t.priority, t.receivedAt),
+    index('cases_investigator_idx').on(t.investigatorId, t.status),
+    index('cases_received_idx').on(t.receivedAt),
+    index('cases_due_open_idx').on(t.dueAt).where(sql`${t.status} <> 'closed'`),
+    index('cases_freq_idx').on(t.freqLowHz, t.freqHighHz),
+    index('cases_complainant_user_idx').on(t.complainantUserId),
+    index('cases_complainant_email_idx').on(t.complainantEmail),
+    index('cases_search_trgm_idx').using('gin', sql`${t.searchText} gin_trgm_ops`),
+  ],
+)
+
+export type CaseRow = typeof cases.$inferSelect
+
+/**
+ * The timeline: every move, note and message, append-only. A trigger created by the
+ * migration refuses UPDATE and DELETE, so the record stands as evidence.
+ */
+export const caseEvents = pgTable(
+  'case_events',
+  {
+    id: bigserial('id', { mode: 'number' }).primaryKey(),
+    caseId: uuid('case_id').notNull().references(() => cases.id),
+    at: timestamp('at', { withTimezone: true }).notNull().defaultNow(),
+    actorUserId: uuid('actor_user_id').references(() => users.id),
+    /** Who acted, as shown: a staff name, 'Complainant', or 'Quietband' for automatic steps. */
+    actorLabel: text('actor_label').notNull(),
+    kind: text('kind').notNull(),
+    fromState: text('from_state'),
+    toState: text('to_state'),
+    /** Reason, note or message text. */
+    body: text('body'),
+    /** 'internal' (staff only) or 'complainant' (shown on the tracking page). */
+    visibility: text('visibility').notNull(),
+    /** Structured details of the event (priority, investigator, office, merged case…). */
+    data: text('data'),
+  },
+  (t) => [
+    check('case_events_visibility_valid', sql`${t.visibility} in ('internal','complainant')`),
+    index('case_events_case_idx').on(t.caseId, t.id),
+  ],
+)
+
+/** Private tracking links: only the SHA-256 hash of the token is stored. */
+export const caseTrackingTokens = pgTable(
+  'case_tracking_tokens',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    caseId: uuid('case_id').notNull().references(() => cases.id),
+    tokenHash: text('token_hash').notNull().unique(),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+    revokedAt: timestamp('revoked_at', { withTimezone: true }),
+  },
+  (t) => [index('case_tracking_tokens_case_idx').on(t.caseId)],
+)

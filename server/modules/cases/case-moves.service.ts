@@ -1,0 +1,229 @@
+/**
+ * The moves of a case, one domain verb each. Every move runs in one transaction: load the
+ * case, check visibility (404), role and relation (403), version (409 stale_version) and
+ * state (409 invalid_transition); write the change with an optimistic version check, append
+ * the timeline event, and queue the e-mails it causes. Nothing is half-written.
+ */
+import { and, eq, ne } from 'drizzle-orm'
+import type pg from 'pg'
+import { CASE_MOVE_LABELS, CASE_STATE_LABELS, moveAllowedFrom, stateAfter, type CaseMoveName, type CaseState, type Resolution } from '../../../shared/domain/case-lifecycle'
+import type { AffectedService, Priority } from '../../../shared/domain/services'
+import { withTransaction, type Db } from '../../db/client'
+import { cases, offices, users, type CaseRow } from '../../db/schema'
+import type { ServiceContext } from '../../context'
+import { badRequest, conflict, forbidden, notFound } from '../../http/errors'
+import { queueMail } from '../../jobs/boss'
+import type { OutgoingMail } from '../../mail/mailer'
+import {
+  caseAssignedComplainantMail,
+  caseClosedMail,
+  caseReopenedMail,
+  findingProposedMail,
+  investigatorAssignedMail,
+} from '../../mail/case-templates'
+import { canSeeCase, mayMakeMove, type CaseActor } from '../../policy/case-policy'
+import { appendEvent, findCase, officeTargetsHours, updateCaseIfVersion, userName } from './cases.repo'
+import { dueAt } from './due'
+import { issueTrackingLink } from './tracking-tokens'
+
+export const caseNotFound = () => notFound('case_not_found', 'No such case in your office.')
+
+interface MoveScope {
+  c: CaseRow
+  db: Db
+  client: pg.PoolClient
+  actorName: string
+  /** Queues an e-mail in this transaction. */
+  mail(m: OutgoingMail): Promise<void>
+  /** A fresh private tracking link for the complainant's e-mails. */
+  trackingLink(): Promise<string>
+}
+
+interface MovePlan {
+  changes?: Partial<typeof cases.$inferInsert>
+  body?: string | null
+  data?: Record<string, unknown>
+  after?: (updated: CaseRow) => Promise<void>
+}
+
+/** Loads a case the actor may see, or throws 404. */
+export async function loadVisibleCase(db: Db, actor: CaseActor, caseId: string): Promise<CaseRow> {
+  if (!/^[0-9a-f-]{36}$/i.test(caseId)) throw caseNotFound()
+  const c = await findCase(db, caseId)
+  if (!c || !canSeeCase(actor, { ...c, status: c.status as CaseState })) throw caseNotFound()
+  return c
+}
+
+async function makeMove(
+  ctx: ServiceContext,
+  actor: CaseActor,
+  caseId: string,
+  move: CaseMoveName,
+  version: number | 'current',
+  plan: (s: MoveScope) => Promise<MovePlan>,
+): Promise<CaseRow> {
+  return withTransaction(ctx.pool, async ({ db, client }) => {
+    const c = await loadVisibleCase(db, actor, caseId)
+    const state = c.status as CaseState
+    if (!mayMakeMove(actor, move, { ...c, status: state })) throw forbidden(`Your role cannot ${CASE_MOVE_LABELS[move].toLowerCase()} on this case.`)
+    const expected = version === 'current' ? c.version : version
+    if (c.version !== expected) throw staleVersion()
+    if (!moveAllowedFrom(move, state)) {
+      throw conflict('invalid_transition', `“${CASE_MOVE_LABELS[move]}” is not possible while the case is “${CASE_STATE_LABELS[state]}”.`)
+    }
+    const actorUserId = actor.role === 'tracking_link' ? null : actor.id
+    const actorName = actor.role === 'tracking_link' || actor.role === 'complainant' ? 'Complainant' : ((await userName(db, actor.id))?.name ?? 'Unknown user')
+    const scope: MoveScope = {
+      c,
+      db,
+      client,
+      actorName,
+      mail: (m) => queueMail(ctx.boss, client, m, ctx.mailQueue),
+      trackingLink: () => issueTrackingLink(db, ctx.publicUrl, c.id),
+    }
+    const p = await plan(scope)
+    const to = stateAfter(move, !!(p.changes?.investigatorId ?? c.investigatorId))
+    const updated = await updateCaseIfVersion(db, c.id, expected, { ...p.changes, status: to })
+    if (!updated) throw staleVersion()
+    await appendEvent(db, {
+      caseId: c.id,
+      actorUserId,
+      actorLabel: actorName,
+      kind: move,
+      fromState: state,
+      toState: to,
+      body: p.body ?? null,
+      visibility: 'internal',
+      data: p.data,
+    })
+    await p.after?.(updated)
+    return updated
+  })
+}
+
+export const staleVersion = () =>
+  conflict('stale_version', 'Someone else changed this case a moment ago. Reload it to see their change, then try again.')
+
+const caseLink = (ctx: ServiceContext, id: string) => `${ctx.publicUrl}/cases/${id}`
+
+/** Sets (or confirms) the priority; the response target follows it. */
+export function triageCase(ctx: ServiceContext, actor: CaseActor, caseId: string, input: { version: number; priority: Priority; note?: string }) {
+  return makeMove(ctx, actor, caseId, 'triage', input.version, async ({ c, db }) => {
+    const targets = await officeTargetsHours(db, c.officeId)
+    return {
+      changes: { priority: input.priority, dueAt: dueAt(c.receivedAt, input.priority, targets) },
+      body: input.note ?? null,
+      data: { priority: input.priority, suggestedPriority: c.suggestedPriority },
+    }
+  })
+}
+
+/** Gives the case to an active investigator of its office. */
+export function assignCase(ctx: ServiceContext, actor: CaseActor, caseId: string, input: { version: number; investigatorId: string }) {
+  return makeMove(ctx, actor, caseId, 'assign', input.version, async ({ c, db, mail, trackingLink }) => {
+    const inv = await userName(db, input.investigatorId)
+    if (!inv || inv.role !== 'investigator' || inv.officeId !== c.officeId || !inv.active) {
+      throw badRequest('validation_failed', 'Some fields need attention.', [{ path: 'investigatorId', message: 'Choose an active investigator of this office.' }])
+    }
+    const firstAssignment = c.investigatorId === null
+    return {
+      changes: { investigatorId: input.investigatorId },
+      data: { investigatorId: input.investigatorId, investigatorName: inv.name, previousInvestigatorId: c.investigatorId },
+      body: `Assigned to ${inv.name}.`,
+      after: async (u) => {
+        await mail(investigatorAssignedMail(inv, { ...u, priority: u.priority as Priority, service: u.service as AffectedService }, caseLink(ctx, u.id)))
+        if (firstAssignment) await mail(caseAssignedComplainantMail(u, await trackingLink()))
+      },
+    }
+  })
+}
+
+/** Hands a new report to another office, which triages it afresh. */
+export function transferCase(ctx: ServiceContext, actor: CaseActor, caseId: string, input: { version: number; officeId: string; reason: string }) {
+  return makeMove(ctx, actor, caseId, 'transfer', input.version, async ({ c, db }) => {
+    const [o] = await db.select().from(offices).where(eq(offices.id, input.officeId))
+    if (!o || o.id === c.officeId) {
+      throw badRequest('validation_failed', 'Some fields need attention.', [{ path: 'officeId', message: 'Choose another office.' }])
+    }
+    const targets = await officeTargetsHours(db, o.id)
+    return {
+      changes: { officeId: o.id, investigatorId: null, dueAt: dueAt(c.receivedAt, c.priority as Priority, targets) },
+      body: input.reason,
+      data: { fromOfficeId: c.officeId, toOfficeId: o.id, toOfficeName: o.name },
+    }
+  })
+}
+
+/** Joins a new report to an open case of the same office; the report closes as a duplicate. */
+export function mergeCase(ctx: ServiceContext, actor: CaseActor, caseId: string, input: { version: number; intoCaseId: string }) {
+  return makeMove(ctx, actor, caseId, 'merge', input.version, async ({ c, db, mail, trackingLink, actorName }) => {
+    const [target] = await db.select().from(cases).where(and(eq(cases.id, input.intoCaseId), eq(cases.officeId, c.officeId), ne(cases.status, 'closed'), ne(cases.id, c.id)))
+    if (!target) throw badRequest('validation_failed', 'Some fields need attention.', [{ path: 'intoCaseId', message: 'Choose another open case of this office.' }])
+    const summary = `Your report describes the same interference as case ${target.reference}, which our engineers are already working on. We have joined the two so the work is done once.`
+    return {
+      changes: { mergedIntoCaseId: target.id, resolution: 'duplicate', closingSummary: summary, closedAt: new Date() },
+      body: `Merged into ${target.reference}.`,
+      data: { intoCaseId: target.id, intoReference: target.reference },
+      after: async (u) => {
+        await appendEvent(db, { caseId: target.id, actorUserId: actor.role === 'tracking_link' ? null : actor.id, actorLabel: actorName, kind: 'merged_in', visibility: 'internal', body: `${u.reference} (${u.complainantName}) was merged into this case.`, data: { fromCaseId: u.id, fromReference: u.reference } })
+        await mail(caseClosedMail(u, 'duplicate', summary, await trackingLink()))
+      },
+    }
+  })
+}
+
+function closing(resolution: Resolution, summary: string, s: MoveScope): MovePlan {
+  return {
+    changes: { resolution, closingSummary: summary, closedAt: new Date() },
+    body: summary,
+    data: { resolution },
+    after: async (u) => s.mail(caseClosedMail(u, resolution, summary, await s.trackingLink())),
+  }
+}
+
+/** Closes a report at triage: no interference, or a matter for another authority. */
+export function dismissReport(ctx: ServiceContext, actor: CaseActor, caseId: string, input: { version: number; resolution: Resolution; reason: string }) {
+  return makeMove(ctx, actor, caseId, 'dismiss', input.version, async (s) => closing(input.resolution, input.reason, s))
+}
+
+export function startFieldWork(ctx: ServiceContext, actor: CaseActor, caseId: string, input: { version: number }) {
+  return makeMove(ctx, actor, caseId, 'startFieldWork', input.version, async () => ({}))
+}
+
+/** The investigator proposes a finding; the office's supervisors are asked to review it. */
+export function proposeFinding(ctx: ServiceContext, actor: CaseActor, caseId: string, input: { version: number; reason: string }) {
+  return makeMove(ctx, actor, caseId, 'proposeFinding', input.version, async ({ c, db, mail, actorName }) => ({
+    body: input.reason,
+    after: async (u) => {
+      const supervisors = await db
+        .select({ name: users.name, email: users.email })
+        .from(users)
+        .where(and(eq(users.officeId, c.officeId), eq(users.role, 'supervisor'), eq(users.active, true)))
+      for (const s of supervisors) await mail(findingProposedMail(s, u, actorName, caseLink(ctx, u.id)))
+    },
+  }))
+}
+
+export function returnFinding(ctx: ServiceContext, actor: CaseActor, caseId: string, input: { version: number; reason: string }) {
+  return makeMove(ctx, actor, caseId, 'returnFinding', input.version, async () => ({ body: input.reason }))
+}
+
+/** Approves the finding and closes the case with a resolution and a summary for the complainant. */
+export function closeCase(ctx: ServiceContext, actor: CaseActor, caseId: string, input: { version: number; resolution: Resolution; reason: string }) {
+  return makeMove(ctx, actor, caseId, 'close', input.version, async (s) => closing(input.resolution, input.reason, s))
+}
+
+/** Returns a closed case to work (to its investigator, or to triage) and tells the complainant. */
+export function reopenCase(ctx: ServiceContext, actor: CaseActor, caseId: string, input: { version: number; reason: string }) {
+  return makeMove(ctx, actor, caseId, 'reopen', input.version, async ({ mail, trackingLink }) => ({
+    changes: { resolution: null, closingSummary: null, closedAt: null, mergedIntoCaseId: null },
+    body: input.reason,
+    after: async (u) => mail(caseReopenedMail(u, input.reason, await trackingLink())),
+  }))
+}
+
+/** The complainant withdraws their report (through their account or their tracking link). */
+export function withdrawReport(ctx: ServiceContext, actor: CaseActor, caseId: string, input: { reason?: string }) {
+  const summary = input.reason ? `Withdrawn by the complainant: ${input.reason}` : 'Withdrawn by the complainant.'
+  return makeMove(ctx, actor, caseId, 'withdraw', 'current', async (s) => closing('withdrawn', summary, s))
+}

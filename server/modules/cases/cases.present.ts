@@ -1,0 +1,111 @@
+/** What the browser receives about a case: staff detail, list rows, and the complainant's view. */
+import { COMPLAINANT_STATE_LABELS, CASE_STATE_LABELS, RESOLUTION_LABELS, type CaseState, type Resolution } from '../../../shared/domain/case-lifecycle'
+import type { CaseRow } from '../../db/schema'
+import type { CaseAbilities } from '../../policy/case-policy'
+import { isOverdue } from './due'
+
+export interface TimelineEvent {
+  id: number
+  at: string
+  actor: string
+  kind: string
+  fromState: string | null
+  toState: string | null
+  body: string | null
+  visibility: 'internal' | 'complainant'
+  data: Record<string, unknown> | null
+}
+
+export function presentCaseDetail(
+  c: CaseRow,
+  extra: { officeName: string; investigatorName: string | null; mergedIntoReference: string | null; abilities: CaseAbilities; timeline: TimelineEvent[] },
+  now: Date,
+) {
+  return {
+    id: c.id,
+    reference: c.reference,
+    version: c.version,
+    status: c.status as CaseState,
+    statusLabel: CASE_STATE_LABELS[c.status as CaseState],
+    priority: c.priority,
+    suggestedPriority: c.suggestedPriority,
+    service: c.service,
+    licenceRef: c.licenceRef,
+    freqLowHz: c.freqLowHz,
+    freqHighHz: c.freqHighHz,
+    address: c.address,
+    latDeg: c.latDeg,
+    lonDeg: c.lonDeg,
+    sinceDate: c.sinceDate,
+    pattern: c.pattern,
+    patternDetail: c.patternDetail,
+    experience: c.experience,
+    description: c.description,
+    complainant: { name: c.complainantName, email: c.complainantEmail, phone: c.complainantPhone, organisation: c.complainantOrganisation, hasAccount: c.complainantUserId !== null },
+    officeId: c.officeId,
+    officeName: extra.officeName,
+    investigatorId: c.investigatorId,
+    investigatorName: extra.investigatorName,
+    mergedIntoCaseId: c.mergedIntoCaseId,
+    mergedIntoReference: extra.mergedIntoReference,
+    resolution: c.resolution,
+    resolutionLabel: c.resolution ? RESOLUTION_LABELS[c.resolution as Resolution] : null,
+    closingSummary: c.closingSummary,
+    receivedAt: c.receivedAt.toISOString(),
+    dueAt: c.dueAt.toISOString(),
+    closedAt: c.closedAt?.toISOString() ?? null,
+    overdue: isOverdue(c, now),
+    abilities: extra.abilities,
+    timeline: extra.timeline,
+  }
+}
+
+/**
+ * The complainant's view: their report, the status in plain steps, the messages meant for
+ * them and their own additions. Internal notes and staff names never appear.
+ */
+export function presentComplainantView(c: CaseRow, events: TimelineEvent[], abilities: { withdraw: boolean; addInformation: boolean }) {
+  const entries = events.flatMap((e) => {
+    if (e.visibility === 'complainant') {
+      if (e.kind === 'received') return [{ at: e.at, from: 'office' as const, kind: 'status', text: 'We received your report.' }]
+      return [{ at: e.at, from: e.kind === 'complainant_information' ? ('you' as const) : ('office' as const), kind: e.kind, text: e.body ?? '' }]
+    }
+    if (e.toState && e.toState !== e.fromState && e.kind !== 'transfer') {
+      const label = COMPLAINANT_STATE_LABELS[e.toState as CaseState]
+      const prev = e.fromState ? COMPLAINANT_STATE_LABELS[e.fromState as CaseState] : null
+      if (label !== prev) return [{ at: e.at, from: 'office' as const, kind: 'status', text: `Status: ${label}` }]
+    }
+    return []
+  })
+  return {
+    reference: c.reference,
+    status: c.status as CaseState,
+    statusLabel: COMPLAINANT_STATE_LABELS[c.status as CaseState],
+    service: c.service,
+    freqLowHz: c.freqLowHz,
+    freqHighHz: c.freqHighHz,
+    address: c.address,
+    description: c.description,
+    receivedAt: c.receivedAt.toISOString(),
+    closedAt: c.closedAt?.toISOString() ?? null,
+    resolution: c.resolution,
+    resolutionLabel: c.resolution ? RESOLUTION_LABELS[c.resolution as Resolution] : null,
+    closingSummary: c.closingSummary,
+    entries,
+    abilities,
+  }
+}
+
+export function toTimelineEvent(e: { id: number; at: Date; actorLabel: string; kind: string; fromState: string | null; toState: string | null; body: string | null; visibility: string; data: string | null }): TimelineEvent {
+  return {
+    id: e.id,
+    at: e.at.toISOString(),
+    actor: e.actorLabel,
+    kind: e.kind,
+    fromState: e.fromState,
+    toState: e.toState,
+    body: e.body,
+    visibility: e.visibility as 'internal' | 'complainant',
+    data: e.data ? (JSON.parse(e.data) as Record<string, unknown>) : null,
+  }
+}

@@ -1,0 +1,57 @@
+/** Reading and writing case rows and timeline events. No authorization here. */
+import { and, eq, sql } from 'drizzle-orm'
+import type { Db } from '../../db/client'
+import { caseEvents, cases, offices, users, type CaseRow } from '../../db/schema'
+import type { CaseState } from '../../../shared/domain/case-lifecycle'
+import type { Priority } from '../../../shared/domain/services'
+
+export async function findCase(db: Db, id: string): Promise<CaseRow | undefined> {
+  const [c] = await db.select().from(cases).where(eq(cases.id, id))
+  return c
+}
+
+export interface NewEvent {
+  caseId: string
+  actorUserId: string | null
+  actorLabel: string
+  kind: string
+  fromState?: CaseState | null
+  toState?: CaseState | null
+  body?: string | null
+  visibility: 'internal' | 'complainant'
+  data?: Record<string, unknown>
+}
+
+export async function appendEvent(db: Db, e: NewEvent): Promise<void> {
+  await db.insert(caseEvents).values({ ...e, data: e.data ? JSON.stringify(e.data) : null })
+}
+
+/**
+ * Writes changes only if nobody changed the case since `version` was read; bumps the
+ * version. Returns undefined when the version is stale (another user acted first).
+ */
+export async function updateCaseIfVersion(db: Db, id: string, version: number, changes: Partial<typeof cases.$inferInsert>): Promise<CaseRow | undefined> {
+  const [row] = await db
+    .update(cases)
+    .set({ ...changes, version: sql`${cases.version} + 1`, updatedAt: sql`now()` })
+    .where(and(eq(cases.id, id), eq(cases.version, version)))
+    .returning()
+  return row
+}
+
+export async function officeTargetsHours(db: Db, officeId: string): Promise<Record<Priority, number>> {
+  const [o] = await db.select().from(offices).where(eq(offices.id, officeId))
+  if (!o) throw new Error(`office ${officeId} missing`)
+  return { 1: o.targetP1Hours, 2: o.targetP2Hours, 3: o.targetP3Hours, 4: o.targetP4Hours }
+}
+
+export async function nextCaseReference(db: Db, now: Date): Promise<string> {
+  const r = await db.execute<{ n: string }>(sql`select nextval('case_reference_seq')::text as n`)
+  const yy = String(now.getUTCFullYear() % 100).padStart(2, '0')
+  return `QB-${yy}-${r.rows[0]!.n.padStart(6, '0')}`
+}
+
+export async function userName(db: Db, id: string): Promise<{ name: string; email: string; role: string; officeId: string | null; active: boolean } | undefined> {
+  const [u] = await db.select({ name: users.name, email: users.email, role: users.role, officeId: users.officeId, active: users.active }).from(users).where(eq(users.id, id))
+  return u
+}

@@ -1,0 +1,279 @@
+/**
+ * Every move of a case: allowed for the right person in the right state, refused otherwise
+ * (403 by role or relation, 404 for another office, 409 by state or stale version), with a
+ * timeline event written for each accepted move and nothing written for a refused one.
+ */
+import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import type request from 'supertest'
+import { createTestContext, DEMO, signedInAgent, type TestContext } from '../support/harness'
+import { caseVersion, createStaff, fileReport, NEAR_HARROWMERE, NEAR_KESTREL_BAY, queuedMails, userId } from '../support/cases'
+
+let t: TestContext
+type Agent = Awaited<ReturnType<typeof signedInAgent>>
+let supervisor: Agent
+let investigator: Agent
+let otherInvestigator: Agent // same office, not assigned
+let otherOfficeSupervisor: Agent
+let admin: Agent
+let investigatorId: string
+let secondInvestigatorId: string
+
+beforeAll(async () => {
+  t = await createTestContext()
+  supervisor = await signedInAgent(t.app, DEMO.supervisor)
+  investigator = await signedInAgent(t.app, DEMO.investigator)
+  otherInvestigator = await signedInAgent(t.app, 't.nakamura@quietband.test')
+  otherOfficeSupervisor = await signedInAgent(t.app, DEMO.otherSupervisor)
+  admin = await signedInAgent(t.app, DEMO.admin)
+  investigatorId = await userId(t.pool, DEMO.investigator)
+  secondInvestigatorId = await userId(t.pool, 't.nakamura@quietband.test')
+})
+afterAll(() => t.close())
+
+const events = async (caseId: string) =>
+  (await t.pool.query(`SELECT kind, from_state, to_state, actor_label, body FROM case_events WHERE case_id = $1 ORDER BY id`, [caseId])).rows
+const state = async (caseId: string) => (await t.pool.query(`SELECT status, priority, investigator_id, resolution FROM cases WHERE id = $1`, [caseId])).rows[0]
+
+async function act(agent: Agent, caseId: string, path: string, body: Record<string, unknown> = {}): Promise<request.Response> {
+  return agent.post(`/api/cases/${caseId}/${path}`).send({ version: await caseVersion(t.pool, caseId), ...body })
+}
+
+/** A Harrowmere case moved to a given state along the usual path. */
+async function caseIn(target: 'received' | 'triaged' | 'assigned' | 'field_work' | 'finding_proposed' | 'returned' | 'closed', where: { latDeg: number; lonDeg: number } = NEAR_HARROWMERE) {
+  const f = await fileReport(t, where)
+  const path: [Agent, string, Record<string, unknown>][] = [
+    [supervisor, 'triage', { priority: 2 }],
+    [supervisor, 'assign', { investigatorId }],
+    [investigator, 'start-field-work', {}],
+    [investigator, 'propose-finding', { reason: 'Faulty masthead amplifier at the marina, 180 m away.' }],
+  ]
+  const order = ['received', 'triaged', 'assigned', 'field_work', 'finding_proposed']
+  const steps = target === 'returned' ? 5 : target === 'closed' ? 5 : order.indexOf(target)
+  for (let i = 0; i < Math.min(steps, 4); i++) {
+    const [agent, p, body] = path[i]!
+    const res = await act(agent, f.id, p, body)
+    expect(res.status, `${p}: ${JSON.stringify(res.body)}`).toBe(200)
+  }
+  if (target === 'returned') expect((await act(supervisor, f.id, 'return-finding', { reason: 'Measure at the second site too.' })).status).toBe(200)
+  if (target === 'closed') expect((await act(supervisor, f.id, 'close', { resolution: 'source_corrected', reason: 'The owner replaced the amplifier.' })).status).toBe(200)
+  expect((await state(f.id)).status).toBe(target)
+  return f
+}
+
+describe('the whole path of a case', () => {
+  it('goes received → triaged → assigned → field work → finding proposed → closed, one timeline event per move', async () => {
+    const f = await caseIn('closed')
+    expect((await events(f.id)).map((e) => [e.kind, e.from_state, e.to_state])).toEqual([
+      ['received', null, 'received'],
+      ['routed', null, null],
+      ['triage', 'received', 'triaged'],
+      ['assign', 'triaged', 'assigned'],
+      ['startFieldWork', 'assigned', 'field_work'],
+      ['proposeFinding', 'field_work', 'finding_proposed'],
+      ['close', 'finding_proposed', 'closed'],
+    ])
+    expect(await state(f.id)).toMatchObject({ status: 'closed', resolution: 'source_corrected', priority: 2 })
+  })
+
+  it('tells the complainant at receipt, assignment and closure, and the investigator at assignment', async () => {
+    const f = await caseIn('closed')
+    const subjects = (await queuedMails(t.pool, f.email)).map((m) => m.subject)
+    expect(subjects).toEqual([
+      expect.stringContaining('We have received your interference report'),
+      expect.stringContaining('An engineer is looking into your report'),
+      expect.stringContaining('Your report is closed'),
+    ])
+    const toInvestigator = (await queuedMails(t.pool, DEMO.investigator)).map((m) => m.subject)
+    expect(toInvestigator).toContainEqual(`[${f.reference}] Assigned to you — priority 2`)
+    const toSupervisor = (await queuedMails(t.pool, DEMO.supervisor)).map((m) => m.subject)
+    expect(toSupervisor).toContainEqual(`[${f.reference}] Finding ready for your review`)
+  })
+
+  it('returns a finding for more work, and the investigator proposes again', async () => {
+    const f = await caseIn('returned')
+    expect((await act(investigator, f.id, 'propose-finding', { reason: 'Second site measured; same source.' })).status).toBe(200)
+    expect((await state(f.id)).status).toBe('finding_proposed')
+  })
+
+  it('reopens a closed case to its investigator and tells the complainant', async () => {
+    const f = await caseIn('closed')
+    const res = await act(supervisor, f.id, 'reopen', { reason: 'The complainant reports the noise is back.' })
+    expect(res.status).toBe(200)
+    expect(res.body.case).toMatchObject({ status: 'assigned', resolution: null, investigatorId })
+    const subjects = (await queuedMails(t.pool, f.email)).map((m) => m.subject)
+    expect(subjects.at(-1)).toContain('Your report is open again')
+  })
+})
+
+describe('moves refused', () => {
+  it.each([
+    ['triage', { priority: 1 }],
+    ['assign', { investigatorId: '00000000-0000-4000-8000-000000000000' }],
+    ['dismiss', { resolution: 'referred', reason: 'Not ours' }],
+  ])('%s by an investigator is 403 and writes nothing', async (path, body) => {
+    const f = await fileReport(t)
+    const before = await events(f.id)
+    const res = await act(investigator, f.id, path, body)
+    expect(res.status).toBe(403)
+    expect(res.body.error.code).toBe('forbidden')
+    expect(await events(f.id)).toEqual(before)
+    expect((await state(f.id)).status).toBe('received')
+  })
+
+  it('a move on another office’s case is 404 for its staff, even for a supervisor', async () => {
+    const f = await fileReport(t, NEAR_KESTREL_BAY)
+    const res = await act(supervisor, f.id, 'triage', { priority: 3 })
+    expect(res.status).toBe(404)
+    expect(res.body.error.code).toBe('case_not_found')
+    await supervisor.get(`/api/cases/${f.id}`).expect(404)
+    await otherOfficeSupervisor.get(`/api/cases/${f.id}`).expect(200)
+  })
+
+  it('an administrator can read every office’s case but makes no moves', async () => {
+    const f = await fileReport(t)
+    await admin.get(`/api/cases/${f.id}`).expect(200)
+    expect((await act(admin, f.id, 'triage', { priority: 3 })).status).toBe(403)
+  })
+
+  it('only the assigned investigator starts field work or proposes a finding', async () => {
+    const f = await caseIn('assigned')
+    expect((await act(otherInvestigator, f.id, 'start-field-work')).status).toBe(403)
+    expect((await act(supervisor, f.id, 'start-field-work')).status).toBe(403)
+    expect((await act(investigator, f.id, 'start-field-work')).status).toBe(200)
+  })
+
+  it.each([
+    ['received', supervisor, 'close', { resolution: 'source_corrected', reason: 'Too early' }],
+    ['received', supervisor, 'return-finding', { reason: 'Nothing to return' }],
+    ['triaged', supervisor, 'reopen', { reason: 'Not closed' }],
+    ['assigned', supervisor, 'transfer', { officeId: '00000000-0000-4000-8000-000000000000', reason: 'Too late to transfer' }],
+    ['field_work', supervisor, 'dismiss', { resolution: 'referred', reason: 'Too late to dismiss' }],
+    ['closed', supervisor, 'triage', { priority: 1 }],
+  ] as const)('from %s, %s is 409 invalid_transition and nothing changes', async (from, _agent, path, body) => {
+    const f = await caseIn(from)
+    const before = await events(f.id)
+    const res = await act(supervisor, f.id, path, body)
+    expect(res.status).toBe(409)
+    expect(res.body.error.code).toBe('invalid_transition')
+    expect(await events(f.id)).toEqual(before)
+    expect((await state(f.id)).status).toBe(from)
+  })
+
+  it('a stale version is 409 stale_version', async () => {
+    const f = await fileReport(t)
+    await act(supervisor, f.id, 'triage', { priority: 3 })
+    const res = await supervisor.post(`/api/cases/${f.id}/triage`).send({ version: 1, priority: 1 })
+    expect(res.status).toBe(409)
+    expect(res.body.error.code).toBe('stale_version')
+    expect((await state(f.id)).priority).toBe(3)
+  })
+
+  it('assigning an investigator of another office is 400 on the field', async () => {
+    const f = await fileReport(t)
+    const res = await act(supervisor, f.id, 'assign', { investigatorId: await userId(t.pool, DEMO.otherInvestigator) })
+    expect(res.status).toBe(400)
+    expect(res.body.error.details[0].path).toBe('investigatorId')
+  })
+
+  it('a move with missing fields lists them and changes nothing', async () => {
+    const f = await fileReport(t)
+    const res = await supervisor.post(`/api/cases/${f.id}/close`).send({})
+    expect(res.status).toBe(400)
+    expect(res.body.error.details.map((d: { path: string }) => d.path).sort()).toEqual(['reason', 'resolution', 'version'])
+  })
+})
+
+describe('triage work', () => {
+  it('transfers a new report to another office, which sees it as new', async () => {
+    const f = await fileReport(t)
+    const { rows } = await t.pool.query(`SELECT id FROM offices WHERE name = 'Kestrel Bay'`)
+    expect((await act(supervisor, f.id, 'transfer', { officeId: rows[0].id, reason: 'The site is on the Kestrel Bay side of the ridge.' })).status).toBe(200)
+    await supervisor.get(`/api/cases/${f.id}`).expect(404)
+    const seen = await otherOfficeSupervisor.get(`/api/cases/${f.id}`).expect(200)
+    expect(seen.body.case).toMatchObject({ status: 'received', officeName: 'Kestrel Bay', investigatorId: null })
+  })
+
+  it('suggests open cases nearby with an overlapping frequency for merging, and merges', async () => {
+    // a quiet corner of the demo region, away from the other tests' reports
+    const open = await caseIn('assigned', { latDeg: 47.95, lonDeg: -31.72 })
+    const dup = await fileReport(t, { frequencyFrom: 1750, frequencyTo: 1760, latDeg: 47.951, lonDeg: -31.721 })
+    const otherBand = await fileReport(t, { frequencyFrom: 450, frequencyTo: 470, latDeg: 47.9505, lonDeg: -31.7205 })
+    const far = await fileReport(t, { latDeg: 48.05, lonDeg: -31.72 })
+    const cands = await supervisor.get(`/api/cases/${dup.id}/merge-candidates`).expect(200)
+    const refs = cands.body.candidates.map((c: { reference: string }) => c.reference)
+    expect(refs).toContain(open.reference)
+    expect(refs).not.toContain(far.reference) // about 11 km away
+    expect(refs).not.toContain(otherBand.reference) // no frequency overlap
+    const res = await act(supervisor, dup.id, 'merge', { intoCaseId: open.id })
+    expect(res.status).toBe(200)
+    expect(res.body.case).toMatchObject({ status: 'closed', resolution: 'duplicate', mergedIntoReference: open.reference })
+    expect((await events(open.id)).map((e) => e.kind)).toContain('merged_in')
+  })
+
+  it('shows each investigator’s open workload for assignment', async () => {
+    const f = await fileReport(t)
+    const res = await supervisor.get(`/api/cases/${f.id}/investigators`).expect(200)
+    const names = res.body.investigators.map((i: { name: string }) => i.name)
+    expect(names).toEqual(expect.arrayContaining(['Marta Ferreira', 'Tomas Nakamura']))
+    for (const i of res.body.investigators) expect(i.openCases).toEqual(expect.any(Number))
+    const { rows } = await t.pool.query(`SELECT count(*)::int AS n FROM cases WHERE investigator_id = $1 AND status <> 'closed'`, [secondInvestigatorId])
+    expect(res.body.investigators.find((i: { id: string }) => i.id === secondInvestigatorId).openCases).toBe(rows[0].n)
+  })
+
+  it('sends abilities that match the person and the state', async () => {
+    const f = await fileReport(t)
+    const sup = (await supervisor.get(`/api/cases/${f.id}`)).body.case.abilities
+    const inv = (await investigator.get(`/api/cases/${f.id}`)).body.case.abilities
+    expect(sup).toMatchObject({ triage: true, assign: true, dismiss: true, close: false, startFieldWork: false })
+    expect(inv).toMatchObject({ triage: false, assign: false, startFieldWork: false, addInternalNote: true, messageComplainant: false })
+  })
+})
+
+describe('two supervisors at once', () => {
+  it('exactly one succeeds, the other gets 409, and nothing is half-written', async () => {
+    const secondEmail = `second.supervisor.${Date.now()}@quietband.test`
+    await createStaff(t.pool, { email: secondEmail, name: 'Ruth Calder', role: 'supervisor', officeName: 'Harrowmere' })
+    const second = await signedInAgent(t.app, secondEmail)
+    for (let round = 0; round < 5; round++) {
+      const f = await fileReport(t)
+      const [a, b] = await Promise.all([
+        supervisor.post(`/api/cases/${f.id}/triage`).send({ version: 1, priority: 2 }),
+        second.post(`/api/cases/${f.id}/assign`).send({ version: 1, investigatorId }),
+      ])
+      expect([a.status, b.status].sort()).toEqual([200, 409])
+      const loser = a.status === 409 ? a : b
+      expect(loser.body.error.code).toBe('stale_version')
+      expect(loser.body.error.message).toMatch(/Someone else changed this case/)
+      const moves = (await events(f.id)).filter((e) => e.to_state && e.kind !== 'received')
+      expect(moves).toHaveLength(1)
+      expect(await caseVersion(t.pool, f.id)).toBe(2)
+    }
+  })
+})
+
+describe('the timeline', () => {
+  it('refuses UPDATE and DELETE in the database', async () => {
+    const f = await fileReport(t)
+    await expect(t.pool.query(`UPDATE case_events SET body = 'changed' WHERE case_id = $1`, [f.id])).rejects.toThrow(/append-only/)
+    await expect(t.pool.query(`DELETE FROM case_events WHERE case_id = $1`, [f.id])).rejects.toThrow(/append-only/)
+  })
+
+  it('keeps internal notes apart from messages to the complainant, and e-mails only the latter', async () => {
+    const f = await caseIn('assigned')
+    const mailsBefore = (await queuedMails(t.pool, f.email)).length
+    await investigator.post(`/api/cases/${f.id}/notes`).send({ body: 'Licence register: no station within 1 km.', visibility: 'internal' }).expect(201)
+    await investigator.post(`/api/cases/${f.id}/notes`).send({ body: 'Which floor is your antenna on?', visibility: 'complainant', requestsInformation: true }).expect(201)
+    const mails = await queuedMails(t.pool, f.email)
+    expect(mails.length).toBe(mailsBefore + 1)
+    expect(mails.at(-1)!.subject).toContain('We need some information from you')
+    const detail = (await supervisor.get(`/api/cases/${f.id}`)).body.case
+    const notes = detail.timeline.filter((e: { kind: string }) => ['note', 'information_requested'].includes(e.kind))
+    expect(notes.map((e: { visibility: string }) => e.visibility)).toEqual(['internal', 'complainant'])
+  })
+
+  it('refuses a message to the complainant from an investigator not on the case', async () => {
+    const f = await caseIn('assigned')
+    const res = await otherInvestigator.post(`/api/cases/${f.id}/notes`).send({ body: 'Hello', visibility: 'complainant' })
+    expect(res.status).toBe(403)
+  })
+})
