@@ -1,0 +1,115 @@
+/** The case list: scoping, filters, sorting, paging, overdue flags, CSV, response targets. */
+import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import { createTestContext, DEMO, signedInAgent, type TestContext } from '../support/harness'
+import { caseVersion, fileReport, NEAR_KESTREL_BAY, userId } from '../support/cases'
+
+let t: TestContext
+type Agent = Awaited<ReturnType<typeof signedInAgent>>
+let supervisor: Agent
+let investigator: Agent
+let admin: Agent
+const tag = `zq${Date.now().toString(36)}` // a word only this file's reports contain
+const made: { id: string; reference: string }[] = []
+
+beforeAll(async () => {
+  t = await createTestContext()
+  supervisor = await signedInAgent(t.app, DEMO.supervisor)
+  investigator = await signedInAgent(t.app, DEMO.investigator)
+  admin = await signedInAgent(t.app, DEMO.admin)
+  const specs = [
+    { service: 'maritime', experience: 'outage', frequencyFrom: 156.8, frequencyTo: undefined },
+    { service: 'broadcasting', experience: 'degradation', frequencyFrom: 98.4, frequencyTo: undefined },
+    { service: 'licence_exempt', experience: 'nuisance', frequencyFrom: 2.4, frequencyTo: 2.4835, frequencyUnit: 'GHz' },
+    { service: 'mobile_network', experience: 'outage', frequencyFrom: 1710, frequencyTo: 1785 },
+  ] as const
+  for (const s of specs) made.push(await fileReport(t, { ...s, description: `Case list test ${tag}: ${s.service} trouble every evening.` }))
+  made.push(await fileReport(t, { ...NEAR_KESTREL_BAY, service: 'amateur', experience: 'degradation', description: `Case list test ${tag} at Kestrel Bay.` }))
+  // assign the broadcasting one to the investigator
+  const bc = made[1]!
+  await supervisor.post(`/api/cases/${bc.id}/assign`).send({ version: await caseVersion(t.pool, bc.id), investigatorId: await userId(t.pool, DEMO.investigator) }).expect(200)
+})
+afterAll(() => t.close())
+
+const list = (agent: Agent, query: string) => {
+  const params = new URLSearchParams({ q: tag, pageSize: '50' })
+  for (const [k, v] of new URLSearchParams(query)) params.set(k, v)
+  return agent.get(`/api/cases?${params}`)
+}
+
+describe('the case list', () => {
+  it('shows staff their own office only, and an administrator every office', async () => {
+    const sup = await list(supervisor, '').expect(200)
+    expect(sup.body.total).toBe(4)
+    expect(new Set(sup.body.items.map((i: { officeName: string }) => i.officeName))).toEqual(new Set(['Harrowmere']))
+    const all = await list(admin, '').expect(200)
+    expect(all.body.total).toBe(5)
+  })
+
+  it('filters by status, priority, service, investigator and frequency range', async () => {
+    expect((await list(supervisor, 'status=assigned')).body.items.map((i: { reference: string }) => i.reference)).toEqual([made[1]!.reference])
+    expect((await list(supervisor, 'priority=1')).body.items.map((i: { service: string }) => i.service)).toEqual(['maritime'])
+    expect((await list(supervisor, 'service=licence_exempt,mobile_network')).body.total).toBe(2)
+    expect((await list(investigator, 'investigatorId=me')).body.items.map((i: { reference: string }) => i.reference)).toEqual([made[1]!.reference])
+    expect((await list(supervisor, 'investigatorId=none')).body.total).toBe(3)
+    // 150–160 MHz overlaps only the marine channel; 1.7–2.5 GHz overlaps the mobile band and the 2.4 GHz band
+    expect((await list(supervisor, 'freqFromHz=150000000&freqToHz=160000000')).body.items.map((i: { service: string }) => i.service)).toEqual(['maritime'])
+    expect((await list(supervisor, 'freqFromHz=1700000000&freqToHz=2500000000')).body.total).toBe(2)
+  })
+
+  it('sorts by priority then age, and pages', async () => {
+    const byPriority = await list(supervisor, 'sort=priority&dir=asc').expect(200)
+    expect(byPriority.body.items.map((i: { priority: number }) => i.priority)).toEqual([1, 2, 3, 4])
+    const page2 = await list(supervisor, 'sort=priority&dir=asc&pageSize=3&page=2').expect(200)
+    expect(page2.body.items.map((i: { priority: number }) => i.priority)).toEqual([4])
+    expect(page2.body).toMatchObject({ total: 4, page: 2, pageSize: 3 })
+    const byFreq = await list(supervisor, 'sort=frequency&dir=desc').expect(200)
+    const freqs = byFreq.body.items.map((i: { freqLowHz: number }) => i.freqLowHz)
+    expect(freqs).toEqual([...freqs].sort((a, b) => b - a))
+  })
+
+  it('flags and filters overdue cases', async () => {
+    const late = made[2]!
+    await t.pool.query(`UPDATE cases SET due_at = now() - interval '2 hours' WHERE id = $1`, [late.id])
+    const res = await list(supervisor, 'overdue=true').expect(200)
+    expect(res.body.items.map((i: { reference: string }) => i.reference)).toEqual([late.reference])
+    expect(res.body.items[0].overdue).toBe(true)
+    const detail = await supervisor.get(`/api/cases/${late.id}`).expect(200)
+    expect(detail.body.case.overdue).toBe(true)
+  })
+
+  it('refuses an unknown sort or status with 400', async () => {
+    await list(supervisor, 'sort=colour').expect(400)
+    await list(supervisor, 'status=lost').expect(400)
+  })
+
+  it('exports the filtered list as CSV with every page and quoted cells', async () => {
+    const res = await supervisor.get(`/api/cases/export.csv?q=${tag}&sort=priority&dir=asc&pageSize=1`).expect(200)
+    expect(res.headers['content-type']).toMatch(/text\/csv/)
+    const lines = res.text.trim().split('\r\n')
+    expect(lines[0]).toMatch(/^reference,status,priority,service/)
+    expect(lines).toHaveLength(5) // header + the 4 Harrowmere cases, though pageSize was 1
+    expect(lines[1]).toContain(`"${made[0]!.reference}"`)
+  })
+
+  it('neutralises spreadsheet formulas in exported free text', async () => {
+    const f = await fileReport(t, { address: '=HYPERLINK("http://evil.example")', description: `Formula test ${tag}x` })
+    const res = await supervisor.get(`/api/cases/export.csv?q=${tag}x`).expect(200)
+    expect(res.text).toContain(`"'=HYPERLINK(""http://evil.example"")"`)
+    expect(res.text).toContain(f.reference)
+  })
+})
+
+describe('response targets', () => {
+  it('lets the office’s supervisor change them, and open cases’ due times follow', async () => {
+    const { rows } = await t.pool.query(`SELECT id FROM offices WHERE name = 'Harrowmere'`)
+    const officeId = rows[0].id
+    const f = await fileReport(t, { service: 'broadcasting', experience: 'degradation' }) // priority 3
+    const res = await supervisor.put(`/api/offices/${officeId}/response-targets`).send({ p1: 2, p2: 12, p3: 48, p4: 200 }).expect(200)
+    expect(res.body.office.responseTargetsHours).toEqual({ p1: 2, p2: 12, p3: 48, p4: 200 })
+    const { rows: c } = await t.pool.query(`SELECT extract(epoch from (due_at - received_at))::int / 3600 AS h FROM cases WHERE id = $1`, [f.id])
+    expect(c[0].h).toBe(48)
+    await supervisor.put(`/api/offices/${officeId}/response-targets`).send({ p1: 4, p2: 24, p3: 72, p4: 240 }).expect(200)
+    await supervisor.put(`/api/offices/${officeId}/response-targets`).send({ p1: 0, p2: 24, p3: 72, p4: 240 }).expect(400)
+    await investigator.put(`/api/offices/${officeId}/response-targets`).send({ p1: 4, p2: 24, p3: 72, p4: 240 }).expect(403)
+  })
+})
