@@ -1,0 +1,59 @@
+/**
+ * A real listening Quietband for browser tests: the built web app (dist/web), the API on the
+ * throwaway database, an SMTP fake with its development mailbox and a running mail worker.
+ */
+import fs from 'node:fs'
+import os from 'node:os'
+import path from 'node:path'
+import type { AddressInfo } from 'node:net'
+import type { Server } from 'node:http'
+import { fileURLToPath } from 'node:url'
+import { inject } from 'vitest'
+import { createApp } from '../../server/app'
+import { createPool } from '../../server/db/client'
+import { startBoss, startMailWorker } from '../../server/jobs/boss'
+import { createMailer } from '../../server/mail/mailer'
+import { startSmtpFake } from '../../ops/local/smtp-fake'
+
+export const WEB_DIST = fileURLToPath(new URL('../../dist/web', import.meta.url))
+
+export interface RunningWeb {
+  baseUrl: string
+  mailboxDir: string
+  close(): Promise<void>
+}
+
+export async function startWebServer(): Promise<RunningWeb> {
+  if (!fs.existsSync(path.join(WEB_DIST, 'index.html'))) throw new Error('dist/web is missing: run `npx vite build` (npm test does it first)')
+  const databaseUrl = inject('databaseUrl')
+  const mailboxDir = fs.mkdtempSync(path.join(os.tmpdir(), 'qb-e2e-mail-'))
+  const smtp = await startSmtpFake({ dir: mailboxDir })
+  const pool = createPool(databaseUrl, 5)
+  const boss = await startBoss(databaseUrl)
+  const mailer = createMailer({ smtpUrl: smtp.url, from: 'Quietband <no-reply@quietband.test>' })
+  await startMailWorker(boss, mailer, { pollingIntervalSeconds: 0.5 })
+  // the public URL must be known before listening (e-mailed links, origin checks): reserve a port first
+  const probe = (await import('node:net')).createServer()
+  const port: number = await new Promise((r) => probe.listen(0, '127.0.0.1', () => r((probe.address() as AddressInfo).port)))
+  await new Promise((r) => probe.close(r))
+  const baseUrl = `http://127.0.0.1:${port}`
+  const handle = createApp({ pool, boss, sessionSecret: 'e2e-session-secret-long-enough-0123456789', publicUrl: baseUrl, staticDir: WEB_DIST, mailboxDir, mailQueue: { retryDelaySeconds: 1, retryLimit: 10 } })
+  const server: Server = await new Promise((resolve, reject) => {
+    const s = handle.app.listen(port, '127.0.0.1', () => resolve(s))
+    s.once('error', reject)
+  })
+  return {
+    baseUrl,
+    mailboxDir,
+    async close() {
+      server.closeAllConnections()
+      await new Promise((r) => server.close(r))
+      await boss.stop({ graceful: false, wait: true, timeout: 3000 })
+      handle.close()
+      mailer.close()
+      await smtp.close()
+      await pool.end()
+      fs.rmSync(mailboxDir, { recursive: true, force: true })
+    },
+  }
+}
