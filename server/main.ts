@@ -30,6 +30,7 @@ export async function startServer(env: Env): Promise<RunningServer> {
     staticDir: env.STATIC_DIR,
     mailboxDir: env.DEV_MAILBOX_DIR,
     pruneSessions: true,
+    trustProxy: env.TRUST_PROXY,
   })
   const server: Server = await new Promise((resolve, reject) => {
     const s = handle.app.listen(env.PORT, env.HOST, () => resolve(s))

@@ -25,6 +25,8 @@ const envSchema = z.object({
   /** Folder where the local SMTP fake keeps messages; set only with the embedded fake. */
   DEV_MAILBOX_DIR: z.string().optional(),
   STATIC_DIR: z.string().optional(),
+  /** Number of proxies (load balancers) in front, for client addresses and secure cookies. */
+  TRUST_PROXY: z.coerce.number().int().min(0).max(10).default(0),
   /** Run the e-mail worker in this process (default yes; set false for API-only processes). */
   RUN_WORKERS: z.enum(['true', 'false']).default('true').transform((v) => v === 'true'),
 })
