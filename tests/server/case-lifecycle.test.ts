@@ -187,6 +187,8 @@ describe('triage work', () => {
   it('transfers a new report to another office, which sees it as new', async () => {
     const f = await fileReport(t)
     const { rows } = await t.pool.query(`SELECT id FROM offices WHERE name = 'Kestrel Bay'`)
+    const targets = await supervisor.get(`/api/cases/${f.id}/transfer-offices`).expect(200)
+    expect(targets.body.offices).toEqual([{ id: rows[0].id, name: 'Kestrel Bay', distanceM: expect.any(Number) }])
     expect((await act(supervisor, f.id, 'transfer', { officeId: rows[0].id, reason: 'The site is on the Kestrel Bay side of the ridge.' })).status).toBe(200)
     await supervisor.get(`/api/cases/${f.id}`).expect(404)
     const seen = await otherOfficeSupervisor.get(`/api/cases/${f.id}`).expect(200)

@@ -8,6 +8,13 @@ beforeAll(async () => {
 })
 afterAll(() => t.close())
 
+describe('the development mailbox', () => {
+  it('is off (404 mailbox_disabled) when a real mail server is configured', async () => {
+    const res = await request(t.app).get('/api/dev/mailbox').expect(404)
+    expect(res.body.error.code).toBe('mailbox_disabled')
+  })
+})
+
 describe('the one error shape', () => {
   it('answers malformed JSON with 400 malformed_json and a request id', async () => {
     const res = await request(t.app).post('/api/auth/sign-in').set('Content-Type', 'application/json').send('{"email": ').expect(400)

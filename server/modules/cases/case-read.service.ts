@@ -95,3 +95,12 @@ export async function investigatorsForCase(ctx: ServiceContext, actor: Actor, ca
     .orderBy(asc(count(cases.id)), asc(users.name))
   return rows
 }
+
+/** Offices a case may be transferred to, nearest to the report's location first. */
+export async function transferOffices(ctx: ServiceContext, actor: Actor, caseId: string) {
+  const c = await loadVisibleCase(ctx.db, actor, caseId)
+  const rows = await ctx.db.select({ id: offices.id, name: offices.name, latDeg: offices.centreLatDeg, lonDeg: offices.centreLonDeg }).from(offices).where(ne(offices.id, c.officeId))
+  return rows
+    .map((o) => ({ id: o.id, name: o.name, distanceM: Math.round(geodesicInverse({ from: { latDeg: c.latDeg, lonDeg: c.lonDeg }, to: { latDeg: o.latDeg, lonDeg: o.lonDeg } }).distanceM) }))
+    .sort((a, b) => a.distanceM - b.distanceM)
+}

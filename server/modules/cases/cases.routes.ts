@@ -21,7 +21,7 @@ import { HttpError } from '../../http/errors'
 import { addCaseNote } from './case-notes.service'
 import { exportCasesCsv, listCases } from './case-list.service'
 import * as moves from './case-moves.service'
-import { getCaseDetail, investigatorsForCase, mergeCandidates } from './case-read.service'
+import { getCaseDetail, investigatorsForCase, mergeCandidates, transferOffices } from './case-read.service'
 import type { Actor } from '../../policy/policy'
 
 const idParam = z.object({ id: z.string() })
@@ -48,6 +48,9 @@ export function casesRoutes(ctx: ServiceContext): Router {
   })
   r.get('/cases/:id/investigators', staff, async (req, res) => {
     res.json({ investigators: await investigatorsForCase(ctx, actorOf(req), parseWith(idParam, req.params).id) })
+  })
+  r.get('/cases/:id/transfer-offices', staff, async (req, res) => {
+    res.json({ offices: await transferOffices(ctx, actorOf(req), parseWith(idParam, req.params).id) })
   })
   r.post('/cases/:id/notes', staff, async (req, res) => {
     const { id } = parseWith(idParam, req.params)
