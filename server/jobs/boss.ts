@@ -9,15 +9,18 @@ import type { OutgoingMail, Mailer } from '../mail/mailer'
 
 export const MAIL_QUEUE = 'mail-send'
 
-export async function startBoss(databaseUrl: string): Promise<PgBoss> {
+/** Starts the job queue; `mailQueueName` lets tests keep their mail apart on a shared database. */
+export async function startBoss(databaseUrl: string, opts: { mailQueueName?: string } = {}): Promise<PgBoss> {
   const boss = new PgBoss({ connectionString: databaseUrl, schema: 'pgboss', max: 4 })
   boss.on('error', (err) => console.error('job queue error:', err))
   await boss.start()
-  await boss.createQueue(MAIL_QUEUE)
+  await boss.createQueue(opts.mailQueueName ?? MAIL_QUEUE)
   return boss
 }
 
 export interface MailQueueOptions {
+  /** Queue name (default MAIL_QUEUE). */
+  queueName?: string
   /** First retry delay in seconds; doubles each time (pg-boss backoff). */
   retryDelaySeconds: number
   retryLimit: number
@@ -32,7 +35,7 @@ export async function queueMail(
   mail: OutgoingMail,
   opts: MailQueueOptions = DEFAULT_MAIL_QUEUE_OPTIONS,
 ): Promise<void> {
-  await boss.send(MAIL_QUEUE, mail, {
+  await boss.send(opts.queueName ?? MAIL_QUEUE, mail, {
     retryLimit: opts.retryLimit,
     retryDelay: opts.retryDelaySeconds,
     retryBackoff: true,
@@ -45,14 +48,19 @@ export async function queueMail(
  * (pg-boss retries it later with backoff); the others in the batch complete. So one bad
  * address or an SMTP outage never resends a message that already went out.
  */
-export async function startMailWorker(boss: PgBoss, mailer: Mailer, opts: { pollingIntervalSeconds?: number; batchSize?: number } = {}): Promise<string> {
-  return boss.work<OutgoingMail>(MAIL_QUEUE, { pollingIntervalSeconds: opts.pollingIntervalSeconds ?? 1, batchSize: opts.batchSize ?? 20 }, async (jobs) => {
+export async function startMailWorker(
+  boss: PgBoss,
+  mailer: Mailer,
+  opts: { pollingIntervalSeconds?: number; batchSize?: number; queueName?: string } = {},
+): Promise<string> {
+  const queue = opts.queueName ?? MAIL_QUEUE
+  return boss.work<OutgoingMail>(queue, { pollingIntervalSeconds: opts.pollingIntervalSeconds ?? 1, batchSize: opts.batchSize ?? 20 }, async (jobs) => {
     for (const job of jobs) {
       try {
         // the job id doubles as Message-ID, so a rare resend after a crash is recognisable
         await mailer.send({ ...job.data, messageId: `<${job.id}@quietband.mail>` })
       } catch (err) {
-        await boss.fail(MAIL_QUEUE, job.id, { message: (err as Error).message })
+        await boss.fail(queue, job.id, { message: (err as Error).message })
       }
     }
   })

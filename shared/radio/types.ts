@@ -13,11 +13,27 @@ export interface MethodRef {
   source: string
 }
 
+/**
+ * Coverage interval of a result's main quantity: ABSOLUTE bounds in that quantity's own unit
+ * (dBm for an EIRP in dBm, dB for a margin in dB), never a ± half-width. `quantity` names the
+ * key in `value` that the bounds belong to, so its unit is in its name.
+ */
+export interface CoverageInterval {
+  /** Key of the bounded quantity in the result's value, e.g. 'eirpDbm' or 'marginDb'. */
+  quantity: string
+  /** Lower bound, in the unit of `quantity`. */
+  low: number
+  /** Upper bound, in the unit of `quantity`. */
+  high: number
+  /** How the interval was formed, e.g. 'GUM U = k·u_c, k = 2 (about 95 %)'. */
+  basis: string
+}
+
 /** A result that a finding can rest on. */
 export interface RadioResult<T> {
   value: T
-  /** 95 % interval (k = 2) in dB around the value, when an uncertainty was given. */
-  intervalDb?: { lowDb: number; highDb: number }
+  /** Coverage interval (about 95 % unless `basis` says otherwise), when an uncertainty was given. */
+  interval?: CoverageInterval
   /** Plain-language warnings: outside a validity range, assumptions that matter. Never silent. */
   warnings: string[]
   method: MethodRef

@@ -3,7 +3,7 @@
  * Every conversion is an exact identity [D] except where a constant is named.
  * Losses are positive dB. Never add two absolute levels: use sumPowersDbm.
  */
-import { DIPOLE_GAIN_DBI, FREE_SPACE_IMPEDANCE_OHM, RECEIVER_IMPEDANCE_OHM } from './constants'
+import { DIPOLE_GAIN_DBI, FREE_SPACE_IMPEDANCE_OHM, RECEIVER_IMPEDANCE_OHM, SPEED_OF_LIGHT_M_PER_S } from './constants'
 import { requireFinite, requireNonEmpty, requirePositive } from './guards'
 
 const log10 = Math.log10
@@ -64,20 +64,23 @@ export function dbuvToDbm(opts: { voltageDbuv: number; impedanceOhm?: number }):
 }
 
 // ── Field strength and power flux density (far field, plane wave) ──────────────
-export const vPerMToDbuvPerM = (fieldVPerM: number): number => 20 * log10(requirePositive('fieldVPerM', fieldVPerM)) + 120
-export const dbuvPerMToVPerM = (fieldDbuvPerM: number): number => 10 ** ((requireFinite('fieldDbuvPerM', fieldDbuvPerM) - 120) / 20)
+export const vPerMToDbuvPerM = (fieldStrengthVPerM: number): number =>
+  20 * log10(requirePositive('fieldStrengthVPerM', fieldStrengthVPerM)) + 120
+export const dbuvPerMToVPerM = (fieldStrengthDbuvPerM: number): number =>
+  10 ** ((requireFinite('fieldStrengthDbuvPerM', fieldStrengthDbuvPerM) - 120) / 20)
 export const wPerM2ToDbwPerM2 = (pfdWPerM2: number): number => 10 * log10(requirePositive('pfdWPerM2', pfdWPerM2))
 export const dbwPerM2ToWPerM2 = (pfdDbwPerM2: number): number => 10 ** (requireFinite('pfdDbwPerM2', pfdDbwPerM2) / 10)
 
 /** S = E²/Z0; in logs S = E − 145.76 (ITU-R P.525 rounds to 145.8) [dBW/m²]. */
-export function fieldToPfdDbwPerM2(fieldDbuvPerM: number): number {
-  return requireFinite('fieldDbuvPerM', fieldDbuvPerM) - 120 - 10 * log10(FREE_SPACE_IMPEDANCE_OHM)
+export function fieldToPfdDbwPerM2(fieldStrengthDbuvPerM: number): number {
+  return requireFinite('fieldStrengthDbuvPerM', fieldStrengthDbuvPerM) - 120 - 10 * log10(FREE_SPACE_IMPEDANCE_OHM)
 }
 export function pfdToFieldDbuvPerM(pfdDbwPerM2: number): number {
   return requireFinite('pfdDbwPerM2', pfdDbwPerM2) + 120 + 10 * log10(FREE_SPACE_IMPEDANCE_OHM)
 }
 /** Power density [W/m²] from a field strength [V/m]: S = E²/Z0. */
-export const vPerMToWPerM2 = (fieldVPerM: number): number => requirePositive('fieldVPerM', fieldVPerM) ** 2 / FREE_SPACE_IMPEDANCE_OHM
+export const vPerMToWPerM2 = (fieldStrengthVPerM: number): number =>
+  requirePositive('fieldStrengthVPerM', fieldStrengthVPerM) ** 2 / FREE_SPACE_IMPEDANCE_OHM
 export const wPerM2ToVPerM = (pfdWPerM2: number): number => Math.sqrt(requirePositive('pfdWPerM2', pfdWPerM2) * FREE_SPACE_IMPEDANCE_OHM)
 
 // ── EIRP ↔ ERP ────────────────────────────────────────────────────────────────
@@ -86,7 +89,7 @@ export const erpToEirpDb = (erpDb: number): number => requireFinite('erpDb', erp
 export const eirpToErpDb = (eirpDb: number): number => requireFinite('eirpDb', eirpDb) - DIPOLE_GAIN_DBI
 
 // ── Frequency and wavelength ─────────────────────────────────────────────────
-export { SPEED_OF_LIGHT_M_PER_S } from './constants'
+/** Free-space wavelength λ = c/f [m]. */
 export function wavelengthM(freqHz: number): number {
-  return 299_792_458 / requirePositive('freqHz', freqHz)
+  return SPEED_OF_LIGHT_M_PER_S / requirePositive('freqHz', freqHz)
 }

@@ -31,7 +31,7 @@ async function waitFor<T>(fn: () => Promise<T>, ok: (v: T) => boolean, timeoutMs
 beforeAll(async () => {
   t = await createTestContext()
   smtp = await startSmtpFake({ dir })
-  await startMailWorker(t.boss, createMailer({ smtpUrl: smtp.url, from: 'Quietband <no-reply@quietband.test>' }), { pollingIntervalSeconds: 0.5 })
+  await startMailWorker(t.boss, createMailer({ smtpUrl: smtp.url, from: 'Quietband <no-reply@quietband.test>' }), { pollingIntervalSeconds: 0.5, queueName: t.mailQueueName })
 })
 afterAll(async () => {
   await smtp.close().catch(() => {})
@@ -42,7 +42,7 @@ afterAll(async () => {
 describe('the e-mail outbox', () => {
   it('sends a queued message with its text and HTML parts', async () => {
     const to = `outbox-1-${Date.now()}@example.test`
-    await queueMail(t.boss, t.pool, composeMail(to, 'Grüße – case QB ✓', ['Hello,', 'https://quietband.test/track/abc']), { retryDelaySeconds: 1, retryLimit: 5 })
+    await queueMail(t.boss, t.pool, composeMail(to, 'Grüße – case QB ✓', ['Hello,', 'https://quietband.test/track/abc']), { queueName: t.mailQueueName, retryDelaySeconds: 1, retryLimit: 5 })
     const mine = await waitFor(() => readMailbox(dir), (ms) => ms.some((m) => m.to.includes(to)), 10_000)
     const m = mine.find((x) => x.to.includes(to))!
     expect(m.subject).toBe('Grüße – case QB ✓')
@@ -54,7 +54,7 @@ describe('the e-mail outbox', () => {
     const to = `rolled-back-${Date.now()}@example.test`
     await expect(
       withTransaction(t.pool, async ({ client }) => {
-        await queueMail(t.boss, client, composeMail(to, 'never', ['never']))
+        await queueMail(t.boss, client, composeMail(to, 'never', ['never']), { queueName: t.mailQueueName, retryDelaySeconds: 1, retryLimit: 5 })
         throw new Error('the change failed')
       }),
     ).rejects.toThrow('the change failed')
@@ -67,7 +67,7 @@ describe('the e-mail outbox', () => {
     await smtp.close()
     const stamp = Date.now()
     const recipients = [1, 2, 3].map((i) => `down-${i}-${stamp}@example.test`)
-    for (const to of recipients) await queueMail(t.boss, t.pool, composeMail(to, `While down ${to}`, ['queued while the server was down']), { retryDelaySeconds: 1, retryLimit: 20 })
+    for (const to of recipients) await queueMail(t.boss, t.pool, composeMail(to, `While down ${to}`, ['queued while the server was down']), { queueName: t.mailQueueName, retryDelaySeconds: 1, retryLimit: 20 })
     // the worker tries and fails while the server is down
     const retried = await waitFor(
       async () => (await t.pool.query(`SELECT min(retry_count)::int AS n FROM pgboss.job WHERE data->>'to' = ANY($1)`, [recipients])).rows[0].n as number,

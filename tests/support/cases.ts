@@ -51,7 +51,7 @@ export async function fileReport(t: TestContext, over: Partial<ReportInput> = {}
 
 /** The queued e-mails to an address, oldest first (mail jobs are pg-boss rows). */
 export async function queuedMails(pool: pg.Pool, to: string): Promise<{ subject: string; text: string }[]> {
-  const { rows } = await pool.query(`SELECT data FROM pgboss.job WHERE name = 'mail-send' AND data->>'to' = $1 ORDER BY created_on, id`, [to])
+  const { rows } = await pool.query(`SELECT data FROM pgboss.job WHERE name LIKE 'mail-send%' AND data->>'to' = $1 ORDER BY created_on, id`, [to])
   return rows.map((r) => r.data)
 }
 

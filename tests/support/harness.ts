@@ -24,23 +24,30 @@ export interface TestContext {
   pool: pg.Pool
   boss: PgBoss
   databaseUrl: string
+  /** This context's own mail queue (see testMailQueue). */
+  mailQueueName: string
   close(): Promise<void>
 }
+
+/** A mail queue of this test file's own, so workers of other files never take its messages. */
+export const testMailQueue = () => `mail-send-test-${process.pid}-${Math.random().toString(36).slice(2, 8)}`
 
 export async function createTestContext(opts: { mailboxDir?: string; publicUrl?: string } = {}): Promise<TestContext> {
   const databaseUrl = inject('databaseUrl')
   const pool = createPool(databaseUrl, 5)
-  const boss = await startBoss(databaseUrl)
+  const mailQueueName = testMailQueue()
+  const boss = await startBoss(databaseUrl, { mailQueueName })
   const handle = createApp({
     pool,
     boss,
     sessionSecret: 'test-session-secret-that-is-long-enough-0123',
     publicUrl: opts.publicUrl ?? 'http://127.0.0.1:3999',
     mailboxDir: opts.mailboxDir,
-    mailQueue: { retryDelaySeconds: 1, retryLimit: 10 },
+    mailQueue: { queueName: mailQueueName, retryDelaySeconds: 1, retryLimit: 10 },
     trustProxy: 1,
   })
   return {
+    mailQueueName,
     handle,
     app: handle.app,
     pool,

@@ -9,6 +9,7 @@ import type { AddressInfo } from 'node:net'
 import type { Server } from 'node:http'
 import { fileURLToPath } from 'node:url'
 import { inject } from 'vitest'
+import { testMailQueue } from './harness'
 import { createApp } from '../../server/app'
 import { createPool } from '../../server/db/client'
 import { startBoss, startMailWorker } from '../../server/jobs/boss'
@@ -29,15 +30,16 @@ export async function startWebServer(): Promise<RunningWeb> {
   const mailboxDir = fs.mkdtempSync(path.join(os.tmpdir(), 'qb-e2e-mail-'))
   const smtp = await startSmtpFake({ dir: mailboxDir })
   const pool = createPool(databaseUrl, 5)
-  const boss = await startBoss(databaseUrl)
+  const mailQueueName = testMailQueue()
+  const boss = await startBoss(databaseUrl, { mailQueueName })
   const mailer = createMailer({ smtpUrl: smtp.url, from: 'Quietband <no-reply@quietband.test>' })
-  await startMailWorker(boss, mailer, { pollingIntervalSeconds: 0.5 })
+  await startMailWorker(boss, mailer, { pollingIntervalSeconds: 0.5, queueName: mailQueueName })
   // the public URL must be known before listening (e-mailed links, origin checks): reserve a port first
   const probe = (await import('node:net')).createServer()
   const port: number = await new Promise((r) => probe.listen(0, '127.0.0.1', () => r((probe.address() as AddressInfo).port)))
   await new Promise((r) => probe.close(r))
   const baseUrl = `http://127.0.0.1:${port}`
-  const handle = createApp({ pool, boss, sessionSecret: 'e2e-session-secret-long-enough-0123456789', publicUrl: baseUrl, staticDir: WEB_DIST, mailboxDir, mailQueue: { retryDelaySeconds: 1, retryLimit: 10 } })
+  const handle = createApp({ pool, boss, sessionSecret: 'e2e-session-secret-long-enough-0123456789', publicUrl: baseUrl, staticDir: WEB_DIST, mailboxDir, mailQueue: { queueName: mailQueueName, retryDelaySeconds: 1, retryLimit: 10 } })
   const server: Server = await new Promise((resolve, reject) => {
     const s = handle.app.listen(port, '127.0.0.1', () => resolve(s))
     s.once('error', reject)

@@ -18,6 +18,7 @@
  */
 import { requireFinite, requirePositive } from '../guards'
 import type { MethodRef, RadioResult } from '../types'
+import { scaleToBandwidthDb } from '../units'
 
 const log10 = Math.log10
 const EULER_MASCHERONI = 0.5772156649015329
@@ -29,7 +30,7 @@ export const LOG_AVERAGE_NOISE_BIAS_DB = 10 * log10(Math.E) * EULER_MASCHERONI /
 /** Under-read of noise by averaging the linear envelope voltage, ≈ 1.049 dB [D]. */
 export const LINEAR_VOLTAGE_AVERAGE_NOISE_BIAS_DB = -20 * log10(Math.sqrt(Math.PI) / 2) // Eq. (5) [dB]
 
-export const CHANNEL_POWER_METHOD: MethodRef = {
+export const RBW_CHANNEL_POWER_METHOD: MethodRef = {
   id: 'rbw-to-channel-power',
   source:
     'Keysight AN 150 "Spectrum Analysis Basics" ch. 5 (ENBW, noise detector bias) [V-S]; exact Gaussian ENBW, ' +
@@ -82,7 +83,8 @@ function resolve(opts: RbwCorrection): { correctionDb: number; enbwHz: number; r
   if (bChHz < enbwHz) {
     warnings.push('Channel bandwidth is narrower than the noise bandwidth of the RBW filter: the reading already spans more than the channel.')
   }
-  return { correctionDb: biasDb - 10 * log10(enbwHz) + 10 * log10(bChHz), enbwHz, ratio, biasDb, warnings }
+  const correctionDb = biasDb + scaleToBandwidthDb({ fromBandwidthHz: enbwHz, toBandwidthHz: bChHz }) // Eq. (2) b − 10 log B_N + 10 log B_ch [dB]
+  return { correctionDb, enbwHz, ratio, biasDb, warnings }
 }
 
 /** Channel power of a noise-like signal from a reading in one RBW [dBm]. */
@@ -98,7 +100,7 @@ export function rbwReadingToChannelPowerDbm(opts: RbwCorrection & { readingDbm: 
       detectorBiasDb: c.biasDb,
     },
     warnings: c.warnings,
-    method: CHANNEL_POWER_METHOD,
+    method: RBW_CHANNEL_POWER_METHOD,
   }
 }
 
@@ -106,5 +108,5 @@ export function rbwReadingToChannelPowerDbm(opts: RbwCorrection & { readingDbm: 
 export function channelPowerToRbwReadingDbm(opts: RbwCorrection & { channelPowerDbm: number }): RadioResult<{ readingDbm: number }> {
   const p = requireFinite('channelPowerDbm', opts.channelPowerDbm)
   const c = resolve(opts)
-  return { value: { readingDbm: p - c.correctionDb }, warnings: c.warnings, method: CHANNEL_POWER_METHOD } // Eq. (3) [dBm]
+  return { value: { readingDbm: p - c.correctionDb }, warnings: c.warnings, method: RBW_CHANNEL_POWER_METHOD } // Eq. (3) [dBm]
 }

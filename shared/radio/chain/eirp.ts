@@ -1,32 +1,23 @@
 /**
- * EIRP and ERP side by side, EIRP from conducted power, and the free-space field of an EIRP.
+ * EIRP and ERP side by side, and EIRP from conducted power.
  *
  * Document: ITU Radio Regulations Nos. 1.161 (e.i.r.p.) and 1.162 (e.r.p., half-wave dipole
- * reference), EIRP = ERP + 2.15 dB [M for the RR wording]; ITU-R P.525-4 §2 free-space field
- * E = P − 20 log d + 74.8 (P dBW e.i.r.p., d km), implemented exactly as S = EIRP/(4πd²),
- * E = √(S·Z0) with Z0 = 120π (constant 74.77) [D].
+ * reference), EIRP = ERP + 2.15 dB [M for the RR wording]. The free-space field and power flux
+ * density of an EIRP, and their inverse, are in propagation/free-space-p525.ts; EIRP from a
+ * measurement through any propagation model is in estimation/eirp-from-measurement.ts.
  *
  * Equations:
  *   (1) ERP = EIRP − 2.15                                [dBm]
  *   (2) EIRP = P_cond − L_feeder + G                     [dBm]
- *   (3) S = EIRP − 30 − 10 log10(4π d²)                  [dBW/m²]
- *   (4) EIRP = S + 30 + 10 log10(4π d²)                  [dBm]
  */
 import { DIPOLE_GAIN_DBI } from '../constants'
-import { requireFinite, requireNonNegative, requirePositive } from '../guards'
+import { requireFinite, requireNonNegative } from '../guards'
 import type { MethodRef, RadioResult } from '../types'
-import { dbmToWatts, eirpToErpDb, erpToEirpDb, fieldToPfdDbwPerM2, pfdToFieldDbuvPerM } from '../units'
-
-const log10 = Math.log10
+import { dbmToWatts, eirpToErpDb, erpToEirpDb } from '../units'
 
 export const EIRP_ERP_METHOD: MethodRef = {
   id: 'eirp-erp-dipole',
   source: 'ITU Radio Regulations Nos. 1.161 and 1.162; ITU-R BS.561 Annex 1 §2: EIRP = ERP + 2.15 dB [M for the wording]',
-}
-
-export const FREE_SPACE_FIELD_METHOD: MethodRef = {
-  id: 'free-space-field-p525',
-  source: 'ITU-R P.525-4 §2: E = P_eirp − 20 log d + 74.8 (exact 74.77 with Z0 = 120π) [V-I]',
 }
 
 export interface EirpErp {
@@ -63,28 +54,4 @@ export function conductedFromEirpDbm(opts: { eirpDbm: number; antennaGainDbi: nu
   const g = requireFinite('antennaGainDbi', opts.antennaGainDbi)
   const l = requireNonNegative('feederLossDb', opts.feederLossDb ?? 0)
   return e + l - g // Eq. (2) [dBm]
-}
-
-/** Free-space field strength and power flux density at a distance from an EIRP (far field). */
-export function freeSpaceFieldFromEirp(opts: {
-  eirpDbm: number
-  distanceM: number
-}): RadioResult<{ fieldStrengthDbuvPerM: number; pfdDbwPerM2: number }> {
-  const eirpDbm = requireFinite('eirpDbm', opts.eirpDbm)
-  const d = requirePositive('distanceM', opts.distanceM)
-  const pfdDbwPerM2 = eirpDbm - 30 - 10 * log10(4 * Math.PI * d ** 2) // Eq. (3) [dBW/m²]
-  return {
-    value: { fieldStrengthDbuvPerM: pfdToFieldDbuvPerM(pfdDbwPerM2), pfdDbwPerM2 },
-    warnings: [],
-    method: FREE_SPACE_FIELD_METHOD,
-  }
-}
-
-/** EIRP (and ERP) that gives a field strength at a distance in free space (inverse). */
-export function eirpFromFreeSpaceField(opts: { fieldStrengthDbuvPerM: number; distanceM: number }): RadioResult<EirpErp> {
-  const pfd = fieldToPfdDbwPerM2(requireFinite('fieldStrengthDbuvPerM', opts.fieldStrengthDbuvPerM))
-  const d = requirePositive('distanceM', opts.distanceM)
-  const eirpDbm = pfd + 30 + 10 * log10(4 * Math.PI * d ** 2) // Eq. (4) [dBm]
-  const pair = eirpAndErp({ eirpDbm })
-  return { value: pair.value, warnings: ['Free space assumed: no ground, clutter or absorption.'], method: FREE_SPACE_FIELD_METHOD }
 }

@@ -9,7 +9,17 @@
  *   (1) d_F = 2·D²/λ      [m]
  */
 import { requireNonNegative, requirePositive } from '../guards'
+import type { ValidityRange } from '../types'
 import { wavelengthM } from '../units'
+
+/**
+ * Floor of the far-field (plane-wave) assumption as data: at least ten wavelengths from a small
+ * antenna (common practice, no source). Used by free-space loss and by EIRP back-calculation;
+ * large antennas also need d > 2D²/λ (farFieldWarnings).
+ */
+export const FAR_FIELD_VALIDITY: ValidityRange[] = [
+  { quantity: 'distanceInWavelengths', min: 10, unit: 'λ', source: 'far-field (plane-wave) assumption, common practice (no source)' },
+]
 
 /** Fraunhofer distance of an antenna of largest dimension antennaSizeM [m]. */
 export function fraunhoferDistanceM(opts: { freqHz: number; antennaSizeM: number }): number {

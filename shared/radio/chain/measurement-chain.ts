@@ -17,6 +17,7 @@
  *   (3) E = V_port + AF                                        [dBµV/m]
  *   (4) P_read = E − AF − 10 log10 R − 90 − L_cable − L_att + G_preamp   [dBm]  inverse
  */
+import { RECEIVER_IMPEDANCE_OHM } from '../constants'
 import { requireFinite, requireNonNegative, requirePositive } from '../guards'
 import type { MethodRef, RadioResult } from '../types'
 import { dbmToDbuv, dbuvPerMToVPerM, dbuvToDbm, dbwPerM2ToWPerM2, fieldToPfdDbwPerM2 } from '../units'
@@ -79,7 +80,7 @@ interface ResolvedChain {
 
 function resolveChain(opts: ChainCorrections): ResolvedChain {
   const freqHz = requirePositive('freqHz', opts.freqHz)
-  const impedanceOhm = requirePositive('impedanceOhm', opts.impedanceOhm ?? 50)
+  const impedanceOhm = requirePositive('impedanceOhm', opts.impedanceOhm ?? RECEIVER_IMPEDANCE_OHM)
   const cable = requireNonNegative('cableLossDb', opts.cableLossDb ?? 0)
   const att = requireNonNegative('attenuatorDb', opts.attenuatorDb ?? 0)
   const preamp = requireNonNegative('preampGainDb', opts.preampGainDb ?? 0)

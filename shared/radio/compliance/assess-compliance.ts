@@ -12,7 +12,7 @@
  *   (2) m_low = EIRP_low − EIRP_lim, m_high = EIRP_high − EIRP_lim   [dB]
  */
 import { requireFinite } from '../guards'
-import type { MethodRef, RadioResult } from '../types'
+import type { CoverageInterval, MethodRef, RadioResult } from '../types'
 import { appliedLimitEirpDbm, type InstallationFacts, type LimitSpec } from './limit-spec'
 
 export const COMPLIANCE_METHOD: MethodRef = {
@@ -50,8 +50,8 @@ export interface ComplianceAssessment {
 }
 
 /**
- * Verdict of an EIRP against a limit. `intervalDb` of the result is the margin's interval
- * (absolute margins in dB), so a finding reads "exceeds by X dB (95 % interval Y–Z dB)".
+ * Verdict of an EIRP against a limit. The result's `interval` bounds the margin (quantity
+ * 'marginDb', absolute margins in dB), so a finding reads "exceeds by X dB (95 % interval Y–Z dB)".
  */
 export function assessCompliance(opts: ComplianceOptions): RadioResult<ComplianceAssessment> {
   const eirp = requireFinite('eirpDbm', opts.eirpDbm)
@@ -88,8 +88,12 @@ export function assessCompliance(opts: ComplianceOptions): RadioResult<Complianc
       limitStatus: opts.limit.status,
       derivation: applied.derivation,
     },
-    intervalDb: marginIntervalDb,
+    ...(marginIntervalDb ? { interval: marginInterval(marginIntervalDb) } : {}),
     warnings,
     method: COMPLIANCE_METHOD,
   }
+}
+
+function marginInterval(m: { lowDb: number; highDb: number }): CoverageInterval {
+  return { quantity: 'marginDb', low: m.lowDb, high: m.highDb, basis: 'margin at the ends of the EIRP interval given by the caller' }
 }

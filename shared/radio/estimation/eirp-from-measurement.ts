@@ -2,20 +2,22 @@
  * EIRP back-calculated from one measurement at a known distance, with a GUM interval.
  *
  * EIRP = P_r + L(d): the isotropic received power at the measuring point plus the basic
- * transmission loss of the chosen propagation model (any PropagationModel). Field strength and
- * power flux-density are first turned into P_r (ITU-R P.525-4 §3 [M]; see isotropic-power.ts).
+ * transmission loss of the chosen propagation model (any PropagationModel). Field strength, power
+ * flux-density and the power received by an antenna of known gain are first turned into P_r
+ * (ITU-R P.525-4 §3 [M]; see chain/received-power.ts).
  * ERP = EIRP − 2.15 dB (ITU Radio Regulations Nos. 1.161, 1.162).
  * Interval: JCGM 100:2008 budget of the caller's measurement contributions, the distance
  * (through c_d = S/(d ln 10), CHECKS §12) and the model's shadowing σ when it states one.
  */
+import { FAR_FIELD_VALIDITY } from '../chain/far-field'
 import { DIPOLE_GAIN_DBI } from '../constants'
 import { requireFinite, requirePositive } from '../guards'
 import type { PropagationModel, PropagationModelSpec } from '../propagation/model'
-import { checkValidity, type MethodRef, type RadioResult, type ValidityRange } from '../types'
+import { checkValidity, type CoverageInterval, type MethodRef, type RadioResult, type ValidityRange } from '../types'
 import { dbmToWatts, wavelengthM } from '../units'
 import { distanceContribution } from '../uncertainty/distance-sensitivity'
 import { combineUncertainty, COVERAGE_FACTOR_95, type UncertaintyBudget, type UncertaintyContribution, type UncertaintyDistribution } from '../uncertainty/gum-budget'
-import { fieldFromIsotropicPowerDbuvPerM, isotropicPowerFromFieldDbm, isotropicPowerFromPfdDbm, pfdFromIsotropicPowerDbwPerM2 } from './isotropic-power'
+import { fieldToReceivedPowerDbm, pfdToReceivedPowerDbm, receivedPowerToFieldDbuvPerM, receivedPowerToPfdDbwPerM2 } from '../chain/received-power'
 
 /** One measurement, already corrected for the measuring chain (antenna, cables, RBW). */
 export type PointMeasurement =
@@ -23,6 +25,8 @@ export type PointMeasurement =
   | { kind: 'pfd'; pfdDbwPerM2: number; freqHz: number }
   /** Power an isotropic (0 dBi) antenna would receive at the point. */
   | { kind: 'isotropic-power'; receivedPowerDbm: number }
+  /** Power delivered by a receiving antenna of known gain toward the source (feeder losses already removed). */
+  | { kind: 'received-power'; receivedPowerDbm: number; antennaGainDbi: number }
 
 export interface EirpFromMeasurementOptions {
   measurement: PointMeasurement
@@ -60,10 +64,8 @@ export const EIRP_FROM_MEASUREMENT_METHOD: MethodRef = {
   source: 'EIRP = P_r + L_b(d); P_r from E or S after ITU-R P.525-4 §3 (A_e = λ²/4π); ERP = EIRP − 2.15 dB (ITU RR Nos. 1.161–1.162); interval after JCGM 100:2008',
 }
 
-/** Far-field assumption of the E ↔ P_r conversion, as data. */
-export const EIRP_FROM_MEASUREMENT_VALIDITY: ValidityRange[] = [
-  { quantity: 'distanceInWavelengths', min: 10, unit: 'λ', source: 'far-field (plane-wave) assumption of E ↔ S ↔ P_r; common practice, no source' },
-]
+/** Far-field assumption of the E ↔ S ↔ P_r conversion, as data (chain/far-field.ts). */
+export const EIRP_FROM_MEASUREMENT_VALIDITY: ValidityRange[] = FAR_FIELD_VALIDITY
 
 /** Relative frequency difference between measurement and model above which a warning is given. */
 const FREQ_MISMATCH_TOLERANCE = 0.01
@@ -77,11 +79,13 @@ export function modelFreqHz(spec: PropagationModelSpec): number | undefined {
 function isotropicPowerDbm(m: PointMeasurement): number {
   switch (m.kind) {
     case 'field-strength':
-      return isotropicPowerFromFieldDbm({ fieldStrengthDbuvPerM: m.fieldStrengthDbuvPerM, freqHz: m.freqHz })
+      return fieldToReceivedPowerDbm({ fieldStrengthDbuvPerM: m.fieldStrengthDbuvPerM, freqHz: m.freqHz })
     case 'pfd':
-      return isotropicPowerFromPfdDbm({ pfdDbwPerM2: m.pfdDbwPerM2, freqHz: m.freqHz })
+      return pfdToReceivedPowerDbm({ pfdDbwPerM2: m.pfdDbwPerM2, freqHz: m.freqHz })
     case 'isotropic-power':
       return requireFinite('receivedPowerDbm', m.receivedPowerDbm)
+    case 'received-power':
+      return requireFinite('receivedPowerDbm', m.receivedPowerDbm) - requireFinite('antennaGainDbi', m.antennaGainDbi) // Eq. (P_iso = P_r − G_r) [dBm]
     default:
       throw new RangeError(`unknown measurement kind '${(m as { kind: string }).kind}'.`)
   }
@@ -100,13 +104,13 @@ export function eirpFromMeasurement(opts: EirpFromMeasurementOptions): RadioResu
   const eirpDbm = prDbm + loss.lossDb // Eq. (EIRP = P_r + L_b) [dBm]
 
   const freqModelHz = modelFreqHz(opts.model.spec)
-  if (m.kind !== 'isotropic-power') {
+  if (m.kind === 'field-strength' || m.kind === 'pfd') {
     requirePositive('freqHz', m.freqHz)
     if (freqModelHz !== undefined && Math.abs(m.freqHz - freqModelHz) > FREQ_MISMATCH_TOLERANCE * freqModelHz) {
       warnings.push(`The measurement frequency (${m.freqHz} Hz) differs from the model's (${freqModelHz} Hz) by more than 1 %.`)
     }
   }
-  const freqForCheckHz = m.kind === 'isotropic-power' ? freqModelHz : m.freqHz
+  const freqForCheckHz = m.kind === 'field-strength' || m.kind === 'pfd' ? m.freqHz : freqModelHz
   if (freqForCheckHz !== undefined) {
     warnings.push(...checkValidity(EIRP_FROM_MEASUREMENT_VALIDITY, { distanceInWavelengths: distanceM / wavelengthM(freqForCheckHz) }))
   }
@@ -135,15 +139,21 @@ export function eirpFromMeasurement(opts: EirpFromMeasurementOptions): RadioResu
     distanceM,
     modelMethod: opts.model.method,
   }
-  let intervalDb: RadioResult<EirpEstimate>['intervalDb']
+  let interval: CoverageInterval | undefined
   if (contributions.length) {
     const budget = combineUncertainty({ contributions, coverageFactor: opts.coverageFactor ?? COVERAGE_FACTOR_95 })
     value.budget = budget
     value.expandedUncertaintyDb = budget.expandedUncertainty
     value.eirpIntervalDbm = { lowDbm: eirpDbm - budget.expandedUncertainty, highDbm: eirpDbm + budget.expandedUncertainty }
-    intervalDb = { lowDb: value.eirpIntervalDbm.lowDbm, highDb: value.eirpIntervalDbm.highDbm }
+    const k = budget.coverageFactor
+    interval = {
+      quantity: 'eirpDbm',
+      low: value.eirpIntervalDbm.lowDbm,
+      high: value.eirpIntervalDbm.highDbm,
+      basis: `JCGM 100:2008 U = k·u_c, k = ${k}${k === COVERAGE_FACTOR_95 ? ' (about 95 %)' : ''}`,
+    }
   }
-  return { value, ...(intervalDb ? { intervalDb } : {}), warnings, method: EIRP_FROM_MEASUREMENT_METHOD }
+  return { value, ...(interval ? { interval } : {}), warnings, method: EIRP_FROM_MEASUREMENT_METHOD }
 }
 
 export interface PredictedMeasurement {
@@ -164,8 +174,8 @@ export function predictMeasurementFromEirp(opts: { eirpDbm: number; distanceM: n
   const value: PredictedMeasurement = { isotropicReceivedPowerDbm: prDbm, pathLossDb: loss.lossDb }
   if (opts.freqHz !== undefined) {
     requirePositive('freqHz', opts.freqHz)
-    value.fieldStrengthDbuvPerM = fieldFromIsotropicPowerDbuvPerM({ receivedPowerDbm: prDbm, freqHz: opts.freqHz })
-    value.pfdDbwPerM2 = pfdFromIsotropicPowerDbwPerM2({ receivedPowerDbm: prDbm, freqHz: opts.freqHz })
+    value.fieldStrengthDbuvPerM = receivedPowerToFieldDbuvPerM({ receivedPowerDbm: prDbm, freqHz: opts.freqHz })
+    value.pfdDbwPerM2 = receivedPowerToPfdDbwPerM2({ receivedPowerDbm: prDbm, freqHz: opts.freqHz })
   }
   return { value, warnings: [...loss.warnings], method: EIRP_FROM_MEASUREMENT_METHOD }
 }

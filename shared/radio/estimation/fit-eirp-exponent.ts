@@ -10,10 +10,11 @@
  *
  * The fixed-exponent variant estimates EIRP only: the mean of y + n·x.
  */
+import { fieldToReceivedPowerDbm } from '../chain/received-power'
 import { requireFinite, requireNonEmpty, requirePositive } from '../guards'
-import type { MethodRef, RadioResult } from '../types'
+import { freeSpaceLossDb } from '../propagation/free-space-p525'
+import type { CoverageInterval, MethodRef, RadioResult } from '../types'
 import { studentTQuantile } from '../uncertainty/student-t'
-import { isotropicPowerFromFieldDbm } from './isotropic-power'
 
 /** One reading at a known distance: the isotropic received power, or a field strength (needs freqHz). */
 export interface ReadingAtDistance {
@@ -91,7 +92,7 @@ function prepare(opts: FitOptions, minimumPoints: number): Prepared {
   let refLossDb: number
   if (opts.refLossDb !== undefined) refLossDb = requireFinite('refLossDb', opts.refLossDb)
   else if (opts.freqHz !== undefined) {
-    refLossDb = 20 * Math.log10((4 * Math.PI * d0 * requirePositive('freqHz', opts.freqHz)) / 299_792_458) // Eq. (P.525 exact) L_bf(d0) [dB]
+    refLossDb = freeSpaceLossDb({ freqHz: opts.freqHz, distanceM: d0 }).lossDb // L_bf(d0), ITU-R P.525-4 exact form [dB]
   } else throw new RangeError('give refLossDb or freqHz (for free-space loss at the reference distance).')
   const n = opts.readings.length
   const x = new Float64Array(n)
@@ -105,7 +106,7 @@ function prepare(opts: FitOptions, minimumPoints: number): Prepared {
     if (r.receivedPowerDbm !== undefined) pr = requireFinite(`readings[${i}].receivedPowerDbm`, r.receivedPowerDbm)
     else if (r.fieldStrengthDbuvPerM !== undefined) {
       if (opts.freqHz === undefined) throw new RangeError('freqHz is needed to use field-strength readings.')
-      pr = isotropicPowerFromFieldDbm({ fieldStrengthDbuvPerM: r.fieldStrengthDbuvPerM, freqHz: opts.freqHz })
+      pr = fieldToReceivedPowerDbm({ fieldStrengthDbuvPerM: r.fieldStrengthDbuvPerM, freqHz: opts.freqHz })
     } else throw new RangeError(`readings[${i}] needs receivedPowerDbm or fieldStrengthDbuvPerM.`)
     x[i] = 10 * Math.log10(d / d0) // Eq. (4.68) x = 10 log10(d/d0) [dB per unit n]
     y[i] = pr + refLossDb // Eq. (4.68) y = P_r + L(d0) [dBm]
@@ -238,7 +239,9 @@ export function fitEirpFixedExponent(opts: FitOptions & { exponent: number }): R
   }
 }
 
-function intervalOf(eirpDbm: number, se: number | null, dof: number): { intervalDb?: { lowDb: number; highDb: number } } {
+function intervalOf(eirpDbm: number, se: number | null, dof: number): { interval?: CoverageInterval } {
   const i = tInterval(eirpDbm, se, dof)
-  return i ? { intervalDb: { lowDb: i.lowDbm, highDb: i.highDbm } } : {}
+  return i
+    ? { interval: { quantity: 'eirpDbm', low: i.lowDbm, high: i.highDbm, basis: `Student t(0.975, ν = ${dof}) × standard error (95 %)` } }
+    : {}
 }

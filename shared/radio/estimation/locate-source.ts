@@ -17,6 +17,7 @@ import type { GeoPoint } from '../geo/geodesic'
 import { requireGeoPoint } from '../geo/geodesic'
 import { centroidOf, createLocalTangentPlane, type EnuPoint } from '../geo/local-tangent-plane'
 import { requireFinite, requirePositive } from '../guards'
+import { freeSpaceLossDb } from '../propagation/free-space-p525'
 import type { MethodRef, RadioResult } from '../types'
 import { levenbergMarquardt, type LevenbergMarquardtResult, type ResidualsAndJacobian } from './levenberg-marquardt'
 import { invertSymmetricPositiveDefinite } from './small-matrix'
@@ -128,7 +129,8 @@ export function locateSource(opts: LocateSourceOptions): RadioResult<SourceLocat
     if (opts.pathLoss?.exponent !== undefined) requirePositive('pathLoss.exponent', opts.pathLoss.exponent)
     if (opts.pathLoss?.refLossDb !== undefined) refLossDb = requireFinite('pathLoss.refLossDb', opts.pathLoss.refLossDb)
     else if (opts.pathLoss?.freqHz !== undefined) {
-      refLossDb = 20 * Math.log10((4 * Math.PI * d0 * requirePositive('pathLoss.freqHz', opts.pathLoss.freqHz)) / 299_792_458) // Eq. (P.525 exact) L_bf(d0) [dB]
+      const freqHz = requirePositive('pathLoss.freqHz', opts.pathLoss.freqHz)
+      refLossDb = freeSpaceLossDb({ freqHz, distanceM: d0 }).lossDb // L_bf(d0), ITU-R P.525-4 exact form [dB]
     } else throw new RangeError('levels need pathLoss.refLossDb or pathLoss.freqHz for the loss at the reference distance.')
   }
   const parameterNames = ['eastM', 'northM', ...(useLevels ? ['eirpDbm'] : []), ...(fitExponent ? ['exponent'] : [])]

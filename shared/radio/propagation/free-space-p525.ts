@@ -1,5 +1,6 @@
 /**
- * Free-space basic transmission loss and free-space field from an e.i.r.p.
+ * Free-space basic transmission loss, and the free-space field and power flux density of an
+ * e.i.r.p., each with its inverse.
  *
  * Document: Recommendation ITU-R P.525-4 (08/2019), "Calculation of free-space attenuation",
  * §2.1 (point-to-area: field from e.i.r.p.) and §2.2 (point-to-point: basic transmission loss).
@@ -11,10 +12,13 @@
  *  (3) E = P_eirp − 20·log10 d + 74.77                 E [dBµV/m], P [dBW], d [km]; P.525 rounds to 74.8.
  *      74.77 = 10·log10(30) + 60 from e = √(30·p)/d, i.e. Z0 = 120π [D]
  *  (4) S = P_eirp − 10·log10(4π·d²)                    pfd [dBW/m²], d [m] — inverse-square law [D]
+ *  (5) P_eirp = E + 20·log10 d − 74.77                 inverse of (3)
+ *  (6) P_eirp = S + 10·log10(4π·d²)                    inverse of (4)
  *
  * The exact constant of (2) is 20·log10(4π·10⁹/c) = 32.4478; the rounded 32.4 reads 0.048 dB low.
  * Valid in the far field only, with no ground, clutter or gaseous absorption.
  */
+import { FAR_FIELD_VALIDITY } from '../chain/far-field'
 import { SPEED_OF_LIGHT_M_PER_S } from '../constants'
 import { requireFinite, requirePositive } from '../guards'
 import { checkValidity, type MethodRef, type ValidityRange } from '../types'
@@ -41,15 +45,12 @@ export const FREE_SPACE_EXACT_CONSTANT_DB = 20 * Math.log10((4 * Math.PI * 1e9) 
 export const P525_FIELD_CONSTANT_DB = 10 * Math.log10(30) + 60
 
 /**
- * Far-field condition as data. Ten wavelengths is a floor for small antennas
- * (common practice, no source); large antennas also need d > 2D²/λ, which depends on the
- * antenna and is not checked here.
+ * Far-field condition as data (chain/far-field.ts): ten wavelengths is a floor for small
+ * antennas; large antennas also need d > 2D²/λ, which depends on the antenna and is not checked here.
  */
-export const FREE_SPACE_VALIDITY: ValidityRange[] = [
-  { quantity: 'distanceInWavelengths', min: 10, unit: 'λ', source: 'far-field assumption, common practice (no source)' },
-]
+export const FREE_SPACE_VALIDITY: ValidityRange[] = FAR_FIELD_VALIDITY
 
-function farFieldWarnings(freqHz: number, distanceM: number): string[] {
+function wavelengthWarnings(freqHz: number, distanceM: number): string[] {
   const wavelengths = (distanceM * freqHz) / SPEED_OF_LIGHT_M_PER_S
   return checkValidity(FREE_SPACE_VALIDITY, { distanceInWavelengths: wavelengths })
 }
@@ -62,7 +63,7 @@ export function freeSpaceLossDb(opts: { freqHz: number; distanceM: number; form?
     opts.form === 'p525-rounded'
       ? P525_ROUNDED_CONSTANT_DB + 20 * Math.log10(freqHz / 1e6) + 20 * Math.log10(distanceM / 1e3) // Eq. (2) [dB]
       : 20 * Math.log10((4 * Math.PI * distanceM * freqHz) / SPEED_OF_LIGHT_M_PER_S) // Eq. (1) [dB]
-  return { lossDb, warnings: farFieldWarnings(freqHz, distanceM), method: methodOf(opts.form) }
+  return { lossDb, warnings: wavelengthWarnings(freqHz, distanceM), method: methodOf(opts.form) }
 }
 
 /** Distance at which the free-space loss equals lossDb [m]; exact inverse of freeSpaceLossDb. */
@@ -73,7 +74,7 @@ export function freeSpaceDistanceM(opts: { freqHz: number; lossDb: number; form?
     opts.form === 'p525-rounded'
       ? 1e3 * 10 ** ((lossDb - P525_ROUNDED_CONSTANT_DB - 20 * Math.log10(freqHz / 1e6)) / 20) // Eq. (2) inverted [m]
       : (SPEED_OF_LIGHT_M_PER_S / (4 * Math.PI * freqHz)) * 10 ** (lossDb / 20) // Eq. (1) inverted [m]
-  return { distanceM, warnings: farFieldWarnings(freqHz, distanceM), method: methodOf(opts.form) }
+  return { distanceM, warnings: wavelengthWarnings(freqHz, distanceM), method: methodOf(opts.form) }
 }
 
 /** Free-space field strength at a distance from an e.i.r.p. [dBµV/m]. */
@@ -88,4 +89,18 @@ export function freeSpacePfdDbwPerM2(opts: { eirpDbw: number; distanceM: number 
   const eirpDbw = requireFinite('eirpDbw', opts.eirpDbw)
   const distanceM = requirePositive('distanceM', opts.distanceM)
   return eirpDbw - 10 * Math.log10(4 * Math.PI * distanceM ** 2) // Eq. (4) [dBW/m²]
+}
+
+/** E.i.r.p. that gives a field strength at a distance in free space [dBW] (inverse of freeSpaceFieldStrengthDbuvPerM). */
+export function freeSpaceEirpFromFieldDbw(opts: { fieldStrengthDbuvPerM: number; distanceM: number }): number {
+  const fieldStrengthDbuvPerM = requireFinite('fieldStrengthDbuvPerM', opts.fieldStrengthDbuvPerM)
+  const distanceM = requirePositive('distanceM', opts.distanceM)
+  return fieldStrengthDbuvPerM + 20 * Math.log10(distanceM / 1e3) - P525_FIELD_CONSTANT_DB // Eq. (5) [dBW]
+}
+
+/** E.i.r.p. that gives a power flux density at a distance in free space [dBW] (inverse of freeSpacePfdDbwPerM2). */
+export function freeSpaceEirpFromPfdDbw(opts: { pfdDbwPerM2: number; distanceM: number }): number {
+  const pfdDbwPerM2 = requireFinite('pfdDbwPerM2', opts.pfdDbwPerM2)
+  const distanceM = requirePositive('distanceM', opts.distanceM)
+  return pfdDbwPerM2 + 10 * Math.log10(4 * Math.PI * distanceM ** 2) // Eq. (6) [dBW]
 }

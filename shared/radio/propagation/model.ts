@@ -50,7 +50,7 @@ export type PropagationModelSpec =
       segments: { startM: number; exponent: number }[]
       shadowSigmaDb?: number
     }
-  | { kind: 'two-ray'; freqHz: number; txHeightM: number; rxHeightM: number; form?: 'exact' | 'asymptote' }
+  | { kind: 'two-ray'; freqHz: number; txHeightM: number; rxHeightM: number; form?: 'exact' | 'asymptote' | 'breakpoint' }
   | {
       kind: 'absorbing'
       /** The model the absorption is added to. */

@@ -3,7 +3,7 @@
  *
  * Each model keeps a stable MethodRef id (stored with results, never renamed). The slope
  * dL/d(log10 d) is analytic where the loss is a power law (free space 20, log-distance 10·n,
- * two-ray asymptote 40, Hata B) and a central difference in log d otherwise.
+ * two-ray asymptote 40, two-ray breakpoint 20/40, Hata B) and a central difference in log d otherwise.
  * Sources: see each model's file.
  */
 import type { MethodRef, ValidityRange } from '../types'
@@ -31,7 +31,14 @@ import { LOG_DISTANCE_METHOD, logDistanceDistanceM, logDistanceLossDb, logDistan
 import type { PathDistance, PathLoss, PropagationModel, PropagationModelKind, PropagationModelSpec } from './model'
 import { centralSlopeDbPerDecade } from './numeric'
 import { TR38901_METHOD, TR38901_VALIDITY, tr38901DistanceM, tr38901LossDb } from './tr38901'
-import { TWO_RAY_ASYMPTOTE_METHOD, TWO_RAY_EXACT_METHOD, twoRayDistanceM, twoRayLossDb } from './two-ray'
+import {
+  TWO_RAY_ASYMPTOTE_METHOD,
+  TWO_RAY_BREAKPOINT_METHOD,
+  TWO_RAY_EXACT_METHOD,
+  twoRayBreakpointSlopeDbPerDecade,
+  twoRayDistanceM,
+  twoRayLossDb,
+} from './two-ray'
 
 type Spec<K extends PropagationModelKind> = Extract<PropagationModelSpec, { kind: K }>
 
@@ -75,13 +82,15 @@ function logDistance(spec: Spec<'log-distance'>): Parts {
 }
 
 function twoRay(spec: Spec<'two-ray'>): Parts {
-  const asymptote = spec.form === 'asymptote'
-  return {
-    method: asymptote ? TWO_RAY_ASYMPTOTE_METHOD : TWO_RAY_EXACT_METHOD,
-    lossDb: (distanceM) => twoRayLossDb({ ...spec, distanceM }),
-    distanceM: (lossDb) => twoRayDistanceM({ ...spec, lossDb }),
-    ...(asymptote ? { slopeDbPerDecade: () => 40 } : {}),
+  const common = {
+    lossDb: (distanceM: number) => twoRayLossDb({ ...spec, distanceM }),
+    distanceM: (lossDb: number) => twoRayDistanceM({ ...spec, lossDb }),
   }
+  if (spec.form === 'asymptote') return { ...common, method: TWO_RAY_ASYMPTOTE_METHOD, slopeDbPerDecade: () => 40 }
+  if (spec.form === 'breakpoint') {
+    return { ...common, method: TWO_RAY_BREAKPOINT_METHOD, slopeDbPerDecade: (distanceM) => twoRayBreakpointSlopeDbPerDecade({ ...spec, distanceM }) }
+  }
+  return { ...common, method: TWO_RAY_EXACT_METHOD }
 }
 
 function absorbing(spec: Spec<'absorbing'>): Parts {
@@ -181,12 +190,15 @@ const BASE_METHOD_IDS = [
   LOG_DISTANCE_METHOD.id,
   TWO_RAY_EXACT_METHOD.id,
   TWO_RAY_ASYMPTOTE_METHOD.id,
+  TWO_RAY_BREAKPOINT_METHOD.id,
   HATA_METHOD.id,
   COST231_HATA_METHOD.id,
   TR38901_METHOD.id,
 ]
 
 const FREQ: ModelParameterDescriptor = { key: 'freqHz', label: 'Frequency', unit: 'Hz', required: true }
+const BASE_HEIGHT: ModelParameterDescriptor = { key: 'baseHeightM', label: 'Base station antenna height', unit: 'm', required: true }
+const MOBILE_HEIGHT: ModelParameterDescriptor = { key: 'mobileHeightM', label: 'Mobile antenna height', unit: 'm', required: true, defaultValue: 1.5 }
 
 export const PROPAGATION_MODEL_DESCRIPTORS: readonly PropagationModelDescriptor[] = [
   {
@@ -229,7 +241,7 @@ export const PROPAGATION_MODEL_DESCRIPTORS: readonly PropagationModelDescriptor[
   },
   {
     kind: 'two-ray',
-    methodIds: [TWO_RAY_EXACT_METHOD.id, TWO_RAY_ASYMPTOTE_METHOD.id],
+    methodIds: [TWO_RAY_EXACT_METHOD.id, TWO_RAY_ASYMPTOTE_METHOD.id, TWO_RAY_BREAKPOINT_METHOD.id],
     label: 'Two-ray flat ground',
     summary:
       'Direct path plus one reflection from flat ground, for open sites (water, airfields, flat farmland). Close in, the loss swings up and down; far out it grows 40 dB per decade.',
@@ -245,13 +257,14 @@ export const PROPAGATION_MODEL_DESCRIPTORS: readonly PropagationModelDescriptor[
         choices: [
           { value: 'exact', label: 'Exact two-ray (reflection coefficient −1)' },
           { value: 'asymptote', label: 'Far-distance approximation 40·log d − 20·log(h_t·h_r)' },
+          { value: 'breakpoint', label: 'Free space up to the crossover 4π·h_t·h_r/λ, then the far-distance approximation' },
         ],
       },
     ],
     validity: [],
     validityNote:
-      'Flat ground, antennas well above it. The far-distance approximation holds only beyond d_x = 4π·h_t·h_r/λ; the exact form swings up and down inside d_c = 4·h_t·h_r/λ.',
-    source: `${TWO_RAY_EXACT_METHOD.source}; ${TWO_RAY_ASYMPTOTE_METHOD.source}`,
+      'Flat ground, antennas well above it. The far-distance approximation holds only beyond d_x = 4π·h_t·h_r/λ (the breakpoint form uses free space before it); the exact form swings up and down inside d_c = 4·h_t·h_r/λ.',
+    source: `${TWO_RAY_EXACT_METHOD.source}; ${TWO_RAY_ASYMPTOTE_METHOD.source}; ${TWO_RAY_BREAKPOINT_METHOD.source}`,
   },
   {
     kind: 'absorbing',
@@ -275,8 +288,8 @@ export const PROPAGATION_MODEL_DESCRIPTORS: readonly PropagationModelDescriptor[
     summary: 'Empirical median loss for a mast above rooftops to a street-level mobile, 150–1500 MHz, 1–20 km.',
     parameters: [
       FREQ,
-      { key: 'baseHeightM', label: 'Base station antenna height', unit: 'm', required: true },
-      { key: 'mobileHeightM', label: 'Mobile antenna height', unit: 'm', required: true, defaultValue: 1.5 },
+      BASE_HEIGHT,
+      MOBILE_HEIGHT,
       {
         key: 'environment',
         label: 'Area',
@@ -299,8 +312,8 @@ export const PROPAGATION_MODEL_DESCRIPTORS: readonly PropagationModelDescriptor[
     summary: 'Extension of Hata to 1500–2000 MHz for macrocells with the mast above rooftops, 1–20 km.',
     parameters: [
       FREQ,
-      { key: 'baseHeightM', label: 'Base station antenna height', unit: 'm', required: true },
-      { key: 'mobileHeightM', label: 'Mobile antenna height', unit: 'm', required: true, defaultValue: 1.5 },
+      BASE_HEIGHT,
+      MOBILE_HEIGHT,
       {
         key: 'environment',
         label: 'Area',
@@ -342,7 +355,7 @@ export const PROPAGATION_MODEL_DESCRIPTORS: readonly PropagationModelDescriptor[
           { value: 'NLOS', label: 'No line of sight' },
         ],
       },
-      { key: 'baseHeightM', label: 'Base station antenna height', unit: 'm', required: true },
+      BASE_HEIGHT,
       { key: 'ueHeightM', label: 'Terminal antenna height', unit: 'm', required: true, defaultValue: 1.5 },
       { key: 'buildingHeightM', label: 'Average building height (RMa)', unit: 'm', required: false, defaultValue: 5 },
       { key: 'streetWidthM', label: 'Average street width (RMa)', unit: 'm', required: false, defaultValue: 20 },

@@ -64,22 +64,8 @@ const FREQ_NOTE_M = '3GPP TR 38.901 title range 0.5–100 GHz [M]'
 /** Validity ranges per scenario and condition, as data. */
 export const TR38901_VALIDITY: Record<Tr38901Scenario, Record<Tr38901Condition, ValidityRange[]>> = {
   RMa: {
-    LOS: [
-      { quantity: 'freqGhz', min: 0.5, max: 30, unit: 'GHz', source: 'RMa 0.5–30 GHz (ns-3 assertion citing TR 38.901)' },
-      { quantity: 'distance2dM', min: 10, max: 10_000, unit: 'm', source: TABLE },
-      { quantity: 'baseHeightM', min: 10, max: 150, unit: 'm', source: TABLE },
-      { quantity: 'ueHeightM', min: 1, max: 10, unit: 'm', source: TABLE },
-      { quantity: 'buildingHeightM', min: 5, max: 50, unit: 'm', source: TABLE },
-      { quantity: 'streetWidthM', min: 5, max: 50, unit: 'm', source: TABLE },
-    ],
-    NLOS: [
-      { quantity: 'freqGhz', min: 0.5, max: 30, unit: 'GHz', source: 'RMa 0.5–30 GHz (ns-3 assertion citing TR 38.901)' },
-      { quantity: 'distance2dM', min: 10, max: 5_000, unit: 'm', source: TABLE },
-      { quantity: 'baseHeightM', min: 10, max: 150, unit: 'm', source: TABLE },
-      { quantity: 'ueHeightM', min: 1, max: 10, unit: 'm', source: TABLE },
-      { quantity: 'buildingHeightM', min: 5, max: 50, unit: 'm', source: TABLE },
-      { quantity: 'streetWidthM', min: 5, max: 50, unit: 'm', source: TABLE },
-    ],
+    LOS: ruralRanges(10_000),
+    NLOS: ruralRanges(5_000),
   },
   UMa: {
     LOS: urbanRanges(25),
@@ -93,6 +79,17 @@ export const TR38901_VALIDITY: Record<Tr38901Scenario, Record<Tr38901Condition, 
     LOS: indoorRanges(),
     NLOS: indoorRanges(),
   },
+}
+
+function ruralRanges(maxDistance2dM: number): ValidityRange[] {
+  return [
+    { quantity: 'freqGhz', min: 0.5, max: 30, unit: 'GHz', source: 'RMa 0.5–30 GHz (ns-3 assertion citing TR 38.901)' },
+    { quantity: 'distance2dM', min: 10, max: maxDistance2dM, unit: 'm', source: TABLE },
+    { quantity: 'baseHeightM', min: 10, max: 150, unit: 'm', source: TABLE },
+    { quantity: 'ueHeightM', min: 1, max: 10, unit: 'm', source: TABLE },
+    { quantity: 'buildingHeightM', min: 5, max: 50, unit: 'm', source: TABLE },
+    { quantity: 'streetWidthM', min: 5, max: 50, unit: 'm', source: TABLE },
+  ]
 }
 
 function urbanRanges(baseHeightM: number): ValidityRange[] {

@@ -6,7 +6,9 @@
  * critical distance d_c = 4·h_t·h_r/λ [V-S]; Linnartz, "Wireless Communication Reference",
  * "Two-ray model" [V-S]; Rappaport, "Wireless Communications" 2nd ed. §4.6, eq. (4.52) for the
  * d⁻⁴ asymptote [V-S]. The crossover d_x = 4π·h_t·h_r/λ is where free space and the asymptote
- * meet [D]. The `Eq. (n)` tags refer to this list:
+ * meet [D]; the breakpoint form uses free space up to d_x and the asymptote beyond, as the
+ * ns-3 TwoRayGroundPropagationLossModel does (dCross = 4π·Ht·Hr/λ) [V-I]. The `Eq. (n)` tags
+ * refer to this list:
  *
  *  (1) r1 = √(d² + (h_t − h_r)²),  r2 = √(d² + (h_t + h_r)²)                         [m]
  *  (2) Δφ = 2π·(r2 − r1)/λ,  with r2 − r1 = 4·h_t·h_r/(r1 + r2) (no cancellation)   [rad]
@@ -15,6 +17,7 @@
  *  (4) L = 40·log10 d − 20·log10(h_t·h_r)                                            Rappaport (4.52) [dB]
  *  (5) d_c = 4·h_t·h_r/λ   (last maximum of the received power)                      [m]
  *  (6) d_x = 4π·h_t·h_r/λ  (free space = asymptote)                                  [m]
+ *  (7) L = L_bf(d) for d ≤ d_x, eq. (4) beyond (continuous at d_x)                     [dB]
  *
  * Beyond the distance where Δφ = π the loss grows monotonically; nearer, it oscillates with
  * deep nulls, so the inverse of the exact form returns the smallest distance with a warning.
@@ -22,16 +25,17 @@
 import { SPEED_OF_LIGHT_M_PER_S } from '../constants'
 import { requireFinite, requirePositive } from '../guards'
 import type { MethodRef } from '../types'
+import { freeSpaceDistanceM, freeSpaceLossDb } from './free-space-p525'
 import type { PathDistance, PathLoss } from './model'
 import { bisectIncreasing, bracketIncreasing } from './numeric'
 
-export type TwoRayForm = 'exact' | 'asymptote'
+export type TwoRayForm = 'exact' | 'asymptote' | 'breakpoint'
 
 export interface TwoRayParams {
   freqHz: number
   txHeightM: number
   rxHeightM: number
-  /** 'exact' (default) or the d⁻⁴ 'asymptote'. */
+  /** 'exact' (default), the d⁻⁴ 'asymptote', or 'breakpoint': free space up to d_x, then the asymptote. */
   form?: TwoRayForm
 }
 
@@ -42,6 +46,12 @@ export const TWO_RAY_EXACT_METHOD: MethodRef = {
 export const TWO_RAY_ASYMPTOTE_METHOD: MethodRef = {
   id: 'two-ray-asymptote',
   source: 'Two-ray flat earth, d⁻⁴ asymptote: Rappaport, Wireless Communications 2nd ed. §4.6 eq. (4.52)',
+}
+export const TWO_RAY_BREAKPOINT_METHOD: MethodRef = {
+  id: 'two-ray-breakpoint',
+  source:
+    'Two-ray flat earth with a breakpoint: ITU-R P.525-4 free space up to d_x = 4π·h_t·h_r/λ, then the d⁻⁴ asymptote ' +
+    '(Rappaport 2nd ed. eq. (4.52)); switch as in ns-3 TwoRayGroundPropagationLossModel',
 }
 
 function checked(p: TwoRayParams): { lambdaM: number; ht: number; hr: number } {
@@ -108,10 +118,34 @@ function oscillationWarning(lambdaM: number, ht: number, hr: number, d: number):
 
 const fmt = (v: number): string => String(+v.toPrecision(5))
 
+/** Breakpoint form, eq. (7): free space up to d_x, the asymptote beyond [dB]. */
+function breakpointLoss(freqHz: number, lambdaM: number, ht: number, hr: number, d: number): PathLoss {
+  const dx = (4 * Math.PI * ht * hr) / lambdaM // Eq. (6) [m]
+  const lossDb = d <= dx ? freeSpaceLossDb({ freqHz, distanceM: d }).lossDb : asymptoteLossDb(ht, hr, d) // Eq. (7) [dB]
+  return { lossDb, warnings: oscillationWarning(lambdaM, ht, hr, d), method: TWO_RAY_BREAKPOINT_METHOD }
+}
+
+/** Inverse of the breakpoint form in closed form: the loss grows monotonically with distance [m]. */
+function breakpointDistance(freqHz: number, lambdaM: number, ht: number, hr: number, lossDb: number): PathDistance {
+  const dx = (4 * Math.PI * ht * hr) / lambdaM // Eq. (6) [m]
+  const d =
+    lossDb <= asymptoteLossDb(ht, hr, dx)
+      ? freeSpaceDistanceM({ freqHz, lossDb }).distanceM // Eq. (7) free-space branch inverted [m]
+      : 10 ** ((lossDb + 20 * Math.log10(ht * hr)) / 40) // Eq. (7) asymptote branch, eq. (4) inverted [m]
+  return { distanceM: d, warnings: oscillationWarning(lambdaM, ht, hr, d), method: TWO_RAY_BREAKPOINT_METHOD }
+}
+
+/** Local slope of the breakpoint form: 20 dB per decade up to d_x, 40 beyond [dB per decade]. */
+export function twoRayBreakpointSlopeDbPerDecade(opts: { freqHz: number; txHeightM: number; rxHeightM: number; distanceM: number }): number {
+  const { lambdaM, ht, hr } = checked(opts)
+  return requirePositive('distanceM', opts.distanceM) <= (4 * Math.PI * ht * hr) / lambdaM ? 20 : 40
+}
+
 /** Two-ray flat-earth basic transmission loss at a ground distance [dB]. */
 export function twoRayLossDb(opts: TwoRayParams & { distanceM: number }): PathLoss {
   const { lambdaM, ht, hr } = checked(opts)
   const d = requirePositive('distanceM', opts.distanceM)
+  if (opts.form === 'breakpoint') return breakpointLoss(opts.freqHz, lambdaM, ht, hr, d)
   if (opts.form === 'asymptote') {
     return { lossDb: asymptoteLossDb(ht, hr, d), warnings: asymptoteWarnings(lambdaM, ht, hr, d), method: TWO_RAY_ASYMPTOTE_METHOD }
   }
@@ -169,6 +203,7 @@ function monotonicRootM(x: ExactInverse, lossDb: number): number | undefined {
 export function twoRayDistanceM(opts: TwoRayParams & { lossDb: number }): PathDistance {
   const { lambdaM, ht, hr } = checked(opts)
   const lossDb = requireFinite('lossDb', opts.lossDb)
+  if (opts.form === 'breakpoint') return breakpointDistance(opts.freqHz, lambdaM, ht, hr, lossDb)
   if (opts.form === 'asymptote') {
     const d = 10 ** ((lossDb + 20 * Math.log10(ht * hr)) / 40) // Eq. (4) inverted [m]
     return { distanceM: d, warnings: asymptoteWarnings(lambdaM, ht, hr, d), method: TWO_RAY_ASYMPTOTE_METHOD }

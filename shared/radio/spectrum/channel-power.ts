@@ -1,6 +1,7 @@
 /**
  * Channel power from a trace read in a resolution bandwidth, with the noise-bandwidth
- * correction, and its inverse for a flat (noise-like) channel.
+ * correction. A single reading of a flat, noise-like channel (and its inverse) is
+ * chain/channel-power.ts rbwReadingToChannelPowerDbm / channelPowerToRbwReadingDbm.
  *
  * Document: CHECKS.md (the project's register of check values) §14 "Spectrum-analyser readings → channel power"
  * (P_ch = PSD + 10·log B_ch; P_ch = P_read − 10·log B_N + 10·log B_ch with B_N the ENBW of
@@ -15,15 +16,12 @@
  *  (1) P_ch = 10·log10 Σ_i s_i·10^(L_i/10) + 10·log10(Δf / ENBW)      uniform grid   [dBm]
  *  (2) P_ch = 10·log10 Σ_i s_i·10^(L_i/10)·(Δf_i / ENBW)              any grid       [dBm]
  *      s_i = share of cell i inside [startHz, stopHz], Δf_i = width of cell i
- *  (3) flat channel: P_ch = L + 10·log10(B_ch / ENBW)                  [dBm]   (CHECKS §14, 14-3)
- *  (4) inverse of (3): L = P_ch − 10·log10(B_ch / ENBW)                [dBm]
  *
  * A density trace (dBm/Hz) becomes a trace read in its bin spacing by adding 10·log10(Δf)
  * and passing enbwHz = Δf; a Welch spectrum enters through psdAsTrace.
  */
 import { requireFinite, requirePositive } from '../guards'
 import type { MethodRef, RadioResult } from '../types'
-import { scaleToBandwidthDb } from '../units'
 import { cellEdgesHz, cellSharesInBand, requireTrace, spacingIrregularity, type Trace } from './trace'
 
 export const CHANNEL_POWER_METHOD: MethodRef = {
@@ -104,16 +102,4 @@ export function channelPower(opts: ChannelPowerOptions): RadioResult<ChannelPowe
     warnings,
     method: CHANNEL_POWER_METHOD,
   }
-}
-
-/** Channel power of a flat, noise-like channel from its level read in a noise bandwidth [dBm]. */
-export function flatChannelPowerDbm(opts: { levelDbm: number; enbwHz: number; channelBandwidthHz: number }): number {
-  const levelDbm = requireFinite('levelDbm', opts.levelDbm)
-  return levelDbm + scaleToBandwidthDb({ fromBandwidthHz: opts.enbwHz, toBandwidthHz: opts.channelBandwidthHz }) // Eq. (3) [dBm]
-}
-
-/** Level a flat channel of a given power reads in a noise bandwidth (inverse of flatChannelPowerDbm) [dBm]. */
-export function flatChannelLevelDbm(opts: { channelPowerDbm: number; enbwHz: number; channelBandwidthHz: number }): number {
-  const channelPowerDbm = requireFinite('channelPowerDbm', opts.channelPowerDbm)
-  return channelPowerDbm - scaleToBandwidthDb({ fromBandwidthHz: opts.enbwHz, toBandwidthHz: opts.channelBandwidthHz }) // Eq. (4) [dBm]
 }

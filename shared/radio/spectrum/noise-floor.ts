@@ -15,6 +15,7 @@
  */
 import { requireInRange } from '../guards'
 import type { MethodRef, RadioResult } from '../types'
+import { percentileOfSorted } from '../uncertainty/monte-carlo'
 import { requireTrace, type Trace } from './trace'
 
 export const NOISE_FLOOR_METHOD: MethodRef = {
@@ -27,11 +28,7 @@ export function percentile(opts: { values: ArrayLike<number>; percentile: number
   const { values } = opts
   if (!values || values.length === 0) throw new RangeError('values must not be empty.')
   const p = requireInRange('percentile', opts.percentile, 0, 100)
-  const sorted = Float64Array.from(values).sort()
-  const h = ((sorted.length - 1) * p) / 100
-  const lo = Math.floor(h)
-  const hi = Math.min(lo + 1, sorted.length - 1)
-  return sorted[lo] + (h - lo) * (sorted[hi] - sorted[lo]) // Eq. (1) [dB]
+  return percentileOfSorted({ sortedValues: Float64Array.from(values).sort(), probability: p / 100 }) // Eq. (1) [dB]
 }
 
 export interface NoiseFloor {

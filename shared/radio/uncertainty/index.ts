@@ -1,3 +1,4 @@
+/** Uncertainty: GUM budgets, the distance sensitivity of EIRP, seeded Monte Carlo and Student t. */
 export * from './gum-budget'
 export * from './distance-sensitivity'
 export * from './prng'

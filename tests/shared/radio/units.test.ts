@@ -109,7 +109,7 @@ describe('units: power sums and bad input', () => {
     expect(() => dbmToDbuv({ powerDbm: 0, impedanceOhm: 0 })).toThrow(RangeError)
     expect(() => dbmToDbuv({ powerDbm: 0, impedanceOhm: 0 })).toThrow(/impedanceOhm/)
   })
-  it('throws a RangeError naming fieldDbuvPerM for NaN', () => {
-    expect(() => fieldToPfdDbwPerM2(Number.NaN)).toThrow(/fieldDbuvPerM/)
+  it('throws a RangeError naming fieldStrengthDbuvPerM for NaN', () => {
+    expect(() => fieldToPfdDbwPerM2(Number.NaN)).toThrow(/fieldStrengthDbuvPerM/)
   })
 })

@@ -5,26 +5,27 @@ import {
   effectiveApertureM2,
   eirpAndErp,
   fieldToReceivedPowerDbm,
-  freeSpaceFieldFromEirp,
   rbwReadingToChannelPowerDbm,
   readingToField,
   type NoiseDetector,
 } from '../../../../shared/radio/chain'
+import { freeSpaceFieldStrengthDbuvPerM, freeSpacePfdDbwPerM2 } from '../../../../shared/radio/propagation'
+import { dbmToDbw } from '../../../../shared/radio/units'
 
 const within = (actual: number, expected: number, tol: number) => expect(Math.abs(actual - expected)).toBeLessThanOrEqual(tol)
 
-describe('freeSpaceFieldFromEirp', () => {
-  for (const row of checks.freeSpaceFieldFromEirp) {
+describe('free-space field and pfd of an EIRP given in dBm (propagation/free-space-p525)', () => {
+  for (const row of checks.freeSpaceField) {
     it(`${row.id}: matches ${row.source} within ${row.toleranceDb} dB ${row.status}`, () => {
-      const r = freeSpaceFieldFromEirp(row.inputs)
-      within(r.value.fieldStrengthDbuvPerM, row.expected.fieldStrengthDbuvPerM, row.toleranceDb)
-      if ('pfdDbwPerM2' in row.expected) within(r.value.pfdDbwPerM2, row.expected.pfdDbwPerM2 as number, row.toleranceDb)
+      const opts = { eirpDbw: dbmToDbw(row.inputs.eirpDbm), distanceM: row.inputs.distanceM }
+      within(freeSpaceFieldStrengthDbuvPerM(opts), row.expected.fieldStrengthDbuvPerM, row.toleranceDb)
+      if ('pfdDbwPerM2' in row.expected) within(freeSpacePfdDbwPerM2(opts), row.expected.pfdDbwPerM2 as number, row.toleranceDb)
     })
   }
   for (const row of checks.freeSpaceFieldFromErp) {
     it(`${row.id}: matches ${row.source} within ${row.toleranceDb} dB ${row.status}`, () => {
       const eirpDbm = eirpAndErp({ erpDbm: row.inputs.erpDbm }).value.eirpDbm
-      within(freeSpaceFieldFromEirp({ eirpDbm, distanceM: row.inputs.distanceM }).value.fieldStrengthDbuvPerM, row.expected.fieldStrengthDbuvPerM, row.toleranceDb)
+      within(freeSpaceFieldStrengthDbuvPerM({ eirpDbw: dbmToDbw(eirpDbm), distanceM: row.inputs.distanceM }), row.expected.fieldStrengthDbuvPerM, row.toleranceDb)
     })
   }
 })

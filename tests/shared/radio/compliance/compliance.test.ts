@@ -94,10 +94,10 @@ describe('assessCompliance', () => {
       }),
     )
   })
-  it('is inconclusive when the 95 % interval straddles the limit, with the margin interval in intervalDb', () => {
+  it('is inconclusive when the 95 % interval straddles the limit, with the margin interval as the result interval', () => {
     const r = assessCompliance({ eirpDbm: 21, eirpIntervalDbm: { lowDbm: 18, highDbm: 24 }, limit })
     expect(r.value.verdict).toBe('inconclusive')
-    expect(r.intervalDb).toEqual({ lowDb: -2, highDb: 4 })
+    expect(r.interval).toEqual({ quantity: 'marginDb', low: -2, high: 4, basis: expect.any(String) })
   })
   it('exceeds only when the whole interval is above the limit, and is within only when the whole interval is at or below it', () => {
     expect(assessCompliance({ eirpDbm: 23, eirpIntervalDbm: { lowDbm: 20.5, highDbm: 25 }, limit }).value.verdict).toBe('exceeds')

@@ -1,25 +1,20 @@
 import { describe, expect, it } from 'vitest'
-import {
-  eirpFromMeasurement,
-  fieldFromIsotropicPowerDbuvPerM,
-  isotropicPowerFromFieldDbm,
-  isotropicPowerFromPfdDbm,
-  predictMeasurementFromEirp,
-} from '../../../../shared/radio/estimation'
+import { fieldToReceivedPowerDbm, pfdToReceivedPowerDbm, receivedPowerToFieldDbuvPerM } from '../../../../shared/radio/chain'
+import { eirpFromMeasurement, predictMeasurementFromEirp } from '../../../../shared/radio/estimation'
 import { inlineFreeSpace, inlinePowerLaw } from './inline-models'
 
 describe('isotropic received power from a field', () => {
   it('gives −57.22 dBm for 60 dBµV/m at 100 MHz, 0 dBi (CHECKS 1-9 [D], ±0.01 dB)', () => {
-    expect(Math.abs(isotropicPowerFromFieldDbm({ fieldStrengthDbuvPerM: 60, freqHz: 100e6 }) - -57.22)).toBeLessThanOrEqual(0.01)
+    expect(Math.abs(fieldToReceivedPowerDbm({ fieldStrengthDbuvPerM: 60, freqHz: 100e6 }) - -57.22)).toBeLessThanOrEqual(0.01)
   })
   it('gives −58.82 dBm with 6 dBi for 80 dBµV/m at 2400 MHz, i.e. −64.82 dBm isotropic (CHECKS 1-10 [D], ±0.01 dB)', () => {
-    expect(Math.abs(isotropicPowerFromFieldDbm({ fieldStrengthDbuvPerM: 80, freqHz: 2400e6 }) + 6 - -58.82)).toBeLessThanOrEqual(0.01)
+    expect(Math.abs(fieldToReceivedPowerDbm({ fieldStrengthDbuvPerM: 80, freqHz: 2400e6 }) + 6 - -58.82)).toBeLessThanOrEqual(0.01)
   })
   it('gives the same power from the pfd −85.76 dBW/m² that 60 dBµV/m carries (CHECKS 1-8 and 1-9 [D], ±0.01 dB)', () => {
-    expect(Math.abs(isotropicPowerFromPfdDbm({ pfdDbwPerM2: -85.76, freqHz: 100e6 }) - -57.22)).toBeLessThanOrEqual(0.01)
+    expect(Math.abs(pfdToReceivedPowerDbm({ pfdDbwPerM2: -85.76, freqHz: 100e6 }) - -57.22)).toBeLessThanOrEqual(0.01)
   })
   it('returns the field from the power (round trip, CHECKS 1-9)', () => {
-    expect(fieldFromIsotropicPowerDbuvPerM({ receivedPowerDbm: -57.22, freqHz: 100e6 })).toBeCloseTo(60, 2)
+    expect(receivedPowerToFieldDbuvPerM({ receivedPowerDbm: -57.22, freqHz: 100e6 })).toBeCloseTo(60, 2)
   })
 })
 
@@ -57,6 +52,15 @@ describe('eirpFromMeasurement', () => {
     expect(Math.abs(r.value.eirpDbm - (-44.05 + 80.05))).toBeLessThanOrEqual(0.01) // CHECKS 1-3: 80.05 dB at 2400 MHz, 100 m
   })
 
+  it('takes the power of an antenna of known gain: −58.82 dBm with 6 dBi (CHECKS 1-10) plus 80.05 dB (CHECKS 1-3) gives 15.23 dBm ±0.02 dB', () => {
+    const r = eirpFromMeasurement({ measurement: { kind: 'received-power', receivedPowerDbm: -58.82, antennaGainDbi: 6 }, distanceM: 100, model: inlineFreeSpace(2400e6) })
+    expect(Math.abs(r.value.isotropicReceivedPowerDbm - -64.82)).toBeLessThanOrEqual(0.01)
+    expect(Math.abs(r.value.eirpDbm - 15.23)).toBeLessThanOrEqual(0.02)
+    const viaField = eirpFromMeasurement({ measurement: { kind: 'field-strength', fieldStrengthDbuvPerM: 80, freqHz: 2400e6 }, distanceM: 100, model: inlineFreeSpace(2400e6) })
+    expect(Math.abs(r.value.eirpDbm - viaField.value.eirpDbm)).toBeLessThanOrEqual(0.01)
+    expect(() => eirpFromMeasurement({ measurement: { kind: 'received-power', receivedPowerDbm: -60, antennaGainDbi: Number.NaN }, distanceM: 100, model: inlineFreeSpace(2400e6) })).toThrow(/antennaGainDbi/)
+  })
+
   it('puts a 5 % distance uncertainty into the budget as 0.43 dB (CHECKS 12-2 [D]) and combines by root sum of squares', () => {
     const r = eirpFromMeasurement({
       measurement: { kind: 'field-strength', fieldStrengthDbuvPerM: 100.77, freqHz: 100e6 },
@@ -72,9 +76,10 @@ describe('eirpFromMeasurement', () => {
     expect(Math.abs(rows.find((x) => x.name === 'distance')!.contribution - 0.43)).toBeLessThanOrEqual(0.01)
     const expectedUc = Math.sqrt(0.5 ** 2 + (0.3 / Math.SQRT2) ** 2 + (20 / (100 * Math.LN10) * 5) ** 2) // GUM eq. (10) by hand [D]
     expect(r.value.expandedUncertaintyDb!).toBeCloseTo(2 * expectedUc, 10)
-    expect(r.intervalDb!.lowDb).toBeCloseTo(r.value.eirpDbm - 2 * expectedUc, 10)
-    expect(r.intervalDb!.highDb).toBeCloseTo(r.value.eirpDbm + 2 * expectedUc, 10)
-    expect(r.value.eirpIntervalDbm).toEqual({ lowDbm: r.intervalDb!.lowDb, highDbm: r.intervalDb!.highDb })
+    expect(r.interval!.quantity).toBe('eirpDbm')
+    expect(r.interval!.low).toBeCloseTo(r.value.eirpDbm - 2 * expectedUc, 10)
+    expect(r.interval!.high).toBeCloseTo(r.value.eirpDbm + 2 * expectedUc, 10)
+    expect(r.value.eirpIntervalDbm).toEqual({ lowDbm: r.interval!.low, highDbm: r.interval!.high })
   })
 
   it('adds the model shadowing σ as a normal contribution (8 dB → U ≥ 16 dB at k = 2)', () => {
@@ -93,7 +98,7 @@ describe('eirpFromMeasurement', () => {
 
   it('warns and gives no interval when no uncertainty is stated', () => {
     const r = eirpFromMeasurement({ measurement: { kind: 'isotropic-power', receivedPowerDbm: -60 }, distanceM: 100, model: inlineFreeSpace(100e6) })
-    expect(r.intervalDb).toBeUndefined()
+    expect(r.interval).toBeUndefined()
     expect(r.value.budget).toBeUndefined()
     expect(r.warnings.join(' ')).toMatch(/No uncertainty/)
   })

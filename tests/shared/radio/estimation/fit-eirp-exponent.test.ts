@@ -83,7 +83,7 @@ describe('fitEirpAndExponent', () => {
     expect(two.warnings.join(' ')).toMatch(/Only 2 reading/)
     expect(two.value.eirpStandardErrorDb).toBeNull()
     expect(two.value.exponent).toBeCloseTo(3, 12)
-    expect(two.intervalDb).toBeUndefined()
+    expect(two.interval).toBeUndefined()
   })
 
   it('fits 1,000 readings in well under 10 ms on average', () => {

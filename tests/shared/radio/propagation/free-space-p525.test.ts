@@ -3,6 +3,8 @@ import { describe, expect, it } from 'vitest'
 import {
   FREE_SPACE_EXACT_CONSTANT_DB,
   freeSpaceDistanceM,
+  freeSpaceEirpFromFieldDbw,
+  freeSpaceEirpFromPfdDbw,
   freeSpaceFieldStrengthDbuvPerM,
   freeSpaceLossDb,
   freeSpacePfdDbwPerM2,
@@ -95,6 +97,21 @@ describe('freeSpaceFieldStrengthDbuvPerM', () => {
   it('throws a RangeError naming distanceM for zero distance', () => {
     expect(() => freeSpaceFieldStrengthDbuvPerM({ eirpDbw: 0, distanceM: 0 })).toThrow(/distanceM/)
   })
+  it('throws a RangeError naming distanceM for a negative distance', () => {
+    expect(() => freeSpaceFieldStrengthDbuvPerM({ eirpDbw: 0, distanceM: -1 })).toThrow(RangeError)
+    expect(() => freeSpaceFieldStrengthDbuvPerM({ eirpDbw: 0, distanceM: -1 })).toThrow(/distanceM/)
+  })
+  it('EIRP → free-space field → EIRP returns the EIRP at any distance', () => {
+    fc.assert(
+      fc.property(fc.double({ min: -200, max: 200, noNaN: true }), fc.double({ min: 0.01, max: 1e7, noNaN: true }), (eirpDbw, distanceM) => {
+        const e = freeSpaceFieldStrengthDbuvPerM({ eirpDbw, distanceM })
+        expect(freeSpaceEirpFromFieldDbw({ fieldStrengthDbuvPerM: e, distanceM })).toBeCloseTo(eirpDbw, 9)
+      }),
+    )
+  })
+  it('gives back 0 dBW from 74.77 dBµV/m at 1 km (CHECKS.md 1-5 inverse, [D]) within 0.01 dB', () => {
+    expect(Math.abs(freeSpaceEirpFromFieldDbw({ fieldStrengthDbuvPerM: 74.77, distanceM: 1000 }) - 0)).toBeLessThanOrEqual(0.01)
+  })
 })
 
 describe('freeSpacePfdDbwPerM2', () => {
@@ -102,5 +119,16 @@ describe('freeSpacePfdDbwPerM2', () => {
     it(`matches ${row.id} within ${row.tolerance} dB [${row.status}] (${row.source})`, () => {
       expect(Math.abs(freeSpacePfdDbwPerM2(row.inputs) - row.expected)).toBeLessThanOrEqual(row.tolerance)
     })
+    it(`inverts ${row.id}: the pfd gives back ${row.inputs.eirpDbw} dBW within ${row.tolerance} dB [${row.status}]`, () => {
+      expect(Math.abs(freeSpaceEirpFromPfdDbw({ pfdDbwPerM2: row.expected, distanceM: row.inputs.distanceM }) - row.inputs.eirpDbw)).toBeLessThanOrEqual(row.tolerance)
+    })
   }
+  it('EIRP → pfd → EIRP returns the EIRP at any distance', () => {
+    fc.assert(
+      fc.property(fc.double({ min: -200, max: 200, noNaN: true }), fc.double({ min: 0.01, max: 1e7, noNaN: true }), (eirpDbw, distanceM) => {
+        const s = freeSpacePfdDbwPerM2({ eirpDbw, distanceM })
+        expect(freeSpaceEirpFromPfdDbw({ pfdDbwPerM2: s, distanceM })).toBeCloseTo(eirpDbw, 9)
+      }),
+    )
+  })
 })

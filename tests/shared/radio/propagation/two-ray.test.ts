@@ -1,14 +1,16 @@
 import fc from 'fast-check'
 import { describe, expect, it } from 'vitest'
 import { freeSpaceLossDb } from '../../../../shared/radio/propagation/free-space-p525'
+import { createPropagationModel } from '../../../../shared/radio/propagation/registry'
 import {
+  twoRayBreakpointSlopeDbPerDecade,
   twoRayCriticalDistanceM,
   twoRayCrossoverDistanceM,
   twoRayDistanceM,
   twoRayLossDb,
   twoRayMonotonicDistanceM,
 } from '../../../../shared/radio/propagation/two-ray'
-import { TWO_RAY_DISTANCE_ROWS, TWO_RAY_FREE_SPACE_ROWS, TWO_RAY_LOSS_ROWS } from '../../../fixtures/radio/propagation-two-ray'
+import { TWO_RAY_BREAKPOINT_ROWS, TWO_RAY_DISTANCE_ROWS, TWO_RAY_FREE_SPACE_ROWS, TWO_RAY_LOSS_ROWS } from '../../../fixtures/radio/propagation-two-ray'
 
 const GEOMETRY = { freqHz: 900e6, txHeightM: 30, rxHeightM: 1.5 }
 
@@ -149,5 +151,64 @@ describe('twoRayDistanceM', () => {
 
   it('throws a RangeError naming lossDb for a non-finite loss', () => {
     expect(() => twoRayDistanceM({ ...GEOMETRY, lossDb: Number.NaN })).toThrow(/lossDb/)
+  })
+})
+
+describe('two-ray breakpoint form (free space up to d_x, then the d⁻⁴ asymptote)', () => {
+  for (const row of TWO_RAY_BREAKPOINT_ROWS) {
+    it(`matches ${row.id} within ${row.tolerance} dB [${row.status}] (${row.source})`, () => {
+      const r = twoRayLossDb({ ...row.inputs, form: 'breakpoint' })
+      expect(Math.abs(r.lossDb - row.expected)).toBeLessThanOrEqual(row.tolerance)
+      expect(r.method.id).toBe('two-ray-breakpoint')
+    })
+  }
+
+  it('is continuous at the crossover d_x (free space = asymptote there, [D]) and grows with distance', () => {
+    const dx = twoRayCrossoverDistanceM(GEOMETRY)
+    const below = twoRayLossDb({ ...GEOMETRY, distanceM: dx * (1 - 1e-9), form: 'breakpoint' }).lossDb
+    const above = twoRayLossDb({ ...GEOMETRY, distanceM: dx * (1 + 1e-9), form: 'breakpoint' }).lossDb
+    expect(Math.abs(above - below)).toBeLessThan(1e-6)
+    fc.assert(
+      fc.property(fc.double({ min: 1, max: 1e6, noNaN: true }), fc.double({ min: 1.001, max: 10, noNaN: true }), (d, k) => {
+        const near = twoRayLossDb({ ...GEOMETRY, distanceM: d, form: 'breakpoint' }).lossDb
+        expect(twoRayLossDb({ ...GEOMETRY, distanceM: d * k, form: 'breakpoint' }).lossDb).toBeGreaterThan(near)
+      }),
+    )
+  })
+
+  it('never reads below free space or below the asymptote (it is the larger of the two)', () => {
+    fc.assert(
+      fc.property(fc.double({ min: 1, max: 1e6, noNaN: true }), (distanceM) => {
+        const l = twoRayLossDb({ ...GEOMETRY, distanceM, form: 'breakpoint' }).lossDb
+        expect(l).toBeGreaterThanOrEqual(freeSpaceLossDb({ freqHz: GEOMETRY.freqHz, distanceM }).lossDb - 1e-9)
+        expect(l).toBeGreaterThanOrEqual(twoRayLossDb({ ...GEOMETRY, distanceM, form: 'asymptote' }).lossDb - 1e-9)
+      }),
+    )
+  })
+
+  it('round-trips in distance within 1e-9 relative on both sides of d_x', () => {
+    fc.assert(
+      fc.property(fc.double({ min: 1, max: 1e6, noNaN: true }), (distanceM) => {
+        const { lossDb } = twoRayLossDb({ ...GEOMETRY, distanceM, form: 'breakpoint' })
+        const back = twoRayDistanceM({ ...GEOMETRY, lossDb, form: 'breakpoint' })
+        expect(Math.abs(back.distanceM - distanceM) / distanceM).toBeLessThan(1e-9)
+        expect(back.method.id).toBe('two-ray-breakpoint')
+      }),
+    )
+  })
+
+  it('has slope 20 dB/decade up to d_x and 40 beyond, as the registry model states', () => {
+    const dx = twoRayCrossoverDistanceM(GEOMETRY)
+    expect(twoRayBreakpointSlopeDbPerDecade({ ...GEOMETRY, distanceM: dx / 2 })).toBe(20)
+    expect(twoRayBreakpointSlopeDbPerDecade({ ...GEOMETRY, distanceM: dx * 2 })).toBe(40)
+    const model = createPropagationModel({ kind: 'two-ray', ...GEOMETRY, form: 'breakpoint' })
+    expect(model.method.id).toBe('two-ray-breakpoint')
+    expect(model.slopeDbPerDecade(dx * 2)).toBe(40)
+    expect(Math.abs(model.lossDb(5000).lossDb - 114.89)).toBeLessThanOrEqual(0.01) // CHECKS §5 5-2 [D]
+  })
+
+  it('warns inside the critical distance d_c, where the real two-ray loss swings around this trend', () => {
+    expect(twoRayLossDb({ ...GEOMETRY, distanceM: 300, form: 'breakpoint' }).warnings.join(' ')).toMatch(/critical distance d_c/)
+    expect(twoRayLossDb({ ...GEOMETRY, distanceM: 1000, form: 'breakpoint' }).warnings).toEqual([])
   })
 })

@@ -1,5 +1,12 @@
 import { describe, expect, it } from 'vitest'
-import { channelPower, flatChannelLevelDbm, flatChannelPowerDbm } from '../../../../shared/radio/spectrum'
+import { channelPowerToRbwReadingDbm, rbwReadingToChannelPowerDbm } from '../../../../shared/radio/chain'
+import { channelPower } from '../../../../shared/radio/spectrum'
+
+/** The flat-channel formula of chain/channel-power.ts with ENBW = the given noise bandwidth (ratio 1). */
+const flatChannelPowerDbm = (o: { levelDbm: number; enbwHz: number; channelBandwidthHz: number }) =>
+  rbwReadingToChannelPowerDbm({ readingDbm: o.levelDbm, rbwHz: o.enbwHz, channelBandwidthHz: o.channelBandwidthHz }).value.channelPowerDbm
+const flatChannelLevelDbm = (o: { channelPowerDbm: number; enbwHz: number; channelBandwidthHz: number }) =>
+  channelPowerToRbwReadingDbm({ channelPowerDbm: o.channelPowerDbm, rbwHz: o.enbwHz, channelBandwidthHz: o.channelBandwidthHz }).value.readingDbm
 
 /** A flat trace: points every spacingHz from startHz, count points, all at levelDbm. */
 function flatTrace(opts: { startHz: number; spacingHz: number; count: number; levelDbm: number }) {
