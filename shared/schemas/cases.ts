@@ -9,6 +9,10 @@ export type FrequencyUnit = keyof typeof FREQUENCY_UNITS
 /** Highest frequency accepted in a report [Hz]: 3 THz, the top of the radio spectrum (ITU RR No. 1.5). */
 export const MAX_FREQ_HZ = 3e12
 
+/** A blank form field is missing, never 0 (a bare coerce would turn '' into 0). */
+const blankIsMissing = <T extends z.ZodType>(inner: T) =>
+  z.preprocess((v) => (v === null || (typeof v === 'string' && v.trim() === '') ? undefined : v), inner)
+
 const text = (max: number, what: string) => z.string().trim().max(max, { message: `${what}: at most ${max} characters.` })
 const optionalText = (max: number, what: string) =>
   text(max, what).optional().transform((v) => (v === '' ? undefined : v))
@@ -22,12 +26,12 @@ export const reportSchema = z
     organisation: optionalText(160, 'Organisation'),
     service: z.enum(AFFECTED_SERVICES, { message: 'Choose the affected service.' }),
     licenceRef: optionalText(80, 'Licence or station reference'),
-    frequencyFrom: z.coerce.number({ message: 'Enter the frequency.' }).positive({ message: 'The frequency must be above zero.' }),
-    frequencyTo: z.coerce.number().positive({ message: 'The upper frequency must be above zero.' }).optional(),
+    frequencyFrom: blankIsMissing(z.coerce.number({ message: 'Enter the frequency.' }).positive({ message: 'The frequency must be above zero.' })),
+    frequencyTo: blankIsMissing(z.coerce.number().positive({ message: 'The upper frequency must be above zero.' }).optional()),
     frequencyUnit: z.enum(['kHz', 'MHz', 'GHz']),
     address: text(300, 'Address').min(1, { message: 'Describe where it happens (an address or a place).' }),
-    latDeg: z.coerce.number({ message: 'Enter the latitude or pick the place on the map.' }).min(-90, { message: 'Latitude is between −90 and 90.' }).max(90, { message: 'Latitude is between −90 and 90.' }),
-    lonDeg: z.coerce.number({ message: 'Enter the longitude or pick the place on the map.' }).min(-180, { message: 'Longitude is between −180 and 180.' }).max(180, { message: 'Longitude is between −180 and 180.' }),
+    latDeg: blankIsMissing(z.coerce.number({ message: 'Enter the latitude or pick the place on the map.' }).min(-90, { message: 'Latitude is between −90 and 90.' }).max(90, { message: 'Latitude is between −90 and 90.' })),
+    lonDeg: blankIsMissing(z.coerce.number({ message: 'Enter the longitude or pick the place on the map.' }).min(-180, { message: 'Longitude is between −180 and 180.' }).max(180, { message: 'Longitude is between −180 and 180.' })),
     since: z.iso.date({ message: 'Enter the date it started.' }),
     pattern: z.enum(OCCURRENCE_PATTERNS, { message: 'Choose when it happens.' }),
     patternDetail: optionalText(200, 'Hours'),
@@ -62,7 +66,7 @@ export const transferSchema = z.object({ version, officeId: z.uuid({ message: 'C
 export const mergeSchema = z.object({ version, intoCaseId: z.uuid({ message: 'Choose the case to merge into.' }) })
 export const dismissSchema = z.object({
   version,
-  resolution: z.enum(DISMISS_RESOLUTIONS as unknown as ['no_interference_found', 'referred']),
+  resolution: z.enum(DISMISS_RESOLUTIONS as unknown as ['no_interference_found', 'referred'], { message: 'Choose the outcome.' }),
   reason: reason('Write a summary for the complainant'),
 })
 export const startFieldWorkSchema = z.object({ version })
@@ -70,7 +74,7 @@ export const proposeFindingSchema = z.object({ version, reason: reason('Summaris
 export const returnFindingSchema = z.object({ version, reason: reason('Say what more is needed') })
 export const closeSchema = z.object({
   version,
-  resolution: z.enum(CLOSE_RESOLUTIONS as unknown as ['source_corrected', 'enforcement_action', 'no_interference_found', 'referred']),
+  resolution: z.enum(CLOSE_RESOLUTIONS as unknown as ['source_corrected', 'enforcement_action', 'no_interference_found', 'referred'], { message: 'Choose the outcome.' }),
   reason: reason('Write a summary for the complainant'),
 })
 export const reopenSchema = z.object({ version, reason: reason('Say why the case is reopened') })

@@ -77,6 +77,11 @@ describe('a report with bad input', () => {
     expect(b.body.error.details[0].path).toBe('frequencyFrom')
   })
 
+  it('treats a blank latitude or longitude as missing, never as zero', async () => {
+    const res = await post({ ...validReport(), latDeg: '', lonDeg: ' ' }).expect(400)
+    expect(res.body.error.details.map((d: { path: string }) => d.path).sort()).toEqual(['latDeg', 'lonDeg'])
+  })
+
   it('refuses oversize text with 400', async () => {
     const res = await post(validReport({ description: 'x'.repeat(4001) })).expect(400)
     expect(res.body.error.details[0].path).toBe('description')

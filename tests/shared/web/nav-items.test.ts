@@ -12,7 +12,7 @@ describe('navItemsFor', () => {
     expect(labels('complainant')).toEqual(['My reports → /my-reports', 'Report interference → /report'])
     expect(labels('investigator')).toEqual(['My cases → /work'])
     expect(labels('supervisor')).toEqual(['Office queue → /work', 'Cases → /cases'])
-    expect(labels('admin')).toEqual(['Users → /admin/users', 'Offices → /admin/offices'])
+    expect(labels('admin')).toEqual(['Users → /admin/users', 'Offices → /admin/offices', 'Cases → /cases'])
   })
 
   it('never shows Sign in to someone already signed in', () => {

@@ -30,9 +30,14 @@ export const routes: RouteObject[] = [
           { path: 'dev/mailbox', lazy: () => import('./routes/dev-mailbox') },
           {
             element: <RequireRole roles={['investigator', 'supervisor']} />,
+            children: [{ path: 'work', lazy: () => import('./routes/work') }],
+          },
+          {
+            // Administrators read every office's cases; the server gives them no moves.
+            element: <RequireRole roles={['investigator', 'supervisor', 'admin']} />,
             children: [
-              { path: 'work', lazy: () => import('./routes/work') },
               { path: 'cases', lazy: () => import('./routes/cases') },
+              { path: 'cases/:id', lazy: () => import('./routes/case') },
             ],
           },
           {
@@ -45,7 +50,10 @@ export const routes: RouteObject[] = [
           },
           {
             element: <RequireRole roles={['complainant']} />,
-            children: [{ path: 'my-reports', lazy: () => import('./routes/my-reports') }],
+            children: [
+              { path: 'my-reports', lazy: () => import('./routes/my-reports') },
+              { path: 'my-reports/:id', lazy: () => import('./routes/my-report') },
+            ],
           },
           { path: '*', lazy: () => import('./routes/not-found') },
         ],

@@ -26,6 +26,7 @@ const BY_ROLE: Record<Role, NavItem[]> = {
   admin: [
     { label: 'Users', to: '/admin/users' },
     { label: 'Offices', to: '/admin/offices' },
+    { label: 'Cases', to: '/cases' },
   ],
 }
 

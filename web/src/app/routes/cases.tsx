@@ -1,14 +1,22 @@
-/** /cases — the office's full case list; arrives with the case workflow. */
-import { ComingSoon } from '../../components/ui/coming-soon'
+/** /cases — every case the viewer may see (their office's; all offices for an administrator). */
 import { PageHeader } from '../../components/ui/page-header'
+import { useStaff } from '../../features/cases/api/get-staff'
+import { CaseListView } from '../../features/cases/components/case-list-view'
+import { useOffices } from '../../features/offices/api/get-offices'
+
+const NONE: { id: string; name: string }[] = []
 
 export function Component() {
+  const offices = useOffices()
+  const staff = useStaff()
+  const investigators = staff.data?.filter((s) => s.role === 'investigator') ?? NONE
   return (
     <>
-      <PageHeader title="Cases" lead={<p>Every case of your office, open and closed, to search and filter.</p>} />
-      <ComingSoon arrivesWith="the case workflow">
-        <p>The case list is not built yet.</p>
-      </ComingSoon>
+      <PageHeader
+        title="Cases"
+        lead={<p>Open and closed cases, filtered and sorted as you choose. The address keeps the view, so you can bookmark or share it.</p>}
+      />
+      <CaseListView offices={offices.data?.offices ?? NONE} investigators={investigators} />
     </>
   )
 }

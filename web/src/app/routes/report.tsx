@@ -1,15 +1,47 @@
-/** /report — the report form arrives with the intake feature; the route exists now. */
+/** /report — the public report form; afterwards its reference and tracking link. */
+import { useState } from 'react'
+import { Loading } from '../../components/ui/loading'
 import { PageHeader } from '../../components/ui/page-header'
-import { ComingSoon } from '../../components/ui/coming-soon'
+import { useMe } from '../../features/auth/api/get-me'
+import { RegionMap } from '../../features/map/components/region-map'
+import { useOfficesForMap } from '../../features/map/api/get-map-offices'
+import type { SubmittedReport } from '../../features/reports/api/submit-report'
+import { ReportConfirmation } from '../../features/reports/components/report-confirmation'
+import { ReportForm } from '../../features/reports/components/report-form'
 
 export function Component() {
+  const me = useMe()
+  const user = me.data ?? null
+  const offices = useOfficesForMap(user?.role ?? null)
+  const [sent, setSent] = useState<{ result: SubmittedReport; email: string } | null>(null)
+
+  if (sent) {
+    return (
+      <div className="max-w-3xl">
+        <PageHeader title="Thank you — your report is in" />
+        <ReportConfirmation result={sent.result} email={sent.email} />
+      </div>
+    )
+  }
+
   return (
-    <>
-      <PageHeader title="Report interference" lead={<p>Tell us what you hear or lose, where, and since when.</p>} />
-      <ComingSoon arrivesWith="the report form">
-        <p>The report form is not ready yet. Soon you will be able to describe the interference here, mark where it happens on a map and attach recordings or photos.</p>
-        <p>No reports can be sent from this page for now.</p>
-      </ComingSoon>
-    </>
+    <div className="max-w-3xl">
+      <PageHeader
+        title="Report interference"
+        lead={<p>Tell us what suffers, where, and since when. No account is needed. Fields are required unless marked optional.</p>}
+      />
+      {me.isPending ? (
+        <Loading label="Loading the form…" />
+      ) : (
+        <ReportForm
+          contact={user?.role === 'complainant' ? { name: user.name, email: user.email } : undefined}
+          renderLocationPicker={({ value, onPick }) => <RegionMap value={value} onPick={onPick} offices={offices} label="Map of the Vellmark Coast: pick where it happens" />}
+          onSubmitted={(result, email) => {
+            setSent({ result, email })
+            window.scrollTo({ top: 0 })
+          }}
+        />
+      )}
+    </div>
   )
 }

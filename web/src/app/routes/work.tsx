@@ -1,37 +1,59 @@
-/** /work — staff start page: "My cases" for an investigator, "Office queue" for a supervisor. */
+/** /work — staff start page: "Office queue" for a supervisor, "My cases" for an investigator. */
 import { Link } from 'react-router-dom'
-import { ComingSoon } from '../../components/ui/coming-soon'
-import { EstimateCaution } from '../../components/cautions/estimate-caution'
 import { PageHeader } from '../../components/ui/page-header'
 import { PRIORITY_TEXT, PriorityBadge, type PriorityLevel } from '../../components/ui/priority-badge'
 import { useMe } from '../../features/auth/api/get-me'
+import { useNow } from '../../features/cases/components/use-now'
+import { AWAITING_REVIEW, MY_OPEN_CASES, NEW_REPORTS } from '../../features/cases/api/get-queue'
+import { QueueSection } from '../../features/cases/components/queue-section'
 
 const LEVELS: PriorityLevel[] = [1, 2, 3, 4]
 
 export function Component() {
   const user = useMe().data
+  const now = useNow()
   const supervisor = user?.role === 'supervisor'
   return (
-    <div className="flex flex-col gap-6">
+    <div className="flex flex-col gap-8">
       <PageHeader
         kicker={user?.officeName ?? undefined}
         title={supervisor ? 'Office queue' : 'My cases'}
         lead={
           <p>
             {supervisor
-              ? 'New reports for your office, waiting for a priority and an investigator, and findings waiting for your review.'
-              : 'Cases assigned to you, most urgent first, with what each one needs next.'}
+              ? 'New reports waiting for a priority and an investigator, most urgent first, and findings waiting for your review.'
+              : 'Open cases assigned to you, the earliest due first.'}
           </p>
         }
       />
-      <ComingSoon arrivesWith="the case workflow">
-        <p>{supervisor ? 'The office queue' : 'Your case list'} is not built yet. Nothing is missing from your office: no cases are handled in Quietband yet.</p>
-        {supervisor && (
+      {supervisor ? (
+        <>
+          <QueueSection
+            id="queue-new"
+            title="New reports"
+            list={NEW_REPORTS}
+            now={now}
+            empty="No new report is waiting. Every report of the office has a priority and an investigator."
+          />
+          <QueueSection id="queue-review" title="Findings awaiting your review" list={AWAITING_REVIEW} now={now} showInvestigator empty="No finding is waiting for review." />
           <p>
-            Meanwhile, <Link to="/cases">Cases</Link> will hold the office's full case list.
+            <Link to="/cases?open=true">The office's open work in the case list</Link>
           </p>
-        )}
-      </ComingSoon>
+        </>
+      ) : (
+        <QueueSection
+          id="my-cases"
+          title="Assigned to you"
+          list={MY_OPEN_CASES}
+          now={now}
+          empty="No open case is assigned to you."
+          footer={
+            <p>
+              <Link to="/cases?investigatorId=me&open=true">Open as a full list</Link> (filter, sort, download)
+            </p>
+          }
+        />
+      )}
       <section aria-labelledby="priority-key" className="rounded-panel border border-rule bg-surface p-5">
         <h2 id="priority-key" className="mb-3 text-lg font-bold">
           Priority key
@@ -45,7 +67,6 @@ export function Component() {
           ))}
         </ul>
       </section>
-      <EstimateCaution />
     </div>
   )
 }

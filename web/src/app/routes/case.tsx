@@ -1,0 +1,60 @@
+/** /cases/:id — one case: its header, the actions the viewer may take, the report and its timeline. */
+import { Link, useParams } from 'react-router-dom'
+import { Loading } from '../../components/ui/loading'
+import { Notice } from '../../components/ui/notice'
+import { PageHeader } from '../../components/ui/page-header'
+import { QueryError } from '../../components/ui/query-error'
+import { useCase } from '../../features/cases/api/get-case'
+import { CaseActionsPanel } from '../../features/cases/components/case-actions-panel'
+import { CaseHeader } from '../../features/cases/components/case-header'
+import { CaseReportDetails } from '../../features/cases/components/case-report-details'
+import { CaseTimeline } from '../../features/cases/components/case-timeline'
+import { FindingSummary } from '../../features/cases/components/finding-summary'
+import { useNow } from '../../features/cases/components/use-now'
+import { TriageActions } from '../../features/cases/components/triage-actions'
+import { isApiError } from '../../lib/api-client'
+
+export function Component() {
+  const { id = '' } = useParams()
+  const query = useCase(id)
+  const now = useNow()
+  const detail = query.data
+
+  if (query.isPending) return <Loading label="Loading the case…" />
+  if (!detail) {
+    const missing = isApiError(query.error) && query.error.status === 404
+    return (
+      <div className="max-w-2xl">
+        <PageHeader title={missing ? 'Case not found' : 'Case'} />
+        {missing ? (
+          <Notice tone="danger" title="There is no such case in your office." live>
+            <p>
+              It may belong to another office, or the link is wrong. <Link to="/cases">Go to the case list</Link>.
+            </p>
+          </Notice>
+        ) : (
+          <QueryError error={query.error} what="the case" onRetry={() => void query.refetch()} />
+        )}
+      </div>
+    )
+  }
+
+  return (
+    <div className="flex flex-col gap-6">
+      <p>
+        <Link to="/cases">Back to the case list</Link>
+      </p>
+      <CaseHeader detail={detail} now={now} />
+      <div className="grid items-start gap-6 lg:grid-cols-[minmax(0,1fr)_26rem]">
+        <div className="lg:col-start-2 lg:row-start-1">
+          <CaseActionsPanel detail={detail} reload={() => void query.refetch()} reloading={query.isFetching} triageActions={<TriageActions />} />
+        </div>
+        <div className="flex flex-col gap-6 lg:col-start-1 lg:row-start-1">
+          <FindingSummary events={detail.timeline} underReview={detail.status === 'finding_proposed'} />
+          <CaseReportDetails detail={detail} />
+          <CaseTimeline events={detail.timeline} />
+        </div>
+      </div>
+    </div>
+  )
+}

@@ -1,0 +1,17 @@
+/** GET /api/cases/:id/investigators — the office's active investigators with their open cases, lightest first. */
+import { queryOptions, useQuery } from '@tanstack/react-query'
+import { api } from '../../../lib/api-client'
+
+export interface InvestigatorLoad {
+  id: string
+  name: string
+  openCases: number
+}
+
+export const getInvestigators = (caseId: string, signal?: AbortSignal) =>
+  api.get<{ investigators: InvestigatorLoad[] }>(`/api/cases/${encodeURIComponent(caseId)}/investigators`, signal).then((r) => r.investigators)
+
+export const investigatorsQueryOptions = (caseId: string) =>
+  queryOptions({ queryKey: ['cases', 'investigators', caseId], queryFn: ({ signal }) => getInvestigators(caseId, signal), staleTime: 0 })
+
+export const useInvestigators = (caseId: string, enabled: boolean) => useQuery({ ...investigatorsQueryOptions(caseId), enabled })

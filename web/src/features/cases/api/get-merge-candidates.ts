@@ -1,0 +1,23 @@
+/** GET /api/cases/:id/merge-candidates — nearby open cases on an overlapping frequency, nearest first. */
+import { queryOptions, useQuery } from '@tanstack/react-query'
+import { api } from '../../../lib/api-client'
+
+export interface MergeCandidate {
+  id: string
+  reference: string
+  status: string
+  service: string
+  address: string
+  freqLowHz: number
+  freqHighHz: number
+  distanceM: number
+  receivedAt: string
+}
+
+export const getMergeCandidates = (caseId: string, signal?: AbortSignal) =>
+  api.get<{ candidates: MergeCandidate[] }>(`/api/cases/${encodeURIComponent(caseId)}/merge-candidates`, signal).then((r) => r.candidates)
+
+export const mergeCandidatesQueryOptions = (caseId: string) =>
+  queryOptions({ queryKey: ['cases', 'merge-candidates', caseId], queryFn: ({ signal }) => getMergeCandidates(caseId, signal), staleTime: 0 })
+
+export const useMergeCandidates = (caseId: string, enabled: boolean) => useQuery({ ...mergeCandidatesQueryOptions(caseId), enabled })

@@ -1,0 +1,17 @@
+/** GET /api/staff — the office's staff (all offices for an administrator), for the investigator filter. */
+import { queryOptions, useQuery } from '@tanstack/react-query'
+import { api } from '../../../lib/api-client'
+
+export interface StaffMember {
+  id: string
+  name: string
+  role: string
+  officeName: string | null
+  active: boolean
+}
+
+export const getStaff = (signal?: AbortSignal) => api.get<{ staff: StaffMember[] }>('/api/staff', signal).then((r) => r.staff)
+
+export const staffQueryOptions = () => queryOptions({ queryKey: ['staff'], queryFn: ({ signal }) => getStaff(signal), staleTime: 5 * 60_000 })
+
+export const useStaff = () => useQuery(staffQueryOptions())

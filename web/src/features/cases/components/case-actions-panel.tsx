@@ -1,0 +1,62 @@
+/**
+ * The case page's actions, built only from the `abilities` the server sent with the case:
+ * nothing here checks a role. Triage actions come in through `triageActions` (composed by
+ * the page), the investigator's and the reviewer's moves and the notes are this feature's.
+ */
+import { useRef, useState, type ReactNode } from 'react'
+import type { CaseDetail } from '../api/get-case'
+import { CaseActionContext } from './case-action-context'
+import { ProposeFindingForm, StartFieldWorkForm } from './field-work-actions'
+import { InternalNoteForm, MessageComplainantForm } from './note-forms'
+import { CloseCaseForm, ReopenCaseForm, ReturnFindingForm } from './review-actions'
+
+export interface CaseActionsPanelProps {
+  detail: CaseDetail
+  reload: () => void
+  reloading: boolean
+  triageActions: ReactNode
+}
+
+export function CaseActionsPanel({ detail, reload, reloading, triageActions }: CaseActionsPanelProps) {
+  const [message, setMessage] = useState('')
+  const messageRef = useRef<HTMLParagraphElement>(null)
+  const a = detail.abilities
+  const anything = Object.values(a).some(Boolean)
+
+  const announce = (text: string) => {
+    setMessage(text)
+    requestAnimationFrame(() => messageRef.current?.focus())
+  }
+
+  return (
+    <CaseActionContext value={{ detail, reload: () => { setMessage(''); reload() }, reloading, announce }}>
+      <section aria-labelledby="actions-heading" className="flex flex-col gap-5 rounded-panel border border-rule bg-surface p-5">
+        <h2 id="actions-heading" className="text-xl font-bold">
+          Actions
+        </h2>
+        <p
+          ref={messageRef}
+          tabIndex={-1}
+          role="status"
+          className={message ? 'rounded-control border-l-4 border-ok bg-ok-soft px-3 py-2 font-semibold focus:outline-none' : 'sr-only'}
+        >
+          {message}
+        </p>
+        {!anything && <p className="text-ink-muted">You can read this case. Changes are made by the staff of its office.</p>}
+        {triageActions}
+        {a.startFieldWork && <Block><StartFieldWorkForm /></Block>}
+        {a.proposeFinding && <Block><ProposeFindingForm /></Block>}
+        {a.close && <Block><CloseCaseForm /></Block>}
+        {a.returnFinding && <Block><ReturnFindingForm /></Block>}
+        {a.reopen && <Block><ReopenCaseForm /></Block>}
+        {a.messageComplainant && <Block><MessageComplainantForm /></Block>}
+        {a.addInternalNote && <Block><InternalNoteForm /></Block>}
+      </section>
+    </CaseActionContext>
+  )
+}
+
+/** One action, set off from the next by a rule. */
+export function Block({ children }: { children: ReactNode }) {
+  return <div className="border-t border-rule pt-4 first-of-type:border-t-0 first-of-type:pt-0">{children}</div>
+}

@@ -1,0 +1,26 @@
+/** One titled work list on the staff start page, with its loading, error and empty states. */
+import type { ReactNode } from 'react'
+import { Loading } from '../../../components/ui/loading'
+import { QueryError } from '../../../components/ui/query-error'
+import type { CaseListState } from '../lib/list-state'
+import { useQueue } from '../api/get-queue'
+import { QueueTable } from './queue-table'
+
+export function QueueSection({ id, title, list, empty, now, footer, showInvestigator }: { id: string; title: string; list: CaseListState; empty: string; now: Date; footer?: ReactNode; showInvestigator?: boolean }) {
+  const q = useQueue(list)
+  const total = q.data?.total
+  return (
+    <section aria-labelledby={id} className="flex flex-col gap-3">
+      <h2 id={id} className="text-xl font-bold">
+        {title}
+        {total !== undefined && <span className="ml-2 font-mono text-base font-semibold text-ink-muted">({total})</span>}
+      </h2>
+      {q.isPending && <Loading label={`Loading ${title.toLowerCase()}…`} />}
+      {q.isError && <QueryError error={q.error} what={title.toLowerCase()} onRetry={() => void q.refetch()} />}
+      {q.data && q.data.items.length === 0 && <p className="rounded-panel border border-rule bg-surface p-4 text-ink-muted">{empty}</p>}
+      {q.data && q.data.items.length > 0 && <QueueTable items={q.data.items} caption={title} now={now} showInvestigator={showInvestigator} />}
+      {q.data && q.data.total > q.data.items.length && <p className="text-sm">Showing the first {q.data.items.length} of {q.data.total}.</p>}
+      {footer}
+    </section>
+  )
+}

@@ -1,0 +1,51 @@
+/** The supervisor's triage moves on the case page, each shown only when `abilities` allows it. */
+import { Block } from './case-actions-panel'
+import { FoldedAction } from './action-form'
+import { useCaseActionContext } from './case-action-context'
+import { useTransferOffices } from '../api/get-transfer-offices'
+import { AssignForm } from './assign-form'
+import { DismissForm } from './dismiss-form'
+import { MergeForm } from './merge-form'
+import { TransferForm } from './transfer-form'
+import { TriageForm } from './triage-form'
+
+export function TriageActions() {
+  const { detail } = useCaseActionContext()
+  const a = detail.abilities
+  const transfer = useTransferOffices(detail.id, a.transfer)
+  if (!a.triage && !a.assign && !a.merge && !a.dismiss && !a.transfer) return null
+  return (
+    <>
+      {a.triage && <Block><TriageForm /></Block>}
+      {a.assign && !detail.investigatorId && <Block><AssignForm /></Block>}
+      {a.assign && detail.investigatorId && (
+        <Block>
+          <FoldedAction summary="Reassign to another investigator">
+            <AssignForm headingless />
+          </FoldedAction>
+        </Block>
+      )}
+      {(a.merge || a.dismiss || (a.transfer && transfer.destinations.length > 0)) && (
+        <Block>
+          <div className="flex flex-col gap-2">
+            {a.merge && (
+              <FoldedAction summary="Merge into an open case">
+                <MergeForm />
+              </FoldedAction>
+            )}
+            {a.dismiss && (
+              <FoldedAction summary="Close at triage">
+                <DismissForm />
+              </FoldedAction>
+            )}
+            {a.transfer && transfer.destinations.length > 0 && (
+              <FoldedAction summary="Transfer to another office">
+                <TransferForm destinations={transfer.destinations} />
+              </FoldedAction>
+            )}
+          </div>
+        </Block>
+      )}
+    </>
+  )
+}

@@ -1,0 +1,21 @@
+/** One titled part of the report form: a fieldset whose legend is a heading. */
+import type { ReactNode } from 'react'
+
+export function FormSection({ title, lead, children }: { title: string; lead?: ReactNode; children: ReactNode }) {
+  return (
+    <fieldset className="flex flex-col gap-5 rounded-panel border border-rule bg-surface p-5">
+      <legend className="float-left mb-1 w-full">
+        <h2 className="text-xl font-bold">{title}</h2>
+      </legend>
+      {lead && <div className="-mt-3 text-ink-muted">{lead}</div>}
+      {children}
+    </fieldset>
+  )
+}
+
+/** Typed figures: blank means "not given", and a typographic minus or a decimal comma are understood. */
+export function figureOrUndefined(value: unknown): unknown {
+  if (typeof value !== 'string') return value
+  const t = value.trim().replace(/\u2212/g, '-').replace(',', '.')
+  return t === '' ? undefined : t
+}

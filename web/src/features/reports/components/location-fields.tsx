@@ -1,0 +1,56 @@
+/** Where it happens: an address or place, and latitude/longitude typed or picked on the map. */
+import type { ReactNode } from 'react'
+import type { UseFormReturn } from 'react-hook-form'
+import { TextField } from '../../../components/ui/text-field'
+import { FormSection, figureOrUndefined } from './form-section'
+import type { LocationPickerArgs, ReportFormInput, ReportFormOutput } from './report-form'
+
+export function LocationFields({
+  form,
+  renderLocationPicker,
+}: {
+  form: UseFormReturn<ReportFormInput, unknown, ReportFormOutput>
+  renderLocationPicker: (args: LocationPickerArgs) => ReactNode
+}) {
+  const { register, formState, watch, setValue } = form
+  const e = formState.errors
+  const value = positionOf(watch('latDeg'), watch('lonDeg'))
+  const onPick = (p: { latDeg: number; lonDeg: number }) => {
+    const opts = { shouldDirty: true, shouldValidate: formState.isSubmitted }
+    setValue('latDeg', String(p.latDeg), opts)
+    setValue('lonDeg', String(p.lonDeg), opts)
+  }
+  return (
+    <FormSection title="Where it happens" lead={<p>The report goes to the field office nearest this place.</p>}>
+      <TextField label="Address or place" autoComplete="street-address" hint="A street address, a harbour berth, a hill top, a stretch of road…" error={e.address?.message} {...register('address')} />
+      <div className="grid gap-4 sm:grid-cols-2">
+        <TextField
+          label="Latitude"
+          inputMode="decimal"
+          autoComplete="off"
+          hint="Decimal degrees, north positive (e.g. 48.1)."
+          error={e.latDeg?.message}
+          className="font-mono"
+          {...register('latDeg', { setValueAs: figureOrUndefined })}
+        />
+        <TextField
+          label="Longitude"
+          autoComplete="off"
+          hint="Decimal degrees, west negative (e.g. −31.35)."
+          error={e.lonDeg?.message}
+          className="font-mono"
+          {...register('lonDeg', { setValueAs: figureOrUndefined })}
+        />
+      </div>
+      {renderLocationPicker({ value, onPick })}
+    </FormSection>
+  )
+}
+
+/** The typed pair as numbers, or null while either is blank or not a number. */
+function positionOf(lat: unknown, lon: unknown): { latDeg: number; lonDeg: number } | null {
+  const latDeg = Number(figureOrUndefined(lat))
+  const lonDeg = Number(figureOrUndefined(lon))
+  if (lat === undefined || lon === undefined || lat === '' || lon === '' || !Number.isFinite(latDeg) || !Number.isFinite(lonDeg)) return null
+  return { latDeg, lonDeg }
+}

@@ -1,0 +1,73 @@
+/** After a report is sent: its reference (large, copyable), the office, and the tracking link. */
+import { useEffect, useRef, useState } from 'react'
+import { Link } from 'react-router-dom'
+import { Button, buttonClass } from '../../../components/ui/button'
+import { Sign } from '../../../components/ui/sign'
+import type { SubmittedReport } from '../api/submit-report'
+
+export function ReportConfirmation({ result, email }: { result: SubmittedReport; email: string }) {
+  const headingRef = useRef<HTMLHeadingElement>(null)
+  const [copied, setCopied] = useState<'reference' | 'link' | null>(null)
+  useEffect(() => headingRef.current?.focus(), [])
+  const trackingPath = pathOf(result.trackingUrl)
+
+  const copy = async (what: 'reference' | 'link', text: string) => {
+    try {
+      await navigator.clipboard.writeText(text)
+      setCopied(what)
+    } catch {
+      setCopied(null)
+    }
+  }
+
+  return (
+    <section aria-labelledby="report-sent" className="flex flex-col gap-5 rounded-panel border-2 border-ok bg-surface p-6">
+      <h2 id="report-sent" ref={headingRef} tabIndex={-1} className="flex items-center gap-2 text-2xl font-bold focus:outline-none">
+        <span className="text-ok">
+          <Sign kind="ok" sizePx={26} />
+        </span>
+        Report received
+      </h2>
+      <dl className="flex flex-col gap-1">
+        <dt className="text-ink-muted">Your reference</dt>
+        <dd className="flex flex-wrap items-center gap-3">
+          <span className="select-all font-mono text-4xl font-semibold tracking-wide">{result.reference}</span>
+          <Button variant="secondary" onClick={() => void copy('reference', result.reference)}>
+            Copy reference
+          </Button>
+        </dd>
+      </dl>
+      <p className="text-lg">
+        It went to the <strong>{result.officeName}</strong> field office, the one nearest the place you gave.
+      </p>
+      <div className="flex flex-col gap-2">
+        <p className="font-semibold">Your private tracking link</p>
+        <p className="break-all rounded-control bg-paper px-3 py-2 font-mono text-sm">{result.trackingUrl}</p>
+        <div className="flex flex-wrap gap-3">
+          <Link to={trackingPath} className={buttonClass('primary')}>
+            Open your tracking page
+          </Link>
+          <Button variant="secondary" onClick={() => void copy('link', result.trackingUrl)}>
+            Copy link
+          </Button>
+        </div>
+      </div>
+      <p role="status" className="text-sm font-semibold text-ok">
+        {copied === 'reference' ? 'Reference copied.' : copied === 'link' ? 'Link copied.' : ''}
+      </p>
+      <p>
+        We have e-mailed you this link{email ? <> at <span className="font-mono">{email}</span></> : null}. Keep it private: anyone with the link can
+        read your report. Use it to follow progress, add what you notice later, or withdraw the report.
+      </p>
+    </section>
+  )
+}
+
+/** The tracking page's path, so the link stays on this site whatever host the server named. */
+function pathOf(url: string): string {
+  try {
+    return new URL(url, window.location.origin).pathname
+  } catch {
+    return '/track'
+  }
+}
