@@ -24,12 +24,14 @@ describe('frequencyToHz / frequencyFromHz', () => {
 })
 
 describe('formatFrequencyHz', () => {
-  it('picks the prefix that puts the figure between 1 and 1000', () => {
+  it('uses kHz below 1 MHz, MHz up to the top of UHF at 3 GHz (ITU RR No. 2.1), GHz above', () => {
     expect(bestUnitFor(999).unit).toBe('Hz')
     expect(bestUnitFor(1_000).unit).toBe('kHz')
     expect(bestUnitFor(999_999).unit).toBe('kHz')
     expect(bestUnitFor(1e6).unit).toBe('MHz')
-    expect(bestUnitFor(1e9).unit).toBe('GHz')
+    expect(bestUnitFor(1e9).unit).toBe('MHz')
+    expect(bestUnitFor(2_999_999_999).unit).toBe('MHz')
+    expect(bestUnitFor(3e9).unit).toBe('GHz')
     expect(bestUnitFor(3e12).unit).toBe('THz')
   })
 
@@ -48,7 +50,8 @@ describe('formatFrequencyHz', () => {
 describe('formatFrequencyRangeHz', () => {
   it('writes one unit when both ends share it', () => {
     expect(formatFrequencyRangeHz({ lowHz: 156e6, highHz: 162.05e6 })).toBe('156–162.05 MHz')
-    expect(formatFrequencyRangeHz({ lowHz: 1_710e6, highHz: 1_785e6 })).toBe('1.71–1.785 GHz')
+    expect(formatFrequencyRangeHz({ lowHz: 1_710e6, highHz: 1_785e6 })).toBe('1710–1785 MHz')
+    expect(formatFrequencyRangeHz({ lowHz: 2_400e6, highHz: 2_483.5e6 })).toBe('2400–2483.5 MHz')
   })
 
   it('writes both units when the ends differ', () => {

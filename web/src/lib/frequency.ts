@@ -1,18 +1,20 @@
 /**
- * Frequencies as people read them: the SI prefix that puts the figure between 1 and 1000
- * (Hz, kHz, MHz, GHz, THz), trailing zeros dropped. Pure; used by every case screen.
+ * Frequencies as radio engineers read them: kHz below 1 MHz, MHz up to the top of the UHF
+ * band (3 GHz: mobile bands read "1710–1785 MHz", Wi-Fi "2400–2483.5 MHz"), GHz above,
+ * trailing zeros dropped. Pure; used by every case screen.
  */
 import { FREQUENCY_UNITS, type FrequencyUnit } from '../../../shared/schemas/cases'
 
 export type { FrequencyUnit }
 export const FREQUENCY_UNIT_OPTIONS: readonly FrequencyUnit[] = ['kHz', 'MHz', 'GHz']
 
-const STEPS: { unit: string; hz: number }[] = [
-  { unit: 'THz', hz: 1e12 },
-  { unit: 'GHz', hz: 1e9 },
-  { unit: 'MHz', hz: 1e6 },
-  { unit: 'kHz', hz: 1e3 },
-  { unit: 'Hz', hz: 1 },
+// each unit is used from `from` upwards; MHz stays until 3 GHz (ITU RR No. 2.1: band 9, UHF, ends at 3 GHz)
+const STEPS: { unit: string; hz: number; from: number }[] = [
+  { unit: 'THz', hz: 1e12, from: 1e12 },
+  { unit: 'GHz', hz: 1e9, from: 3e9 },
+  { unit: 'MHz', hz: 1e6, from: 1e6 },
+  { unit: 'kHz', hz: 1e3, from: 1e3 },
+  { unit: 'Hz', hz: 1, from: 0 },
 ]
 
 /** A figure in a unit → Hz (e.g. 156.8 MHz → 156 800 000 Hz). */
@@ -25,13 +27,13 @@ export function frequencyFromHz(options: { freqHz: number; unit: FrequencyUnit }
   return roundNoise(options.freqHz / FREQUENCY_UNITS[options.unit])
 }
 
-/** The unit a frequency reads best in (the figure lands in 1 … < 1000). */
+/** The unit a frequency reads best in. */
 export function bestUnitFor(freqHz: number): { unit: string; hz: number } {
   const abs = Math.abs(freqHz)
-  return STEPS.find((s) => abs >= s.hz) ?? STEPS[STEPS.length - 1]!
+  return STEPS.find((s) => abs >= s.from) ?? STEPS[STEPS.length - 1]!
 }
 
-/** "156.8 MHz", "5.8 GHz", "990 kHz". Non-finite input reads as "—". */
+/** "156.8 MHz", "1747 MHz", "5.8 GHz", "990 kHz". Non-finite input reads as "—". */
 export function formatFrequencyHz(freqHz: number): string {
   if (!Number.isFinite(freqHz)) return '—'
   const { unit, hz } = bestUnitFor(freqHz)
