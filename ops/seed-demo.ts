@@ -7,6 +7,7 @@ import type pg from 'pg'
 import { createDb } from '../server/db/client'
 import { offices, users } from '../server/db/schema'
 import { hashPassword } from '../server/modules/auth/passwords'
+import { seedDemoCases } from './seed-demo-cases'
 
 export const DEMO_PASSWORD = 'quietband-demo'
 
@@ -47,6 +48,7 @@ export async function seedDemo(pool: pg.Pool): Promise<boolean> {
       DEMO_USERS.map((u) => ({ email: u.email, name: u.name, role: u.role, officeId: u.office ? officeId.get(u.office)! : null, passwordHash })),
     )
     await client.query('COMMIT')
+    await seedDemoCases(pool)
     return true
   } catch (e) {
     await client.query('ROLLBACK').catch(() => {})

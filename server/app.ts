@@ -69,7 +69,9 @@ export function createApp(deps: AppDeps): AppHandle {
   )
 
   const PgStore = connectPgSimple(session)
-  const store = new PgStore({ pool: deps.pool, tableName: 'session', pruneSessionInterval: deps.pruneSessions ? 15 * 60 : false })
+  // A session lasts one working day from sign-in; it is not rewritten on every request
+  // (no rolling expiry, no touch), which saves a database write per API call.
+  const store = new PgStore({ pool: deps.pool, tableName: 'session', pruneSessionInterval: deps.pruneSessions ? 15 * 60 : false, disableTouch: true })
   const secureCookies = deps.publicUrl.startsWith('https://')
   const passport = configurePassport(db)
 
@@ -83,7 +85,7 @@ export function createApp(deps: AppDeps): AppHandle {
       secret: deps.sessionSecret,
       resave: false,
       saveUninitialized: false,
-      rolling: true,
+      rolling: false,
       proxy: secureCookies && !!deps.trustProxy,
       cookie: { httpOnly: true, sameSite: 'lax', secure: secureCookies, maxAge: 10 * 3600 * 1000 },
     }),

@@ -41,8 +41,10 @@ export async function startServer(env: Env): Promise<RunningServer> {
     url: `http://${env.HOST}:${port}`,
     port,
     async close() {
-      await new Promise<void>((r) => server.close(() => r()))
-      server.closeAllConnections?.()
+      // stop accepting, drop idle keep-alive connections, and let requests in flight finish
+      const closed = new Promise<void>((r) => server.close(() => r()))
+      server.closeIdleConnections()
+      await closed
       await boss.stop({ graceful: true, wait: true, timeout: 5000 })
       handle.close()
       mailer.close()

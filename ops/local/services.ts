@@ -42,7 +42,7 @@ export async function ensureLocalServices(source: NodeJS.ProcessEnv = process.en
     const out = execFileSync('bash', [DB_SCRIPT, 'start'], { encoding: 'utf8', stdio: ['ignore', 'pipe', 'inherit'] })
     env.DATABASE_URL = /DATABASE_URL=(\S+)/.exec(out)![1]!
     if (!wasRunning) {
-      started.push('PostgreSQL (project-local, 127.0.0.1:54329)')
+      started.push(`PostgreSQL (project-local, ${new URL(env.DATABASE_URL).host})`)
       stops.push(async () => {
         execFileSync('bash', [DB_SCRIPT, 'stop'], { stdio: 'ignore' })
       })
