@@ -11,7 +11,6 @@ import { CaseReportDetails } from '../../features/cases/components/case-report-d
 import { CaseTimeline } from '../../features/cases/components/case-timeline'
 import { FindingSummary } from '../../features/cases/components/finding-summary'
 import { useNow } from '../../features/cases/components/use-now'
-import { TriageActions } from '../../features/cases/components/triage-actions'
 import { isApiError } from '../../lib/api-client'
 
 export function Component() {
@@ -47,7 +46,7 @@ export function Component() {
       <CaseHeader detail={detail} now={now} />
       <div className="grid items-start gap-6 lg:grid-cols-[minmax(0,1fr)_26rem]">
         <div className="lg:col-start-2 lg:row-start-1">
-          <CaseActionsPanel detail={detail} reload={() => void query.refetch()} reloading={query.isFetching} triageActions={<TriageActions />} />
+          <CaseActionsPanel detail={detail} reload={() => void query.refetch()} reloading={query.isFetching} />
         </div>
         <div className="flex flex-col gap-6 lg:col-start-1 lg:row-start-1">
           <FindingSummary events={detail.timeline} underReview={detail.status === 'finding_proposed'} />

@@ -10,7 +10,7 @@ export function Component() {
       <Panel>
         <ol className="flex list-decimal flex-col gap-3 pl-5">
           <li>When your report arrives, we e-mail you its reference and a private tracking link.</li>
-          <li>Open the link on any device. It shows where your report stands: received, being assessed, assigned to an engineer, under investigation, or closed with an outcome.</li>
+          <li>Open the link on any device. It shows where your report stands: received, accepted, assigned to an engineer, under investigation, or closed with an outcome.</li>
           <li>Use the same page to add what you notice later — new times, places or recordings help the engineer find the source.</li>
           <li>We e-mail you again at each step that concerns you.</li>
         </ol>

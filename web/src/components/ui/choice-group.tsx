@@ -3,7 +3,7 @@
  * `inputProps` is react-hook-form's register() result (or plain name/onChange for filters).
  */
 import type { InputHTMLAttributes, ReactNode, Ref } from 'react'
-import { FieldError } from './text-field'
+import { FieldError, FieldHint, describedBy } from './field'
 
 export interface ChoiceGroupProps {
   legend: string
@@ -20,17 +20,11 @@ export interface ChoiceGroupProps {
 
 export function ChoiceGroup({ legend, name, type, options, inputProps, defaultChecked, hint, error, columns = 1 }: ChoiceGroupProps) {
   const base = `field-${name}`
-  const hintId = hint ? `${base}-hint` : undefined
-  const errorId = error ? `${base}-error` : undefined
   const grid = columns === 4 ? 'sm:grid-cols-2 xl:grid-cols-4' : columns === 3 ? 'sm:grid-cols-3' : columns === 2 ? 'sm:grid-cols-2' : ''
   return (
-    <fieldset aria-describedby={[hintId, errorId].filter(Boolean).join(' ') || undefined} className="flex flex-col gap-1">
+    <fieldset aria-describedby={describedBy(base, hint, error)} className="flex flex-col gap-1">
       <legend className="mb-1 font-semibold">{legend}</legend>
-      {hint && (
-        <p id={hintId} className="text-sm text-ink-muted">
-          {hint}
-        </p>
-      )}
+      <FieldHint id={base} hint={hint} />
       <div className={`grid gap-x-4 gap-y-1 ${grid}`}>
         {options.map((o) => {
           const id = `${base}-${o.value}`
@@ -51,7 +45,7 @@ export function ChoiceGroup({ legend, name, type, options, inputProps, defaultCh
           )
         })}
       </div>
-      <FieldError id={errorId} message={error} />
+      <FieldError id={`${base}-error`} message={error} />
     </fieldset>
   )
 }

@@ -1,6 +1,6 @@
 /** A labelled native select (native: keyboard and screen-reader behaviour for free). */
 import type { Ref, SelectHTMLAttributes } from 'react'
-import { FieldError } from './text-field'
+import { Field, controlAria, controlClass } from './field'
 
 export interface SelectFieldProps extends SelectHTMLAttributes<HTMLSelectElement> {
   label: string
@@ -13,25 +13,14 @@ export interface SelectFieldProps extends SelectHTMLAttributes<HTMLSelectElement
 
 export function SelectField({ label, name, options, hint, error, id, ref, ...rest }: SelectFieldProps) {
   const selectId = id ?? `field-${name}`
-  const hintId = hint ? `${selectId}-hint` : undefined
-  const errorId = error ? `${selectId}-error` : undefined
   return (
-    <div className="flex flex-col gap-1">
-      <label htmlFor={selectId} className="font-semibold">
-        {label}
-      </label>
-      {hint && (
-        <p id={hintId} className="text-sm text-ink-muted">
-          {hint}
-        </p>
-      )}
+    <Field id={selectId} label={label} hint={hint} error={error}>
       <select
         ref={ref}
         id={selectId}
         name={name}
-        aria-invalid={error ? true : undefined}
-        aria-describedby={[hintId, errorId].filter(Boolean).join(' ') || undefined}
-        className={`min-h-11 rounded-control border bg-surface px-3 py-2 text-ink ${error ? 'border-danger border-2' : 'border-field'}`}
+        {...controlAria(selectId, hint, error)}
+        className={`min-h-11 ${controlClass(error)}`}
         {...rest}
       >
         {options.map((o) => (
@@ -40,7 +29,6 @@ export function SelectField({ label, name, options, hint, error, id, ref, ...res
           </option>
         ))}
       </select>
-      <FieldError id={errorId} message={error} />
-    </div>
+    </Field>
   )
 }

@@ -1,6 +1,6 @@
-/** A labelled multi-line field, tied to its hint and error like the shell's TextField. */
+/** A labelled multi-line field, tied to its hint and error like TextField. */
 import type { Ref, TextareaHTMLAttributes } from 'react'
-import { FieldError } from './text-field'
+import { Field, controlAria, controlClass } from './field'
 
 export interface TextAreaFieldProps extends TextareaHTMLAttributes<HTMLTextAreaElement> {
   label: string
@@ -12,29 +12,17 @@ export interface TextAreaFieldProps extends TextareaHTMLAttributes<HTMLTextAreaE
 
 export function TextAreaField({ label, name, hint, error, id, ref, rows = 4, className = '', ...rest }: TextAreaFieldProps) {
   const fieldId = id ?? `field-${name}`
-  const hintId = hint ? `${fieldId}-hint` : undefined
-  const errorId = error ? `${fieldId}-error` : undefined
   return (
-    <div className="flex flex-col gap-1">
-      <label htmlFor={fieldId} className="font-semibold">
-        {label}
-      </label>
-      {hint && (
-        <p id={hintId} className="text-sm text-ink-muted">
-          {hint}
-        </p>
-      )}
+    <Field id={fieldId} label={label} hint={hint} error={error}>
       <textarea
         ref={ref}
         id={fieldId}
         name={name}
         rows={rows}
-        aria-invalid={error ? true : undefined}
-        aria-describedby={[hintId, errorId].filter(Boolean).join(' ') || undefined}
-        className={`rounded-control border bg-surface px-3 py-2 text-ink ${error ? 'border-2 border-danger' : 'border-field'} ${className}`}
+        {...controlAria(fieldId, hint, error)}
+        className={`${controlClass(error)} ${className}`}
         {...rest}
       />
-      <FieldError id={errorId} message={error} />
-    </div>
+    </Field>
   )
 }

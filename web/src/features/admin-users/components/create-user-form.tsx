@@ -8,8 +8,8 @@ import { useForm } from 'react-hook-form'
 import type { z } from 'zod'
 import { ROLE_LABELS } from '../../../../../shared/domain/roles'
 import { createStaffSchema } from '../../../../../shared/schemas/auth'
-import { Button } from '../../../components/ui/button'
 import { FormAlert } from '../../../components/ui/form-alert'
+import { SubmitButton } from '../../../components/ui/submit-button'
 import { Notice } from '../../../components/ui/notice'
 import { SelectField } from '../../../components/ui/select-field'
 import { TextField } from '../../../components/ui/text-field'
@@ -84,9 +84,9 @@ export function CreateUserForm({ offices }: { offices: { id: string; name: strin
         </Notice>
       )}
       <div>
-        <Button type="submit" disabled={formState.isSubmitting}>
-          {formState.isSubmitting ? 'Adding…' : 'Add and send invitation'}
-        </Button>
+        <SubmitButton submitting={formState.isSubmitting} pendingLabel="Adding…">
+          Add and send invitation
+        </SubmitButton>
       </div>
     </form>
   )

@@ -11,6 +11,7 @@ import {
 } from '@tanstack/react-table'
 import { format, parseISO } from 'date-fns'
 import { ROLE_LABELS } from '../../../../../shared/domain/roles'
+import { SortableTh, TableFrame } from '../../../components/ui/table'
 import type { AdminUser } from '../api/get-users'
 
 const features = tableFeatures({
@@ -45,56 +46,34 @@ export interface UsersTableProps {
 export function UsersTable({ users, currentUserId, pendingUserId, onSetActive }: UsersTableProps) {
   const table = useTable({ features, columns, data: users, initialState: { sorting: [{ id: 'name', desc: false }] } })
 
+  const head = table.getHeaderGroups().map((group) => (
+    <tr key={group.id}>
+      {group.headers.map((header) => (
+        <SortableTh key={header.id} column={header.column} className="px-4 py-2 whitespace-nowrap">
+          <table.FlexRender header={header} />
+        </SortableTh>
+      ))}
+      <th scope="col" className="px-4 py-2">
+        <span className="sr-only">Actions</span>
+      </th>
+    </tr>
+  ))
+
   return (
-    <div className="overflow-x-auto rounded-panel border border-rule bg-surface">
-      <table className="w-full border-collapse text-left">
-        <caption className="sr-only">Users. Column headers sort the table.</caption>
-        <thead className="border-b-2 border-ink text-sm">
-          {table.getHeaderGroups().map((group) => (
-            <tr key={group.id}>
-              {group.headers.map((header) => {
-                const sorted = header.column.getIsSorted()
-                const canSort = header.column.getCanSort()
-                return (
-                  <th
-                    key={header.id}
-                    scope="col"
-                    aria-sort={sorted === 'asc' ? 'ascending' : sorted === 'desc' ? 'descending' : undefined}
-                    className="px-4 py-2 whitespace-nowrap"
-                  >
-                    {canSort ? (
-                      <button type="button" onClick={header.column.getToggleSortingHandler()} className="inline-flex min-h-11 items-center gap-1 font-semibold">
-                        <table.FlexRender header={header} />
-                        <span aria-hidden="true" className="font-mono text-ink-muted">{sorted === 'asc' ? '▲' : sorted === 'desc' ? '▼' : '↕'}</span>
-                      </button>
-                    ) : (
-                      <table.FlexRender header={header} />
-                    )}
-                  </th>
-                )
-              })}
-              <th scope="col" className="px-4 py-2">
-                <span className="sr-only">Actions</span>
-              </th>
-            </tr>
+    <TableFrame caption="Users. Column headers sort the table." head={head}>
+      {table.getRowModel().rows.map((row) => (
+        <tr key={row.id} className={`border-b border-rule last:border-b-0 ${row.original.active ? '' : 'bg-paper text-ink-muted'}`}>
+          {row.getAllCells().map((cell) => (
+            <td key={cell.id} className="px-4 py-2 whitespace-nowrap">
+              <table.FlexRender cell={cell} />
+            </td>
           ))}
-        </thead>
-        <tbody>
-          {table.getRowModel().rows.map((row) => (
-            <tr key={row.id} className={`border-b border-rule last:border-b-0 ${row.original.active ? '' : 'bg-paper text-ink-muted'}`}>
-              {row.getAllCells().map((cell) => (
-                <td key={cell.id} className="px-4 py-2 whitespace-nowrap">
-                  <table.FlexRender cell={cell} />
-                </td>
-              ))}
-              <td className="px-4 py-2">
-                <RowAction user={row.original} isSelf={row.original.id === currentUserId} pending={pendingUserId === row.original.id} onSetActive={onSetActive} />
-              </td>
-            </tr>
-          ))}
-        </tbody>
-      </table>
-    </div>
+          <td className="px-4 py-2">
+            <RowAction user={row.original} isSelf={row.original.id === currentUserId} pending={pendingUserId === row.original.id} onSetActive={onSetActive} />
+          </td>
+        </tr>
+      ))}
+    </TableFrame>
   )
 }
 

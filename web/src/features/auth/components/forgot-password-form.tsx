@@ -6,14 +6,12 @@ import { zodResolver } from '@hookform/resolvers/zod'
 import { useEffect, useState } from 'react'
 import { useForm } from 'react-hook-form'
 import { resetRequestSchema, type ResetRequestInput } from '../../../../../shared/schemas/auth'
-import { Button } from '../../../components/ui/button'
 import { FormAlert } from '../../../components/ui/form-alert'
+import { SubmitButton } from '../../../components/ui/submit-button'
 import { Notice } from '../../../components/ui/notice'
 import { TextField } from '../../../components/ui/text-field'
 import { applyFieldErrors, formProblem, type FormProblem } from '../../../lib/form-errors'
 import { useRequestPasswordReset } from '../api/request-password-reset'
-
-export const RESET_SENT_MESSAGE = 'If an account exists for that address, we have sent a link.'
 
 export function ForgotPasswordForm() {
   const { register, handleSubmit, setError, setFocus, formState } = useForm<ResetRequestInput>({
@@ -37,7 +35,7 @@ export function ForgotPasswordForm() {
 
   if (requestReset.isSuccess) {
     return (
-      <Notice tone="ok" title={RESET_SENT_MESSAGE} live>
+      <Notice tone="ok" title="If an account exists for that address, we have sent a link." live>
         <p>The link works once and expires after a while. Check your spam folder if nothing arrives within a few minutes.</p>
       </Notice>
     )
@@ -56,9 +54,9 @@ export function ForgotPasswordForm() {
       />
       <FormAlert problem={problem} />
       <div>
-        <Button type="submit" disabled={formState.isSubmitting}>
-          {formState.isSubmitting ? 'Sending…' : 'Send me a link'}
-        </Button>
+        <SubmitButton submitting={formState.isSubmitting} pendingLabel="Sending…">
+          Send me a link
+        </SubmitButton>
       </div>
     </form>
   )

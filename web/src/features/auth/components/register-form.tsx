@@ -3,8 +3,8 @@ import { zodResolver } from '@hookform/resolvers/zod'
 import { useEffect, useState } from 'react'
 import { useForm } from 'react-hook-form'
 import { registerSchema, type RegisterInput, type SessionUser } from '../../../../../shared/schemas/auth'
-import { Button } from '../../../components/ui/button'
 import { FormAlert } from '../../../components/ui/form-alert'
+import { SubmitButton } from '../../../components/ui/submit-button'
 import { TextField } from '../../../components/ui/text-field'
 import { isApiError } from '../../../lib/api-client'
 import { applyFieldErrors, formProblem, type FormProblem } from '../../../lib/form-errors'
@@ -60,9 +60,9 @@ export function RegisterForm({ onRegistered }: { onRegistered: (user: SessionUse
       />
       <FormAlert problem={problem} />
       <div>
-        <Button type="submit" disabled={formState.isSubmitting}>
-          {formState.isSubmitting ? 'Creating account…' : 'Create account'}
-        </Button>
+        <SubmitButton submitting={formState.isSubmitting} pendingLabel="Creating account…">
+          Create account
+        </SubmitButton>
       </div>
     </form>
   )

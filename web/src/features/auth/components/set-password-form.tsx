@@ -4,8 +4,8 @@ import { useEffect, useState } from 'react'
 import { useForm } from 'react-hook-form'
 import { z } from 'zod'
 import { passwordSchema, type SessionUser } from '../../../../../shared/schemas/auth'
-import { Button } from '../../../components/ui/button'
 import { FormAlert } from '../../../components/ui/form-alert'
+import { SubmitButton } from '../../../components/ui/submit-button'
 import { TextField } from '../../../components/ui/text-field'
 import { isApiError } from '../../../lib/api-client'
 import { applyFieldErrors, formProblem, type FormProblem } from '../../../lib/form-errors'
@@ -59,9 +59,9 @@ export function SetPasswordForm({ token, onDone, onInvalidToken }: { token: stri
       />
       <FormAlert problem={problem} />
       <div>
-        <Button type="submit" disabled={formState.isSubmitting}>
-          {formState.isSubmitting ? 'Saving…' : 'Save password and sign in'}
-        </Button>
+        <SubmitButton submitting={formState.isSubmitting} pendingLabel="Saving…">
+          Save password and sign in
+        </SubmitButton>
       </div>
     </form>
   )

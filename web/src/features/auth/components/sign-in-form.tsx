@@ -3,21 +3,19 @@ import { zodResolver } from '@hookform/resolvers/zod'
 import { useEffect, useState } from 'react'
 import { useForm } from 'react-hook-form'
 import { signInSchema, type SessionUser, type SignInInput } from '../../../../../shared/schemas/auth'
-import { Button } from '../../../components/ui/button'
 import { FormAlert } from '../../../components/ui/form-alert'
+import { SubmitButton } from '../../../components/ui/submit-button'
 import { TextField } from '../../../components/ui/text-field'
 import { applyFieldErrors, formProblem, type FormProblem } from '../../../lib/form-errors'
 import { useSignIn } from '../api/sign-in'
 
 const FIELDS = ['email', 'password'] as const
 
-export const SIGN_IN_MESSAGES = {
-  tooManyAttempts: 'Too many attempts. Wait a few minutes and try again.',
-}
-
 export function SignInForm({ onSignedIn }: { onSignedIn: (user: SessionUser) => void }) {
-  const form = useForm<SignInInput>({ resolver: zodResolver(signInSchema), defaultValues: { email: '', password: '' } })
-  const { register, handleSubmit, setError, setFocus, formState } = form
+  const { register, handleSubmit, setError, setFocus, formState } = useForm<SignInInput>({
+    resolver: zodResolver(signInSchema),
+    defaultValues: { email: '', password: '' },
+  })
   const signIn = useSignIn()
   const [problem, setProblem] = useState<FormProblem | null>(null)
 
@@ -30,12 +28,8 @@ export function SignInForm({ onSignedIn }: { onSignedIn: (user: SessionUser) => 
       onSignedIn(user)
     } catch (error) {
       if (applyFieldErrors({ error, setError, fields: FIELDS })) return
-      setProblem(
-        formProblem(error, {
-          // A 401 shows the server's own generic words ("E-mail or password is not correct.").
-          byStatus: { 429: SIGN_IN_MESSAGES.tooManyAttempts },
-        }),
-      )
+      // A 401 shows the server's own generic words ("E-mail or password is not correct.").
+      setProblem(formProblem(error, { byStatus: { 429: 'Too many attempts. Wait a few minutes and try again.' } }))
     }
   })
 
@@ -59,9 +53,9 @@ export function SignInForm({ onSignedIn }: { onSignedIn: (user: SessionUser) => 
       />
       <FormAlert problem={problem} />
       <div>
-        <Button type="submit" disabled={formState.isSubmitting}>
-          {formState.isSubmitting ? 'Signing in…' : 'Sign in'}
-        </Button>
+        <SubmitButton submitting={formState.isSubmitting} pendingLabel="Signing in…">
+          Sign in
+        </SubmitButton>
       </div>
     </form>
   )

@@ -14,4 +14,4 @@ export const getInvestigators = (caseId: string, signal?: AbortSignal) =>
 export const investigatorsQueryOptions = (caseId: string) =>
   queryOptions({ queryKey: ['cases', 'investigators', caseId], queryFn: ({ signal }) => getInvestigators(caseId, signal), staleTime: 0 })
 
-export const useInvestigators = (caseId: string, enabled: boolean) => useQuery({ ...investigatorsQueryOptions(caseId), enabled })
+export const useInvestigators = (caseId: string) => useQuery(investigatorsQueryOptions(caseId))

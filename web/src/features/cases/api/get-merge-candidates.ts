@@ -20,4 +20,4 @@ export const getMergeCandidates = (caseId: string, signal?: AbortSignal) =>
 export const mergeCandidatesQueryOptions = (caseId: string) =>
   queryOptions({ queryKey: ['cases', 'merge-candidates', caseId], queryFn: ({ signal }) => getMergeCandidates(caseId, signal), staleTime: 0 })
 
-export const useMergeCandidates = (caseId: string, enabled: boolean) => useQuery({ ...mergeCandidatesQueryOptions(caseId), enabled })
+export const useMergeCandidates = (caseId: string) => useQuery(mergeCandidatesQueryOptions(caseId))

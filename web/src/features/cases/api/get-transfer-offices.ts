@@ -1,5 +1,5 @@
 /** GET /api/cases/:id/transfer-offices — the other offices, nearest to the report's location first. */
-import { useQuery } from '@tanstack/react-query'
+import { queryOptions, useQuery } from '@tanstack/react-query'
 import { api } from '../../../lib/api-client'
 
 export interface OfficeChoice {
@@ -10,10 +10,10 @@ export interface OfficeChoice {
 }
 
 export const getTransferOffices = (caseId: string, signal?: AbortSignal) =>
-  api.get<{ offices: OfficeChoice[] }>(`/api/cases/${caseId}/transfer-offices`, signal).then((r) => r.offices)
+  api.get<{ offices: OfficeChoice[] }>(`/api/cases/${encodeURIComponent(caseId)}/transfer-offices`, signal).then((r) => r.offices)
+
+export const transferOfficesQueryOptions = (caseId: string) =>
+  queryOptions({ queryKey: ['cases', 'transfer-offices', caseId], queryFn: ({ signal }) => getTransferOffices(caseId, signal), staleTime: 5 * 60_000 })
 
 /** Offices the case may go to; fetched only when the transfer move is possible. */
-export function useTransferOffices(caseId: string, enabled: boolean) {
-  const q = useQuery({ queryKey: ['cases', caseId, 'transfer-offices'], queryFn: ({ signal }) => getTransferOffices(caseId, signal), enabled, staleTime: 5 * 60_000 })
-  return { ...q, destinations: q.data ?? [] }
-}
+export const useTransferOffices = (caseId: string, enabled: boolean) => useQuery({ ...transferOfficesQueryOptions(caseId), enabled })

@@ -1,7 +1,8 @@
 /** The frame of one action on the case page: a titled form, its fields, its problem and its button. */
 import type { FormEventHandler, ReactNode } from 'react'
-import { Button } from '../../../components/ui/button'
+import { SubmitButton } from '../../../components/ui/submit-button'
 import { MoveProblem } from './move-problem'
+import type { CaseActionForm } from './use-case-action-form'
 
 export interface ActionFormProps {
   id: string
@@ -11,32 +12,30 @@ export interface ActionFormProps {
   pendingLabel: string
   submitting: boolean
   onSubmit: FormEventHandler<HTMLFormElement>
-  error: unknown
-  onReload: () => void
-  reloading: boolean
+  /** The form's useCaseActionForm(): what went wrong last, and how to reload the case. */
+  action: CaseActionForm
   variant?: 'primary' | 'secondary' | 'danger'
   children?: ReactNode
   /** Inside a disclosure the disclosure's summary is the title. */
   headingless?: boolean
 }
 
-export function ActionForm({ id, title, intro, submitLabel, pendingLabel, submitting, onSubmit, error, onReload, reloading, variant = 'primary', children, headingless }: ActionFormProps) {
-  const titleId = `${id}-title`
+export function ActionForm({ id, title, intro, submitLabel, pendingLabel, submitting, onSubmit, action, variant = 'primary', children, headingless }: ActionFormProps) {
   return (
     // Deliberately unnamed: a form named like its only field would make that field's label ambiguous.
     <form noValidate onSubmit={onSubmit} className="flex flex-col gap-4">
       {!headingless && (
-        <h3 id={titleId} className="text-lg font-bold">
+        <h3 id={`${id}-title`} className="text-lg font-bold">
           {title}
         </h3>
       )}
       {intro && <div className="text-sm text-ink-muted">{intro}</div>}
       {children}
-      <MoveProblem error={error} onReload={onReload} reloading={reloading} />
+      <MoveProblem error={action.error} onReload={action.reload} reloading={action.reloading} />
       <div>
-        <Button type="submit" variant={variant} disabled={submitting}>
-          {submitting ? pendingLabel : submitLabel}
-        </Button>
+        <SubmitButton submitting={submitting} pendingLabel={pendingLabel} variant={variant}>
+          {submitLabel}
+        </SubmitButton>
       </div>
     </form>
   )
@@ -55,4 +54,9 @@ export function FoldedAction({ summary, children }: { summary: string; children:
       <div className="border-t border-rule p-3">{children}</div>
     </details>
   )
+}
+
+/** One action in the actions panel, set off from the next by a rule. */
+export function Block({ children }: { children: ReactNode }) {
+  return <div className="border-t border-rule pt-4 first-of-type:border-t-0 first-of-type:pt-0">{children}</div>
 }

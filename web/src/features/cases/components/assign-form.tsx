@@ -5,7 +5,7 @@ import type { z } from 'zod'
 import { assignSchema } from '../../../../../shared/schemas/cases'
 import { Loading } from '../../../components/ui/loading'
 import { QueryError } from '../../../components/ui/query-error'
-import { FieldError } from '../../../components/ui/text-field'
+import { FieldError } from '../../../components/ui/field'
 import { ActionForm } from './action-form'
 import { useCaseActionForm } from './use-case-action-form'
 import { useAssignCase } from '../api/assign-case'
@@ -15,15 +15,16 @@ const schema = assignSchema.omit({ version: true })
 type In = z.input<typeof schema>
 
 export function AssignForm({ headingless = false }: { headingless?: boolean }) {
-  const { detail, run, error, reload, reloading } = useCaseActionForm()
-  const investigators = useInvestigators(detail.id, true)
+  const action = useCaseActionForm()
+  const { detail } = action
+  const investigators = useInvestigators(detail.id)
   const form = useForm<In>({ resolver: zodResolver(schema), defaultValues: { investigatorId: detail.investigatorId ?? '' } })
   const assign = useAssignCase(detail.id)
   const fieldError = form.formState.errors.investigatorId?.message
 
   const onSubmit = form.handleSubmit((v) => {
     const name = investigators.data?.find((i) => i.id === v.investigatorId)?.name ?? 'the investigator'
-    return run({ send: (version) => assign.mutateAsync({ ...v, version }), success: `Assigned to ${name}.`, setFieldError: form.setError, fields: ['investigatorId'] })
+    return action.run({ send: (version) => assign.mutateAsync({ ...v, version }), success: `Assigned to ${name}.`, setFieldError: form.setError, fields: ['investigatorId'] })
   })
 
   return (
@@ -35,9 +36,7 @@ export function AssignForm({ headingless = false }: { headingless?: boolean }) {
       pendingLabel="Assigning…"
       submitting={form.formState.isSubmitting}
       onSubmit={onSubmit}
-      error={error}
-      onReload={reload}
-      reloading={reloading}
+      action={action}
     >
       {investigators.isPending && <Loading label="Loading investigators…" />}
       {investigators.isError && <QueryError error={investigators.error} what="investigators" onRetry={() => void investigators.refetch()} />}

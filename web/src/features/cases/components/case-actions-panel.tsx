@@ -1,23 +1,23 @@
 /**
  * The case page's actions, built only from the `abilities` the server sent with the case:
- * nothing here checks a role. Triage actions come in through `triageActions` (composed by
- * the page), the investigator's and the reviewer's moves and the notes are this feature's.
+ * nothing here checks a role.
  */
-import { useRef, useState, type ReactNode } from 'react'
+import { useRef, useState } from 'react'
 import type { CaseDetail } from '../api/get-case'
+import { Block } from './action-form'
 import { CaseActionContext } from './case-action-context'
 import { ProposeFindingForm, StartFieldWorkForm } from './field-work-actions'
 import { InternalNoteForm, MessageComplainantForm } from './note-forms'
 import { CloseCaseForm, ReopenCaseForm, ReturnFindingForm } from './review-actions'
+import { TriageActions } from './triage-actions'
 
 export interface CaseActionsPanelProps {
   detail: CaseDetail
   reload: () => void
   reloading: boolean
-  triageActions: ReactNode
 }
 
-export function CaseActionsPanel({ detail, reload, reloading, triageActions }: CaseActionsPanelProps) {
+export function CaseActionsPanel({ detail, reload, reloading }: CaseActionsPanelProps) {
   const [message, setMessage] = useState('')
   const messageRef = useRef<HTMLParagraphElement>(null)
   const a = detail.abilities
@@ -43,7 +43,7 @@ export function CaseActionsPanel({ detail, reload, reloading, triageActions }: C
           {message}
         </p>
         {!anything && <p className="text-ink-muted">You can read this case. Changes are made by the staff of its office.</p>}
-        {triageActions}
+        <TriageActions />
         {a.startFieldWork && <Block><StartFieldWorkForm /></Block>}
         {a.proposeFinding && <Block><ProposeFindingForm /></Block>}
         {a.close && <Block><CloseCaseForm /></Block>}
@@ -54,9 +54,4 @@ export function CaseActionsPanel({ detail, reload, reloading, triageActions }: C
       </section>
     </CaseActionContext>
   )
-}
-
-/** One action, set off from the next by a rule. */
-export function Block({ children }: { children: ReactNode }) {
-  return <div className="border-t border-rule pt-4 first-of-type:border-t-0 first-of-type:pt-0">{children}</div>
 }

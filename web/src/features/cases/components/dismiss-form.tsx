@@ -15,13 +15,13 @@ type In = z.input<typeof schema>
 const OPTIONS = DISMISS_RESOLUTIONS.map((r) => ({ value: r, label: RESOLUTION_LABELS[r] }))
 
 export function DismissForm() {
-  const { detail, run, error, reload, reloading } = useCaseActionForm()
+  const action = useCaseActionForm()
   const form = useForm<In>({ resolver: zodResolver(schema), defaultValues: { resolution: 'no_interference_found', reason: '' } })
-  const dismiss = useDismissReport(detail.id)
+  const dismiss = useDismissReport(action.detail.id)
   const e = form.formState.errors
 
   const onSubmit = form.handleSubmit((v) =>
-    run({ send: (version) => dismiss.mutateAsync({ ...v, version }), success: 'Report closed at triage. The complainant has been told.', setFieldError: form.setError, fields: ['resolution', 'reason'] }),
+    action.run({ send: (version) => dismiss.mutateAsync({ ...v, version }), success: 'Report closed at triage. The complainant has been told.', setFieldError: form.setError, fields: ['resolution', 'reason'] }),
   )
 
   return (
@@ -34,12 +34,10 @@ export function DismissForm() {
       pendingLabel="Closing…"
       submitting={form.formState.isSubmitting}
       onSubmit={onSubmit}
-      error={error}
-      onReload={reload}
-      reloading={reloading}
+      action={action}
       variant="danger"
     >
-      <SelectField label="Outcome" id="dismiss-resolution" options={OPTIONS} error={e.resolution?.message} {...form.register('resolution')} />
+      <SelectField label="Resolution" id="dismiss-resolution" options={OPTIONS} error={e.resolution?.message} {...form.register('resolution')} />
       <TextAreaField label="Summary for the complainant" id="dismiss-reason" error={e.reason?.message} {...form.register('reason')} />
     </ActionForm>
   )

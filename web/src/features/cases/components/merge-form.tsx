@@ -6,7 +6,7 @@ import { CASE_STATE_LABELS, type CaseState } from '../../../../../shared/domain/
 import { mergeSchema } from '../../../../../shared/schemas/cases'
 import { Loading } from '../../../components/ui/loading'
 import { QueryError } from '../../../components/ui/query-error'
-import { FieldError } from '../../../components/ui/text-field'
+import { FieldError } from '../../../components/ui/field'
 import { ActionForm } from './action-form'
 import { useCaseActionForm } from './use-case-action-form'
 import { formatDistanceM } from '../../../lib/coordinates'
@@ -19,10 +19,10 @@ const schema = mergeSchema.omit({ version: true })
 type In = z.input<typeof schema>
 
 export function MergeForm() {
-  const { detail, run, error, reload, reloading } = useCaseActionForm()
-  const candidates = useMergeCandidates(detail.id, true)
+  const action = useCaseActionForm()
+  const candidates = useMergeCandidates(action.detail.id)
   const form = useForm<In>({ resolver: zodResolver(schema), defaultValues: { intoCaseId: '' } })
-  const merge = useMergeCase(detail.id)
+  const merge = useMergeCase(action.detail.id)
   const fieldError = form.formState.errors.intoCaseId?.message
 
   if (candidates.isPending) return <Loading label="Looking for open cases nearby…" />
@@ -31,7 +31,7 @@ export function MergeForm() {
 
   const onSubmit = form.handleSubmit((v) => {
     const ref = candidates.data.find((c) => c.id === v.intoCaseId)?.reference ?? 'the chosen case'
-    return run({ send: (version) => merge.mutateAsync({ ...v, version }), success: `Merged into ${ref}. This report is closed as a duplicate.`, setFieldError: form.setError, fields: ['intoCaseId'] })
+    return action.run({ send: (version) => merge.mutateAsync({ ...v, version }), success: `Merged into ${ref}. This report is closed as a duplicate.`, setFieldError: form.setError, fields: ['intoCaseId'] })
   })
 
   return (
@@ -44,9 +44,7 @@ export function MergeForm() {
       pendingLabel="Merging…"
       submitting={form.formState.isSubmitting}
       onSubmit={onSubmit}
-      error={error}
-      onReload={reload}
-      reloading={reloading}
+      action={action}
       variant="secondary"
     >
       <fieldset aria-describedby={fieldError ? 'merge-error' : undefined} className="flex flex-col gap-2">

@@ -11,11 +11,11 @@ import { useCaseActionForm } from './use-case-action-form'
 const bodyOnly = noteSchema.pick({ body: true })
 
 export function InternalNoteForm() {
-  const { detail, run, error, reload, reloading } = useCaseActionForm()
+  const action = useCaseActionForm()
   const form = useForm<z.input<typeof bodyOnly>>({ resolver: zodResolver(bodyOnly), defaultValues: { body: '' } })
-  const add = useAddCaseNote(detail.id)
+  const add = useAddCaseNote(action.detail.id)
   const onSubmit = form.handleSubmit((v) =>
-    run({ send: () => add.mutateAsync({ body: v.body, visibility: 'internal' }), success: 'Internal note added.', setFieldError: form.setError, fields: ['body'], after: () => form.reset({ body: '' }) }),
+    action.run({ send: () => add.mutateAsync({ body: v.body, visibility: 'internal' }), success: 'Internal note added.', setFieldError: form.setError, fields: ['body'], after: () => form.reset({ body: '' }) }),
   )
   return (
     <ActionForm
@@ -26,9 +26,7 @@ export function InternalNoteForm() {
       pendingLabel="Adding…"
       submitting={form.formState.isSubmitting}
       onSubmit={onSubmit}
-      error={error}
-      onReload={reload}
-      reloading={reloading}
+      action={action}
       variant="secondary"
     >
       <TextAreaField label="Internal note" id="internal-note-body" rows={3} error={form.formState.errors.body?.message} {...form.register('body')} />
@@ -36,14 +34,14 @@ export function InternalNoteForm() {
   )
 }
 
-const messageSchema = noteSchema.pick({ body: true }).extend({ requestsInformation: z.boolean() })
+const messageSchema = bodyOnly.extend({ requestsInformation: z.boolean() })
 
 export function MessageComplainantForm() {
-  const { detail, run, error, reload, reloading } = useCaseActionForm()
+  const action = useCaseActionForm()
   const form = useForm<z.input<typeof messageSchema>>({ resolver: zodResolver(messageSchema), defaultValues: { body: '', requestsInformation: false } })
-  const add = useAddCaseNote(detail.id)
+  const add = useAddCaseNote(action.detail.id)
   const onSubmit = form.handleSubmit((v) =>
-    run({
+    action.run({
       send: () => add.mutateAsync({ body: v.body, visibility: 'complainant', requestsInformation: v.requestsInformation }),
       success: v.requestsInformation ? 'Question sent to the complainant by e-mail.' : 'Message sent to the complainant by e-mail.',
       setFieldError: form.setError,
@@ -57,16 +55,14 @@ export function MessageComplainantForm() {
       title="Message the complainant"
       intro={
         <p>
-          Sent to <span className="font-mono">{detail.complainant.email}</span> and shown on their tracking page.
+          Sent to <span className="font-mono">{action.detail.complainant.email}</span> and shown on their tracking page.
         </p>
       }
       submitLabel="Send message"
       pendingLabel="Sending…"
       submitting={form.formState.isSubmitting}
       onSubmit={onSubmit}
-      error={error}
-      onReload={reload}
-      reloading={reloading}
+      action={action}
       variant="secondary"
     >
       <TextAreaField label="Message to the complainant" id="message-body" rows={3} error={form.formState.errors.body?.message} {...form.register('body')} />

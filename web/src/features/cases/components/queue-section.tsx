@@ -15,8 +15,9 @@ export function QueueSection({ id, title, list, empty, now, footer, showInvestig
         {title}
         {total !== undefined && <span className="ml-2 font-mono text-base font-semibold text-ink-muted">({total})</span>}
       </h2>
-      {q.isPending && <Loading label={`Loading ${title.toLowerCase()}…`} />}
-      {q.isError && <QueryError error={q.error} what={title.toLowerCase()} onRetry={() => void q.refetch()} />}
+      {/* The title in quotes: "Loading assigned to you…" would not read. */}
+      {q.isPending && <Loading label={`Loading “${title}”…`} />}
+      {q.isError && <QueryError error={q.error} what={`“${title}”`} onRetry={() => void q.refetch()} />}
       {q.data && q.data.items.length === 0 && <p className="rounded-panel border border-rule bg-surface p-4 text-ink-muted">{empty}</p>}
       {q.data && q.data.items.length > 0 && <QueueTable items={q.data.items} caption={title} now={now} showInvestigator={showInvestigator} />}
       {q.data && q.data.total > q.data.items.length && <p className="text-sm">Showing the first {q.data.items.length} of {q.data.total}.</p>}

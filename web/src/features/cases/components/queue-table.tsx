@@ -4,6 +4,7 @@
  */
 import { Link } from 'react-router-dom'
 import { PriorityBadge } from '../../../components/ui/priority-badge'
+import { TableFrame } from '../../../components/ui/table'
 import type { CaseListItem } from '../api/get-cases'
 import { OverdueFlag } from './status-tag'
 import { formatFrequencyRangeHz } from '../../../lib/frequency'
@@ -11,28 +12,23 @@ import { formatTargetHours, responseClock } from '../lib/response-clock'
 import { serviceShortLabel } from '../../../lib/service-label'
 
 export function QueueTable({ items, caption, now, showInvestigator = false }: { items: CaseListItem[]; caption: string; now: Date; showInvestigator?: boolean }) {
+  const head = (
+    <tr>
+      <th scope="col" className="px-3 py-2">Priority</th>
+      <th scope="col" className="px-3 py-2">Reference</th>
+      <th scope="col" className="px-3 py-2">Status</th>
+      <th scope="col" className="px-3 py-2">Service and frequency</th>
+      <th scope="col" className="px-3 py-2">Location</th>
+      {showInvestigator && <th scope="col" className="px-3 py-2">Investigator</th>}
+      <th scope="col" className="px-3 py-2">Age against target</th>
+    </tr>
+  )
   return (
-    <div className="overflow-x-auto rounded-panel border border-rule bg-surface">
-      <table className="w-full border-collapse text-left">
-        <caption className="sr-only">{caption}</caption>
-        <thead className="border-b-2 border-ink text-sm">
-          <tr>
-            <th scope="col" className="px-3 py-2">Priority</th>
-            <th scope="col" className="px-3 py-2">Reference</th>
-            <th scope="col" className="px-3 py-2">Status</th>
-            <th scope="col" className="px-3 py-2">Service and frequency</th>
-            <th scope="col" className="px-3 py-2">Location</th>
-            {showInvestigator && <th scope="col" className="px-3 py-2">Investigator</th>}
-            <th scope="col" className="px-3 py-2">Age against target</th>
-          </tr>
-        </thead>
-        <tbody>
-          {items.map((c) => (
-            <QueueRow key={c.id} item={c} now={now} showInvestigator={showInvestigator} />
-          ))}
-        </tbody>
-      </table>
-    </div>
+    <TableFrame caption={caption} head={head}>
+      {items.map((c) => (
+        <QueueRow key={c.id} item={c} now={now} showInvestigator={showInvestigator} />
+      ))}
+    </TableFrame>
   )
 }
 

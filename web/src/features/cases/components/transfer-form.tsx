@@ -4,6 +4,7 @@ import { useForm } from 'react-hook-form'
 import type { z } from 'zod'
 import { transferSchema } from '../../../../../shared/schemas/cases'
 import { SelectField } from '../../../components/ui/select-field'
+import { formatDistanceM } from '../../../lib/coordinates'
 import { ActionForm } from './action-form'
 import { TextAreaField } from '../../../components/ui/text-area-field'
 import { useCaseActionForm } from './use-case-action-form'
@@ -14,15 +15,15 @@ const schema = transferSchema.omit({ version: true })
 type In = z.input<typeof schema>
 
 export function TransferForm({ destinations }: { destinations: OfficeChoice[] }) {
-  const { detail, run, error, reload, reloading } = useCaseActionForm()
+  const action = useCaseActionForm()
   const form = useForm<In>({ resolver: zodResolver(schema), defaultValues: { officeId: '', reason: '' } })
-  const transfer = useTransferCase(detail.id)
+  const transfer = useTransferCase(action.detail.id)
   const e = form.formState.errors
-  const options = [{ value: '', label: 'Choose an office' }, ...destinations.map((o) => ({ value: o.id, label: `${o.name} (${(o.distanceM / 1000).toFixed(0)} km from the report)` }))]
+  const options = [{ value: '', label: 'Choose an office' }, ...destinations.map((o) => ({ value: o.id, label: `${o.name} (${formatDistanceM(o.distanceM)} from the report)` }))]
 
   const onSubmit = form.handleSubmit((v) => {
     const name = destinations.find((o) => o.id === v.officeId)?.name ?? 'the other office'
-    return run({ send: (version) => transfer.mutateAsync({ ...v, version }), success: `Transferred to ${name}.`, setFieldError: form.setError, fields: ['officeId', 'reason'] })
+    return action.run({ send: (version) => transfer.mutateAsync({ ...v, version }), success: `Transferred to ${name}.`, setFieldError: form.setError, fields: ['officeId', 'reason'] })
   })
 
   return (
@@ -34,9 +35,7 @@ export function TransferForm({ destinations }: { destinations: OfficeChoice[] })
       pendingLabel="Transferring…"
       submitting={form.formState.isSubmitting}
       onSubmit={onSubmit}
-      error={error}
-      onReload={reload}
-      reloading={reloading}
+      action={action}
       variant="secondary"
     >
       <SelectField label="Office" id="transfer-office" options={options} error={e.officeId?.message} {...form.register('officeId')} />

@@ -1,6 +1,5 @@
 /** The supervisor's triage moves on the case page, each shown only when `abilities` allows it. */
-import { Block } from './case-actions-panel'
-import { FoldedAction } from './action-form'
+import { Block, FoldedAction } from './action-form'
 import { useCaseActionContext } from './case-action-context'
 import { useTransferOffices } from '../api/get-transfer-offices'
 import { AssignForm } from './assign-form'
@@ -12,8 +11,9 @@ import { TriageForm } from './triage-form'
 export function TriageActions() {
   const { detail } = useCaseActionContext()
   const a = detail.abilities
-  const transfer = useTransferOffices(detail.id, a.transfer)
-  if (!a.triage && !a.assign && !a.merge && !a.dismiss && !a.transfer) return null
+  const destinations = useTransferOffices(detail.id, a.transfer).data ?? []
+  // Transfer only where there is another office to send the report to.
+  const canTransfer = a.transfer && destinations.length > 0
   return (
     <>
       {a.triage && <Block><TriageForm /></Block>}
@@ -25,7 +25,7 @@ export function TriageActions() {
           </FoldedAction>
         </Block>
       )}
-      {(a.merge || a.dismiss || (a.transfer && transfer.destinations.length > 0)) && (
+      {(a.merge || a.dismiss || canTransfer) && (
         <Block>
           <div className="flex flex-col gap-2">
             {a.merge && (
@@ -38,9 +38,9 @@ export function TriageActions() {
                 <DismissForm />
               </FoldedAction>
             )}
-            {a.transfer && transfer.destinations.length > 0 && (
+            {canTransfer && (
               <FoldedAction summary="Transfer to another office">
-                <TransferForm destinations={transfer.destinations} />
+                <TransferForm destinations={destinations} />
               </FoldedAction>
             )}
           </div>

@@ -16,7 +16,8 @@ type Out = z.output<typeof schema>
 const LEVELS: PriorityLevel[] = [1, 2, 3, 4]
 
 export function TriageForm() {
-  const { detail, run, error, reload, reloading } = useCaseActionForm()
+  const action = useCaseActionForm()
+  const { detail } = action
   const initial = detail.status === 'received' ? detail.suggestedPriority : detail.priority
   const form = useForm<In, unknown, Out>({ resolver: zodResolver(schema), defaultValues: { priority: initial, note: '' } })
   const triage = useTriageCase(detail.id)
@@ -26,7 +27,7 @@ export function TriageForm() {
   }))
 
   const onSubmit = form.handleSubmit((v) =>
-    run({
+    action.run({
       send: (version) => triage.mutateAsync({ ...v, version }),
       success: `Priority set to P${v.priority} ${PRIORITY_TEXT[v.priority as PriorityLevel].short}.`,
       setFieldError: form.setError,
@@ -44,9 +45,7 @@ export function TriageForm() {
       pendingLabel="Setting priority…"
       submitting={form.formState.isSubmitting}
       onSubmit={onSubmit}
-      error={error}
-      onReload={reload}
-      reloading={reloading}
+      action={action}
     >
       <SelectField label="Priority" options={options} error={form.formState.errors.priority?.message} {...form.register('priority', { valueAsNumber: true })} />
       <TextAreaField label="Triage note (optional, internal)" rows={2} error={form.formState.errors.note?.message} {...form.register('note')} />

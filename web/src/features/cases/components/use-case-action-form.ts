@@ -8,6 +8,8 @@ import type { FieldValues, Path, UseFormSetError } from 'react-hook-form'
 import { applyFieldErrors } from '../../../lib/form-errors'
 import { useCaseActionContext } from './case-action-context'
 
+export type CaseActionForm = ReturnType<typeof useCaseActionForm>
+
 export function useCaseActionForm() {
   const ctx = useCaseActionContext()
   const [error, setError] = useState<unknown>(null)

@@ -98,11 +98,8 @@ export function parseListState(params: URLSearchParams): CaseListState {
   }
 }
 
-/** Writes the state as search params, leaving out whatever equals the default. */
-export function listStateToSearchParams(state: CaseListState): URLSearchParams {
-  const d = DEFAULT_LIST_STATE
-  const p = new URLSearchParams()
-  if (state.q) p.set('q', state.q)
+/** The filters the page URL and the API spell alike (status, priority, service, office, investigator, overdue, open). */
+function setChoiceFilters(p: URLSearchParams, state: CaseListState): void {
   if (state.status.length) p.set('status', state.status.join(','))
   if (state.priority.length) p.set('priority', state.priority.join(','))
   if (state.service.length) p.set('service', state.service.join(','))
@@ -110,6 +107,14 @@ export function listStateToSearchParams(state: CaseListState): URLSearchParams {
   if (state.investigatorId) p.set('investigatorId', state.investigatorId)
   if (state.overdue !== null) p.set('overdue', String(state.overdue))
   if (state.open !== null) p.set('open', String(state.open))
+}
+
+/** Writes the state as search params, leaving out whatever equals the default. */
+export function listStateToSearchParams(state: CaseListState): URLSearchParams {
+  const d = DEFAULT_LIST_STATE
+  const p = new URLSearchParams()
+  if (state.q) p.set('q', state.q)
+  setChoiceFilters(p, state)
   if (state.freqFrom !== null) p.set('freqFrom', String(state.freqFrom))
   if (state.freqTo !== null) p.set('freqTo', String(state.freqTo))
   if ((state.freqFrom !== null || state.freqTo !== null) && state.freqUnit !== d.freqUnit) p.set('freqUnit', state.freqUnit)
@@ -132,13 +137,7 @@ export function apiQueryFromListState(state: CaseListState, options: { paging: b
   }
   p.set('sort', state.sort)
   p.set('dir', state.dir)
-  if (state.status.length) p.set('status', state.status.join(','))
-  if (state.priority.length) p.set('priority', state.priority.join(','))
-  if (state.service.length) p.set('service', state.service.join(','))
-  if (state.officeId) p.set('officeId', state.officeId)
-  if (state.investigatorId) p.set('investigatorId', state.investigatorId)
-  if (state.overdue !== null) p.set('overdue', String(state.overdue))
-  if (state.open !== null) p.set('open', String(state.open))
+  setChoiceFilters(p, state)
   if (state.freqFrom !== null) p.set('freqFromHz', String(frequencyToHz({ value: state.freqFrom, unit: state.freqUnit })))
   if (state.freqTo !== null) p.set('freqToHz', String(frequencyToHz({ value: state.freqTo, unit: state.freqUnit })))
   if (state.q) p.set('q', state.q)

@@ -1,5 +1,6 @@
 /** Offices with their region, centre and response targets (hours per priority). */
 import { PriorityShape, type PriorityLevel } from '../../../components/ui/priority-badge'
+import { TableFrame } from '../../../components/ui/table'
 import type { Office } from '../api/get-offices'
 
 const LEVELS: PriorityLevel[] = [1, 2, 3, 4]
@@ -7,44 +8,39 @@ const SHAPE_COLOUR: Record<PriorityLevel, string> = { 1: 'text-priority-1', 2: '
 
 export function OfficesTable({ offices }: { offices: Office[] }) {
   if (offices.length === 0) return <p className="text-ink-muted">No offices yet.</p>
+  const head = (
+    <tr>
+      <th scope="col" className="px-4 py-3">Office</th>
+      <th scope="col" className="px-4 py-3">Region</th>
+      <th scope="col" className="px-4 py-3">Centre (lat, lon)</th>
+      {LEVELS.map((level) => (
+        <th key={level} scope="col" className="px-4 py-3 text-right">
+          <span className="inline-flex items-center gap-1.5">
+            <span className={SHAPE_COLOUR[level]}>
+              <PriorityShape level={level} />
+            </span>
+            P{level} target
+          </span>
+        </th>
+      ))}
+    </tr>
+  )
   return (
-    <div className="overflow-x-auto rounded-panel border border-rule bg-surface">
-      <table className="w-full border-collapse text-left">
-        <caption className="sr-only">Field offices</caption>
-        <thead className="border-b-2 border-ink text-sm">
-          <tr>
-            <th scope="col" className="px-4 py-3">Office</th>
-            <th scope="col" className="px-4 py-3">Region</th>
-            <th scope="col" className="px-4 py-3">Centre (lat, lon)</th>
-            {LEVELS.map((level) => (
-              <th key={level} scope="col" className="px-4 py-3 text-right">
-                <span className="inline-flex items-center gap-1.5">
-                  <span className={SHAPE_COLOUR[level]}>
-                    <PriorityShape level={level} />
-                  </span>
-                  P{level} target
-                </span>
-              </th>
-            ))}
-          </tr>
-        </thead>
-        <tbody>
-          {offices.map((o) => (
-            <tr key={o.id} className="border-b border-rule last:border-b-0">
-              <th scope="row" className="px-4 py-3 font-semibold">{o.name}</th>
-              <td className="px-4 py-3">{o.regionName}</td>
-              <td className="px-4 py-3 font-mono text-sm">
-                {o.centreLatDeg.toFixed(4)}°, {o.centreLonDeg.toFixed(4)}°
-              </td>
-              {LEVELS.map((level) => (
-                <td key={level} className="px-4 py-3 text-right font-mono text-sm">
-                  {o.responseTargetsHours[`p${level}`]} h
-                </td>
-              ))}
-            </tr>
+    <TableFrame caption="Field offices" head={head}>
+      {offices.map((o) => (
+        <tr key={o.id} className="border-b border-rule last:border-b-0">
+          <th scope="row" className="px-4 py-3 font-semibold">{o.name}</th>
+          <td className="px-4 py-3">{o.regionName}</td>
+          <td className="px-4 py-3 font-mono text-sm">
+            {o.centreLatDeg.toFixed(4)}°, {o.centreLonDeg.toFixed(4)}°
+          </td>
+          {LEVELS.map((level) => (
+            <td key={level} className="px-4 py-3 text-right font-mono text-sm">
+              {o.responseTargetsHours[`p${level}`]} h
+            </td>
           ))}
-        </tbody>
-      </table>
-    </div>
+        </tr>
+      ))}
+    </TableFrame>
   )
 }

@@ -33,6 +33,7 @@ export function LocationFields({
           className="font-mono"
           {...register('latDeg', { setValueAs: figureOrUndefined })}
         />
+        {/* No decimal keypad here: on some phones it has no minus sign, and longitudes in the region are west (negative). */}
         <TextField
           label="Longitude"
           autoComplete="off"

@@ -9,8 +9,8 @@ import { useForm, type DefaultValues } from 'react-hook-form'
 import type { z } from 'zod'
 import { SAFETY_SERVICES, type AffectedService } from '../../../../../shared/domain/services'
 import { reportSchema } from '../../../../../shared/schemas/cases'
-import { Button } from '../../../components/ui/button'
 import { FormAlert } from '../../../components/ui/form-alert'
+import { SubmitButton } from '../../../components/ui/submit-button'
 import { applyFieldErrors, formProblem, type FormProblem } from '../../../lib/form-errors'
 import { useSubmitReport, type SubmittedReport } from '../api/submit-report'
 import { ContactFields } from './contact-fields'
@@ -93,9 +93,9 @@ export function ReportForm({ contact, renderLocationPicker, onSubmitted }: Repor
       <Honeypot form={form} />
       <FormAlert problem={problem} />
       <div className="flex flex-wrap items-center gap-4">
-        <Button type="submit" disabled={form.formState.isSubmitting} className="min-h-12 px-6 text-lg">
-          {form.formState.isSubmitting ? 'Sending report…' : 'Submit report'}
-        </Button>
+        <SubmitButton submitting={form.formState.isSubmitting} pendingLabel="Sending report…" className="min-h-12 px-6 text-lg">
+          Submit report
+        </SubmitButton>
         <p className="text-sm text-ink-muted">You get a reference and a private tracking link straight away, and by e-mail.</p>
       </div>
     </form>

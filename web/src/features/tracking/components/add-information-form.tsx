@@ -4,8 +4,8 @@ import { useRef, useState } from 'react'
 import { useForm } from 'react-hook-form'
 import type { z } from 'zod'
 import { complainantInfoSchema } from '../../../../../shared/schemas/cases'
-import { Button } from '../../../components/ui/button'
 import { FormAlert } from '../../../components/ui/form-alert'
+import { SubmitButton } from '../../../components/ui/submit-button'
 import { applyFieldErrors, formProblem, type FormProblem } from '../../../lib/form-errors'
 import { TextAreaField } from '../../../components/ui/text-area-field'
 import { useAddInformation } from '../api/add-information'
@@ -44,9 +44,9 @@ export function AddInformationForm({ source }: { source: ReportSource }) {
       />
       <FormAlert problem={problem} />
       <div className="flex flex-wrap items-center gap-4">
-        <Button type="submit" disabled={formState.isSubmitting}>
-          {formState.isSubmitting ? 'Adding…' : 'Add information'}
-        </Button>
+        <SubmitButton submitting={formState.isSubmitting} pendingLabel="Adding…">
+          Add information
+        </SubmitButton>
         <p ref={doneRef} tabIndex={-1} role="status" className="font-semibold text-ok focus:outline-none">
           {done ? 'Added. The office can read it now.' : ''}
         </p>

@@ -2,41 +2,37 @@
 import { format, parseISO } from 'date-fns'
 import { Link } from 'react-router-dom'
 import { COMPLAINANT_STATE_LABELS } from '../../../../../shared/domain/case-lifecycle'
+import { TableFrame } from '../../../components/ui/table'
 import type { MyReportRow } from '../api/get-my-reports'
 
 export function MyReportsList({ reports }: { reports: MyReportRow[] }) {
   if (reports.length === 0) {
     return <p className="text-ink-muted">You have not sent a report while signed in yet.</p>
   }
+  const head = (
+    <tr>
+      <th scope="col" className="px-4 py-2">Reference</th>
+      <th scope="col" className="px-4 py-2">Status</th>
+      <th scope="col" className="px-4 py-2">Where</th>
+      <th scope="col" className="px-4 py-2">Received</th>
+    </tr>
+  )
   return (
-    <div className="overflow-x-auto rounded-panel border border-rule bg-surface">
-      <table className="w-full border-collapse text-left">
-        <caption className="sr-only">Your reports, newest first</caption>
-        <thead className="border-b-2 border-ink text-sm">
-          <tr>
-            <th scope="col" className="px-4 py-2">Reference</th>
-            <th scope="col" className="px-4 py-2">Status</th>
-            <th scope="col" className="px-4 py-2">Where</th>
-            <th scope="col" className="px-4 py-2">Received</th>
-          </tr>
-        </thead>
-        <tbody>
-          {reports.map((r) => (
-            <tr key={r.id} className="border-b border-rule last:border-b-0">
-              <td className="px-4 py-3">
-                <Link to={`/my-reports/${r.id}`} className="font-mono font-semibold">
-                  {r.reference}
-                </Link>
-              </td>
-              <td className="px-4 py-3">{COMPLAINANT_STATE_LABELS[r.status] ?? r.status}</td>
-              <td className="px-4 py-3">{r.address}</td>
-              <td className="px-4 py-3 whitespace-nowrap">
-                <time dateTime={r.receivedAt}>{format(parseISO(r.receivedAt), 'd MMM yyyy')}</time>
-              </td>
-            </tr>
-          ))}
-        </tbody>
-      </table>
-    </div>
+    <TableFrame caption="Your reports, newest first" head={head}>
+      {reports.map((r) => (
+        <tr key={r.id} className="border-b border-rule last:border-b-0">
+          <td className="px-4 py-3">
+            <Link to={`/my-reports/${r.id}`} className="font-mono font-semibold">
+              {r.reference}
+            </Link>
+          </td>
+          <td className="px-4 py-3">{COMPLAINANT_STATE_LABELS[r.status] ?? r.status}</td>
+          <td className="px-4 py-3">{r.address}</td>
+          <td className="px-4 py-3 whitespace-nowrap">
+            <time dateTime={r.receivedAt}>{format(parseISO(r.receivedAt), 'd MMM yyyy')}</time>
+          </td>
+        </tr>
+      ))}
+    </TableFrame>
   )
 }
