@@ -100,6 +100,15 @@ describe('the case list', () => {
 })
 
 describe('response targets', () => {
+  it('tell each viewer whether they may change them', async () => {
+    const sup = (await supervisor.get('/api/offices').expect(200)).body.offices
+    const inv = (await investigator.get('/api/offices').expect(200)).body.offices
+    const adm = (await admin.get('/api/offices').expect(200)).body.offices
+    expect(sup.map((o: { abilities: object }) => o.abilities)).toEqual([{ setResponseTargets: true }])
+    expect(inv.map((o: { abilities: object }) => o.abilities)).toEqual([{ setResponseTargets: false }])
+    expect(adm.every((o: { abilities: { setResponseTargets: boolean } }) => o.abilities.setResponseTargets)).toBe(true)
+  })
+
   it('lets the office’s supervisor change them, and open cases’ due times follow', async () => {
     const { rows } = await t.pool.query(`SELECT id FROM offices WHERE name = 'Harrowmere'`)
     const officeId = rows[0].id

@@ -12,9 +12,11 @@ export interface OfficeView {
   centreLatDeg: number
   centreLonDeg: number
   responseTargetsHours: { p1: number; p2: number; p3: number; p4: number }
+  /** What the viewer may do with this office (computed by the policy). */
+  abilities: { setResponseTargets: boolean }
 }
 
-export function presentOffice(o: Office): OfficeView {
+export function presentOffice(o: Office, actor: Actor): OfficeView {
   return {
     id: o.id,
     name: o.name,
@@ -22,6 +24,7 @@ export function presentOffice(o: Office): OfficeView {
     centreLatDeg: o.centreLatDeg,
     centreLonDeg: o.centreLonDeg,
     responseTargetsHours: { p1: o.targetP1Hours, p2: o.targetP2Hours, p3: o.targetP3Hours, p4: o.targetP4Hours },
+    abilities: { setResponseTargets: can(actor, 'office.configure', { officeId: o.id }) },
   }
 }
 
@@ -35,7 +38,7 @@ export async function listOffices(ctx: ServiceContext, actor: Actor): Promise<Of
     .from(offices)
     .where('officeId' in scope ? eq(offices.id, scope.officeId) : undefined)
     .orderBy(asc(offices.name))
-  return rows.map(presentOffice)
+  return rows.map((o) => presentOffice(o, actor))
 }
 
 /** One office; another office answers 404 to staff. */
@@ -43,7 +46,7 @@ export async function getOffice(ctx: ServiceContext, actor: Actor, officeId: str
   if (!can(actor, 'office.list')) throw forbidden()
   const [o] = await ctx.db.select().from(offices).where(eq(offices.id, officeId))
   if (!o || !can(actor, 'office.read', { officeId: o.id })) throw notFound('office_not_found', 'No such office.')
-  return presentOffice(o)
+  return presentOffice(o, actor)
 }
 
 /**
@@ -58,6 +61,6 @@ export async function setResponseTargets(ctx: ServiceContext, actor: Actor, offi
     await db.execute(sql`
       update cases set due_at = received_at + make_interval(hours => case priority when 1 then ${t.p1}::int when 2 then ${t.p2}::int when 3 then ${t.p3}::int else ${t.p4}::int end)
       where office_id = ${officeId} and status <> 'closed'`)
-    return presentOffice(o!)
+    return presentOffice(o!, actor)
   })
 }

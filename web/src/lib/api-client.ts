@@ -90,4 +90,5 @@ export const api = {
   get: <T>(path: string, signal?: AbortSignal) => apiRequest<T>({ path, signal }),
   post: <T>(path: string, body?: unknown) => apiRequest<T>({ method: 'POST', path, body }),
   patch: <T>(path: string, body?: unknown) => apiRequest<T>({ method: 'PATCH', path, body }),
+  put: <T>(path: string, body?: unknown) => apiRequest<T>({ method: 'PUT', path, body }),
 }

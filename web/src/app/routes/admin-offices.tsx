@@ -1,10 +1,10 @@
-/** /admin/offices — the field offices and their response targets (read-only for now). */
+/** /admin/offices — the field offices and their response targets. */
 import { Loading } from '../../components/ui/loading'
 import { PageHeader } from '../../components/ui/page-header'
 import { QueryError } from '../../components/ui/query-error'
-import { ComingSoon } from '../../components/ui/coming-soon'
 import { useOffices } from '../../features/offices/api/get-offices'
 import { OfficesTable } from '../../features/offices/components/offices-table'
+import { OfficeTargetsPanels } from '../../features/offices/components/office-targets-panels'
 
 export function Component() {
   const offices = useOffices()
@@ -15,9 +15,7 @@ export function Component() {
         {offices.isPending && <Loading label="Loading offices…" />}
         {offices.isError && <QueryError error={offices.error} what="offices" onRetry={() => void offices.refetch()} />}
         {offices.data && <OfficesTable offices={offices.data.offices} />}
-        <ComingSoon arrivesWith="office settings">
-          <p>Adding offices and changing regions or response targets is not possible from this page yet.</p>
-        </ComingSoon>
+        {offices.data && <OfficeTargetsPanels offices={offices.data.offices} />}
       </div>
     </>
   )

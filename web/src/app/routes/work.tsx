@@ -6,6 +6,8 @@ import { useMe } from '../../features/auth/api/get-me'
 import { useNow } from '../../features/cases/components/use-now'
 import { AWAITING_REVIEW, MY_OPEN_CASES, NEW_REPORTS } from '../../features/cases/api/get-queue'
 import { QueueSection } from '../../features/cases/components/queue-section'
+import { useOffices } from '../../features/offices/api/get-offices'
+import { OfficeTargetsPanels } from '../../features/offices/components/office-targets-panels'
 
 const LEVELS: PriorityLevel[] = [1, 2, 3, 4]
 
@@ -13,6 +15,7 @@ export function Component() {
   const user = useMe().data
   const now = useNow()
   const supervisor = user?.role === 'supervisor'
+  const offices = useOffices()
   return (
     <div className="flex flex-col gap-8">
       <PageHeader
@@ -39,6 +42,7 @@ export function Component() {
           <p>
             <Link to="/cases?open=true">The office's open work in the case list</Link>
           </p>
+          {offices.data && <OfficeTargetsPanels offices={offices.data.offices} />}
         </>
       ) : (
         <QueueSection

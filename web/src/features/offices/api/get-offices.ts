@@ -10,6 +10,8 @@ export interface Office {
   centreLonDeg: number
   /** Response target per priority, in hours. */
   responseTargetsHours: { p1: number; p2: number; p3: number; p4: number }
+  /** What the viewer may do with this office, decided by the server. */
+  abilities: { setResponseTargets: boolean }
 }
 
 export const getOffices = (signal?: AbortSignal) => api.get<{ offices: Office[] }>('/api/offices', signal)

@@ -1,0 +1,45 @@
+/** In Chromium: a supervisor changes the office's response targets from the office queue. */
+import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import type { Browser } from 'playwright-core'
+import { DEMO, DEMO_PASSWORD } from '../support/harness'
+import { launchBrowser, newPage, screenshot } from '../support/browser'
+import { startWebServer, type RunningWeb } from '../support/web-server'
+
+let web: RunningWeb
+let browser: Browser
+beforeAll(async () => {
+  web = await startWebServer()
+  browser = await launchBrowser()
+})
+afterAll(async () => {
+  await browser?.close()
+  await web?.close()
+})
+
+describe('response targets', () => {
+  it('a supervisor changes them, and the office keeps the new figures', async () => {
+    const { page, errors } = await newPage(browser)
+    await page.goto(`${web.baseUrl}/sign-in`)
+    await page.getByLabel('E-mail').fill(DEMO.otherSupervisor) // Kestrel Bay, so no other test's figures move
+    await page.getByLabel('Password').fill(DEMO_PASSWORD)
+    await page.getByRole('button', { name: 'Sign in' }).click()
+    const form = page.getByRole('form', { name: 'Response targets of Kestrel Bay' })
+    await form.waitFor({ timeout: 20_000 })
+    const p4 = form.getByLabel(/^P4 .*\(hours\)$/)
+    const before = await p4.inputValue()
+    await p4.fill('300')
+    await form.getByRole('button', { name: 'Save response targets' }).click()
+    await expect.poll(() => form.getByRole('status').textContent(), { timeout: 10_000 }).toContain('Saved')
+    await screenshot(page, 'office-response-targets')
+    await page.reload()
+    await expect.poll(() => page.getByRole('form', { name: 'Response targets of Kestrel Bay' }).getByLabel(/^P4 .*\(hours\)$/).inputValue(), { timeout: 20_000 }).toBe('300')
+    // a bad figure is refused beside its field
+    await p4.fill('0')
+    await form.getByRole('button', { name: 'Save response targets' }).click()
+    await expect.poll(() => form.getByRole('alert').allTextContents()).toContainEqual(expect.stringContaining('At least 1 hour'))
+    await p4.fill(before)
+    await form.getByRole('button', { name: 'Save response targets' }).click()
+    await expect.poll(() => form.getByRole('status').textContent()).toContain('Saved')
+    expect(errors).toEqual([])
+  }, 90_000)
+})
