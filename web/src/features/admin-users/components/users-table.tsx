@@ -24,14 +24,14 @@ const helper = createColumnHelper<typeof features, AdminUser>()
 // Module scope: stable columns keep the row models from being rebuilt on every render.
 const columns = helper.columns([
   helper.accessor('name', { header: 'Name', sortFn: 'text' }),
-  helper.accessor('email', { header: 'E-mail', sortFn: 'text', cell: (c) => <span className="font-mono text-sm">{c.getValue()}</span> }),
+  helper.accessor('email', { header: 'E-mail', sortFn: 'text', cell: (c) => <span className="font-mono text-sm break-all">{c.getValue()}</span> }),
   helper.accessor((u) => ROLE_LABELS[u.role], { id: 'role', header: 'Role', sortFn: 'text' }),
   helper.accessor((u) => u.officeName ?? '', { id: 'office', header: 'Office', sortFn: 'text', cell: (c) => c.getValue() || <span className="text-ink-muted">—</span> }),
   helper.accessor('active', { header: 'Status', sortFn: 'basic', cell: (c) => <ActiveState active={c.getValue()} /> }),
   helper.accessor('createdAt', {
     header: 'Created',
     sortFn: 'alphanumeric',
-    cell: (c) => <time dateTime={c.getValue()} className="font-mono text-sm">{format(parseISO(c.getValue()), 'd MMM yyyy')}</time>,
+    cell: (c) => <time dateTime={c.getValue()} className="font-mono text-sm whitespace-nowrap">{format(parseISO(c.getValue()), 'd MMM yyyy')}</time>,
   }),
 ])
 
@@ -49,7 +49,7 @@ export function UsersTable({ users, currentUserId, pendingUserId, onSetActive }:
   const head = table.getHeaderGroups().map((group) => (
     <tr key={group.id}>
       {group.headers.map((header) => (
-        <SortableTh key={header.id} column={header.column} className="px-4 py-2 whitespace-nowrap">
+        <SortableTh key={header.id} column={header.column} className="px-3 py-2 whitespace-nowrap">
           <table.FlexRender header={header} />
         </SortableTh>
       ))}
@@ -64,7 +64,7 @@ export function UsersTable({ users, currentUserId, pendingUserId, onSetActive }:
       {table.getRowModel().rows.map((row) => (
         <tr key={row.id} className={`border-b border-rule last:border-b-0 ${row.original.active ? '' : 'bg-paper text-ink-muted'}`}>
           {row.getAllCells().map((cell) => (
-            <td key={cell.id} className="px-4 py-2 whitespace-nowrap">
+            <td key={cell.id} className="px-3 py-2">
               <table.FlexRender cell={cell} />
             </td>
           ))}
