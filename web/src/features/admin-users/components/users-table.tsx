@@ -24,7 +24,7 @@ const helper = createColumnHelper<typeof features, AdminUser>()
 // Module scope: stable columns keep the row models from being rebuilt on every render.
 const columns = helper.columns([
   helper.accessor('name', { header: 'Name', sortFn: 'text' }),
-  helper.accessor('email', { header: 'E-mail', sortFn: 'text', cell: (c) => <span className="font-mono text-sm break-all">{c.getValue()}</span> }),
+  helper.accessor('email', { header: 'E-mail', sortFn: 'text', cell: (c) => <EmailAddress email={c.getValue()} /> }),
   helper.accessor((u) => ROLE_LABELS[u.role], { id: 'role', header: 'Role', sortFn: 'text' }),
   helper.accessor((u) => u.officeName ?? '', { id: 'office', header: 'Office', sortFn: 'text', cell: (c) => c.getValue() || <span className="text-ink-muted">—</span> }),
   helper.accessor('active', { header: 'Status', sortFn: 'basic', cell: (c) => <ActiveState active={c.getValue()} /> }),
@@ -102,6 +102,19 @@ function ActiveState({ active }: { active: boolean }) {
         {active ? <circle cx="5" cy="5" r="5" fill="currentColor" /> : <circle cx="5" cy="5" r="4" fill="none" stroke="currentColor" strokeWidth="2" />}
       </svg>
       {active ? 'Active' : 'Inactive'}
+    </span>
+  )
+}
+
+/** An e-mail address that may wrap after its "@" only, so a narrow column stays readable. */
+function EmailAddress({ email }: { email: string }) {
+  const at = email.indexOf('@')
+  if (at < 0) return <span className="font-mono text-sm">{email}</span>
+  return (
+    <span className="font-mono text-sm">
+      {email.slice(0, at + 1)}
+      <wbr />
+      {email.slice(at + 1)}
     </span>
   )
 }
