@@ -1,0 +1,2 @@
+DROP INDEX "cases_received_idx";--> statement-breakpoint
+DROP INDEX "cases_freq_idx";
