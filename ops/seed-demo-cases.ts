@@ -1,9 +1,9 @@
 /**
  * Demo cases for the invented Vellmark Coast region: ten complaints told through the real
  * services (submitReport, triageCase, assignCase, …), so every timeline, tracking link and
- * queued e-mail is the one the product itself would write. Only the clock is adjusted
- * afterwards: received, due and closed times are moved back with an UPDATE of `cases`
- * (the timeline is append-only and keeps the seeding time). Nothing here is a real place,
+ * queued e-mail is the one the product itself would write. The services run on the story's
+ * clock (ServiceContext.now), so received, due and closed times and every timeline entry
+ * agree with the story; nothing is rewritten afterwards. Nothing here is a real place,
  * person, licensee or station. Called by seedDemo right after the offices and staff exist.
  */
 import type pg from 'pg'
@@ -19,7 +19,6 @@ import type { Actor } from '../server/policy/policy'
 import { submitReport } from '../server/modules/cases/reports.service'
 import { assignCase, closeCase, dismissReport, proposeFinding, returnFinding, startFieldWork, triageCase } from '../server/modules/cases/case-moves.service'
 import { addCaseNote } from '../server/modules/cases/case-notes.service'
-import { dueAt } from '../server/modules/cases/due'
 
 /** The demo region's bounding box (every demo and generated location lies inside it). */
 export const DEMO_REGION = { latMinDeg: 47.2, latMaxDeg: 48.6, lonMinDeg: -32.2, lonMaxDeg: -29.8 } as const
@@ -393,12 +392,14 @@ async function loadStaff(pool: pg.Pool): Promise<Map<string, Staff>> {
 export async function seedDemoCases(pool: pg.Pool, opts: { publicUrl?: string; now?: Date } = {}): Promise<string[]> {
   const now = opts.now ?? new Date()
   const boss = await seedingBoss(pool)
+  let storyClock = now
   const ctx: ServiceContext = {
     pool,
     db: createDb(pool),
     boss,
     publicUrl: (opts.publicUrl ?? process.env.PUBLIC_URL ?? 'http://127.0.0.1:3000').replace(/\/$/, ''),
     mailQueue: DEFAULT_MAIL_QUEUE_OPTIONS,
+    now: () => storyClock,
   }
   try {
     const staff = await loadStaff(pool)
@@ -412,13 +413,18 @@ export async function seedDemoCases(pool: pg.Pool, opts: { publicUrl?: string; n
       const receivedAt = new Date(now.getTime() - story.receivedHoursAgo * 3600_000)
       const since = new Date(receivedAt.getTime() - story.startedDaysBefore * 86_400_000).toISOString().slice(0, 10)
       const report = reportSchema.parse({ ...story.report, since })
+      // the steps happen evenly between arrival and closing (or shortly before now)
+      const endAt = story.closedHoursAgo !== undefined ? now.getTime() - story.closedHoursAgo * 3600_000 : now.getTime() - 5 * 60_000
+      const stepMs = Math.max(60_000, (endAt - receivedAt.getTime()) / Math.max(1, story.steps.length))
+      storyClock = receivedAt
       const filed = await submitReport(ctx, report, story.signedInAs ? person(story.signedInAs).session : undefined)
       if (filed.officeName !== story.office) throw new Error(`demo case at ${story.report.address} routed to ${filed.officeName}, expected ${story.office}`)
       const { rows } = await pool.query(`SELECT u.email FROM users u JOIN offices o ON o.id = u.office_id WHERE o.name = $1 AND u.role = 'supervisor' ORDER BY u.email LIMIT 1`, [story.office])
       const supervisor = person(rows[0].email).actor
       let investigator: Actor | undefined
       let version = 1
-      for (const step of story.steps) {
+      for (const [i, step] of story.steps.entries()) {
+        storyClock = new Date(Math.min(receivedAt.getTime() + (i + 1) * stepMs, now.getTime()))
         const id = filed.caseId
         switch (step.move) {
           case 'triage':
@@ -452,30 +458,10 @@ export async function seedDemoCases(pool: pg.Pool, opts: { publicUrl?: string; n
             break
         }
       }
-      await backdate(pool, filed.caseId, receivedAt, story.closedHoursAgo === undefined ? null : new Date(now.getTime() - story.closedHoursAgo * 3600_000))
       references.push(filed.reference)
     }
     return references
   } finally {
     await boss.stop({ graceful: false, close: false, wait: true, timeout: 2000 })
   }
-}
-
-/** Moves a case's clock back to its story (cases only; the timeline keeps when it was written). */
-async function backdate(pool: pg.Pool, caseId: string, receivedAt: Date, closedAt: Date | null): Promise<void> {
-  const { rows } = await pool.query(
-    `SELECT c.priority, o.target_p1_hours, o.target_p2_hours, o.target_p3_hours, o.target_p4_hours
-       FROM cases c JOIN offices o ON o.id = c.office_id WHERE c.id = $1`,
-    [caseId],
-  )
-  const r = rows[0]
-  const targets = { 1: r.target_p1_hours, 2: r.target_p2_hours, 3: r.target_p3_hours, 4: r.target_p4_hours }
-  const due = dueAt(receivedAt, r.priority as Priority, targets)
-  // a closed case keeps closed_at (set by the service) unless its story says otherwise
-  await pool.query(`UPDATE cases SET received_at = $2, due_at = $3, closed_at = CASE WHEN closed_at IS NULL THEN NULL ELSE coalesce($4, closed_at) END WHERE id = $1`, [
-    caseId,
-    receivedAt,
-    due,
-    closedAt,
-  ])
 }

@@ -54,6 +54,7 @@ export function createApp(deps: AppDeps): AppHandle {
     boss: deps.boss,
     publicUrl: deps.publicUrl.replace(/\/$/, ''),
     mailQueue: deps.mailQueue ?? DEFAULT_MAIL_QUEUE_OPTIONS,
+    now: () => new Date(),
   }
   const app = express()
   app.disable('x-powered-by')

@@ -10,4 +10,6 @@ export interface ServiceContext {
   boss: PgBoss
   publicUrl: string
   mailQueue: MailQueueOptions
+  /** The time a change happens at. Real time in the app; a story's clock when the demo is seeded. */
+  now(): Date
 }

@@ -96,6 +96,16 @@ describe('the demo cases', () => {
     }
   })
 
+  it('have timelines on the story’s clock: received when the case says, closed when it says', async () => {
+    for (const c of demo) {
+      const { rows } = await t.pool.query(`SELECT kind, at FROM case_events WHERE case_id = $1 ORDER BY id`, [c.id])
+      expect(rows[0].kind, c.reference).toBe('received')
+      expect(rows[0].at.getTime(), `${c.reference} received`).toBe(c.received_at.getTime())
+      for (let i = 1; i < rows.length; i++) expect(rows[i].at.getTime(), `${c.reference} event ${i} in order`).toBeGreaterThanOrEqual(rows[i - 1].at.getTime())
+      if (c.closed_at) expect(rows.at(-1).at.getTime(), `${c.reference} closed`).toBe(c.closed_at.getTime())
+    }
+  })
+
   it('lie inside the demo region’s bounding box', () => {
     for (const d of demo) {
       expect(d.lat_deg, d.reference).toBeGreaterThanOrEqual(DEMO_REGION.latMinDeg)

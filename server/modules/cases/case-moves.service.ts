@@ -30,6 +30,8 @@ export const caseNotFound = () => notFound('case_not_found', 'No such case in yo
 
 interface MoveScope {
   c: CaseRow
+  /** When the move happens. */
+  now: Date
   db: Db
   client: pg.PoolClient
   actorName: string
@@ -73,8 +75,10 @@ async function makeMove(
     }
     const actorUserId = actor.role === 'tracking_link' ? null : actor.id
     const actorName = actor.role === 'tracking_link' || actor.role === 'complainant' ? 'Complainant' : ((await userName(db, actor.id))?.name ?? 'Unknown user')
+    const now = ctx.now()
     const scope: MoveScope = {
       c,
+      now,
       db,
       client,
       actorName,
@@ -87,6 +91,7 @@ async function makeMove(
     if (!updated) throw staleVersion()
     await appendEvent(db, {
       caseId: c.id,
+      at: now,
       actorUserId,
       actorLabel: actorName,
       kind: move,
@@ -156,16 +161,16 @@ export function transferCase(ctx: ServiceContext, actor: CaseActor, caseId: stri
 
 /** Joins a new report to an open case of the same office; the report closes as a duplicate. */
 export function mergeCase(ctx: ServiceContext, actor: CaseActor, caseId: string, input: { version: number; intoCaseId: string }) {
-  return makeMove(ctx, actor, caseId, 'merge', input.version, async ({ c, db, mail, trackingLink, actorName }) => {
+  return makeMove(ctx, actor, caseId, 'merge', input.version, async ({ c, db, mail, trackingLink, actorName, now }) => {
     const [target] = await db.select().from(cases).where(and(eq(cases.id, input.intoCaseId), eq(cases.officeId, c.officeId), ne(cases.status, 'closed'), ne(cases.id, c.id)))
     if (!target) throw badRequest('validation_failed', 'Some fields need attention.', [{ path: 'intoCaseId', message: 'Choose another open case of this office.' }])
     const summary = `Your report describes the same interference as case ${target.reference}, which our engineers are already working on. We have joined the two so the work is done once.`
     return {
-      changes: { mergedIntoCaseId: target.id, resolution: 'duplicate', closingSummary: summary, closedAt: new Date() },
+      changes: { mergedIntoCaseId: target.id, resolution: 'duplicate', closingSummary: summary, closedAt: now },
       body: `Merged into ${target.reference}.`,
       data: { intoCaseId: target.id, intoReference: target.reference },
       after: async (u) => {
-        await appendEvent(db, { caseId: target.id, actorUserId: actor.role === 'tracking_link' ? null : actor.id, actorLabel: actorName, kind: 'merged_in', visibility: 'internal', body: `${u.reference} (${u.complainantName}) was merged into this case.`, data: { fromCaseId: u.id, fromReference: u.reference } })
+        await appendEvent(db, { caseId: target.id, at: now, actorUserId: actor.role === 'tracking_link' ? null : actor.id, actorLabel: actorName, kind: 'merged_in', visibility: 'internal', body: `${u.reference} (${u.complainantName}) was merged into this case.`, data: { fromCaseId: u.id, fromReference: u.reference } })
         await mail(caseClosedMail(u, 'duplicate', summary, await trackingLink()))
       },
     }
@@ -174,7 +179,7 @@ export function mergeCase(ctx: ServiceContext, actor: CaseActor, caseId: string,
 
 function closing(resolution: Resolution, summary: string, s: MoveScope): MovePlan {
   return {
-    changes: { resolution, closingSummary: summary, closedAt: new Date() },
+    changes: { resolution, closingSummary: summary, closedAt: s.now },
     body: summary,
     data: { resolution },
     after: async (u) => s.mail(caseClosedMail(u, resolution, summary, await s.trackingLink())),

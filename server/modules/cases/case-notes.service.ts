@@ -24,7 +24,7 @@ export async function addCaseNote(
     if (!allowed || actor.role === 'tracking_link') throw forbidden(input.visibility === 'internal' ? 'Only staff of this office can add notes.' : 'Only the supervisor or the assigned investigator can write to the complainant while the case is open.')
     const name = (await userName(db, actor.id))?.name ?? 'Unknown user'
     const kind = input.visibility === 'internal' ? 'note' : input.requestsInformation ? 'information_requested' : 'message'
-    await appendEvent(db, { caseId: c.id, actorUserId: actor.id, actorLabel: name, kind, body: input.body, visibility: input.visibility })
+    await appendEvent(db, { caseId: c.id, at: ctx.now(), actorUserId: actor.id, actorLabel: name, kind, body: input.body, visibility: input.visibility })
     if (input.visibility === 'complainant') {
       const link = await issueTrackingLink(db, ctx.publicUrl, c.id)
       const mail = input.requestsInformation ? informationRequestedMail(c, input.body, link) : messageToComplainantMail(c, input.body, link)
@@ -40,6 +40,7 @@ export async function addComplainantInformation(ctx: ServiceContext, actor: Case
     if (!mayAddComplainantInformation(actor, { ...c, status: c.status as CaseState })) throw forbidden()
     await appendEvent(db, {
       caseId: c.id,
+      at: ctx.now(),
       actorUserId: actor.role === 'complainant' ? actor.id : null,
       actorLabel: 'Complainant',
       kind: 'complainant_information',

@@ -29,7 +29,7 @@ export async function getCaseDetail(ctx: ServiceContext, actor: Actor, caseId: s
       abilities: caseAbilities(actor, { ...c, status: c.status as CaseState }),
       timeline: await timeline(ctx, c.id),
     },
-    new Date(),
+    ctx.now(),
   )
 }
 

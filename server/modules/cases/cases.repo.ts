@@ -12,6 +12,8 @@ export async function findCase(db: Db, id: string): Promise<CaseRow | undefined>
 
 export interface NewEvent {
   caseId: string
+  /** When it happened (default: the database's now()). */
+  at?: Date
   actorUserId: string | null
   actorLabel: string
   kind: string

@@ -38,7 +38,7 @@ export async function submitReport(ctx: ServiceContext, report: Report, signedIn
   const targets = { 1: office.targetP1Hours, 2: office.targetP2Hours, 3: office.targetP3Hours, 4: office.targetP4Hours } as const
 
   return withTransaction(ctx.pool, async ({ db, client }) => {
-    const now = new Date()
+    const now = ctx.now()
     const reference = await nextCaseReference(db, now)
     const [c] = await db
       .insert(cases)
@@ -69,9 +69,10 @@ export async function submitReport(ctx: ServiceContext, report: Report, signedIn
         dueAt: dueAt(now, priority, targets),
       })
       .returning()
-    await appendEvent(db, { caseId: c!.id, actorUserId: signedIn?.id ?? null, actorLabel: 'Complainant', kind: 'received', toState: 'received', visibility: 'complainant', data: { officeName: office.name } })
+    await appendEvent(db, { caseId: c!.id, at: now, actorUserId: signedIn?.id ?? null, actorLabel: 'Complainant', kind: 'received', toState: 'received', visibility: 'complainant', data: { officeName: office.name } })
     await appendEvent(db, {
       caseId: c!.id,
+      at: now,
       actorUserId: null,
       actorLabel: 'Quietband',
       kind: 'routed',
