@@ -105,6 +105,16 @@ describe('the whole path of a case', () => {
   })
 })
 
+describe('reopening a report closed at triage', () => {
+  it('returns it to triage, since no investigator had it', async () => {
+    const f = await fileReport(t)
+    expect((await act(supervisor, f.id, 'dismiss', { resolution: 'no_interference_found', reason: 'The set-top box was faulty, not the signal.' })).status).toBe(200)
+    const res = await act(supervisor, f.id, 'reopen', { reason: 'A second household nearby reports the same.' })
+    expect(res.status).toBe(200)
+    expect(res.body.case).toMatchObject({ status: 'triaged', investigatorId: null, resolution: null, closedAt: null })
+  })
+})
+
 describe('moves refused', () => {
   it.each([
     ['triage', { priority: 1 }],

@@ -86,7 +86,8 @@ async function makeMove(
       trackingLink: () => issueTrackingLink(db, ctx.publicUrl, c.id),
     }
     const p = await plan(scope)
-    const to = stateAfter(move, !!(p.changes?.investigatorId ?? c.investigatorId))
+    // only reopening depends on the investigator: back to them, or to triage without one
+    const to = stateAfter(move, c.investigatorId !== null)
     const updated = await updateCaseIfVersion(db, c.id, expected, { ...p.changes, status: to })
     if (!updated) throw staleVersion()
     await appendEvent(db, {
