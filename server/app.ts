@@ -77,6 +77,11 @@ export function createApp(deps: AppDeps): AppHandle {
   const passport = configurePassport(db)
 
   const api = Router()
+  // answers carry private data (complainants' details, internal notes): no browser or proxy keeps them
+  api.use((_req, res, next) => {
+    res.setHeader('Cache-Control', 'no-store')
+    next()
+  })
   api.use(express.json({ limit: '200kb' }))
   api.use(sameOrigin([deps.publicUrl]))
   api.use(

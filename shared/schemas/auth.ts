@@ -1,6 +1,7 @@
 /** Request and response contracts for sign-in, accounts and passwords (server and forms). */
 import { z } from 'zod'
 import { ROLES } from '../domain/roles'
+import { storableString } from './text'
 
 export const emailSchema = z.string().trim().toLowerCase().max(254).pipe(z.email({ message: 'Enter a valid e-mail address.' }))
 
@@ -17,7 +18,7 @@ export const signInSchema = z.object({
 export type SignInInput = z.infer<typeof signInSchema>
 
 export const registerSchema = z.object({
-  name: z.string().trim().min(1, { message: 'Enter your name.' }).max(120),
+  name: storableString().trim().min(1, { message: 'Enter your name.' }).max(120),
   email: emailSchema,
   password: passwordSchema,
 })
@@ -33,7 +34,7 @@ export const setPasswordSchema = z.object({
 export type SetPasswordInput = z.infer<typeof setPasswordSchema>
 
 export const createStaffSchema = z.object({
-  name: z.string().trim().min(1, { message: 'Enter a name.' }).max(120),
+  name: storableString().trim().min(1, { message: 'Enter a name.' }).max(120),
   email: emailSchema,
   role: z.enum(['investigator', 'supervisor', 'admin']),
   officeId: z.uuid().nullable(),

@@ -3,6 +3,7 @@ import { z } from 'zod'
 import { AFFECTED_SERVICES, EXPERIENCES, OCCURRENCE_PATTERNS, PRIORITIES } from '../domain/services'
 import { CASE_STATES, CLOSE_RESOLUTIONS, DISMISS_RESOLUTIONS } from '../domain/case-lifecycle'
 import { emailSchema } from './auth'
+import { storableString } from './text'
 
 export const FREQUENCY_UNITS = { kHz: 1e3, MHz: 1e6, GHz: 1e9 } as const
 export type FrequencyUnit = keyof typeof FREQUENCY_UNITS
@@ -13,9 +14,12 @@ export const MAX_FREQ_HZ = 3e12
 const blankIsMissing = <T extends z.ZodType>(inner: T) =>
   z.preprocess((v) => (v === null || (typeof v === 'string' && v.trim() === '') ? undefined : v), inner)
 
-const text = (max: number, what: string) => z.string().trim().max(max, { message: `${what}: at most ${max} characters.` })
+const text = (max: number, what: string) => storableString().trim().max(max, { message: `${what}: at most ${max} characters.` })
 const optionalText = (max: number, what: string) =>
   text(max, what).optional().transform((v) => (v === '' ? undefined : v))
+
+/** Earliest start date a report may give (ISO date). */
+export const EARLIEST_SINCE_DATE = '1900-01-01'
 
 /** The public report form. `website` is a honeypot: people leave it empty, robots fill it. */
 export const reportSchema = z
@@ -32,7 +36,8 @@ export const reportSchema = z
     address: text(300, 'Address').min(1, { message: 'Describe where it happens (an address or a place).' }),
     latDeg: blankIsMissing(z.coerce.number({ message: 'Enter the latitude or pick the place on the map.' }).min(-90, { message: 'Latitude is between −90 and 90.' }).max(90, { message: 'Latitude is between −90 and 90.' })),
     lonDeg: blankIsMissing(z.coerce.number({ message: 'Enter the longitude or pick the place on the map.' }).min(-180, { message: 'Longitude is between −180 and 180.' }).max(180, { message: 'Longitude is between −180 and 180.' })),
-    since: z.iso.date({ message: 'Enter the date it started.' }),
+    // PostgreSQL has no year 0000 (ISO dates allow it); no report reaches back past 1900 anyway
+    since: z.iso.date({ message: 'Enter the date it started.' }).refine((d) => d >= EARLIEST_SINCE_DATE, { message: 'Enter a date from 1900 on.' }),
     pattern: z.enum(OCCURRENCE_PATTERNS, { message: 'Choose when it happens.' }),
     patternDetail: optionalText(200, 'Hours'),
     experience: z.enum(EXPERIENCES, { message: 'Choose what you experience.' }),
@@ -58,7 +63,7 @@ export function reportFrequencyHz(r: Pick<Report, 'frequencyFrom' | 'frequencyTo
 }
 
 const version = z.number({ message: 'The case version is required.' }).int().min(1)
-const reason = (what: string) => z.string().trim().min(3, { message: `${what} (at least 3 characters).` }).max(4000, { message: 'At most 4000 characters.' })
+const reason = (what: string) => storableString().trim().min(3, { message: `${what} (at least 3 characters).` }).max(4000, { message: 'At most 4000 characters.' })
 
 export const triageSchema = z.object({ version, priority: z.union(PRIORITIES.map((p) => z.literal(p)) as [z.ZodLiteral<1>, z.ZodLiteral<2>, z.ZodLiteral<3>, z.ZodLiteral<4>]), note: optionalText(2000, 'Note') })
 export const assignSchema = z.object({ version, investigatorId: z.uuid({ message: 'Choose an investigator.' }) })
@@ -110,6 +115,6 @@ export const caseListQuerySchema = z.object({
   open: z.enum(['true', 'false']).optional().transform((v) => (v === undefined ? undefined : v === 'true')),
   freqFromHz: z.coerce.number().min(0).optional(),
   freqToHz: z.coerce.number().min(0).optional(),
-  q: z.string().trim().max(100).optional(),
+  q: storableString().trim().max(100).optional(),
 })
 export type CaseListQuery = z.infer<typeof caseListQuerySchema>

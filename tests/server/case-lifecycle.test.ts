@@ -263,6 +263,31 @@ describe('two supervisors at once', () => {
   })
 })
 
+describe('two supervisors merge a pair of reports into each other at once', () => {
+  it('one merge wins and the other is refused on the field: never both closed as duplicates of each other', async () => {
+    const secondEmail = `merging.supervisor.${Date.now()}@quietband.test`
+    await createStaff(t.pool, { email: secondEmail, name: 'Owen Tarrant', role: 'supervisor', officeName: 'Harrowmere' })
+    const second = await signedInAgent(t.app, secondEmail)
+    for (let round = 0; round < 5; round++) {
+      const a = await fileReport(t, { latDeg: 47.93, lonDeg: -31.7 })
+      const b = await fileReport(t, { latDeg: 47.93, lonDeg: -31.7 })
+      const [ra, rb] = await Promise.all([
+        supervisor.post(`/api/cases/${a.id}/merge`).send({ version: 1, intoCaseId: b.id }),
+        second.post(`/api/cases/${b.id}/merge`).send({ version: 1, intoCaseId: a.id }),
+      ])
+      expect([ra.status, rb.status].sort(), JSON.stringify([ra.body.error, rb.body.error])).toEqual([200, 400])
+      const loser = ra.status === 400 ? ra : rb
+      expect(loser.body.error.details[0].path).toBe('intoCaseId')
+      const { rows } = await t.pool.query(`SELECT id, status, merged_into_case_id FROM cases WHERE id = ANY($1) ORDER BY status`, [[a.id, b.id]])
+      const [closed, open] = rows
+      expect(closed.status).toBe('closed')
+      expect(open.status).toBe('received')
+      expect(closed.merged_into_case_id).toBe(open.id)
+      expect(open.merged_into_case_id).toBeNull()
+    }
+  })
+})
+
 describe('the timeline', () => {
   it('refuses UPDATE and DELETE in the database', async () => {
     const f = await fileReport(t)

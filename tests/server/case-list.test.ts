@@ -99,6 +99,22 @@ describe('the case list', () => {
   })
 })
 
+describe('the CSV export’s cells', () => {
+  it('neutralise spreadsheet formula triggers (@, +) at the start of a cell, and keep quotes and line breaks inside it', async () => {
+    const mark = `${tag}csv`
+    const f = await fileReport(t, { name: '@SUM(A1:A9)', address: '+1+cmd|" /C calc"!A0\nback entrance', description: `CSV cell test ${mark}` })
+    const res = await supervisor.get(`/api/cases/export.csv?q=${mark}`).expect(200)
+    const [header, line, ...rest] = res.text.split('\r\n')
+    expect(header).toMatch(/^reference,/)
+    expect(rest).toEqual(['']) // one row, then the final line break
+    expect(line).toContain(`"${f.reference}"`)
+    expect(line).toContain(`"'@SUM(A1:A9)"`)
+    expect(line).toContain(`"'+1+cmd|"" /C calc""!A0\nback entrance"`)
+    // every cell is quoted: no cell of the row starts with a trigger outside quotes
+    expect(line!.split(',').every((cell) => cell.startsWith('"'))).toBe(true)
+  })
+})
+
 describe('response targets', () => {
   it('tell each viewer whether they may change them', async () => {
     const sup = (await supervisor.get('/api/offices').expect(200)).body.offices

@@ -139,11 +139,61 @@ describe('tracking links', () => {
     expect(text).not.toContain('Sade Okafor')
   })
 
+  it('and the staff case page are never stored by a browser or a proxy (Cache-Control: no-store)', async () => {
+    const f = await fileReport(t)
+    const view = await request(t.app).get(`/api/track/${f.trackingToken}`).expect(200)
+    expect(view.headers['cache-control']).toBe('no-store')
+    const sup = await signedInAgent(t.app, DEMO.supervisor)
+    expect((await sup.get(`/api/cases/${f.id}`).expect(200)).headers['cache-control']).toBe('no-store')
+    expect((await sup.get('/api/cases/export.csv').expect(200)).headers['cache-control']).toBe('no-store')
+    expect((await request(t.app).get(`/api/track/${'A'.repeat(43)}`).expect(404)).headers['cache-control']).toBe('no-store')
+  })
+
   it('let the complainant withdraw once; a second withdrawal is 409 invalid_transition', async () => {
     const f = await fileReport(t)
     const res = await request(t.app).post(`/api/track/${f.trackingToken}/withdraw`).send({ reason: 'It stopped' }).expect(200)
     expect(res.body.report).toMatchObject({ status: 'closed', resolution: 'withdrawn' })
     const again = await request(t.app).post(`/api/track/${f.trackingToken}/withdraw`).send({}).expect(409)
     expect(again.body.error.code).toBe('invalid_transition')
+  })
+})
+
+describe('the complainant’s view through a whole case', () => {
+  it('carries only the report, plain steps, messages meant for them and the closing summary — no internal text, staff names or staff addresses', async () => {
+    const sup = await signedInAgent(t.app, DEMO.supervisor)
+    const inv = await signedInAgent(t.app, DEMO.investigator)
+    const complainant = await signedInAgent(t.app, DEMO.complainant)
+    const filed = await complainant.post('/api/reports').set('X-Forwarded-For', uniqueAddress()).send(validReport({ email: DEMO.complainant, phone: '+99 555 0101' })).expect(201)
+    const { rows } = await t.pool.query(`SELECT id FROM cases WHERE reference = $1`, [filed.body.reference])
+    const id: string = rows[0].id
+    const token = /\/track\/([A-Za-z0-9_-]+)$/.exec(filed.body.trackingUrl)![1]!
+    const investigatorId = (await t.pool.query(`SELECT id FROM users WHERE email = $1`, [DEMO.investigator])).rows[0].id
+    const version = async () => (await t.pool.query(`SELECT version FROM cases WHERE id = $1`, [id])).rows[0].version
+    const move = async (agent: typeof sup, path: string, body: object) => agent.post(`/api/cases/${id}/${path}`).send({ version: await version(), ...body }).expect(200)
+
+    // every internal word carries a marker that must never reach the complainant
+    await move(sup, 'triage', { priority: 2, note: 'INTERNAL-triage-note' })
+    await sup.post(`/api/cases/${id}/notes`).send({ body: 'INTERNAL-staff-note', visibility: 'internal' }).expect(201)
+    await move(sup, 'assign', { investigatorId })
+    await move(inv, 'start-field-work', {})
+    await inv.post(`/api/cases/${id}/notes`).send({ body: 'Can we visit on Tuesday?', visibility: 'complainant', requestsInformation: true }).expect(201)
+    await move(inv, 'propose-finding', { reason: 'INTERNAL-finding-draft' })
+    await move(sup, 'return-finding', { reason: 'INTERNAL-return-reason' })
+    await move(inv, 'propose-finding', { reason: 'INTERNAL-finding-final' })
+    await move(sup, 'close', { resolution: 'source_corrected', reason: 'The faulty amplifier was replaced.' })
+
+    const byLink = (await request(t.app).get(`/api/track/${token}`).expect(200)).body.report
+    const byAccount = (await complainant.get(`/api/my/reports/${id}`).expect(200)).body.report
+    expect(byAccount).toEqual(byLink)
+    expect(Object.keys(byLink).sort()).toEqual(
+      ['abilities', 'address', 'closedAt', 'closingSummary', 'description', 'entries', 'freqHighHz', 'freqLowHz', 'receivedAt', 'reference', 'resolution', 'resolutionLabel', 'service', 'status', 'statusLabel'].sort(),
+    )
+    const text = JSON.stringify(byLink)
+    expect(text).not.toMatch(/INTERNAL-/)
+    for (const staff of ['Sade Okafor', 'Marta Ferreira', DEMO.supervisor, DEMO.investigator]) expect(text).not.toContain(staff)
+    expect(text).not.toContain(investigatorId)
+    expect(text).toContain('Can we visit on Tuesday?')
+    expect(text).toContain('The faulty amplifier was replaced.')
+    for (const e of byLink.entries) expect(Object.keys(e).sort()).toEqual(['at', 'from', 'kind', 'text'])
   })
 })

@@ -6,8 +6,8 @@ import { HttpError } from '../../http/errors'
 import { requireUser } from '../../http/authenticate'
 import { parseWith } from '../../http/validate'
 import {
-  assertSignInAllowed,
-  recordSignInAttempt,
+  markSignInSucceeded,
+  openSignInAttempt,
   registerComplainant,
   requestPasswordReset,
   setPasswordWithToken,
@@ -32,11 +32,11 @@ export function authRoutes(ctx: ServiceContext, p: passport.PassportStatic): Rou
   r.post('/auth/sign-in', async (req, res) => {
     const input = parseWith(signInSchema, req.body)
     const ip = req.ip ?? 'unknown'
-    await assertSignInAllowed(ctx.db, input.email, ip)
+    const attemptId = await openSignInAttempt(ctx.db, input.email, ip)
     req.body = input
     const user = await authenticateLocal(p, req)
-    await recordSignInAttempt(ctx.db, input.email, ip, !!user)
     if (!user) throw invalidCredentials()
+    await markSignInSucceeded(ctx.db, attemptId)
     await logIn(req, user)
     res.json({ user })
   })

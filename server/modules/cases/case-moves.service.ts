@@ -4,7 +4,7 @@
  * state (409 invalid_transition); write the change with an optimistic version check, append
  * the timeline event, and queue the e-mails it causes. Nothing is half-written.
  */
-import { and, eq, ne } from 'drizzle-orm'
+import { and, asc, eq, inArray } from 'drizzle-orm'
 import type pg from 'pg'
 import { CASE_MOVE_LABELS, CASE_STATE_LABELS, moveAllowedFrom, stateAfter, type CaseMoveName, type CaseState, type Resolution } from '../../../shared/domain/case-lifecycle'
 import type { AffectedService, Priority } from '../../../shared/domain/services'
@@ -48,9 +48,12 @@ interface MovePlan {
   after?: (updated: CaseRow) => Promise<void>
 }
 
+/** A case id as PostgreSQL reads a uuid; anything else is no case (404), never a query error. */
+const CASE_ID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i
+
 /** Loads a case the actor may see, or throws 404. */
 export async function loadVisibleCase(db: Db, actor: CaseActor, caseId: string): Promise<CaseRow> {
-  if (!/^[0-9a-f-]{36}$/i.test(caseId)) throw caseNotFound()
+  if (!CASE_ID.test(caseId)) throw caseNotFound()
   const c = await findCase(db, caseId)
   if (!c || !canSeeCase(actor, { ...c, status: c.status as CaseState })) throw caseNotFound()
   return c
@@ -163,7 +166,11 @@ export function transferCase(ctx: ServiceContext, actor: CaseActor, caseId: stri
 /** Joins a new report to an open case of the same office; the report closes as a duplicate. */
 export function mergeCase(ctx: ServiceContext, actor: CaseActor, caseId: string, input: { version: number; intoCaseId: string }) {
   return makeMove(ctx, actor, caseId, 'merge', input.version, async ({ c, db, mail, trackingLink, actorName, now }) => {
-    const [target] = await db.select().from(cases).where(and(eq(cases.id, input.intoCaseId), eq(cases.officeId, c.officeId), ne(cases.status, 'closed'), ne(cases.id, c.id)))
+    // Lock both cases, always in id order: two merges of the same pair in opposite directions
+    // then run one after the other (never deadlock), and the second finds its target closed
+    // instead of leaving two cases closed as duplicates of each other.
+    const pair = await db.select().from(cases).where(inArray(cases.id, [c.id, input.intoCaseId])).orderBy(asc(cases.id)).for('no key update')
+    const target = pair.find((p) => p.id === input.intoCaseId && p.id !== c.id && p.officeId === c.officeId && p.status !== 'closed')
     if (!target) throw badRequest('validation_failed', 'Some fields need attention.', [{ path: 'intoCaseId', message: 'Choose another open case of this office.' }])
     const summary = `Your report describes the same interference as case ${target.reference}, which our engineers are already working on. We have joined the two so the work is done once.`
     return {

@@ -1,0 +1,396 @@
+/**
+ * Odd input never breaks the API: every state-changing route, called as anonymous and as each
+ * role with odd values in each field (nulls, arrays, objects, huge numbers, control characters,
+ * unicode, wrong types) and with odd whole bodies, answers a 4xx or a 2xx — never a 500 — and
+ * every error uses the one body shape. Odd ids in paths and repeated query parameters likewise.
+ * A state-changing route missing from the FUZZ table fails the first test: new routes join it.
+ */
+import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import request from 'supertest'
+import { createTestContext, DEMO, signedInAgent, uniqueAddress, type TestContext } from '../support/harness'
+import { listRoutes } from '../support/routes'
+import { caseVersion, fileReport, userId, validReport } from '../support/cases'
+
+type Who = 'anonymous' | 'complainant' | 'investigator' | 'supervisor' | 'admin'
+const WHO: Who[] = ['anonymous', 'complainant', 'investigator', 'supervisor', 'admin']
+const ACCOUNT: Record<Exclude<Who, 'anonymous'>, string> = {
+  complainant: DEMO.complainant,
+  investigator: DEMO.investigator,
+  supervisor: DEMO.supervisor,
+  admin: DEMO.admin,
+}
+type Agent = ReturnType<typeof request.agent>
+
+/** Values put in place of one field at a time. */
+const ODD_VALUES: unknown[] = [
+  null,
+  true,
+  0,
+  -1,
+  1.5,
+  1e308,
+  -1e308,
+  2 ** 53 + 2,
+  '',
+  '   ',
+  '\u0000',
+  'a\u0000b',
+  'x'.repeat(5000),
+  '💥 ünïcødé ‮ right-to-left ‭ 𝔘𝔫𝔦',
+  '\ud800 lone surrogate',
+  "' OR 1=1; --",
+  '<script>alert(1)</script>',
+  '-'.repeat(36),
+  'a'.repeat(36),
+  '00000000-0000-0000-0000-000000000000',
+  '0000-01-01',
+  '1e400',
+  'NaN',
+  [],
+  ['a', 'b'],
+  {},
+  { $gt: '' },
+]
+
+/** Whole bodies sent as they are (raw JSON text, or another content type). */
+const ODD_BODIES: { type: string; raw: string }[] = [
+  { type: 'application/json', raw: 'null' },
+  { type: 'application/json', raw: '[]' },
+  { type: 'application/json', raw: '[1,2,3]' },
+  { type: 'application/json', raw: '"just text"' },
+  { type: 'application/json', raw: '12345' },
+  { type: 'application/json', raw: '{}' },
+  { type: 'application/json', raw: '{"__proto__":{"role":"admin"},"constructor":{"prototype":{"x":1}}}' },
+  { type: 'application/json', raw: '{"a":' },
+  { type: 'application/json', raw: '{"version":1e400,"priority":-1e400,"p1":1e400,"active":1e400,"frequencyFrom":1e400}' },
+  { type: 'application/json', raw: '['.repeat(5000) + ']'.repeat(5000) },
+  { type: 'text/plain', raw: 'hello' },
+  { type: 'application/x-www-form-urlencoded', raw: 'a=b&a=c&version=1' },
+]
+
+type CaseState = 'received' | 'assigned' | 'finding_proposed' | 'closed'
+
+interface Ids {
+  ownOfficeId: string
+  otherOfficeId: string
+  investigatorId: string
+  throwawayUserId: string
+  /** An open Harrowmere case that merges are pointed at. */
+  mergeTargetId: string
+}
+
+/**
+ * One state-changing route: where to send it, and a body that passes validation so that each
+ * odd field is the only thing wrong with it. `path(renew)` is asked again with renew = true
+ * after a request succeeded, so that moves keep reaching the code that writes.
+ */
+interface FuzzRow {
+  route: string
+  path: (renew: boolean) => Promise<string>
+  base: () => Promise<Record<string, unknown>>
+}
+
+let t: TestContext
+let ids: Ids
+let supervisor: Agent
+let investigator: Agent
+let complainant: Agent
+
+beforeAll(async () => {
+  t = await createTestContext()
+  const { rows: offices } = await t.pool.query(`SELECT id, name FROM offices`)
+  const throwaway = await request(t.app)
+    .post('/api/auth/register')
+    .set('X-Forwarded-For', uniqueAddress())
+    .send({ name: 'Fuzz Throwaway', email: `fuzz-throwaway-${process.pid}-${Date.now()}@example.test`, password: 'a-long-enough-pass' })
+    .expect(201)
+  supervisor = await signedInAgent(t.app, DEMO.supervisor)
+  investigator = await signedInAgent(t.app, DEMO.investigator)
+  complainant = await signedInAgent(t.app, DEMO.complainant)
+  ids = {
+    ownOfficeId: offices.find((o) => o.name === 'Harrowmere').id,
+    otherOfficeId: offices.find((o) => o.name === 'Kestrel Bay').id,
+    investigatorId: await userId(t.pool, DEMO.investigator),
+    throwawayUserId: throwaway.body.user.id,
+    mergeTargetId: (await fileReport(t)).id,
+  }
+})
+afterAll(() => t.close())
+
+/** A fresh Harrowmere case moved to `state` along the usual path. */
+async function caseIn(state: CaseState): Promise<string> {
+  const f = await fileReport(t)
+  const move = async (agent: Agent, path: string, body: Record<string, unknown>) =>
+    agent.post(`/api/cases/${f.id}/${path}`).send({ version: await caseVersion(t.pool, f.id), ...body }).expect(200)
+  if (state === 'received') return f.id
+  await move(supervisor, 'assign', { investigatorId: ids.investigatorId })
+  if (state === 'assigned') return f.id
+  await move(investigator, 'propose-finding', { reason: 'Faulty amplifier at the marina.' })
+  if (state === 'finding_proposed') return f.id
+  await move(supervisor, 'close', { resolution: 'source_corrected', reason: 'The owner replaced it.' })
+  return f.id
+}
+
+/** A case route whose case is made afresh in `state` whenever a request succeeded. */
+function caseRow(sub: string, state: CaseState, body: () => Record<string, unknown>): FuzzRow {
+  let caseId: string | undefined
+  return {
+    route: `POST /api/cases/:id/${sub}`,
+    async path(renew) {
+      if (!caseId || renew) caseId = await caseIn(state)
+      return `/api/cases/${caseId}/${sub}`
+    },
+    async base() {
+      return { version: await caseVersion(t.pool, caseId!), ...body() }
+    },
+  }
+}
+
+/** A complainant route: through a tracking link, or as the signed-in demo complainant. */
+function complainantRow(route: string, body: Record<string, unknown>): FuzzRow {
+  let target: string | undefined
+  const viaLink = route.includes(':token')
+  return {
+    route,
+    async path(renew) {
+      if (!target || renew) {
+        if (viaLink) target = (await fileReport(t)).trackingToken
+        else {
+          const res = await complainant.post('/api/reports').set('X-Forwarded-For', uniqueAddress()).send(validReport({ email: DEMO.complainant })).expect(201)
+          target = (await t.pool.query(`SELECT id FROM cases WHERE reference = $1`, [res.body.reference])).rows[0].id
+        }
+      }
+      return route.split(' ')[1]!.replace(/:token|:id/, target!)
+    },
+    base: async () => body,
+  }
+}
+
+const fixed = (route: string, path: () => string, body: () => Record<string, unknown>): FuzzRow => ({
+  route,
+  path: async () => path(),
+  base: async () => body(),
+})
+
+const FUZZ: FuzzRow[] = [
+  fixed('POST /api/auth/sign-in', () => '/api/auth/sign-in', () => ({ email: `fuzz-nobody-${process.pid}@example.test`, password: 'not-the-password' })),
+  fixed('POST /api/auth/sign-out', () => '/api/auth/sign-out', () => ({})),
+  fixed('POST /api/auth/register', () => '/api/auth/register', () => ({ name: 'Fuzz Person', email: `fuzz-register-${process.pid}@example.test`, password: 'a-long-enough-pass' })),
+  fixed('POST /api/auth/password-reset', () => '/api/auth/password-reset', () => ({ email: `fuzz-nobody-${process.pid}@example.test` })),
+  fixed('POST /api/auth/set-password', () => '/api/auth/set-password', () => ({ token: 'x'.repeat(43), password: 'long-enough-password' })),
+  fixed('POST /api/admin/users', () => '/api/admin/users', () => ({ name: 'Fuzz Staff', email: `fuzz-staff-${process.pid}@quietband.test`, role: 'investigator', officeId: ids.otherOfficeId })),
+  fixed('PATCH /api/admin/users/:id', () => `/api/admin/users/${ids.throwawayUserId}`, () => ({ active: true })),
+  // the office's own targets: no single odd field below makes a valid set, so nothing changes
+  fixed('PUT /api/offices/:id/response-targets', () => `/api/offices/${ids.ownOfficeId}/response-targets`, () => ({ p1: 4, p2: 24, p3: 72, p4: 240 })),
+  fixed('POST /api/reports', () => '/api/reports', () => validReport() as unknown as Record<string, unknown>),
+  complainantRow('POST /api/track/:token/information', { body: 'Still there at night.' }),
+  complainantRow('POST /api/track/:token/withdraw', { reason: 'It stopped.' }),
+  complainantRow('POST /api/my/reports/:id/information', { body: 'Also in the mornings.' }),
+  complainantRow('POST /api/my/reports/:id/withdraw', { reason: 'It stopped.' }),
+  caseRow('notes', 'received', () => ({ body: 'Checked the register.', visibility: 'internal', requestsInformation: false })),
+  caseRow('triage', 'received', () => ({ priority: 2, note: 'Looks like an outage.' })),
+  caseRow('assign', 'received', () => ({ investigatorId: ids.investigatorId })),
+  caseRow('transfer', 'received', () => ({ officeId: ids.otherOfficeId, reason: 'Closer office' })),
+  caseRow('merge', 'received', () => ({ intoCaseId: ids.mergeTargetId })),
+  caseRow('dismiss', 'received', () => ({ resolution: 'referred', reason: 'For the aviation authority' })),
+  caseRow('start-field-work', 'assigned', () => ({})),
+  caseRow('propose-finding', 'assigned', () => ({ reason: 'Found it' })),
+  caseRow('return-finding', 'finding_proposed', () => ({ reason: 'More work' })),
+  caseRow('close', 'finding_proposed', () => ({ resolution: 'source_corrected', reason: 'Fixed' })),
+  caseRow('reopen', 'closed', () => ({ reason: 'Back again' })),
+]
+
+async function agentFor(who: Who): Promise<Agent> {
+  return who === 'anonymous' ? request.agent(t.app) : signedInAgent(t.app, ACCOUNT[who])
+}
+
+/** Sends one request and checks it: a known status below 500, and the one error body. */
+async function expectHandled(label: string, res: request.Response): Promise<void> {
+  expect(res.status, `${label} → ${res.status} ${res.text.slice(0, 300)}`).toBeLessThan(500)
+  if (res.status >= 400) {
+    expect(res.body?.error, `${label} error body`).toMatchObject({ code: expect.any(String), message: expect.any(String), requestId: expect.any(String) })
+    expect(res.body.error.code, label).toMatch(/^[a-z][a-z_]*$/)
+  }
+}
+
+function send(agent: Agent, method: string, path: string) {
+  // a distinct client address per request keeps the report and sign-in limits from deciding the answer
+  return agent[method.toLowerCase() as 'post' | 'put' | 'patch'](path).set('X-Forwarded-For', uniqueAddress())
+}
+
+describe('odd input to every state-changing route', () => {
+  it('covers every POST, PUT, PATCH and DELETE route of the app', () => {
+    const changing = listRoutes(t.handle.api).filter((r) => !r.startsWith('GET '))
+    expect(FUZZ.map((r) => r.route).sort()).toEqual(changing)
+  })
+
+  for (const row of FUZZ) {
+    it(`${row.route} never answers 500, as anyone, whatever the fields hold`, async () => {
+      const [method] = row.route.split(' ') as [string]
+      let path = await row.path(false)
+      const fields = Object.keys(await row.base())
+      for (const who of WHO) {
+        // a fresh session per route and role: a sign-out or a sign-in in one row must not steer another
+        const agent = await agentFor(who)
+        for (const field of fields) {
+          for (const value of ODD_VALUES) {
+            const res = await send(agent, method, path).send({ ...(await row.base()), [field]: value })
+            await expectHandled(`${who} ${row.route} ${field}=${JSON.stringify(value)?.slice(0, 40)}`, res)
+            if (res.status < 300) path = await row.path(true)
+          }
+        }
+        for (const body of ODD_BODIES) {
+          const res = await send(agent, method, path).set('Content-Type', body.type).send(body.raw)
+          await expectHandled(`${who} ${row.route} body ${body.raw.slice(0, 40)}`, res)
+        }
+      }
+    })
+  }
+})
+
+/** Ids that are not uuids, or that PostgreSQL would refuse to read as one. */
+const ODD_IDS = ['not-a-uuid', 'a'.repeat(36), '-'.repeat(36), 'g'.repeat(8) + '-0000-4000-8000-000000000000', '0'.repeat(32), `{${'0'.repeat(32)}}`, '%00', '%E0%A4%A', "1'%20OR%20'1'='1", 'x'.repeat(2000)]
+
+describe('odd ids in paths', () => {
+  const idRoutes = [
+    'GET /api/cases/:id',
+    'GET /api/cases/:id/merge-candidates',
+    'GET /api/cases/:id/investigators',
+    'GET /api/cases/:id/transfer-offices',
+    'POST /api/cases/:id/notes',
+    'POST /api/cases/:id/triage',
+    'POST /api/cases/:id/close',
+    'GET /api/my/reports/:id',
+    'POST /api/my/reports/:id/information',
+    'POST /api/my/reports/:id/withdraw',
+    'GET /api/staff/:id',
+    'GET /api/offices/:id',
+    'PUT /api/offices/:id/response-targets',
+    'PATCH /api/admin/users/:id',
+    'GET /api/track/:token',
+    'POST /api/track/:token/information',
+    'POST /api/track/:token/withdraw',
+  ]
+
+  it('answer 400 or 404 with the one error body, never 500, to anyone', async () => {
+    for (const who of WHO) {
+      const agent = await agentFor(who)
+      for (const route of idRoutes) {
+        const [method, pattern] = route.split(' ') as [string, string]
+        for (const id of ODD_IDS) {
+          const path = pattern.replace(/:id|:token/, id)
+          const call = agent[method.toLowerCase() as 'get' | 'post' | 'put' | 'patch'](path).set('X-Forwarded-For', uniqueAddress())
+          const res = method === 'GET' ? await call : await call.send({ version: 1, body: 'x', reason: 'Some reason', visibility: 'internal', priority: 2, active: true })
+          await expectHandled(`${who} ${method} ${path.slice(0, 80)}`, res)
+          expect(res.status, `${who} ${method} ${path.slice(0, 80)}`).toBeGreaterThanOrEqual(400)
+        }
+      }
+    }
+  })
+
+  it('a 36-character id that is not a uuid is no case (404 case_not_found), not a database error', async () => {
+    const supervisor = await signedInAgent(t.app, DEMO.supervisor)
+    for (const id of ['a'.repeat(36), '-'.repeat(36), 'abcdef01-2345-6789-abcd-ef01234567-x']) {
+      const res = await supervisor.get(`/api/cases/${id}`)
+      expect(res.status, id).toBe(404)
+      expect(res.body.error.code).toBe('case_not_found')
+    }
+    const complainant = await signedInAgent(t.app, DEMO.complainant)
+    const mine = await complainant.get(`/api/my/reports/${'b'.repeat(36)}`)
+    expect(mine.status).toBe(404)
+    expect(mine.body.error.code).toBe('case_not_found')
+  })
+})
+
+describe('odd query strings on the case list and its export', () => {
+  const queries = [
+    'page=1&page=2',
+    'pageSize=10&pageSize=20',
+    'sort=priority&sort=status',
+    'dir=asc&dir=desc',
+    'q=a&q=b',
+    'q=%00',
+    'q=a%00b',
+    'q=%25%5F%5C',
+    'overdue=true&overdue=false',
+    'officeId=not-a-uuid',
+    'officeId=' + 'a'.repeat(36),
+    'investigatorId=' + '-'.repeat(36),
+    'freqFromHz=1e400',
+    'freqFromHz=-1',
+    'freqToHz=abc',
+    'page=0',
+    'page=1e9',
+    'pageSize=100000',
+    'status[]=received',
+    'status=received&status=closed',
+    'priority=1,9',
+    'service=',
+    'page[]=1',
+    'q=' + 'x'.repeat(5000),
+  ]
+
+  it('answers 200 or 400 with the one error body, never 500', async () => {
+    for (const who of ['investigator', 'supervisor', 'admin'] as const) {
+      const agent = await agentFor(who)
+      for (const q of queries) {
+        for (const path of ['/api/cases', '/api/cases/export.csv']) {
+          const res = await agent.get(`${path}?${q}`)
+          await expectHandled(`${who} ${path}?${q.slice(0, 60)}`, res)
+        }
+      }
+    }
+  })
+
+  it('answers a repeated scalar parameter with 400 validation_failed', async () => {
+    const supervisor = await signedInAgent(t.app, DEMO.supervisor)
+    for (const q of ['page=1&page=2', 'q=a&q=b', 'sort=priority&sort=status']) {
+      const res = await supervisor.get(`/api/cases?${q}`)
+      expect(res.status, q).toBe(400)
+      expect(res.body.error.code).toBe('validation_failed')
+    }
+  })
+})
+
+describe('text that cannot be stored', () => {
+  it('refuses U+0000 in a report, a note, a search and a name with 400 on the field, and saves nothing', async () => {
+    const report = await request(t.app).post('/api/reports').set('X-Forwarded-For', uniqueAddress()).send(validReport({ description: 'Hum on the line\u0000 every evening.' }))
+    expect(report.status).toBe(400)
+    expect(report.body.error.details).toEqual([{ path: 'description', message: expect.stringContaining('U+0000') }])
+    expect((await t.pool.query(`SELECT count(*)::int AS n FROM cases WHERE description LIKE 'Hum on the line%'`)).rows[0].n).toBe(0)
+
+    const f = await fileReport(t)
+    const supervisor = await signedInAgent(t.app, DEMO.supervisor)
+    const note = await supervisor.post(`/api/cases/${f.id}/notes`).send({ body: 'a\u0000b', visibility: 'internal' })
+    expect(note.status).toBe(400)
+    expect(note.body.error.details[0].path).toBe('body')
+    const info = await request(t.app).post(`/api/track/${f.trackingToken}/information`).send({ body: '\u0000' })
+    expect(info.status).toBe(400)
+    const search = await supervisor.get('/api/cases?q=a%00b')
+    expect(search.status).toBe(400)
+    expect(search.body.error.details[0].path).toBe('q')
+    const register = await request(t.app).post('/api/auth/register').set('X-Forwarded-For', uniqueAddress()).send({ name: 'Nul\u0000Name', email: `nul-${Date.now()}@example.test`, password: 'a-long-enough-pass' })
+    expect(register.status).toBe(400)
+    expect(register.body.error.details[0].path).toBe('name')
+  })
+
+  it('refuses a lone UTF-16 surrogate in text that is e-mailed (a withdrawal, a message) with 400 on the field, and changes nothing', async () => {
+    const f = await fileReport(t)
+    const withdraw = await request(t.app).post(`/api/track/${f.trackingToken}/withdraw`).send({ reason: 'It stopped \ud83d' })
+    expect(withdraw.status).toBe(400)
+    expect(withdraw.body.error.details).toEqual([{ path: 'reason', message: expect.stringContaining('broken character') }])
+    expect((await t.pool.query(`SELECT status FROM cases WHERE id = $1`, [f.id])).rows[0].status).toBe('received')
+    const supervisor = await signedInAgent(t.app, DEMO.supervisor)
+    const message = await supervisor.post(`/api/cases/${f.id}/notes`).send({ body: '\udc00 When can we visit?', visibility: 'complainant' })
+    expect(message.status).toBe(400)
+    expect(message.body.error.details[0].path).toBe('body')
+    // a whole emoji is fine
+    await supervisor.post(`/api/cases/${f.id}/notes`).send({ body: 'When can we visit? 📡', visibility: 'complainant' }).expect(201)
+  })
+
+  it('refuses a start date in year 0000 (no such year in PostgreSQL) with 400 on the field', async () => {
+    const res = await request(t.app).post('/api/reports').set('X-Forwarded-For', uniqueAddress()).send(validReport({ since: '0000-01-01' }))
+    expect(res.status).toBe(400)
+    expect(res.body.error.details).toEqual([{ path: 'since', message: 'Enter a date from 1900 on.' }])
+  })
+})
