@@ -17,14 +17,28 @@ export const CASE_STATE_LABELS: Record<CaseState, string> = {
   closed: 'Closed',
 }
 
-/** What the complainant reads on the tracking page: fewer, plainer steps. */
-export const COMPLAINANT_STATE_LABELS: Record<CaseState, string> = {
+/**
+ * What the complainant sees: fewer, plainer steps. The office's internal states (a finding
+ * under review, a finding sent back) never reach the complainant, not even in the API.
+ */
+export const COMPLAINANT_STEPS = ['received', 'accepted', 'engineer_assigned', 'under_investigation', 'closed'] as const
+export type ComplainantStep = (typeof COMPLAINANT_STEPS)[number]
+
+export const COMPLAINANT_STEP_OF_STATE: Record<CaseState, ComplainantStep> = {
+  received: 'received',
+  triaged: 'accepted',
+  assigned: 'engineer_assigned',
+  field_work: 'under_investigation',
+  finding_proposed: 'under_investigation',
+  returned: 'under_investigation',
+  closed: 'closed',
+}
+
+export const COMPLAINANT_STEP_LABELS: Record<ComplainantStep, string> = {
   received: 'Received — waiting to be looked at',
-  triaged: 'Accepted — waiting for an engineer',
-  assigned: 'An engineer is on your case',
-  field_work: 'Under investigation',
-  finding_proposed: 'Under investigation',
-  returned: 'Under investigation',
+  accepted: 'Accepted — waiting for an engineer',
+  engineer_assigned: 'An engineer is on your case',
+  under_investigation: 'Under investigation',
   closed: 'Closed',
 }
 

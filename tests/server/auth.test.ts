@@ -74,6 +74,13 @@ describe('sign-in', () => {
     await agent.post('/api/auth/sign-in').send({ email: DEMO.admin, password: DEMO_PASSWORD }).expect(429)
   })
 
+  it('limits registrations, reset requests and password settings per address (429 after 30 an hour)', async () => {
+    const agent = anon()
+    for (let i = 0; i < 30; i++) await agent.post('/api/auth/register').send({}).expect(400)
+    const res = await agent.post('/api/auth/set-password').send({}).expect(429)
+    expect(res.body.error.code).toBe('too_many_attempts')
+  })
+
   it('signs out: the session no longer answers /api/me', async () => {
     const agent = await signedInAgent(t.app, DEMO.supervisor)
     await agent.post('/api/auth/sign-out').expect(204)

@@ -152,7 +152,7 @@ describe('tracking links', () => {
   it('let the complainant withdraw once; a second withdrawal is 409 invalid_transition', async () => {
     const f = await fileReport(t)
     const res = await request(t.app).post(`/api/track/${f.trackingToken}/withdraw`).send({ reason: 'It stopped' }).expect(200)
-    expect(res.body.report).toMatchObject({ status: 'closed', resolution: 'withdrawn' })
+    expect(res.body.report).toMatchObject({ step: 'closed', resolution: 'withdrawn' })
     const again = await request(t.app).post(`/api/track/${f.trackingToken}/withdraw`).send({}).expect(409)
     expect(again.body.error.code).toBe('invalid_transition')
   })
@@ -186,7 +186,7 @@ describe('the complainant’s view through a whole case', () => {
     const byAccount = (await complainant.get(`/api/my/reports/${id}`).expect(200)).body.report
     expect(byAccount).toEqual(byLink)
     expect(Object.keys(byLink).sort()).toEqual(
-      ['abilities', 'address', 'closedAt', 'closingSummary', 'description', 'entries', 'freqHighHz', 'freqLowHz', 'receivedAt', 'reference', 'resolution', 'resolutionLabel', 'service', 'status', 'statusLabel'].sort(),
+      ['abilities', 'address', 'closedAt', 'closingSummary', 'description', 'entries', 'freqHighHz', 'freqLowHz', 'receivedAt', 'reference', 'resolution', 'resolutionLabel', 'service', 'statusLabel', 'step'].sort(),
     )
     const text = JSON.stringify(byLink)
     expect(text).not.toMatch(/INTERNAL-/)

@@ -5,6 +5,7 @@ import type { ServiceContext } from '../../context'
 import { HttpError } from '../../http/errors'
 import { requireUser } from '../../http/authenticate'
 import { parseWith } from '../../http/validate'
+import { perAddressLimit } from '../../http/rate-limit'
 import {
   markSignInSucceeded,
   openSignInAttempt,
@@ -12,6 +13,9 @@ import {
   requestPasswordReset,
   setPasswordWithToken,
 } from './auth.service'
+
+/** Registrations, reset requests and password settings per address per hour (common practice, no source). */
+export const ACCOUNT_REQUESTS_PER_HOUR_PER_ADDRESS = 30
 
 const invalidCredentials = () => new HttpError(401, 'invalid_credentials', 'E-mail or password is not correct.')
 
@@ -52,20 +56,23 @@ export function authRoutes(ctx: ServiceContext, p: passport.PassportStatic): Rou
     res.json({ user: req.user })
   })
 
-  r.post('/auth/register', async (req, res) => {
+  // account work without a session: each costs a password hash or an e-mail
+  const accountWork = perAddressLimit({ perHour: ACCOUNT_REQUESTS_PER_HOUR_PER_ADDRESS, code: 'too_many_attempts', message: 'Too many requests from this address. Wait a while and try again.' })
+
+  r.post('/auth/register', accountWork, async (req, res) => {
     const input = parseWith(registerSchema, req.body)
     const user = await registerComplainant(ctx, input)
     await logIn(req, user)
     res.status(201).json({ user })
   })
 
-  r.post('/auth/password-reset', async (req, res) => {
+  r.post('/auth/password-reset', accountWork, async (req, res) => {
     const { email } = parseWith(resetRequestSchema, req.body)
     await requestPasswordReset(ctx, email)
     res.status(202).json({ ok: true })
   })
 
-  r.post('/auth/set-password', async (req, res) => {
+  r.post('/auth/set-password', accountWork, async (req, res) => {
     const input = parseWith(setPasswordSchema, req.body)
     const user = await setPasswordWithToken(ctx, input.token, input.password)
     await logIn(req, user)

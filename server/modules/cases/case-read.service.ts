@@ -1,6 +1,6 @@
 /** Reading cases: the staff case page, the complainant's view, and triage helpers. */
 import { and, asc, count, desc, eq, gte, lte, ne, sql } from 'drizzle-orm'
-import { moveAllowedFrom, OPEN_STATES, type CaseState } from '../../../shared/domain/case-lifecycle'
+import { COMPLAINANT_STEP_LABELS, COMPLAINANT_STEP_OF_STATE, moveAllowedFrom, OPEN_STATES, type CaseState } from '../../../shared/domain/case-lifecycle'
 import { geodesicInverse } from '../../../shared/radio/geo'
 import type { ServiceContext } from '../../context'
 import { caseEvents, cases, offices, users, type CaseRow } from '../../db/schema'
@@ -43,7 +43,7 @@ export async function getComplainantView(ctx: ServiceContext, actor: CaseActor, 
 export async function listMyReports(ctx: ServiceContext, actor: Actor) {
   if (actor.role !== 'complainant') throw forbidden('Only complainant accounts have reports.')
   const rows = await ctx.db.select().from(cases).where(eq(cases.complainantUserId, actor.id)).orderBy(desc(cases.receivedAt))
-  return rows.map((c) => ({ id: c.id, reference: c.reference, status: c.status, service: c.service, address: c.address, freqLowHz: c.freqLowHz, freqHighHz: c.freqHighHz, receivedAt: c.receivedAt.toISOString(), closedAt: c.closedAt?.toISOString() ?? null }))
+  return rows.map((c) => ({ id: c.id, reference: c.reference, step: COMPLAINANT_STEP_OF_STATE[c.status as CaseState], statusLabel: COMPLAINANT_STEP_LABELS[COMPLAINANT_STEP_OF_STATE[c.status as CaseState]], service: c.service, address: c.address, freqLowHz: c.freqLowHz, freqHighHz: c.freqHighHz, receivedAt: c.receivedAt.toISOString(), closedAt: c.closedAt?.toISOString() ?? null }))
 }
 
 /** Distance within which an open case is suggested for merging [m] (common practice, no source). */

@@ -1,5 +1,5 @@
 /** What the browser receives about a case: staff detail, list rows, and the complainant's view. */
-import { COMPLAINANT_STATE_LABELS, CASE_STATE_LABELS, RESOLUTION_LABELS, type CaseState, type Resolution } from '../../../shared/domain/case-lifecycle'
+import { COMPLAINANT_STEP_LABELS, COMPLAINANT_STEP_OF_STATE, CASE_STATE_LABELS, RESOLUTION_LABELS, type CaseState, type Resolution } from '../../../shared/domain/case-lifecycle'
 import type { CaseRow } from '../../db/schema'
 import type { CaseAbilities } from '../../policy/case-policy'
 import { isOverdue } from './due'
@@ -70,17 +70,19 @@ export function presentComplainantView(c: CaseRow, events: TimelineEvent[], abil
       if (e.kind === 'received') return [{ at: e.at, from: 'office' as const, kind: 'status', text: 'We received your report.' }]
       return [{ at: e.at, from: e.kind === 'complainant_information' ? ('you' as const) : ('office' as const), kind: e.kind, text: e.body ?? '' }]
     }
+    // the reopening reason is e-mailed to the complainant, so their page shows it too
+    if (e.kind === 'reopen') return [{ at: e.at, from: 'office' as const, kind: 'status', text: `Your report is open again: ${e.body ?? ''}`.trim() }]
     if (e.toState && e.toState !== e.fromState && e.kind !== 'transfer') {
-      const label = COMPLAINANT_STATE_LABELS[e.toState as CaseState]
-      const prev = e.fromState ? COMPLAINANT_STATE_LABELS[e.fromState as CaseState] : null
-      if (label !== prev) return [{ at: e.at, from: 'office' as const, kind: 'status', text: `Status: ${label}` }]
+      const step = COMPLAINANT_STEP_OF_STATE[e.toState as CaseState]
+      const prev = e.fromState ? COMPLAINANT_STEP_OF_STATE[e.fromState as CaseState] : null
+      if (step !== prev) return [{ at: e.at, from: 'office' as const, kind: 'status', text: `Status: ${COMPLAINANT_STEP_LABELS[step]}` }]
     }
     return []
   })
   return {
     reference: c.reference,
-    status: c.status as CaseState,
-    statusLabel: COMPLAINANT_STATE_LABELS[c.status as CaseState],
+    step: COMPLAINANT_STEP_OF_STATE[c.status as CaseState],
+    statusLabel: COMPLAINANT_STEP_LABELS[COMPLAINANT_STEP_OF_STATE[c.status as CaseState]],
     service: c.service,
     freqLowHz: c.freqLowHz,
     freqHighHz: c.freqHighHz,

@@ -1,11 +1,11 @@
 import { Router } from 'express'
-import rateLimit from 'express-rate-limit'
 import { z } from 'zod'
 import { complainantInfoSchema, reportSchema, withdrawSchema } from '../../../shared/schemas/cases'
 import type { ServiceContext } from '../../context'
 import { actorOf, requireRole } from '../../http/authenticate'
 import { HttpError } from '../../http/errors'
 import { parseWith } from '../../http/validate'
+import { perAddressLimit } from '../../http/rate-limit'
 import { addComplainantInformation } from './case-notes.service'
 import { withdrawReport } from './case-moves.service'
 import { getComplainantView, listMyReports } from './case-read.service'
@@ -22,12 +22,10 @@ export const REPORTS_PER_HOUR_PER_ADDRESS = 10
 /** The complainant's side: filing a report, the tracking link, and a signed-in complainant's reports. */
 export function publicCaseRoutes(ctx: ServiceContext): Router {
   const r = Router()
-  const reportLimit = rateLimit({
-    windowMs: 60 * 60 * 1000,
-    limit: REPORTS_PER_HOUR_PER_ADDRESS,
-    standardHeaders: 'draft-8',
-    legacyHeaders: false,
-    handler: (_req, _res, next) => next(new HttpError(429, 'too_many_reports', 'Too many reports from this address. Try again later, or call your regional office.')),
+  const reportLimit = perAddressLimit({
+    perHour: REPORTS_PER_HOUR_PER_ADDRESS,
+    code: 'too_many_reports',
+    message: 'Too many reports from this address. Try again later, or call your regional office.',
   })
 
   r.post('/reports', reportLimit, async (req, res) => {

@@ -3,7 +3,7 @@
  * signed-in complainant): the same plain view of one report either way.
  */
 import { queryOptions, useQuery } from '@tanstack/react-query'
-import type { CaseState } from '../../../../../shared/domain/case-lifecycle'
+import type { ComplainantStep } from '../../../../../shared/domain/case-lifecycle'
 import { api } from '../../../lib/api-client'
 
 /** How the complainant reaches the report: the e-mailed link, or their account. */
@@ -19,7 +19,8 @@ export interface ComplainantEntry {
 
 export interface ComplainantReport {
   reference: string
-  status: CaseState
+  /** Where the report stands, in the complainant's steps (the office's own states are not sent). */
+  step: ComplainantStep
   statusLabel: string
   service: string
   freqLowHz: number

@@ -1,12 +1,13 @@
 /** GET /api/my/reports — a signed-in complainant's reports, newest first. */
 import { queryOptions, useQuery } from '@tanstack/react-query'
-import type { CaseState } from '../../../../../shared/domain/case-lifecycle'
+import type { ComplainantStep } from '../../../../../shared/domain/case-lifecycle'
 import { api } from '../../../lib/api-client'
 
 export interface MyReportRow {
   id: string
   reference: string
-  status: CaseState
+  step: ComplainantStep
+  statusLabel: string
   service: string
   address: string
   freqLowHz: number

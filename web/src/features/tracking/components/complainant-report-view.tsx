@@ -16,7 +16,7 @@ import { WithdrawPanel } from './withdraw-panel'
 
 export function ComplainantReportView({ source, report }: { source: ReportSource; report: ComplainantReport }) {
   const outcomeRef = useRef<HTMLHeadingElement>(null)
-  const closed = report.status === 'closed'
+  const closed = report.step === 'closed'
   return (
     <div className="flex flex-col gap-6">
       {closed && (
@@ -37,7 +37,7 @@ export function ComplainantReportView({ source, report }: { source: ReportSource
         <p className="mb-4 text-lg" role="status">
           {report.statusLabel}
         </p>
-        <StatusSteps status={report.status} />
+        <StatusSteps step={report.step} />
       </Panel>
 
       <Panel label="What you reported">

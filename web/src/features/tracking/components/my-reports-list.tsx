@@ -1,7 +1,6 @@
 /** A signed-in complainant's reports: reference (a link), where it stands, when it arrived. */
 import { format, parseISO } from 'date-fns'
 import { Link } from 'react-router-dom'
-import { COMPLAINANT_STATE_LABELS } from '../../../../../shared/domain/case-lifecycle'
 import { TableFrame } from '../../../components/ui/table'
 import type { MyReportRow } from '../api/get-my-reports'
 
@@ -26,7 +25,7 @@ export function MyReportsList({ reports }: { reports: MyReportRow[] }) {
               {r.reference}
             </Link>
           </td>
-          <td className="px-4 py-3">{COMPLAINANT_STATE_LABELS[r.status] ?? r.status}</td>
+          <td className="px-4 py-3">{r.statusLabel}</td>
           <td className="px-4 py-3">{r.address}</td>
           <td className="px-4 py-3 whitespace-nowrap">
             <time dateTime={r.receivedAt}>{format(parseISO(r.receivedAt), 'd MMM yyyy')}</time>

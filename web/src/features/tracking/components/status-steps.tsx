@@ -4,9 +4,9 @@
  */
 import { COMPLAINANT_STEPS, stepIndexFor } from '../lib/steps'
 
-export function StatusSteps({ status }: { status: string }) {
-  const current = stepIndexFor(status)
-  const finished = status === 'closed'
+export function StatusSteps({ step }: { step: string }) {
+  const current = stepIndexFor(step)
+  const finished = step === 'closed'
   return (
     <ol aria-label="Progress of your report" className="flex flex-col gap-0 sm:flex-row sm:gap-0">
       {COMPLAINANT_STEPS.map((label, i) => {

@@ -1,19 +1,18 @@
-/** The complainant's plain steps and where a case stands among them. */
-import type { CaseState } from '../../../../../shared/domain/case-lifecycle'
+/** The complainant's plain steps (the server sends which one a report is at) and their short names. */
+import { COMPLAINANT_STEPS as STEP_KEYS, type ComplainantStep } from '../../../../../shared/domain/case-lifecycle'
 
-export const COMPLAINANT_STEPS = ['Received', 'Accepted', 'Engineer on it', 'Under investigation', 'Closed'] as const
-
-const STEP_OF_STATE: Record<CaseState, number> = {
-  received: 0,
-  triaged: 1,
-  assigned: 2,
-  field_work: 3,
-  finding_proposed: 3,
-  returned: 3,
-  closed: 4,
+const SHORT_NAMES: Record<ComplainantStep, string> = {
+  received: 'Received',
+  accepted: 'Accepted',
+  engineer_assigned: 'Engineer on it',
+  under_investigation: 'Under investigation',
+  closed: 'Closed',
 }
 
-/** Index of the current step (0 = received … 4 = closed); unknown states read as received. */
-export function stepIndexFor(status: string): number {
-  return STEP_OF_STATE[status as CaseState] ?? 0
+/** The five steps' names, in order. */
+export const COMPLAINANT_STEPS = STEP_KEYS.map((k) => SHORT_NAMES[k])
+
+/** Index of a step (0 = received … 4 = closed); an unknown value reads as received. */
+export function stepIndexFor(step: string): number {
+  return Math.max(0, (STEP_KEYS as readonly string[]).indexOf(step))
 }
