@@ -115,6 +115,22 @@ describe('reopening a report closed at triage', () => {
   })
 })
 
+describe('reopening after the investigator has left', () => {
+  it('returns the case to triage without them', async () => {
+    const email = `leaving.investigator.${Date.now()}@quietband.test`
+    const leaverId = await createStaff(t.pool, { email, name: 'Noor Atherley', role: 'investigator', officeName: 'Harrowmere' })
+    const leaver = await signedInAgent(t.app, email)
+    const f = await fileReport(t)
+    expect((await act(supervisor, f.id, 'assign', { investigatorId: leaverId })).status).toBe(200)
+    expect((await act(leaver, f.id, 'propose-finding', { reason: 'Nothing found on three visits.' })).status).toBe(200)
+    expect((await act(supervisor, f.id, 'close', { resolution: 'no_interference_found', reason: 'We measured three times and found nothing.' })).status).toBe(200)
+    await admin.patch(`/api/admin/users/${leaverId}`).send({ active: false }).expect(200)
+    const res = await act(supervisor, f.id, 'reopen', { reason: 'It is back every evening.' })
+    expect(res.status).toBe(200)
+    expect(res.body.case).toMatchObject({ status: 'triaged', investigatorId: null })
+  })
+})
+
 describe('moves refused', () => {
   it.each([
     ['triage', { priority: 1 }],

@@ -90,7 +90,8 @@ async function makeMove(
     }
     const p = await plan(scope)
     // only reopening depends on the investigator: back to them, or to triage without one
-    const to = stateAfter(move, c.investigatorId !== null)
+    const investigatorAfter = p.changes && 'investigatorId' in p.changes ? p.changes.investigatorId : c.investigatorId
+    const to = stateAfter(move, investigatorAfter != null)
     const updated = await updateCaseIfVersion(db, c.id, expected, { ...p.changes, status: to })
     if (!updated) throw staleVersion()
     await appendEvent(db, {
@@ -228,11 +229,16 @@ export function closeCase(ctx: ServiceContext, actor: CaseActor, caseId: string,
 
 /** Returns a closed case to work (to its investigator, or to triage) and tells the complainant. */
 export function reopenCase(ctx: ServiceContext, actor: CaseActor, caseId: string, input: { version: number; reason: string }) {
-  return makeMove(ctx, actor, caseId, 'reopen', input.version, async ({ mail, trackingLink }) => ({
-    changes: { resolution: null, closingSummary: null, closedAt: null, mergedIntoCaseId: null },
-    body: input.reason,
-    after: async (u) => mail(caseReopenedMail(u, input.reason, await trackingLink())),
-  }))
+  return makeMove(ctx, actor, caseId, 'reopen', input.version, async ({ c, db, mail, trackingLink }) => {
+    // an investigator who has left since goes off the case, which then returns to triage
+    const investigator = c.investigatorId ? await userName(db, c.investigatorId) : undefined
+    const keepInvestigator = !!investigator?.active
+    return {
+      changes: { resolution: null, closingSummary: null, closedAt: null, mergedIntoCaseId: null, ...(keepInvestigator ? {} : { investigatorId: null }) },
+      body: input.reason,
+      after: async (u) => mail(caseReopenedMail(u, input.reason, await trackingLink())),
+    }
+  })
 }
 
 /** The complainant withdraws their report (through their account or their tracking link). */
