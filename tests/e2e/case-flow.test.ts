@@ -85,8 +85,12 @@ describe('a report from the public to its closing', () => {
     const { page: sup } = await newPage(browser)
     await signIn(sup, DEMO.supervisor)
     await sup.getByRole('link', { name: 'Office queue' }).click()
+    await sup.getByRole('heading', { level: 1, name: 'Office queue' }).waitFor(T)
+    // other test files file reports into the same office at the same time, so the report is
+    // looked up among the office's new reports rather than on the queue's first screen
+    await sup.goto(`${web.baseUrl}/cases?status=received&q=${reference}`)
     await sup.getByRole('link', { name: reference }).first().waitFor(T)
-    await screenshot(sup, 'flow-3-office-queue')
+    await screenshot(sup, 'flow-3-new-reports')
     await openCase(sup, reference)
     await sup.getByLabel('Priority', { exact: true }).selectOption('2')
     await sup.getByRole('button', { name: 'Set priority' }).click()
@@ -100,6 +104,9 @@ describe('a report from the public to its closing', () => {
     const { page: inv } = await newPage(browser)
     await signIn(inv, DEMO.investigator)
     await inv.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'My cases' }).click()
+    await inv.getByRole('heading', { level: 1, name: 'My cases' }).waitFor(T)
+    // "My cases" as a full list (the investigator's open cases), narrowed to this report
+    await inv.goto(`${web.baseUrl}/cases?investigatorId=me&open=true&q=${reference}`)
     await inv.getByRole('link', { name: reference }).first().waitFor(T)
     await screenshot(inv, 'flow-5-my-cases')
     await inv.getByRole('link', { name: reference }).first().click()
