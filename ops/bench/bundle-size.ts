@@ -19,7 +19,7 @@ import os from 'node:os'
 import path from 'node:path'
 import { fileURLToPath } from 'node:url'
 import { gzipSync } from 'node:zlib'
-import { argValue, machineInfo, machineLine } from './support'
+import { argValue, machineInfo, machineLine, reportResult } from './support'
 
 const ROOT = fileURLToPath(new URL('../..', import.meta.url))
 const TARGET_KB = 200
@@ -135,12 +135,7 @@ function main(): void {
           ]
         : ['(No manifest in this build: per-page chunks not listed. Run without --dist to build with one.)', '']),
     ].join('\n')
-    if (out) {
-      fs.mkdirSync(path.dirname(out), { recursive: true })
-      fs.writeFileSync(out, md)
-      console.log(`wrote ${out}`)
-    }
-    console.log(md)
+    reportResult(md, out)
     process.exitCode = totalGzip / 1000 <= TARGET_KB ? 0 : 1
   } finally {
     built?.cleanup()

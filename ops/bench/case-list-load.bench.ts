@@ -10,12 +10,11 @@
  * Target: 0 errors and 0 non-2xx answers. Reports requests/s and latency p50/p97.5/p99.
  */
 import { spawn } from 'node:child_process'
-import fs from 'node:fs'
 import path from 'node:path'
 import { fileURLToPath } from 'node:url'
 import autocannon from 'autocannon'
 import pg from 'pg'
-import { argValue, loadAverage, machineInfo, machineLine, postgresVersion, signIn } from './support'
+import { argValue, loadAverage, machineInfo, machineLine, postgresVersion, reportResult, signIn } from './support'
 
 const databaseUrl = argValue('--database-url', process.env.DATABASE_URL)
 if (!databaseUrl) {
@@ -111,12 +110,7 @@ async function main(): Promise<void> {
         .join(', ')}.`,
       '',
     ].join('\n')
-    if (out) {
-      fs.mkdirSync(path.dirname(out), { recursive: true })
-      fs.writeFileSync(out, md)
-      console.log(`wrote ${out}`)
-    }
-    console.log(md)
+    reportResult(md, out)
     process.exitCode = r.errors === 0 && r.non2xx === 0 ? 0 : 1
   } finally {
     const code = await server.stop()

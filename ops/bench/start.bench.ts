@@ -18,11 +18,11 @@
  */
 import { execFileSync, spawn } from 'node:child_process'
 import fs from 'node:fs'
-import net from 'node:net'
 import os from 'node:os'
 import path from 'node:path'
 import { fileURLToPath } from 'node:url'
-import { argValue, loadAverage, machineInfo, machineLine, percentile } from './support'
+import { argValue, loadAverage, machineInfo, machineLine, percentile, reportResult } from './support'
+import { freePort } from '../local/free-port'
 
 const ROOT = fileURLToPath(new URL('../..', import.meta.url))
 const runs = Number(argValue('--runs', '3'))
@@ -32,17 +32,6 @@ const TARGET_S = 10
 const SKIP_TOP = new Set(['node_modules', '.local', 'dist', 'test-results', 'playwright-report', 'coverage', '.pgdata', '.git'])
 
 type Scenario = 'first' | 'stopped' | 'cold' | 'warm'
-
-async function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const s = net.createServer()
-    s.once('error', reject)
-    s.listen(0, '127.0.0.1', () => {
-      const port = (s.address() as net.AddressInfo).port
-      s.close(() => resolve(port))
-    })
-  })
-}
 
 /** An installed copy of the project: sources plus node_modules, without local state. */
 function makeCopy(): { base: string; dir: string } {
@@ -192,12 +181,7 @@ async function main(): Promise<void> {
     ...rows,
     '',
   ].join('\n')
-  if (out) {
-    fs.mkdirSync(path.dirname(out), { recursive: true })
-    fs.writeFileSync(out, md)
-    console.log(`wrote ${out}`)
-  }
-  console.log(md)
+  reportResult(md, out)
 }
 
 await main()

@@ -6,7 +6,9 @@
 import { execFileSync } from 'node:child_process'
 import type { AddressInfo } from 'node:net'
 import type { Server } from 'node:http'
+import fs from 'node:fs'
 import os from 'node:os'
+import path from 'node:path'
 import pg from 'pg'
 import PgBoss from 'pg-boss'
 import { createApp } from '../../server/app'
@@ -145,4 +147,14 @@ export function argValue(name: string, fallback?: string): string | undefined {
   const argv = process.argv.slice(2)
   const i = argv.indexOf(name)
   return i >= 0 && argv[i + 1] !== undefined ? argv[i + 1] : fallback
+}
+
+/** Prints a result table, and writes it to `out` when given (the results/ files). */
+export function reportResult(md: string, out: string | undefined): void {
+  if (out) {
+    fs.mkdirSync(path.dirname(out), { recursive: true })
+    fs.writeFileSync(out, md)
+    console.log(`wrote ${out}`)
+  }
+  console.log(md)
 }

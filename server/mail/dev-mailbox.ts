@@ -1,17 +1,9 @@
 import fs from 'node:fs/promises'
 import path from 'node:path'
+import type { MailboxMessage } from '../../shared/schemas/views'
 
 /** A message as the local SMTP fake keeps it (<id>.json beside <id>.eml). */
-export interface StoredMessage {
-  id: string
-  from: string
-  to: string[]
-  subject: string
-  date: string
-  text: string
-  html: string | null
-  messageId: string | null
-}
+export type StoredMessage = MailboxMessage
 
 /** Messages kept by the local SMTP fake in `dir`, newest first. */
 export async function readMailbox(dir: string): Promise<StoredMessage[]> {

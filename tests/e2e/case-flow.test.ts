@@ -5,36 +5,24 @@
  * supervisor approves and closes → the complainant's tracking page shows the closure and the
  * closing e-mail arrives.
  */
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import type { Browser, Page } from 'playwright-core'
-import { DEMO, DEMO_PASSWORD } from '../support/harness'
-import { launchBrowser, newPage, screenshot } from '../support/browser'
-import { startWebServer, type RunningWeb } from '../support/web-server'
+import { describe, expect, it } from 'vitest'
+import type { Page } from 'playwright-core'
+import { DEMO } from '../support/harness'
+import { newPage, screenshot } from '../support/browser'
+import { runningApp, submitSignIn } from '../support/e2e'
 import { readMailbox } from '../../server/mail/dev-mailbox'
 
-let web: RunningWeb
-let browser: Browser
-beforeAll(async () => {
-  web = await startWebServer()
-  browser = await launchBrowser()
-})
-afterAll(async () => {
-  await browser?.close()
-  await web?.close()
-})
+const app = runningApp()
 
 const T = { timeout: 20_000 }
 
 async function signIn(page: Page, email: string) {
-  await page.goto(`${web.baseUrl}/sign-in`)
-  await page.getByLabel('E-mail').fill(email)
-  await page.getByLabel('Password').fill(DEMO_PASSWORD)
-  await page.getByRole('button', { name: 'Sign in' }).click()
+  await submitSignIn(page, app.web.baseUrl, email)
   await page.getByRole('region', { name: 'Account' }).waitFor(T)
 }
 
 async function openCase(page: Page, reference: string) {
-  await page.goto(`${web.baseUrl}/cases?q=${reference}`)
+  await page.goto(`${app.web.baseUrl}/cases?q=${reference}`)
   await page.getByRole('link', { name: reference }).first().click()
   await page.getByRole('heading', { level: 1, name: reference }).waitFor(T)
 }
@@ -43,7 +31,7 @@ async function openCase(page: Page, reference: string) {
 async function mailboxShows(page: Page, subject: RegExp) {
   await expect
     .poll(async () => {
-      await page.goto(`${web.baseUrl}/dev/mailbox`)
+      await page.goto(`${app.web.baseUrl}/dev/mailbox`)
       await page.waitForLoadState('networkidle')
       return subject.test(await page.locator('main').innerText())
     }, { timeout: 30_000, interval: 1000 })
@@ -56,8 +44,8 @@ describe('a report from the public to its closing', () => {
     const email = `flow-${stamp}@example.test`
 
     // 1. the public files a report
-    const { page: pub, errors } = await newPage(browser)
-    await pub.goto(`${web.baseUrl}/report`)
+    const { page: pub, errors } = await newPage(app.browser)
+    await pub.goto(`${app.web.baseUrl}/report`)
     await pub.getByLabel('Your name').fill('Wren Calloway')
     await pub.getByLabel('E-mail').fill(email)
     await pub.getByLabel('Affected service').selectOption('mobile_network')
@@ -78,17 +66,17 @@ describe('a report from the public to its closing', () => {
     // 2. the confirmation e-mail arrives in the development mailbox, with the tracking link
     await mailboxShows(pub, new RegExp(`\\[${reference}\\] We have received your interference report`))
     await screenshot(pub, 'flow-2-mailbox')
-    const received = (await readMailbox(web.mailboxDir)).find((m) => m.to.includes(email) && m.subject.includes('received'))!
+    const received = (await readMailbox(app.web.mailboxDir)).find((m) => m.to.includes(email) && m.subject.includes('received'))!
     const trackingUrl = /https?:\/\/\S+\/track\/[A-Za-z0-9_-]+/.exec(received.text)![0]
 
     // 3. the supervisor triages and assigns
-    const { page: sup } = await newPage(browser)
+    const { page: sup } = await newPage(app.browser)
     await signIn(sup, DEMO.supervisor)
     await sup.getByRole('link', { name: 'Office queue' }).click()
     await sup.getByRole('heading', { level: 1, name: 'Office queue' }).waitFor(T)
     // other test files file reports into the same office at the same time, so the report is
     // looked up among the office's new reports rather than on the queue's first screen
-    await sup.goto(`${web.baseUrl}/cases?status=received&q=${reference}`)
+    await sup.goto(`${app.web.baseUrl}/cases?status=received&q=${reference}`)
     await sup.getByRole('link', { name: reference }).first().waitFor(T)
     await screenshot(sup, 'flow-3-new-reports')
     await openCase(sup, reference)
@@ -101,12 +89,12 @@ describe('a report from the public to its closing', () => {
     await screenshot(sup, 'flow-4-assigned')
 
     // 4. the investigator sees it in "My cases", starts field work and proposes a finding
-    const { page: inv } = await newPage(browser)
+    const { page: inv } = await newPage(app.browser)
     await signIn(inv, DEMO.investigator)
     await inv.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'My cases' }).click()
     await inv.getByRole('heading', { level: 1, name: 'My cases' }).waitFor(T)
     // "My cases" as a full list (the investigator's open cases), narrowed to this report
-    await inv.goto(`${web.baseUrl}/cases?investigatorId=me&open=true&q=${reference}`)
+    await inv.goto(`${app.web.baseUrl}/cases?investigatorId=me&open=true&q=${reference}`)
     await inv.getByRole('link', { name: reference }).first().waitFor(T)
     await screenshot(inv, 'flow-5-my-cases')
     await inv.getByRole('link', { name: reference }).first().click()
@@ -125,7 +113,7 @@ describe('a report from the public to its closing', () => {
     await screenshot(sup, 'flow-6-closed')
 
     // 6. the complainant's tracking page shows the closure, and the closing e-mail arrives
-    const { page: comp } = await newPage(browser)
+    const { page: comp } = await newPage(app.browser)
     await comp.goto(trackingUrl)
     await comp.getByRole('heading', { name: 'Closed: Source found and corrected' }).waitFor(T)
     expect(await comp.locator('main').innerText()).toContain('Its owner has switched it off')

@@ -1,28 +1,15 @@
 /** In Chromium: a supervisor changes the office's response targets from the office queue. */
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import type { Browser } from 'playwright-core'
-import { DEMO, DEMO_PASSWORD } from '../support/harness'
-import { launchBrowser, newPage, screenshot } from '../support/browser'
-import { startWebServer, type RunningWeb } from '../support/web-server'
+import { describe, expect, it } from 'vitest'
+import { DEMO } from '../support/harness'
+import { newPage, screenshot } from '../support/browser'
+import { runningApp, submitSignIn } from '../support/e2e'
 
-let web: RunningWeb
-let browser: Browser
-beforeAll(async () => {
-  web = await startWebServer()
-  browser = await launchBrowser()
-})
-afterAll(async () => {
-  await browser?.close()
-  await web?.close()
-})
+const app = runningApp()
 
 describe('response targets', () => {
   it('a supervisor changes them, and the office keeps the new figures', async () => {
-    const { page, errors } = await newPage(browser)
-    await page.goto(`${web.baseUrl}/sign-in`)
-    await page.getByLabel('E-mail').fill(DEMO.otherSupervisor) // Kestrel Bay, so no other test's figures move
-    await page.getByLabel('Password').fill(DEMO_PASSWORD)
-    await page.getByRole('button', { name: 'Sign in' }).click()
+    const { page, errors } = await newPage(app.browser)
+    await submitSignIn(page, app.web.baseUrl, DEMO.otherSupervisor) // Kestrel Bay, so no other test's figures move
     const form = page.getByRole('form', { name: 'Response targets of Kestrel Bay' })
     await form.waitFor({ timeout: 20_000 })
     const p4 = form.getByLabel(/^P4 .*\(hours\)$/)

@@ -5,26 +5,15 @@
  */
 import { execFileSync } from 'node:child_process'
 import fs from 'node:fs'
-import net from 'node:net'
 import os from 'node:os'
 import path from 'node:path'
 import { fileURLToPath } from 'node:url'
 import type { TestProject } from 'vitest/node'
 import { createPool, runMigrations } from '../../server/db/client'
 import { seedDemo } from '../../ops/seed-demo'
+import { freePort } from '../../ops/local/free-port'
 
 const dbScript = fileURLToPath(new URL('../../ops/db.sh', import.meta.url))
-
-async function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const s = net.createServer()
-    s.once('error', reject)
-    s.listen(0, '127.0.0.1', () => {
-      const port = (s.address() as net.AddressInfo).port
-      s.close(() => resolve(port))
-    })
-  })
-}
 
 export default async function setup(project: TestProject) {
   if (process.env.TEST_DATABASE_URL) {

@@ -62,10 +62,15 @@ export async function createTestContext(opts: { mailboxDir?: string; publicUrl?:
 }
 
 let addressCounter = 0
-/** A distinct client address per agent, so sign-in limits of one test never touch another. */
+/**
+ * A distinct client address per agent, so the per-address limits of one test never touch
+ * another, also across the test files' processes: the middle octets carry this process's id,
+ * the outer ones a counter (up to about 60,000 agents per file).
+ */
 export function uniqueAddress(): string {
   addressCounter += 1
-  return `10.${process.pid % 250}.${Math.floor(addressCounter / 250)}.${addressCounter % 250}`
+  const pid = process.pid % 65536
+  return `${10 + (addressCounter >> 8)}.${pid >> 8}.${pid & 255}.${addressCounter & 255}`
 }
 
 /** A supertest agent signed in as the given e-mail (demo password by default). */

@@ -5,7 +5,6 @@
 import fs from 'node:fs'
 import os from 'node:os'
 import path from 'node:path'
-import type { AddressInfo } from 'node:net'
 import type { Server } from 'node:http'
 import { fileURLToPath } from 'node:url'
 import { inject } from 'vitest'
@@ -15,6 +14,7 @@ import { createPool } from '../../server/db/client'
 import { startBoss, startMailWorker } from '../../server/jobs/boss'
 import { createMailer } from '../../server/mail/mailer'
 import { startSmtpFake } from '../../ops/local/smtp-fake'
+import { freePort } from '../../ops/local/free-port'
 
 export const WEB_DIST = fileURLToPath(new URL('../../dist/web', import.meta.url))
 
@@ -34,10 +34,8 @@ export async function startWebServer(): Promise<RunningWeb> {
   const boss = await startBoss(databaseUrl, { mailQueueName })
   const mailer = createMailer({ smtpUrl: smtp.url, from: 'Quietband <no-reply@quietband.test>' })
   await startMailWorker(boss, mailer, { pollingIntervalSeconds: 0.5, queueName: mailQueueName })
-  // the public URL must be known before listening (e-mailed links, origin checks): reserve a port first
-  const probe = (await import('node:net')).createServer()
-  const port: number = await new Promise((r) => probe.listen(0, '127.0.0.1', () => r((probe.address() as AddressInfo).port)))
-  await new Promise((r) => probe.close(r))
+  // the public URL must be known before listening (e-mailed links, origin checks): pick the port first
+  const port = await freePort()
   const baseUrl = `http://127.0.0.1:${port}`
   const handle = createApp({ pool, boss, sessionSecret: 'e2e-session-secret-long-enough-0123456789', publicUrl: baseUrl, staticDir: WEB_DIST, mailboxDir, mailQueue: { queueName: mailQueueName, retryDelaySeconds: 1, retryLimit: 10 } })
   const server: Server = await new Promise((resolve, reject) => {

@@ -5,6 +5,7 @@
 import { and, asc, count, desc, eq, gte, inArray, isNull, lt, lte, ne, sql, type SQL } from 'drizzle-orm'
 import { CASE_STATE_LABELS, type CaseState } from '../../../shared/domain/case-lifecycle'
 import type { CaseListQuery } from '../../../shared/schemas/cases'
+import type { CasePage, PriorityLevel } from '../../../shared/schemas/views'
 import type { ServiceContext } from '../../context'
 import { cases, offices, users } from '../../db/schema'
 import { forbidden } from '../../http/errors'
@@ -68,7 +69,7 @@ function orderBy(q: CaseListQuery) {
   return [...SORT_COLUMNS[q.sort].map((c) => dir(c)), dir(cases.id)]
 }
 
-export async function listCases(ctx: ServiceContext, actor: Actor, q: CaseListQuery) {
+export async function listCases(ctx: ServiceContext, actor: Actor, q: CaseListQuery): Promise<CasePage> {
   const where = and(...filters(actor, q))
   // Deferred join: the page's ids come from cases alone (an index-only scan in the sort's
   // order, see the cases_list_*_idx indexes), and only those rows are joined and read. A deep
@@ -95,6 +96,8 @@ export async function listCases(ctx: ServiceContext, actor: Actor, q: CaseListQu
   return {
     items: rows.map((r) => ({
       ...r,
+      status: r.status as CaseState,
+      priority: r.priority as PriorityLevel,
       statusLabel: CASE_STATE_LABELS[r.status as CaseState],
       receivedAt: r.receivedAt.toISOString(),
       dueAt: r.dueAt.toISOString(),

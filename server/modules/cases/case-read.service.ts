@@ -8,7 +8,8 @@ import { caseAbilities, type CaseActor } from '../../policy/case-policy'
 import type { Actor } from '../../policy/policy'
 import { forbidden } from '../../http/errors'
 import { loadVisibleCase } from './case-moves.service'
-import { presentCaseDetail, presentComplainantView, toTimelineEvent, type TimelineEvent } from './cases.present'
+import { presentCaseDetail, presentComplainantView, toTimelineEvent } from './cases.present'
+import type { InvestigatorLoad, MergeCandidate, MyReportRow, TimelineEvent, TransferOffice } from '../../../shared/schemas/views'
 
 async function timeline(ctx: ServiceContext, caseId: string): Promise<TimelineEvent[]> {
   const rows = await ctx.db.select().from(caseEvents).where(eq(caseEvents.caseId, caseId)).orderBy(asc(caseEvents.id))
@@ -40,7 +41,7 @@ export async function getComplainantView(ctx: ServiceContext, actor: CaseActor, 
 }
 
 /** A signed-in complainant's reports, newest first. */
-export async function listMyReports(ctx: ServiceContext, actor: Actor) {
+export async function listMyReports(ctx: ServiceContext, actor: Actor): Promise<MyReportRow[]> {
   if (actor.role !== 'complainant') throw forbidden('Only complainant accounts have reports.')
   const rows = await ctx.db.select().from(cases).where(eq(cases.complainantUserId, actor.id)).orderBy(desc(cases.receivedAt))
   return rows.map((c) => ({ id: c.id, reference: c.reference, step: COMPLAINANT_STEP_OF_STATE[c.status as CaseState], statusLabel: COMPLAINANT_STEP_LABELS[COMPLAINANT_STEP_OF_STATE[c.status as CaseState]], service: c.service, address: c.address, freqLowHz: c.freqLowHz, freqHighHz: c.freqHighHz, receivedAt: c.receivedAt.toISOString(), closedAt: c.closedAt?.toISOString() ?? null }))
@@ -53,7 +54,7 @@ export const MERGE_RADIUS_M = 5_000
  * Open cases of the same office worth merging a report into: overlapping frequency range and
  * within a few km (geodesic), nearest first.
  */
-export async function mergeCandidates(ctx: ServiceContext, actor: Actor, caseId: string) {
+export async function mergeCandidates(ctx: ServiceContext, actor: Actor, caseId: string): Promise<MergeCandidate[]> {
   const c = await loadVisibleCase(ctx.db, actor, caseId)
   if (!moveAllowedFrom('merge', c.status as CaseState)) return []
   // coarse box first (1° latitude ≈ 111 km), then the exact geodesic distance
@@ -83,7 +84,7 @@ export async function mergeCandidates(ctx: ServiceContext, actor: Actor, caseId:
 }
 
 /** Active investigators of the case's office with their open workload, lightest first. */
-export async function investigatorsForCase(ctx: ServiceContext, actor: Actor, caseId: string) {
+export async function investigatorsForCase(ctx: ServiceContext, actor: Actor, caseId: string): Promise<InvestigatorLoad[]> {
   const c: CaseRow = await loadVisibleCase(ctx.db, actor, caseId)
   const open = sql`${cases.status} in (${sql.join(OPEN_STATES.map((s) => sql`${s}`), sql`, `)})`
   const rows = await ctx.db
@@ -97,7 +98,7 @@ export async function investigatorsForCase(ctx: ServiceContext, actor: Actor, ca
 }
 
 /** Offices a case may be transferred to, nearest to the report's location first. */
-export async function transferOffices(ctx: ServiceContext, actor: Actor, caseId: string) {
+export async function transferOffices(ctx: ServiceContext, actor: Actor, caseId: string): Promise<TransferOffice[]> {
   const c = await loadVisibleCase(ctx.db, actor, caseId)
   const rows = await ctx.db.select({ id: offices.id, name: offices.name, latDeg: offices.centreLatDeg, lonDeg: offices.centreLonDeg }).from(offices).where(ne(offices.id, c.officeId))
   return rows

@@ -2,33 +2,23 @@
 import { COMPLAINANT_STEP_LABELS, COMPLAINANT_STEP_OF_STATE, CASE_STATE_LABELS, RESOLUTION_LABELS, type CaseState, type Resolution } from '../../../shared/domain/case-lifecycle'
 import type { CaseRow } from '../../db/schema'
 import type { CaseAbilities } from '../../policy/case-policy'
+import type { CaseDetail, ComplainantReport, PriorityLevel, TimelineEvent } from '../../../shared/schemas/views'
 import { isOverdue } from './due'
 
-export interface TimelineEvent {
-  id: number
-  at: string
-  actor: string
-  kind: string
-  fromState: string | null
-  toState: string | null
-  body: string | null
-  visibility: 'internal' | 'complainant'
-  data: Record<string, unknown> | null
-}
 
 export function presentCaseDetail(
   c: CaseRow,
   extra: { officeName: string; investigatorName: string | null; mergedIntoReference: string | null; abilities: CaseAbilities; timeline: TimelineEvent[] },
   now: Date,
-) {
+): CaseDetail {
   return {
     id: c.id,
     reference: c.reference,
     version: c.version,
     status: c.status as CaseState,
     statusLabel: CASE_STATE_LABELS[c.status as CaseState],
-    priority: c.priority,
-    suggestedPriority: c.suggestedPriority,
+    priority: c.priority as PriorityLevel,
+    suggestedPriority: c.suggestedPriority as PriorityLevel,
     service: c.service,
     licenceRef: c.licenceRef,
     freqLowHz: c.freqLowHz,
@@ -64,7 +54,7 @@ export function presentCaseDetail(
  * The complainant's view: their report, the status in plain steps, the messages meant for
  * them and their own additions. Internal notes and staff names never appear.
  */
-export function presentComplainantView(c: CaseRow, events: TimelineEvent[], abilities: { withdraw: boolean; addInformation: boolean }) {
+export function presentComplainantView(c: CaseRow, events: TimelineEvent[], abilities: { withdraw: boolean; addInformation: boolean }): ComplainantReport {
   const entries = events.flatMap((e) => {
     if (e.visibility === 'complainant') {
       if (e.kind === 'received') return [{ at: e.at, from: 'office' as const, kind: 'status', text: 'We received your report.' }]

@@ -4,17 +4,7 @@ import type { ServiceContext } from '../../context'
 import { offices, type Office } from '../../db/schema'
 import { forbidden, notFound } from '../../http/errors'
 import { can, officeScope, type Actor } from '../../policy/policy'
-
-export interface OfficeView {
-  id: string
-  name: string
-  regionName: string
-  centreLatDeg: number
-  centreLonDeg: number
-  responseTargetsHours: { p1: number; p2: number; p3: number; p4: number }
-  /** What the viewer may do with this office (computed by the policy). */
-  abilities: { setResponseTargets: boolean }
-}
+import type { OfficeView } from '../../../shared/schemas/views'
 
 export function presentOffice(o: Office, actor: Actor): OfficeView {
   return {

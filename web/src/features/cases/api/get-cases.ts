@@ -1,36 +1,9 @@
 /** GET /api/cases — one page of the case list, filtered and sorted on the server. */
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query'
-import type { CaseState } from '../../../../../shared/domain/case-lifecycle'
 import { api } from '../../../lib/api-client'
 import { apiQueryFromListState, type CaseListState } from '../lib/list-state'
-
-export interface CaseListItem {
-  id: string
-  reference: string
-  status: CaseState
-  statusLabel: string
-  priority: 1 | 2 | 3 | 4
-  service: string
-  freqLowHz: number
-  freqHighHz: number
-  address: string
-  officeId: string
-  officeName: string
-  investigatorId: string | null
-  investigatorName: string | null
-  complainantName: string
-  receivedAt: string
-  dueAt: string
-  closedAt: string | null
-  overdue: boolean
-}
-
-export interface CasePage {
-  items: CaseListItem[]
-  total: number
-  page: number
-  pageSize: number
-}
+import type { CaseListItem, CasePage } from '../../../../../shared/schemas/views'
+export type { CaseListItem, CasePage }
 
 export const getCases = (state: CaseListState, signal?: AbortSignal) => api.get<CasePage>(`/api/cases?${apiQueryFromListState(state)}`, signal)
 

@@ -1,12 +1,8 @@
 /** GET /api/cases/:id/investigators — the office's active investigators with their open cases, lightest first. */
 import { queryOptions, useQuery } from '@tanstack/react-query'
 import { api } from '../../../lib/api-client'
-
-export interface InvestigatorLoad {
-  id: string
-  name: string
-  openCases: number
-}
+import type { InvestigatorLoad } from '../../../../../shared/schemas/views'
+export type { InvestigatorLoad }
 
 export const getInvestigators = (caseId: string, signal?: AbortSignal) =>
   api.get<{ investigators: InvestigatorLoad[] }>(`/api/cases/${encodeURIComponent(caseId)}/investigators`, signal).then((r) => r.investigators)

@@ -1,18 +1,8 @@
 /** GET /api/cases/:id/merge-candidates — nearby open cases on an overlapping frequency, nearest first. */
 import { queryOptions, useQuery } from '@tanstack/react-query'
 import { api } from '../../../lib/api-client'
-
-export interface MergeCandidate {
-  id: string
-  reference: string
-  status: string
-  service: string
-  address: string
-  freqLowHz: number
-  freqHighHz: number
-  distanceM: number
-  receivedAt: string
-}
+import type { MergeCandidate } from '../../../../../shared/schemas/views'
+export type { MergeCandidate }
 
 export const getMergeCandidates = (caseId: string, signal?: AbortSignal) =>
   api.get<{ candidates: MergeCandidate[] }>(`/api/cases/${encodeURIComponent(caseId)}/merge-candidates`, signal).then((r) => r.candidates)

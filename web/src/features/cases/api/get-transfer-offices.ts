@@ -1,13 +1,9 @@
 /** GET /api/cases/:id/transfer-offices — the other offices, nearest to the report's location first. */
 import { queryOptions, useQuery } from '@tanstack/react-query'
+import type { TransferOffice } from '../../../../../shared/schemas/views'
 import { api } from '../../../lib/api-client'
 
-export interface OfficeChoice {
-  id: string
-  name: string
-  /** Geodesic distance from the report's location to the office [m]. */
-  distanceM: number
-}
+export type OfficeChoice = TransferOffice
 
 export const getTransferOffices = (caseId: string, signal?: AbortSignal) =>
   api.get<{ offices: OfficeChoice[] }>(`/api/cases/${encodeURIComponent(caseId)}/transfer-offices`, signal).then((r) => r.offices)

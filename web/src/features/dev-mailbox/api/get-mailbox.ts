@@ -1,17 +1,8 @@
 /** GET /api/dev/mailbox — e-mails the server would have sent, newest first (development only). */
 import { queryOptions, useQuery } from '@tanstack/react-query'
 import { api } from '../../../lib/api-client'
-
-export interface MailboxMessage {
-  id: string
-  from: string
-  to: string[]
-  subject: string
-  /** ISO 8601 */
-  date: string
-  text: string
-  html: string | null
-}
+import type { MailboxMessage } from '../../../../../shared/schemas/views'
+export type { MailboxMessage }
 
 export const getMailbox = (signal?: AbortSignal) => api.get<{ messages: MailboxMessage[] }>('/api/dev/mailbox', signal)
 

@@ -1,18 +1,10 @@
 /** GET /api/offices — staff see their own office; an administrator sees all. */
 import { queryOptions, useQuery } from '@tanstack/react-query'
+import type { OfficeView } from '../../../../../shared/schemas/views'
 import { api } from '../../../lib/api-client'
 
-export interface Office {
-  id: string
-  name: string
-  regionName: string
-  centreLatDeg: number
-  centreLonDeg: number
-  /** Response target per priority, in hours. */
-  responseTargetsHours: { p1: number; p2: number; p3: number; p4: number }
-  /** What the viewer may do with this office, decided by the server. */
-  abilities: { setResponseTargets: boolean }
-}
+/** An office as the API answers it. */
+export type Office = OfficeView
 
 export const getOffices = (signal?: AbortSignal) => api.get<{ offices: Office[] }>('/api/offices', signal)
 
