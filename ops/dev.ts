@@ -4,12 +4,16 @@
  */
 import { spawn, type ChildProcess } from 'node:child_process'
 import path from 'node:path'
-import { createPool, runMigrations } from '../server/db/client'
-import { ensureLocalServices, loadDotEnv, ROOT } from './local/services'
+import { createPool } from '../server/db/client'
+import { prepareDatabase } from '../server/db/roles'
+import { ensureLocalServices, loadDotEnv, LocalServiceError, ROOT } from './local/services'
 import { seedDemo } from './seed-demo'
 
 loadDotEnv()
-const services = await ensureLocalServices()
+const services = await ensureLocalServices().catch((e: unknown) => {
+  if (e instanceof LocalServiceError) process.exit(1) // explained in one line already
+  throw e
+})
 const port = process.env.PORT ?? '3000'
 const env: NodeJS.ProcessEnv = {
   ...process.env,
@@ -18,8 +22,10 @@ const env: NodeJS.ProcessEnv = {
   PUBLIC_URL: process.env.PUBLIC_URL ?? 'http://127.0.0.1:5173',
   AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED: 'true',
 }
-await runMigrations(env.DATABASE_URL!)
-const pool = createPool(env.DATABASE_URL!, 2)
+// migrations and the demo (told on its own clock) run as the owner role
+const ownerUrl = env.MIGRATION_DATABASE_URL ?? env.DATABASE_URL!
+await prepareDatabase(ownerUrl)
+const pool = createPool(ownerUrl, 2)
 await seedDemo(pool)
 await pool.end()
 

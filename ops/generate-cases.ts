@@ -23,7 +23,8 @@ import pg from 'pg'
 import type { CaseState, Resolution } from '../shared/domain/case-lifecycle'
 import { suggestPriority, type AffectedService, type Experience, type Priority } from '../shared/domain/services'
 import { nearestOffice } from '../shared/radio/geo'
-import { createPool, runMigrations } from '../server/db/client'
+import { createPool } from '../server/db/client'
+import { prepareDatabase } from '../server/db/roles'
 import { seedDemo } from './seed-demo'
 import { DEMO_REGION } from './seed-demo-cases'
 import { createUniformSource } from '../shared/radio/uncertainty/prng'
@@ -527,7 +528,7 @@ export function redact(url: string): string {
 }
 
 function parseArgs(argv: string[]): { count: number; databaseUrl: string; seed: number; investigatorsPerOffice: number; batchSize: number; yes: boolean; migrateAndSeed: boolean } {
-  const args = { count: 100_000, databaseUrl: process.env.DATABASE_URL ?? LOCAL_DATABASE_URL, seed: 1, investigatorsPerOffice: 6, batchSize: 2000, yes: false, migrateAndSeed: false }
+  const args = { count: 100_000, databaseUrl: process.env.MIGRATION_DATABASE_URL ?? process.env.DATABASE_URL ?? LOCAL_DATABASE_URL, seed: 1, investigatorsPerOffice: 6, batchSize: 2000, yes: false, migrateAndSeed: false }
   for (let i = 0; i < argv.length; i++) {
     const a = argv[i]!
     const value = () => {
@@ -565,7 +566,7 @@ async function main(): Promise<void> {
     process.exit(2)
   }
   if (args.migrateAndSeed) {
-    await runMigrations(args.databaseUrl)
+    await prepareDatabase(args.databaseUrl)
     const pool = createPool(args.databaseUrl, 2)
     try {
       console.log((await seedDemo(pool)) ? 'migrated and seeded the demo' : 'migrated; the demo was already seeded')

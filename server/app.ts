@@ -9,14 +9,17 @@ import connectPgSimple from 'connect-pg-simple'
 import helmet from 'helmet'
 import type pg from 'pg'
 import type PgBoss from 'pg-boss'
-import { createDb } from './db/client'
+import { createDb, pingDatabase } from './db/client'
 import type { ServiceContext } from './context'
 import { DEFAULT_MAIL_QUEUE_OPTIONS, type MailQueueOptions } from './jobs/boss'
 import { apiNotFound, errorHandler } from './http/error-handler'
 import { requestId } from './http/request-id'
+import { requestLog } from './http/request-log'
+import { silentLogger, type Logger } from './log/logger'
 import { sameOrigin } from './http/same-origin'
 import { configurePassport } from './modules/auth/passport'
 import { authRoutes } from './modules/auth/auth.routes'
+import type { SignInDelay } from './modules/auth/sign-in-delay'
 import { usersRoutes } from './modules/users/users.routes'
 import { officesRoutes } from './modules/offices/offices.routes'
 import { mailboxRoutes } from './modules/dev/mailbox.routes'
@@ -32,11 +35,19 @@ export interface AppDeps {
   staticDir?: string
   /** Folder of the local SMTP fake; absent when a real SMTP server is configured. */
   mailboxDir?: string
+  /** The host the server listens on: the development mailbox is served only on loopback. */
+  listenHost?: string
+  /** NODE_ENV (process.env.NODE_ENV when absent): never the development mailbox in production. */
+  nodeEnv?: string
+  /** Wait before answering a sign-in, from the account's recent failures (tests inject a tiny one). */
+  signInDelay?: SignInDelay
   mailQueue?: MailQueueOptions
   /** Prune expired sessions periodically (off in tests). */
   pruneSessions?: boolean
   /** Number of proxies in front (for req.ip and secure cookies behind a load balancer). */
   trustProxy?: number
+  /** Request and error log (silent when absent, as in most tests). */
+  logger?: Logger
 }
 
 export interface AppHandle {
@@ -60,14 +71,19 @@ export function createApp(deps: AppDeps): AppHandle {
   app.disable('x-powered-by')
   if (deps.trustProxy) app.set('trust proxy', deps.trustProxy)
   app.use(requestId)
+  app.use(requestLog(deps.logger ?? silentLogger))
   app.use(
     helmet({
       contentSecurityPolicy: {
         directives: { 'default-src': ["'self'"], 'img-src': ["'self'", 'data:', 'blob:'], 'style-src': ["'self'", "'unsafe-inline'"], 'upgrade-insecure-requests': null },
       },
       crossOriginEmbedderPolicy: false,
+      // HSTS only means something over https, so it is sent only there (below)
+      strictTransportSecurity: false,
     }),
   )
+  const hsts = helmet.strictTransportSecurity()
+  app.use((req, res, next) => (req.secure ? hsts(req, res, next) : next()))
 
   const PgStore = connectPgSimple(session)
   // A session lasts one working day from sign-in; it is not rewritten on every request
@@ -98,16 +114,17 @@ export function createApp(deps: AppDeps): AppHandle {
   )
   api.use(passport.session())
 
+  // 503 database_unavailable (error handler) when PostgreSQL is away; a short timeout keeps it cheap
   api.get('/health', async (_req, res) => {
-    await deps.pool.query('SELECT 1')
+    await pingDatabase(deps.pool)
     res.json({ ok: true })
   })
-  api.use(authRoutes(ctx, passport))
+  api.use(authRoutes(ctx, passport, { signInDelay: deps.signInDelay }))
   api.use(usersRoutes(ctx))
   api.use(officesRoutes(ctx))
   api.use(publicCaseRoutes(ctx))
   api.use(casesRoutes(ctx))
-  api.use(mailboxRoutes(deps.mailboxDir))
+  api.use(mailboxRoutes({ dir: deps.mailboxDir, listenHost: deps.listenHost, nodeEnv: deps.nodeEnv ?? process.env.NODE_ENV, trustProxy: deps.trustProxy }))
   api.use(apiNotFound)
   app.use('/api', api)
 

@@ -4,11 +4,22 @@
  */
 import { ConfigError, loadEnv } from './config/env'
 import { startServer } from './main'
+import { mailboxSetting } from './modules/dev/mailbox-guard'
+import { isDatabaseUnavailable } from './db/client'
+
+// A library's promise rejected because a connection was lost (PostgreSQL went away) is logged
+// and survived: pools reconnect. Any other unhandled rejection is a bug and ends the process.
+process.on('unhandledRejection', (reason) => {
+  if (!isDatabaseUnavailable(reason)) throw reason
+  console.error('unhandled rejection after a lost connection (still running):', (reason as Error)?.message ?? reason)
+})
 
 try {
   const env = loadEnv()
   const running = await startServer(env)
   console.log(`Quietband listening on ${running.url}`)
+  const mailbox = mailboxSetting({ dir: env.DEV_MAILBOX_DIR, nodeEnv: env.NODE_ENV, listenHost: env.HOST, trustProxy: env.TRUST_PROXY })
+  if (mailbox.on) console.log('Development mailbox: ON at /dev/mailbox, for browsers on this machine only (unset DEV_MAILBOX_DIR to turn it off).')
   const stop = () => void running.close().then(() => process.exit(0))
   process.once('SIGINT', stop)
   process.once('SIGTERM', stop)

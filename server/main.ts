@@ -5,10 +5,12 @@
 import type { AddressInfo } from 'node:net'
 import type { Server } from 'node:http'
 import type { Env } from './config/env'
-import { createPool, runMigrations } from './db/client'
+import { createPool } from './db/client'
+import { prepareDatabase } from './db/roles'
 import { startBoss, startMailWorker } from './jobs/boss'
 import { createMailer } from './mail/mailer'
 import { createApp } from './app'
+import { createLogger } from './log/logger'
 
 export interface RunningServer {
   url: string
@@ -17,11 +19,12 @@ export interface RunningServer {
 }
 
 export async function startServer(env: Env): Promise<RunningServer> {
-  await runMigrations(env.DATABASE_URL)
+  // as the owner: migrations, the job queue's schema and the application's grants
+  await prepareDatabase(env.MIGRATION_DATABASE_URL)
   const pool = createPool(env.DATABASE_URL)
-  const boss = await startBoss(env.DATABASE_URL)
+  const boss = await startBoss(env.DATABASE_URL, { maintenanceIntervalSeconds: env.JOB_MAINTENANCE_INTERVAL_SECONDS })
   const mailer = createMailer({ smtpUrl: env.SMTP_URL, from: env.MAIL_FROM })
-  if (env.RUN_WORKERS) await startMailWorker(boss, mailer)
+  const mailWorker = env.RUN_WORKERS ? await startMailWorker(boss, mailer, { pollingIntervalSeconds: env.MAIL_POLL_INTERVAL_SECONDS }) : undefined
   const handle = createApp({
     pool,
     boss,
@@ -29,8 +32,11 @@ export async function startServer(env: Env): Promise<RunningServer> {
     publicUrl: env.PUBLIC_URL,
     staticDir: env.STATIC_DIR,
     mailboxDir: env.DEV_MAILBOX_DIR,
+    listenHost: env.HOST,
+    nodeEnv: env.NODE_ENV,
     pruneSessions: true,
     trustProxy: env.TRUST_PROXY,
+    logger: createLogger({ level: env.LOG_LEVEL, format: env.LOG_FORMAT ?? (env.NODE_ENV === 'development' ? 'pretty' : 'json') }),
   })
   const server: Server = await new Promise((resolve, reject) => {
     const s = handle.app.listen(env.PORT, env.HOST, () => resolve(s))
@@ -45,6 +51,7 @@ export async function startServer(env: Env): Promise<RunningServer> {
       const closed = new Promise<void>((r) => server.close(() => r()))
       server.closeIdleConnections()
       await closed
+      await mailWorker?.stop()
       await boss.stop({ graceful: true, wait: true, timeout: 5000 })
       handle.close()
       mailer.close()

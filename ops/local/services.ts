@@ -16,6 +16,9 @@ export const ROOT = fileURLToPath(new URL('../..', import.meta.url))
 export const LOCAL_DIR = path.join(ROOT, '.local')
 const DB_SCRIPT = path.join(ROOT, 'ops', 'db.sh')
 
+/** A local service could not start for an expected reason; its message says what to do. */
+export class LocalServiceError extends Error {}
+
 export interface LocalServices {
   env: Record<string, string>
   started: string[]
@@ -39,8 +42,16 @@ export async function ensureLocalServices(source: NodeJS.ProcessEnv = process.en
 
   if (!source.DATABASE_URL) {
     const wasRunning = dbRunning()
-    const out = execFileSync('bash', [DB_SCRIPT, 'start'], { encoding: 'utf8', stdio: ['ignore', 'pipe', 'inherit'] })
-    env.DATABASE_URL = /DATABASE_URL=(\S+)/.exec(out)![1]!
+    let out: string
+    try {
+      out = execFileSync('bash', [DB_SCRIPT, 'start'], { encoding: 'utf8', stdio: ['ignore', 'pipe', 'inherit'] })
+    } catch {
+      // ops/db.sh has said what happened and what to do on stderr
+      throw new LocalServiceError('The project-local PostgreSQL did not start (see the message above).')
+    }
+    env.DATABASE_URL = /^DATABASE_URL=(\S+)/m.exec(out)![1]!
+    // the owner role runs migrations and the demo seeding; the app runs as DATABASE_URL
+    if (!source.MIGRATION_DATABASE_URL) env.MIGRATION_DATABASE_URL = /^MIGRATION_DATABASE_URL=(\S+)/m.exec(out)![1]!
     if (!wasRunning) {
       started.push(`PostgreSQL (project-local, ${new URL(env.DATABASE_URL).host})`)
       stops.push(async () => {

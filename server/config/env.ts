@@ -13,6 +13,8 @@ const envSchema = z.object({
   PORT: z.coerce.number().int().min(0).max(65535).default(3000),
   PUBLIC_URL: url('PUBLIC_URL'),
   DATABASE_URL: url('DATABASE_URL').refine((v) => /^postgres(ql)?:\/\//.test(v), 'DATABASE_URL must start with postgres://'),
+  /** The owner role that runs migrations (default DATABASE_URL; then the timeline is not protected from the app). */
+  MIGRATION_DATABASE_URL: url('MIGRATION_DATABASE_URL').refine((v) => /^postgres(ql)?:\/\//.test(v), 'MIGRATION_DATABASE_URL must start with postgres://').optional(),
   SESSION_SECRET: z.string({ message: 'SESSION_SECRET is required' }).min(32, 'SESSION_SECRET must be at least 32 characters'),
   S3_ENDPOINT: url('S3_ENDPOINT').optional(),
   S3_REGION: z.string().default('us-east-1'),
@@ -27,18 +29,26 @@ const envSchema = z.object({
   STATIC_DIR: z.string().optional(),
   /** Number of proxies (load balancers) in front, for client addresses and secure cookies. */
   TRUST_PROXY: z.coerce.number().int().min(0).max(10).default(0),
+  /** Log level: fatal, error, warn, info, debug, trace or silent. */
+  LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
+  /** json (one object a line, for log shippers) or pretty (readable); default pretty in development. */
+  LOG_FORMAT: z.enum(['json', 'pretty']).optional(),
   /** Run the e-mail worker in this process (default yes; set false for API-only processes). */
   RUN_WORKERS: z.enum(['true', 'false']).default('true').transform((v) => v === 'true'),
+  /** Seconds between the e-mail worker's looks for queued mail when the queue is empty. */
+  MAIL_POLL_INTERVAL_SECONDS: z.coerce.number().min(0.5).max(60).default(1),
+  /** Seconds between the job queue's maintenance runs, which retry mail left unfinished by a crash. */
+  JOB_MAINTENANCE_INTERVAL_SECONDS: z.coerce.number().int().min(1).max(600).default(5),
 })
 
-export type Env = z.infer<typeof envSchema>
+export type Env = z.infer<typeof envSchema> & { MIGRATION_DATABASE_URL: string }
 
 export class ConfigError extends Error {}
 
 /** Parses the environment; throws a ConfigError listing every bad variable by name. */
 export function loadEnv(source: NodeJS.ProcessEnv = process.env): Env {
   const parsed = envSchema.safeParse(source)
-  if (parsed.success) return parsed.data
+  if (parsed.success) return { ...parsed.data, MIGRATION_DATABASE_URL: parsed.data.MIGRATION_DATABASE_URL ?? parsed.data.DATABASE_URL }
   const lines = parsed.error.issues.map((i) => `  ${i.path.join('.')}: ${i.message}`)
   throw new ConfigError(`Quietband cannot start: the configuration is incomplete or invalid.\n${lines.join('\n')}\nSee .env.example.`)
 }

@@ -6,8 +6,51 @@ import * as schema from './schema'
 
 export const migrationsFolder = fileURLToPath(new URL('../../drizzle', import.meta.url))
 
+/** How long a query waits for a connection before the database counts as unavailable. */
+export const CONNECTION_TIMEOUT_MS = 5_000
+
+/**
+ * The application's connection pool. PostgreSQL may end idle connections at any time
+ * (restart, failover, an administrator's pg_terminate_backend); the pool then emits 'error',
+ * which would end the process without a listener. The pool has already dropped that
+ * connection and opens a new one for the next query, so logging it is enough.
+ */
 export function createPool(connectionString: string, max = 10): pg.Pool {
-  return new pg.Pool({ connectionString, max })
+  const pool = new pg.Pool({ connectionString, max, connectionTimeoutMillis: CONNECTION_TIMEOUT_MS })
+  pool.on('error', (err) => console.error(`database connection lost: ${describeDbError(err)}`))
+  return pool
+}
+
+// Node's socket errors, and PostgreSQL's: 57P01 admin_shutdown, 57P02 crash_shutdown,
+// 57P03 cannot_connect_now, 53300 too_many_connections; class 08 is connection_exception.
+const UNAVAILABLE_CODES = new Set(['ECONNREFUSED', 'ECONNRESET', 'ETIMEDOUT', 'EPIPE', 'EHOSTUNREACH', 'ENETUNREACH', 'EAI_AGAIN', '57P01', '57P02', '57P03', '53300'])
+// node-postgres and its pool say these in words only
+const UNAVAILABLE_MESSAGES = [/^Connection terminated/, /timeout exceeded when trying to connect/, /is not queryable/, /^Query read timeout/]
+
+/**
+ * Whether an error means the database cannot be reached right now (rather than a bad query).
+ * Follows `cause` (drizzle wraps driver errors) and AggregateError's `errors` (a refused
+ * connection to each address of a host).
+ */
+export function isDatabaseUnavailable(err: unknown, depth = 0): boolean {
+  if (!err || typeof err !== 'object' || depth > 5) return false
+  const e = err as { code?: unknown; message?: unknown; cause?: unknown; errors?: unknown }
+  if (typeof e.code === 'string' && (UNAVAILABLE_CODES.has(e.code) || /^08[0-9A-Z]{3}$/.test(e.code))) return true
+  if (typeof e.message === 'string' && UNAVAILABLE_MESSAGES.some((m) => m.test(e.message as string))) return true
+  if (Array.isArray(e.errors) && e.errors.some((x) => isDatabaseUnavailable(x, depth + 1))) return true
+  return isDatabaseUnavailable(e.cause, depth + 1)
+}
+
+/** One cheap round trip, given up after `timeoutMs` (the health check). */
+export async function pingDatabase(pool: pg.Pool, timeoutMs = 2000): Promise<void> {
+  // node-postgres honours query_timeout per query; its types list it for clients only
+  const ping = { text: 'SELECT 1', query_timeout: timeoutMs } as pg.QueryConfig
+  await pool.query(ping)
+}
+
+function describeDbError(err: unknown): string {
+  const e = err as { code?: string; message?: string }
+  return [e?.code, e?.message].filter(Boolean).join(' ') || String(err)
 }
 
 export type Db = NodePgDatabase<typeof schema>
@@ -22,6 +65,13 @@ export function createDb(client: pg.Pool | pg.PoolClient): Db {
  */
 export async function withTransaction<T>(pool: pg.Pool, work: (tx: { db: Db; client: pg.PoolClient }) => Promise<T>): Promise<T> {
   const client = await pool.connect()
+  // a checked-out connection has no pool listener: if PostgreSQL ends it between two queries,
+  // its 'error' would end the process. The next query fails instead, and the pool drops it.
+  let lost: Error | undefined
+  const onLost = (err: Error) => {
+    lost = err
+  }
+  client.on('error', onLost)
   try {
     await client.query('BEGIN')
     const result = await work({ db: createDb(client), client })
@@ -31,7 +81,8 @@ export async function withTransaction<T>(pool: pg.Pool, work: (tx: { db: Db; cli
     await client.query('ROLLBACK').catch(() => {})
     throw e
   } finally {
-    client.release()
+    client.removeListener('error', onLost)
+    client.release(lost)
   }
 }
 

@@ -2,6 +2,10 @@ import type { ErrorRequestHandler, RequestHandler } from 'express'
 import { ZodError } from 'zod'
 import type { ApiErrorBody } from '../../shared/schemas/errors'
 import { HttpError } from './errors'
+import { isDatabaseUnavailable } from '../db/client'
+
+/** Seconds a client is asked to wait when the database is away (Retry-After). */
+export const DATABASE_RETRY_AFTER_SECONDS = 5
 
 function body(req: { id: string }, code: string, message: string, details?: ApiErrorBody['error']['details']): ApiErrorBody {
   return { error: { code, message, ...(details ? { details } : {}), requestId: req.id } }
@@ -35,6 +39,15 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
   }
   if (typeof e.status === 'number' && e.status >= 400 && e.status < 500) {
     res.status(e.status).json(body(req, 'bad_request', 'The request could not be processed.'))
+    return
+  }
+  // the database is restarting or unreachable: a plain 503 the client may retry, and one log line
+  if (isDatabaseUnavailable(err)) {
+    let e = err as { code?: string; message?: string; cause?: unknown }
+    for (let i = 0; i < 5 && e.cause && typeof e.cause === 'object'; i++) e = e.cause as typeof e // drizzle wraps the driver's error
+    console.error(`[${req.id}] database unavailable: ${[e.code, e.message].filter(Boolean).join(' ')}`)
+    res.setHeader('Retry-After', String(DATABASE_RETRY_AFTER_SECONDS))
+    res.status(503).json(body(req, 'database_unavailable', 'The service is briefly unavailable. Please try again in a moment.'))
     return
   }
   console.error(`[${req.id}]`, err)

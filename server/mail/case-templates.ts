@@ -95,3 +95,13 @@ export function findingProposedMail(to: { name: string; email: string }, c: { re
     caseLink,
   ])
 }
+
+export function findingReturnedMail(to: { name: string; email: string }, c: { reference: string }, supervisorName: string, reason: string, caseLink: string): OutgoingMail {
+  return composeMail(to.email, `[${c.reference}] Finding sent back for more work`, [
+    `Hello ${to.name},`,
+    `${supervisorName} has sent your finding on ${c.reference} back for more work:`,
+    reason,
+    'The case is in your queue again:',
+    caseLink,
+  ])
+}

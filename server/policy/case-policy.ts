@@ -4,7 +4,7 @@
  * may make them. A service refuses with 404 when the case is outside the actor's office,
  * 403 when the role or relation is wrong, and 409 when the state does not allow the move.
  */
-import { CASE_MOVES, moveAllowedFrom, type CaseMoveName, type CaseState, type Mover } from '../../shared/domain/case-lifecycle'
+import { CASE_MOVES, moveAllowedFrom, MOVES_REFUSED_WHILE_HOLDING_MERGED_REPORTS, type CaseMoveName, type CaseState, type Mover } from '../../shared/domain/case-lifecycle'
 import type { Actor } from './policy'
 
 /** The parts of a case that authorization looks at. */
@@ -14,6 +14,8 @@ export interface CaseAccess {
   status: CaseState
   investigatorId: string | null
   complainantUserId: string | null
+  /** Reports have been merged into the case (some moves are then refused; see the lifecycle). */
+  holdsMergedReports?: boolean
 }
 
 /** Whoever holds a case's private tracking link acts as its complainant, for that case only. */
@@ -70,7 +72,7 @@ export type CaseAbilities = Record<CaseMoveName, boolean> & { addInternalNote: b
 /** What the actor can do now: role, relation and state together. Sent with every case. */
 export function caseAbilities(actor: CaseActor, c: CaseAccess): CaseAbilities {
   const moves = Object.fromEntries(
-    (Object.keys(CASE_MOVES) as CaseMoveName[]).map((m) => [m, mayMakeMove(actor, m, c) && moveAllowedFrom(m, c.status)]),
+    (Object.keys(CASE_MOVES) as CaseMoveName[]).map((m) => [m, mayMakeMove(actor, m, c) && moveAllowedFrom(m, c.status) && !(c.holdsMergedReports && MOVES_REFUSED_WHILE_HOLDING_MERGED_REPORTS.includes(m))]),
   ) as Record<CaseMoveName, boolean>
   return { ...moves, addInternalNote: mayAddInternalNote(actor, c), messageComplainant: mayMessageComplainant(actor, c) }
 }

@@ -113,6 +113,17 @@ export const DISMISS_RESOLUTIONS: readonly Resolution[] = ['no_interference_foun
 /** Resolutions a supervisor may choose when approving a finding. */
 export const CLOSE_RESOLUTIONS: readonly Resolution[] = ['source_corrected', 'enforcement_action', 'no_interference_found', 'referred']
 
+/**
+ * Merged reports. A report merged into a case is closed as its duplicate and points at it.
+ * - A merge follows the chain: merging into a case that has itself been merged lands on the
+ *   open case at the end of the chain; a chain that ends in a case closed otherwise is refused.
+ * - Merged reports follow their case: when a case holding merged reports is merged in turn,
+ *   they are re-pointed to the new case.
+ * - A case holding merged reports cannot be closed at triage (dismiss): their complainants
+ *   were told it is being worked on. It is closed with a finding, or merged in turn.
+ */
+export const MOVES_REFUSED_WHILE_HOLDING_MERGED_REPORTS: readonly CaseMoveName[] = ['dismiss']
+
 export function moveAllowedFrom(move: CaseMoveName, state: CaseState): boolean {
   return (CASE_MOVES[move].from as readonly CaseState[]).includes(state)
 }

@@ -33,6 +33,10 @@ export const setPasswordSchema = z.object({
 })
 export type SetPasswordInput = z.infer<typeof setPasswordSchema>
 
+/** The token of an e-mailed confirmation link (/confirm-email?token=…). */
+export const confirmEmailSchema = z.object({ token: z.string().min(20).max(200) })
+export type ConfirmEmailInput = z.infer<typeof confirmEmailSchema>
+
 export const createStaffSchema = z.object({
   name: storableString().trim().min(1, { message: 'Enter a name.' }).max(120),
   email: emailSchema,
@@ -53,6 +57,14 @@ export const sessionUserSchema = z.object({
   officeName: z.string().nullable(),
 })
 export type SessionUser = z.infer<typeof sessionUserSchema>
+
+/** GET /api/me: the signed-in user, or null for an anonymous visitor (200 either way). */
+export const meResponseSchema = z.object({ user: sessionUserSchema.nullable() })
+export type MeResponse = z.infer<typeof meResponseSchema>
+
+/** Registration and reset requests: one answer whether or not the address has an account. */
+export const accountRequestResponseSchema = z.object({ ok: z.literal(true) })
+export type AccountRequestResponse = z.infer<typeof accountRequestResponseSchema>
 
 /** Response targets of an office, in hours per priority. */
 export const responseTargetsSchema = z.object({

@@ -1,6 +1,8 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import request from 'supertest'
 import { createTestContext, DEMO, DEMO_PASSWORD, signedInAgent, uniqueAddress, type TestContext } from '../support/harness'
+import { queuedMails, registerConfirmed } from '../support/accounts'
+import { MAX_FAILURES_PER_ACCOUNT } from '../../server/modules/auth/auth.service'
 
 let t: TestContext
 beforeAll(async () => {
@@ -56,14 +58,16 @@ describe('sign-in', () => {
     expect(unknown.body.error).toMatchObject({ code: wrong.body.error.code, message: wrong.body.error.message })
   })
 
-  it('refuses with 429 after repeated failures on one account, even with the right password', async () => {
-    const email = DEMO.otherInvestigator
-    for (let i = 0; i < 5; i++) {
-      await anon().post('/api/auth/sign-in').send({ email, password: `wrong-${i}-password` }).expect(401)
+  it('refuses the address that keeps guessing one account, even with the right password', async () => {
+    const email = `guessed-${process.pid}-${Date.now()}@example.test`
+    await registerConfirmed(t, email, 'right-password-1')
+    const guesser = anon()
+    for (let i = 0; i < MAX_FAILURES_PER_ACCOUNT; i++) {
+      await guesser.post('/api/auth/sign-in').send({ email, password: `wrong-${i}-password` }).expect(401)
     }
-    const res = await anon().post('/api/auth/sign-in').send({ email, password: DEMO_PASSWORD }).expect(429)
+    const res = await guesser.post('/api/auth/sign-in').send({ email, password: 'right-password-1' }).expect(429)
     expect(res.body.error.code).toBe('too_many_attempts')
-    await t.pool.query(`DELETE FROM sign_in_attempts WHERE email = $1`, [email]) // leave the demo account usable
+    expect(res.body.error.message).toContain('ask for a link by e-mail')
   })
 
   it('refuses with 429 after repeated failures from one address across accounts', async () => {
@@ -81,10 +85,10 @@ describe('sign-in', () => {
     expect(res.body.error.code).toBe('too_many_attempts')
   })
 
-  it('signs out: the session no longer answers /api/me', async () => {
+  it('signs out: /api/me then answers that nobody is signed in', async () => {
     const agent = await signedInAgent(t.app, DEMO.supervisor)
     await agent.post('/api/auth/sign-out').expect(204)
-    await agent.get('/api/me').expect(401)
+    expect((await agent.get('/api/me').expect(200)).body).toEqual({ user: null })
   })
 
   it('lists every field error of a malformed sign-in', async () => {
@@ -95,21 +99,30 @@ describe('sign-in', () => {
 })
 
 describe('complainant registration', () => {
-  it('creates a complainant account and signs it in; the same address again is 409', async () => {
+  it('creates a complainant account that works once the e-mailed link confirms the address', async () => {
     const agent = anon()
-    const email = `reg-${Date.now()}@example.test`
-    const res = await agent.post('/api/auth/register').send({ name: 'Nell Ashgrove', email, password: 'a-long-enough-pass' }).expect(201)
-    expect(res.body.user).toMatchObject({ email, role: 'complainant', officeId: null })
-    await agent.get('/api/me').expect(200)
-    const again = await anon().post('/api/auth/register').send({ name: 'Nell', email: email.toUpperCase(), password: 'a-long-enough-pass' }).expect(409)
-    expect(again.body.error.code).toBe('email_taken')
+    const email = `reg-${process.pid}-${Date.now()}@example.test`
+    const res = await agent.post('/api/auth/register').send({ name: 'Nell Ashgrove', email, password: 'a-long-enough-pass' }).expect(202)
+    expect(res.body).toEqual({ ok: true })
+    expect((await agent.get('/api/me').expect(200)).body.user, 'registering signs nobody in').toBeNull()
+    const early = await anon().post('/api/auth/sign-in').send({ email, password: 'a-long-enough-pass' }).expect(403)
+    expect(early.body.error.code).toBe('email_not_confirmed')
+    const [mail] = await queuedMails(t, email)
+    expect(mail!.subject).toBe('Confirm your e-mail address for Quietband')
+    const token = /\/confirm-email\?token=([A-Za-z0-9_-]+)/.exec(mail!.text)![1]
+    const confirmed = anon()
+    const done = await confirmed.post('/api/auth/confirm-email').send({ token }).expect(200)
+    expect(done.body.user).toMatchObject({ email, role: 'complainant', officeId: null })
+    expect((await confirmed.get('/api/me').expect(200)).body.user.email).toBe(email)
+    await anon().post('/api/auth/confirm-email').send({ token }).expect(400) // single use
+    await anon().post('/api/auth/sign-in').send({ email, password: 'a-long-enough-pass' }).expect(200)
   })
 })
 
 describe('password reset', () => {
   it('e-mails a single-use link that sets a new password', async () => {
     const email = `reset-${Date.now()}@example.test`
-    await anon().post('/api/auth/register').send({ name: 'Ola Reset', email, password: 'first-password-1' }).expect(201)
+    await registerConfirmed(t, email, 'first-password-1', 'Ola Reset')
     await anon().post('/api/auth/password-reset').send({ email }).expect(202)
     const token = await linkFromQueuedMail(email)
     const { rows } = await t.pool.query(`SELECT count(*)::int AS n FROM password_tokens WHERE token_hash = $1`, [token])
@@ -122,7 +135,7 @@ describe('password reset', () => {
 
   it('refuses an expired link', async () => {
     const email = `expired-${Date.now()}@example.test`
-    await anon().post('/api/auth/register').send({ name: 'Ola Late', email, password: 'first-password-1' }).expect(201)
+    await registerConfirmed(t, email, 'first-password-1', 'Ola Late')
     await anon().post('/api/auth/password-reset').send({ email }).expect(202)
     const token = await linkFromQueuedMail(email)
     await t.pool.query(`UPDATE password_tokens SET expires_at = now() - interval '1 minute' WHERE user_id = (SELECT id FROM users WHERE email = $1)`, [email])
@@ -130,11 +143,13 @@ describe('password reset', () => {
     expect(res.body.error.code).toBe('invalid_token')
   })
 
-  it('answers 202 for an unknown address and queues nothing', async () => {
-    const email = `ghost-${Date.now()}@example.test`
-    await anon().post('/api/auth/password-reset').send({ email }).expect(202)
-    const { rows } = await t.pool.query(`SELECT count(*)::int AS n FROM pgboss.job WHERE data->>'to' = $1`, [email])
-    expect(rows[0].n).toBe(0)
+  it('answers 202 for an unknown address too, and e-mails it a note without any link to set a password', async () => {
+    const email = `ghost-${process.pid}-${Date.now()}@example.test`
+    const res = await anon().post('/api/auth/password-reset').send({ email }).expect(202)
+    expect(res.body).toEqual({ ok: true })
+    const mails = await queuedMails(t, email)
+    expect(mails.map((m) => m.subject)).toEqual(['About your Quietband password request'])
+    expect(mails[0]!.text).not.toContain('set-password')
   })
 })
 
@@ -161,8 +176,9 @@ describe('staff accounts', () => {
   it('deactivated accounts cannot sign in', async () => {
     const admin = await signedInAgent(t.app, DEMO.admin)
     const email = `leaver-${Date.now()}@example.test`
-    const reg = await anon().post('/api/auth/register').send({ name: 'Leaver', email, password: 'leaver-password' }).expect(201)
-    await admin.patch(`/api/admin/users/${reg.body.user.id}`).send({ active: false }).expect(200)
+    const reg = await registerConfirmed(t, email, 'leaver-password', 'Leaver')
+    await anon().post('/api/auth/sign-in').send({ email, password: 'leaver-password' }).expect(200)
+    await admin.patch(`/api/admin/users/${reg.id}`).send({ active: false }).expect(200)
     await anon().post('/api/auth/sign-in').send({ email, password: 'leaver-password' }).expect(401)
   })
 })
@@ -177,7 +193,31 @@ describe('cross-site protection', () => {
     await anon().post('/api/auth/sign-in').set('Origin', 'http://127.0.0.1:3999').send({ email: DEMO.admin, password: DEMO_PASSWORD }).expect(200)
   })
 
+  it('refuses another site even when the request names that site in its Host header', async () => {
+    const res = await anon().post('/api/auth/sign-in').set('Host', 'evil.example').set('Origin', 'http://evil.example').send({ email: DEMO.admin, password: DEMO_PASSWORD }).expect(403)
+    expect(res.body.error.code).toBe('cross_site_request')
+  })
+
   it('refuses a cross-site request that carries only Sec-Fetch-Site', async () => {
     await anon().post('/api/auth/sign-out').set('Sec-Fetch-Site', 'cross-site').expect(403)
+  })
+})
+
+describe('who is signed in', () => {
+  it('answers an anonymous visitor with 200 and no user, not an error', async () => {
+    const res = await anon().get('/api/me').expect(200)
+    expect(res.body).toEqual({ user: null })
+  })
+})
+
+describe('strict transport security', () => {
+  it('is not sent over plain http', async () => {
+    const res = await anon().get('/api/health').expect(200)
+    expect(res.headers['strict-transport-security']).toBeUndefined()
+  })
+
+  it('is sent over https (here: behind the one trusted proxy that ended TLS)', async () => {
+    const res = await anon().get('/api/health').set('X-Forwarded-Proto', 'https').expect(200)
+    expect(res.headers['strict-transport-security']).toMatch(/max-age=\d+/)
   })
 })

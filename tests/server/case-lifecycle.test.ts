@@ -3,7 +3,8 @@
  * (403 by role or relation, 404 for another office, 409 by state or stale version), with a
  * timeline event written for each accepted move and nothing written for a refused one.
  */
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
+import pg from 'pg'
 import type request from 'supertest'
 import { createTestContext, DEMO, signedInAgent, type TestContext } from '../support/harness'
 import { caseVersion, createStaff, fileReport, NEAR_HARROWMERE, NEAR_KESTREL_BAY, queuedMails, userId } from '../support/cases'
@@ -85,6 +86,17 @@ describe('the whole path of a case', () => {
     expect(toInvestigator).toContainEqual(`[${f.reference}] Assigned to you — priority 2`)
     const toSupervisor = (await queuedMails(t.pool, DEMO.supervisor)).map((m) => m.subject)
     expect(toSupervisor).toContainEqual(`[${f.reference}] Finding ready for your review`)
+  })
+
+  it('e-mails the investigator when their finding is sent back, with the supervisor’s reason', async () => {
+    const f = await caseIn('finding_proposed')
+    const before = (await queuedMails(t.pool, DEMO.investigator)).length
+    expect((await act(supervisor, f.id, 'return-finding', { reason: 'Measure at the second site too.' })).status).toBe(200)
+    const mails = await queuedMails(t.pool, DEMO.investigator)
+    expect(mails).toHaveLength(before + 1)
+    expect(mails.at(-1)!.subject).toBe(`[${f.reference}] Finding sent back for more work`)
+    expect(mails.at(-1)!.text).toContain('Measure at the second site too.')
+    expect(mails.at(-1)!.text).toContain(`/cases/${f.id}`)
   })
 
   it('returns a finding for more work, and the investigator proposes again', async () => {
@@ -312,11 +324,116 @@ describe('two supervisors merge a pair of reports into each other at once', () =
   })
 })
 
+/**
+ * The rule for merged reports: a merge follows the chain to the open case at its end; reports
+ * merged into a case follow it when it is merged in turn; a case holding merged reports is not
+ * closed at triage. So a merged report never points at a case closed in any other way than by
+ * a finding, whatever order concurrent moves take.
+ */
+describe('merged reports', () => {
+  const QUIET = { latDeg: 47.97, lonDeg: -31.76 } // a corner of the demo region of these tests' own
+  const mergedInto = async (id: string) => (await t.pool.query(`SELECT status, resolution, merged_into_case_id FROM cases WHERE id = $1`, [id])).rows[0]
+  const merge = (agent: Agent, from: string, into: string) => agent.post(`/api/cases/${from}/merge`).send({ version: 1, intoCaseId: into })
+  const dismiss = (agent: Agent, id: string) => agent.post(`/api/cases/${id}/dismiss`).send({ version: 1, resolution: 'referred', reason: 'A matter for the aviation authority.' })
+  let second: Agent
+  beforeAll(async () => {
+    const email = `merge.rule.supervisor.${Date.now()}@quietband.test`
+    await createStaff(t.pool, { email, name: 'Petra Hollis', role: 'supervisor', officeName: 'Harrowmere' })
+    second = await signedInAgent(t.app, email)
+  })
+
+  it('refuse closing at triage a case that holds merged reports (409), say why, and show no such action', async () => {
+    const a = await fileReport(t, QUIET)
+    const b = await fileReport(t, QUIET)
+    expect((await merge(supervisor, a.id, b.id)).status).toBe(200)
+    const res = await dismiss(supervisor, b.id)
+    expect(res.status).toBe(409)
+    expect(res.body.error.code).toBe('holds_merged_reports')
+    expect(res.body.error.message).toContain(a.reference)
+    expect(res.body.error.message).toMatch(/close it with a finding, or merge it into another open case \(the merged reports follow it there\)/)
+    expect((await state(b.id)).status).toBe('received')
+    expect((await supervisor.get(`/api/cases/${b.id}`)).body.case.abilities).toMatchObject({ dismiss: false, merge: true, assign: true })
+  })
+
+  it('carry the reports merged into a case along when it is merged in turn', async () => {
+    const a = await fileReport(t, QUIET)
+    const b = await fileReport(t, QUIET)
+    const c = await fileReport(t, QUIET)
+    expect((await merge(supervisor, a.id, b.id)).status).toBe(200)
+    expect((await merge(supervisor, b.id, c.id)).status).toBe(200)
+    expect(await mergedInto(a.id)).toMatchObject({ status: 'closed', resolution: 'duplicate', merged_into_case_id: c.id })
+    expect(await mergedInto(b.id)).toMatchObject({ status: 'closed', resolution: 'duplicate', merged_into_case_id: c.id })
+    expect((await events(a.id)).map((e) => e.kind)).toContain('merge_followed')
+    expect((await events(c.id)).filter((e) => e.kind === 'merged_in')).toHaveLength(2)
+  })
+
+  it('follow the chain: merging into a case merged meanwhile lands on the open case it went to', async () => {
+    const a = await fileReport(t, QUIET)
+    const b = await fileReport(t, QUIET)
+    const c = await fileReport(t, QUIET)
+    expect((await merge(supervisor, b.id, c.id)).status).toBe(200)
+    const res = await merge(supervisor, a.id, b.id)
+    expect(res.status).toBe(200)
+    expect(res.body.case).toMatchObject({ mergedIntoCaseId: c.id, mergedIntoReference: c.reference })
+    expect((await events(a.id)).find((e) => e.kind === 'merge')!.body).toBe(`Merged into ${c.reference} (${b.reference} had been merged into it).`)
+  })
+
+  it('refuse a merge into a case closed in any other way (400 on the field)', async () => {
+    const a = await fileReport(t, QUIET)
+    const b = await fileReport(t, QUIET)
+    expect((await dismiss(supervisor, b.id)).status).toBe(200)
+    const res = await merge(supervisor, a.id, b.id)
+    expect(res.status).toBe(400)
+    expect(res.body.error.details[0].path).toBe('intoCaseId')
+    expect((await state(a.id)).status).toBe('received')
+  })
+
+  it('under a merge and a dismissal of its target at once: exactly one wins, never a report merged into a dismissed case', async () => {
+    for (let round = 0; round < 6; round++) {
+      const a = await fileReport(t, QUIET)
+      const b = await fileReport(t, QUIET)
+      const [m, d] = await Promise.all([merge(supervisor, a.id, b.id), dismiss(second, b.id)])
+      expect([m.status, d.status].filter((s) => s === 200), JSON.stringify([m.body.error, d.body.error])).toHaveLength(1)
+      if (m.status === 200) {
+        expect(d.status).toBe(409)
+        expect(d.body.error.code).toBe('holds_merged_reports')
+        expect(await mergedInto(a.id)).toMatchObject({ status: 'closed', merged_into_case_id: b.id })
+        expect((await state(b.id)).status).toBe('received')
+      } else {
+        expect(m.status).toBe(400)
+        expect(await mergedInto(a.id)).toMatchObject({ status: 'received', merged_into_case_id: null })
+        expect(await mergedInto(b.id)).toMatchObject({ status: 'closed', resolution: 'referred' })
+      }
+    }
+  })
+
+  it('under two merges racing along a chain (A into B, B into C): both succeed and both reports end in C, which stays open', async () => {
+    for (let round = 0; round < 6; round++) {
+      const a = await fileReport(t, QUIET)
+      const b = await fileReport(t, QUIET)
+      const c = await fileReport(t, QUIET)
+      const [ab, bc] = await Promise.all([merge(supervisor, a.id, b.id), merge(second, b.id, c.id)])
+      expect([ab.status, bc.status], JSON.stringify([ab.body.error, bc.body.error])).toEqual([200, 200])
+      expect(await mergedInto(a.id)).toMatchObject({ status: 'closed', resolution: 'duplicate', merged_into_case_id: c.id })
+      expect(await mergedInto(b.id)).toMatchObject({ status: 'closed', resolution: 'duplicate', merged_into_case_id: c.id })
+      expect(await mergedInto(c.id)).toMatchObject({ status: 'received', merged_into_case_id: null })
+    }
+  })
+})
+
 describe('the timeline', () => {
-  it('refuses UPDATE and DELETE in the database', async () => {
+  it('refuses UPDATE and DELETE in the database (the app role has no such right; the trigger stops even the owner)', async () => {
     const f = await fileReport(t)
-    await expect(t.pool.query(`UPDATE case_events SET body = 'changed' WHERE case_id = $1`, [f.id])).rejects.toThrow(/append-only/)
-    await expect(t.pool.query(`DELETE FROM case_events WHERE case_id = $1`, [f.id])).rejects.toThrow(/append-only/)
+    await expect(t.pool.query(`UPDATE case_events SET body = 'changed' WHERE case_id = $1`, [f.id])).rejects.toThrow(/permission denied|append-only/)
+    await expect(t.pool.query(`DELETE FROM case_events WHERE case_id = $1`, [f.id])).rejects.toThrow(/permission denied|append-only/)
+    const owner = new pg.Client({ connectionString: inject('migrationDatabaseUrl') })
+    await owner.connect()
+    try {
+      await expect(owner.query(`UPDATE case_events SET body = 'changed' WHERE case_id = $1`, [f.id])).rejects.toThrow(/append-only/)
+      await expect(owner.query(`DELETE FROM case_events WHERE case_id = $1`, [f.id])).rejects.toThrow(/append-only/)
+    } finally {
+      await owner.end()
+    }
   })
 
   it('keeps internal notes apart from messages to the complainant, and e-mails only the latter', async () => {

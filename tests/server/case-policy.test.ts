@@ -5,7 +5,7 @@
  * information and withdraws), not derived from the lifecycle data the policy reads.
  */
 import { describe, expect, it } from 'vitest'
-import { canSeeCase, mayAddComplainantInformation, mayAddInternalNote, mayMakeMove, mayMessageComplainant, type CaseAccess, type CaseActor } from '../../server/policy/case-policy'
+import { caseAbilities, canSeeCase, mayAddComplainantInformation, mayAddInternalNote, mayMakeMove, mayMessageComplainant, type CaseAccess, type CaseActor } from '../../server/policy/case-policy'
 import type { CaseMoveName } from '../../shared/domain/case-lifecycle'
 
 const HOME = 'office-home'
@@ -53,6 +53,13 @@ describe('the case policy', () => {
       expect(allowed.sort()).toEqual([...row.who].sort())
     })
   }
+
+  it('offers no closing at triage for a case that holds merged reports, and every other move as before', () => {
+    const supervisor = PEOPLE['a supervisor of the office']!
+    const fresh: CaseAccess = { ...theCase, status: 'received', investigatorId: null }
+    expect(caseAbilities(supervisor, fresh)).toMatchObject({ dismiss: true, merge: true, triage: true })
+    expect(caseAbilities(supervisor, { ...fresh, holdsMergedReports: true })).toMatchObject({ dismiss: false, merge: true, triage: true, assign: true })
+  })
 
   it('gives an investigator no supervisor move even on a case assigned to them', () => {
     for (const m of SUPERVISOR_MOVES) expect(mayMakeMove(PEOPLE['the assigned investigator']!, m, theCase), m).toBe(false)

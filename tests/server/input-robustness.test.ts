@@ -99,11 +99,12 @@ let complainant: Agent
 beforeAll(async () => {
   t = await createTestContext()
   const { rows: offices } = await t.pool.query(`SELECT id, name FROM offices`)
-  const throwaway = await request(t.app)
+  const throwawayEmail = `fuzz-throwaway-${process.pid}-${Date.now()}@example.test`
+  await request(t.app)
     .post('/api/auth/register')
     .set('X-Forwarded-For', uniqueAddress())
-    .send({ name: 'Fuzz Throwaway', email: `fuzz-throwaway-${process.pid}-${Date.now()}@example.test`, password: 'a-long-enough-pass' })
-    .expect(201)
+    .send({ name: 'Fuzz Throwaway', email: throwawayEmail, password: 'a-long-enough-pass' })
+    .expect(202)
   supervisor = await signedInAgent(t.app, DEMO.supervisor)
   investigator = await signedInAgent(t.app, DEMO.investigator)
   complainant = await signedInAgent(t.app, DEMO.complainant)
@@ -111,7 +112,7 @@ beforeAll(async () => {
     ownOfficeId: offices.find((o) => o.name === 'Harrowmere').id,
     otherOfficeId: offices.find((o) => o.name === 'Kestrel Bay').id,
     investigatorId: await userId(t.pool, DEMO.investigator),
-    throwawayUserId: throwaway.body.user.id,
+    throwawayUserId: (await t.pool.query(`SELECT id FROM users WHERE email = $1`, [throwawayEmail])).rows[0].id,
     mergeTargetId: (await fileReport(t)).id,
   }
 })
@@ -176,6 +177,7 @@ const FUZZ: FuzzRow[] = [
   fixed('POST /api/auth/sign-in', () => '/api/auth/sign-in', () => ({ email: `fuzz-nobody-${process.pid}@example.test`, password: 'not-the-password' })),
   fixed('POST /api/auth/sign-out', () => '/api/auth/sign-out', () => ({})),
   fixed('POST /api/auth/register', () => '/api/auth/register', () => ({ name: 'Fuzz Person', email: `fuzz-register-${process.pid}@example.test`, password: 'a-long-enough-pass' })),
+  fixed('POST /api/auth/confirm-email', () => '/api/auth/confirm-email', () => ({ token: 'x'.repeat(43) })),
   fixed('POST /api/auth/password-reset', () => '/api/auth/password-reset', () => ({ email: `fuzz-nobody-${process.pid}@example.test` })),
   fixed('POST /api/auth/set-password', () => '/api/auth/set-password', () => ({ token: 'x'.repeat(43), password: 'long-enough-password' })),
   fixed('POST /api/admin/users', () => '/api/admin/users', () => ({ name: 'Fuzz Staff', email: `fuzz-staff-${process.pid}@quietband.test`, role: 'investigator', officeId: ids.otherOfficeId })),

@@ -4,7 +4,7 @@ import { runMigrations } from '../../server/db/client'
 
 describe('migrations', () => {
   it('serialize concurrent starters on a fresh database (advisory lock) and are idempotent', async () => {
-    const url = inject('databaseUrl')
+    const url = inject('migrationDatabaseUrl')
     const admin = new pg.Client({ connectionString: url })
     await admin.connect()
     const name = `migrate_race_${process.pid}`

@@ -2,6 +2,9 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import request from 'supertest'
 import { createTestContext, DEMO, signedInAgent, uniqueAddress, type TestContext } from '../support/harness'
 import { fileReport, NEAR_KESTREL_BAY, queuedMails, validReport } from '../support/cases'
+import { ADDITIONS_PER_HOUR_PER_CASE } from '../../server/modules/cases/case-notes.service'
+import { TRACKING_GUESSES_PER_HOUR_PER_ADDRESS } from '../../server/modules/cases/public.routes'
+import { FAR_FROM_EVERY_OFFICE_M } from '../../server/modules/cases/reports.service'
 
 let t: TestContext
 beforeAll(async () => {
@@ -110,6 +113,55 @@ describe('a report with bad input', () => {
   })
 })
 
+describe('numbers, dates and places in a report', () => {
+  it.each([
+    ['latDeg', false],
+    ['latDeg', []],
+    ['frequencyFrom', true],
+    ['frequencyFrom', '0x10'],
+    ['frequencyTo', { value: 1785 }],
+  ])('refuses %s = %j with 400 on that field and stores nothing', async (field, input) => {
+    const report = validReport({ [field]: input })
+    const res = await post(report).expect(400)
+    expect(res.body.error.code).toBe('validation_failed')
+    expect(res.body.error.details).toEqual([{ path: field, message: expect.stringMatching(/as a decimal number/) }])
+    expect(await casesFrom(report.email)).toBe(0)
+  })
+
+  it('refuses a subnormal frequency (1e-320 kHz) instead of storing it', async () => {
+    const report = validReport({ frequencyFrom: 1e-320, frequencyTo: undefined, frequencyUnit: 'kHz' })
+    const res = await post(report).expect(400)
+    expect(res.body.error.details).toEqual([{ path: 'frequencyFrom', message: 'The frequency is too close to zero to be a real value.' }])
+    expect(await casesFrom(report.email)).toBe(0)
+  })
+
+  it('stores a frequency typed as text with a decimal comma or its own unit, exactly in Hz', async () => {
+    const f = await fileReport(t, { frequencyFrom: '433,92', frequencyTo: '434.79 MHz', frequencyUnit: 'MHz', latDeg: '48,1', lonDeg: '−31.35' })
+    const { rows } = await t.pool.query(`SELECT freq_low_hz, freq_high_hz, lat_deg, lon_deg FROM cases WHERE id = $1`, [f.id])
+    expect(rows[0]).toEqual({ freq_low_hz: 433_920_000, freq_high_hz: 434_790_000, lat_deg: 48.1, lon_deg: -31.35 })
+  })
+
+  it('refuses a start date in the future with a plain message', async () => {
+    const report = validReport({ since: '2999-01-01' })
+    const res = await post(report).expect(400)
+    expect(res.body.error.details).toEqual([{ path: 'since', message: 'The date it started cannot be in the future.' }])
+    expect(await casesFrom(report.email)).toBe(0)
+  })
+
+  it(`files a report far from every office (over ${FAR_FROM_EVERY_OFFICE_M / 1000} km) but warns the reporter and flags the case`, async () => {
+    const report = validReport({ latDeg: -33.86, lonDeg: 151.21 }) // the other side of the world
+    const res = await post(report).expect(201)
+    expect(res.body.warnings).toEqual([{ code: 'far_from_offices', path: 'latDeg', message: expect.stringMatching(/^The place you gave is \d+ km from our nearest field office/) }])
+    const { rows } = await t.pool.query(`SELECT e.kind, e.visibility, e.body FROM case_events e JOIN cases c ON c.id = e.case_id WHERE c.reference = $1 AND e.kind = 'far_from_offices'`, [res.body.reference])
+    expect(rows).toEqual([{ kind: 'far_from_offices', visibility: 'internal', body: expect.stringMatching(/^Check the location/) }])
+  })
+
+  it('gives no warning for a report near an office', async () => {
+    const res = await post(validReport()).expect(201)
+    expect(res.body.warnings).toEqual([])
+  })
+})
+
 describe('tracking links', () => {
   it('open the complainant’s own report and never another one', async () => {
     const a = await fileReport(t)
@@ -158,6 +210,43 @@ describe('tracking links', () => {
     expect(res.body.report).toMatchObject({ step: 'closed', resolution: 'withdrawn' })
     const again = await request(t.app).post(`/api/track/${f.trackingToken}/withdraw`).send({}).expect(409)
     expect(again.body.error.code).toBe('invalid_transition')
+  })
+})
+
+describe('tracking links under abuse', () => {
+  it(`refuse an address with 429 after ${TRACKING_GUESSES_PER_HOUR_PER_ADDRESS} links that do not open, while other addresses are served`, async () => {
+    const f = await fileReport(t)
+    const address = uniqueAddress()
+    const guess = (token: string) => request(t.app).get(`/api/track/${token}`).set('X-Forwarded-For', address)
+    // opening a good link does not count
+    await guess(f.trackingToken).expect(200)
+    for (let i = 0; i < TRACKING_GUESSES_PER_HOUR_PER_ADDRESS; i++) await guess(`guess${String(i).padStart(40, '0')}`).expect(404)
+    const refused = await guess(`guess${'9'.repeat(40)}`).expect(429)
+    expect(refused.body.error).toEqual({ code: 'too_many_tracking_attempts', message: expect.stringMatching(/^Too many tracking links that do not work/), requestId: expect.any(String) })
+    await guess(f.trackingToken).expect(429)
+    await request(t.app).post(`/api/track/${f.trackingToken}/information`).set('X-Forwarded-For', address).send({ body: 'More' }).expect(429)
+    await request(t.app).get(`/api/track/${f.trackingToken}`).set('X-Forwarded-For', uniqueAddress()).expect(200)
+  })
+
+  it(`take ${ADDITIONS_PER_HOUR_PER_CASE} additions per case per hour, then answer 429 and store nothing more`, async () => {
+    const f = await fileReport(t)
+    const add = (i: number) => request(t.app).post(`/api/track/${f.trackingToken}/information`).set('X-Forwarded-For', uniqueAddress()).send({ body: `Addition ${i}: ${'x'.repeat(4000 - 20)}` })
+    for (let i = 0; i < ADDITIONS_PER_HOUR_PER_CASE; i++) await add(i).expect(201)
+    const refused = await add(99).expect(429)
+    expect(refused.body.error).toEqual({ code: 'too_many_additions', message: expect.stringMatching(/^This report has had \d+ additions in the last hour/), requestId: expect.any(String) })
+    const { rows } = await t.pool.query(`SELECT count(*)::int AS n FROM case_events WHERE case_id = $1 AND kind = 'complainant_information'`, [f.id])
+    expect(rows[0].n).toBe(ADDITIONS_PER_HOUR_PER_CASE)
+  })
+
+  it('hold the additions limit when many arrive at once', async () => {
+    const f = await fileReport(t)
+    const results = await Promise.all(
+      Array.from({ length: ADDITIONS_PER_HOUR_PER_CASE + 8 }, (_, i) => request(t.app).post(`/api/track/${f.trackingToken}/information`).set('X-Forwarded-For', uniqueAddress()).send({ body: `Parallel ${i}` })),
+    )
+    expect(results.filter((r) => r.status === 201)).toHaveLength(ADDITIONS_PER_HOUR_PER_CASE)
+    expect(results.filter((r) => r.status === 429)).toHaveLength(8)
+    const { rows } = await t.pool.query(`SELECT count(*)::int AS n FROM case_events WHERE case_id = $1 AND kind = 'complainant_information'`, [f.id])
+    expect(rows[0].n).toBe(ADDITIONS_PER_HOUR_PER_CASE)
   })
 })
 

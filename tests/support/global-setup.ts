@@ -1,7 +1,8 @@
 /**
  * Starts a throwaway PostgreSQL cluster for the API and browser tests (its own folder and
- * port, deleted afterwards), migrates and seeds the demo once, and always stops it — also
- * when setup itself fails (vitest does not call teardown then).
+ * port, deleted afterwards), migrates and seeds the demo once as the owner role, and always
+ * stops it — also when setup itself fails (vitest does not call teardown then). Tests get the
+ * application role's URL (`databaseUrl`) and the owner's (`migrationDatabaseUrl`).
  */
 import { execFileSync } from 'node:child_process'
 import fs from 'node:fs'
@@ -9,7 +10,8 @@ import os from 'node:os'
 import path from 'node:path'
 import { fileURLToPath } from 'node:url'
 import type { TestProject } from 'vitest/node'
-import { createPool, runMigrations } from '../../server/db/client'
+import { createPool } from '../../server/db/client'
+import { prepareDatabase } from '../../server/db/roles'
 import { seedDemo } from '../../ops/seed-demo'
 import { freePort } from '../../ops/local/free-port'
 
@@ -17,8 +19,11 @@ const dbScript = fileURLToPath(new URL('../../ops/db.sh', import.meta.url))
 
 export default async function setup(project: TestProject) {
   if (process.env.TEST_DATABASE_URL) {
-    await runMigrations(process.env.TEST_DATABASE_URL)
+    // an existing database: TEST_MIGRATION_DATABASE_URL is its owner (default: the same URL)
+    const ownerUrl = process.env.TEST_MIGRATION_DATABASE_URL ?? process.env.TEST_DATABASE_URL
+    await prepareDatabase(ownerUrl)
     project.provide('databaseUrl', process.env.TEST_DATABASE_URL)
+    project.provide('migrationDatabaseUrl', ownerUrl)
     return
   }
   const base = fs.mkdtempSync(path.join(os.tmpdir(), 'quietband-test-'))
@@ -33,12 +38,14 @@ export default async function setup(project: TestProject) {
   }
   try {
     const out = execFileSync('bash', [dbScript, 'start'], { env, encoding: 'utf8' })
-    const databaseUrl = /DATABASE_URL=(\S+)/.exec(out)![1]!
-    await runMigrations(databaseUrl)
-    const pool = createPool(databaseUrl, 2)
+    const databaseUrl = /^DATABASE_URL=(\S+)/m.exec(out)![1]!
+    const migrationDatabaseUrl = /^MIGRATION_DATABASE_URL=(\S+)/m.exec(out)![1]!
+    await prepareDatabase(migrationDatabaseUrl)
+    const pool = createPool(migrationDatabaseUrl, 2)
     await seedDemo(pool)
     await pool.end()
     project.provide('databaseUrl', databaseUrl)
+    project.provide('migrationDatabaseUrl', migrationDatabaseUrl)
   } catch (e) {
     teardown()
     throw e
@@ -48,6 +55,9 @@ export default async function setup(project: TestProject) {
 
 declare module 'vitest' {
   export interface ProvidedContext {
+    /** The application role: what the app connects as. */
     databaseUrl: string
+    /** The owner role: migrations, seeding, and tests that need the owner's powers. */
+    migrationDatabaseUrl: string
   }
 }

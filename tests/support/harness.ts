@@ -7,6 +7,7 @@ import { createApp, type AppHandle } from '../../server/app'
 import { createPool } from '../../server/db/client'
 import { startBoss } from '../../server/jobs/boss'
 import { DEMO_PASSWORD } from '../../ops/seed-demo'
+import type { Logger } from '../../server/log/logger'
 
 export const DEMO = {
   admin: 'admin@quietband.test',
@@ -32,7 +33,7 @@ export interface TestContext {
 /** A mail queue of this test file's own, so workers of other files never take its messages. */
 export const testMailQueue = () => `mail-send-test-${process.pid}-${Math.random().toString(36).slice(2, 8)}`
 
-export async function createTestContext(opts: { mailboxDir?: string; publicUrl?: string } = {}): Promise<TestContext> {
+export async function createTestContext(opts: { mailboxDir?: string; publicUrl?: string; logger?: Logger } = {}): Promise<TestContext> {
   const databaseUrl = inject('databaseUrl')
   const pool = createPool(databaseUrl, 5)
   const mailQueueName = testMailQueue()
@@ -45,6 +46,9 @@ export async function createTestContext(opts: { mailboxDir?: string; publicUrl?:
     mailboxDir: opts.mailboxDir,
     mailQueue: { queueName: mailQueueName, retryDelaySeconds: 1, retryLimit: 10 },
     trustProxy: 1,
+    logger: opts.logger,
+    // failed sign-ins answer at once here; the growing delay has its own tests (auth-lockout.test.ts)
+    signInDelay: () => 0,
   })
   return {
     mailQueueName,

@@ -37,7 +37,7 @@ export async function startWebServer(): Promise<RunningWeb> {
   // the public URL must be known before listening (e-mailed links, origin checks): pick the port first
   const port = await freePort()
   const baseUrl = `http://127.0.0.1:${port}`
-  const handle = createApp({ pool, boss, sessionSecret: 'e2e-session-secret-long-enough-0123456789', publicUrl: baseUrl, staticDir: WEB_DIST, mailboxDir, mailQueue: { queueName: mailQueueName, retryDelaySeconds: 1, retryLimit: 10 } })
+  const handle = createApp({ pool, boss, sessionSecret: 'e2e-session-secret-long-enough-0123456789', publicUrl: baseUrl, staticDir: WEB_DIST, mailboxDir, listenHost: '127.0.0.1', mailQueue: { queueName: mailQueueName, retryDelaySeconds: 1, retryLimit: 10 } })
   const server: Server = await new Promise((resolve, reject) => {
     const s = handle.app.listen(port, '127.0.0.1', () => resolve(s))
     s.once('error', reject)

@@ -83,6 +83,8 @@ export const cases = pgTable(
     index('cases_due_open_idx').on(t.dueAt).where(sql`${t.status} <> 'closed'`),
     index('cases_complainant_user_idx').on(t.complainantUserId),
     index('cases_complainant_email_idx').on(t.complainantEmail),
+    // the reports merged into a case (checked before closing it at triage and when it is merged)
+    index('cases_merged_into_idx').on(t.mergedIntoCaseId).where(sql`${t.mergedIntoCaseId} is not null`),
     index('cases_search_trgm_idx').using('gin', sql`${t.searchText} gin_trgm_ops`),
     // The case list's sorts, each in its full order (with the id tie-breaker) and with the
     // office last: a supervisor's page and an admin's page are both index-only scans, so a

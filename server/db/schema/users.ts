@@ -17,6 +17,13 @@ export const users = pgTable(
     /** argon2id; null until an invited staff member sets a password. */
     passwordHash: text('password_hash'),
     active: boolean('active').notNull().default(true),
+    /**
+     * When the owner proved the address by following an e-mailed link. Self-registered
+     * complainants start with null and cannot sign in until then; staff accounts (vouched for
+     * by an administrator) and accounts from before confirmation existed count as confirmed
+     * from their creation, which is what the default gives them.
+     */
+    emailConfirmedAt: timestamp('email_confirmed_at', { withTimezone: true }).defaultNow(),
     createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [
@@ -29,19 +36,38 @@ export const users = pgTable(
 
 export type User = typeof users.$inferSelect
 
-/** Single-use tokens for password reset and staff invitation; only the SHA-256 hash is stored. */
+/**
+ * Single-use tokens for password reset, staff invitation and e-mail confirmation; only the
+ * SHA-256 hash is stored.
+ */
 export const passwordTokens = pgTable(
   'password_tokens',
   {
     id: uuid('id').primaryKey().defaultRandom(),
     userId: uuid('user_id').notNull().references(() => users.id, { onDelete: 'cascade' }),
     tokenHash: text('token_hash').notNull().unique(),
-    purpose: text('purpose', { enum: ['reset', 'invite'] }).notNull(),
+    purpose: text('purpose', { enum: ['reset', 'invite', 'confirm'] }).notNull(),
     expiresAt: timestamp('expires_at', { withTimezone: true }).notNull(),
     usedAt: timestamp('used_at', { withTimezone: true }),
     createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
   },
-  (t) => [check('password_tokens_purpose_valid', sql`${t.purpose} in ('reset', 'invite')`)],
+  (t) => [check('password_tokens_purpose_valid', sql`${t.purpose} in ('reset', 'invite', 'confirm')`)],
+)
+
+/**
+ * E-mails sent in answer to anonymous account requests (registration, password reset), per
+ * recipient address, whether or not the address has an account: what caps the mails one
+ * address receives in an hour, and what lets both answers take the same path.
+ */
+export const accountMails = pgTable(
+  'account_mails',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    email: text('email').notNull(),
+    kind: text('kind', { enum: ['register', 'reset'] }).notNull(),
+    at: timestamp('at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [check('account_mails_kind_valid', sql`${t.kind} in ('register', 'reset')`), index('account_mails_email_at_idx').on(t.email, t.at)],
 )
 
 /** Sign-in attempts, for per-account and per-address limits that hold across app processes. */

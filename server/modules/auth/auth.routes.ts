@@ -1,48 +1,91 @@
 import { Router, type Request } from 'express'
 import type passport from 'passport'
-import { registerSchema, resetRequestSchema, setPasswordSchema, signInSchema, type SessionUser } from '../../../shared/schemas/auth'
+import {
+  confirmEmailSchema,
+  registerSchema,
+  resetRequestSchema,
+  setPasswordSchema,
+  signInSchema,
+  type AccountRequestResponse,
+  type MeResponse,
+  type SessionUser,
+} from '../../../shared/schemas/auth'
 import type { ServiceContext } from '../../context'
 import { HttpError } from '../../http/errors'
-import { requireUser } from '../../http/authenticate'
 import { parseWith } from '../../http/validate'
 import { perAddressLimit } from '../../http/rate-limit'
 import {
+  confirmEmailWithToken,
   markSignInSucceeded,
   openSignInAttempt,
   registerComplainant,
   requestPasswordReset,
   setPasswordWithToken,
 } from './auth.service'
+import { FREE_FAILURES_PER_ACCOUNT, signInDelayMs, wait, type SignInDelay } from './sign-in-delay'
 
 /** Registrations, reset requests and password settings per address per hour (common practice, no source). */
 export const ACCOUNT_REQUESTS_PER_HOUR_PER_ADDRESS = 30
 
-const invalidCredentials = () => new HttpError(401, 'invalid_credentials', 'E-mail or password is not correct.')
+/**
+ * The same words whether or not the account exists. Past a few failures (counted for the
+ * e-mail address typed, whether or not it has an account) they also say why answers slow down.
+ */
+const invalidCredentials = (accountFailures: number) =>
+  new HttpError(
+    401,
+    'invalid_credentials',
+    accountFailures + 1 > FREE_FAILURES_PER_ACCOUNT
+      ? 'E-mail or password is not correct. After several wrong passwords, each try on this account is answered more slowly, for a while.'
+      : 'E-mail or password is not correct.',
+  )
+const unconfirmedEmail = () =>
+  new HttpError(
+    403,
+    'email_not_confirmed',
+    'Confirm your e-mail address first: open the link we sent when you created the account. If it has expired, ask for a password link instead — choosing a password also confirms the address.',
+  )
 
 /** passport.login regenerates the session id (no session fixation). */
 function logIn(req: Request, user: SessionUser): Promise<void> {
   return new Promise((resolve, reject) => req.login(user, (err) => (err ? reject(err) : resolve())))
 }
 
-function authenticateLocal(p: passport.PassportStatic, req: Request): Promise<SessionUser | false> {
+type LocalResult = { user: SessionUser } | { user: false; unconfirmed: boolean }
+
+function authenticateLocal(p: passport.PassportStatic, req: Request): Promise<LocalResult> {
   return new Promise((resolve, reject) => {
-    p.authenticate('local', { session: false }, (err: unknown, user: SessionUser | false) => (err ? reject(err) : resolve(user)))(req, {} as never, reject)
+    p.authenticate('local', { session: false }, (err: unknown, user: SessionUser | false, info?: { message?: string }) =>
+      err ? reject(err) : resolve(user ? { user } : { user: false, unconfirmed: info?.message === 'unconfirmed' }),
+    )(req, {} as never, reject)
   })
 }
 
-export function authRoutes(ctx: ServiceContext, p: passport.PassportStatic): Router {
+export interface AuthRouteOptions {
+  /** Wait before answering a sign-in, from the account's recent failures (tests inject a tiny one). */
+  signInDelay?: SignInDelay
+}
+
+export function authRoutes(ctx: ServiceContext, p: passport.PassportStatic, opts: AuthRouteOptions = {}): Router {
   const r = Router()
+  const signInDelay = opts.signInDelay ?? signInDelayMs
 
   r.post('/auth/sign-in', async (req, res) => {
     const input = parseWith(signInSchema, req.body)
     const ip = req.ip ?? 'unknown'
-    const attemptId = await openSignInAttempt(ctx.db, input.email, ip)
+    const attempt = await openSignInAttempt(ctx.db, input.email, ip)
+    // the account's failures from elsewhere slow the answer down; they never refuse the right password
+    await wait(signInDelay(attempt.accountFailures))
     req.body = input
-    const user = await authenticateLocal(p, req)
-    if (!user) throw invalidCredentials()
-    await markSignInSucceeded(ctx.db, attemptId)
-    await logIn(req, user)
-    res.json({ user })
+    const result = await authenticateLocal(p, req)
+    if (!result.user) {
+      if (!result.unconfirmed) throw invalidCredentials(attempt.accountFailures)
+      await markSignInSucceeded(ctx.db, attempt.id) // the password was right: not a guess
+      throw unconfirmedEmail()
+    }
+    await markSignInSucceeded(ctx.db, attempt.id)
+    await logIn(req, result.user)
+    res.json({ user: result.user })
   })
 
   r.post('/auth/sign-out', (req, res, next) => {
@@ -52,24 +95,35 @@ export function authRoutes(ctx: ServiceContext, p: passport.PassportStatic): Rou
     })
   })
 
-  r.get('/me', requireUser, (req, res) => {
-    res.json({ user: req.user })
+  // an anonymous visitor is an ordinary answer (no user), not an error
+  r.get('/me', (req, res) => {
+    const body: MeResponse = { user: req.isAuthenticated() ? req.user! : null }
+    res.json(body)
   })
 
   // account work without a session: each costs a password hash or an e-mail
   const accountWork = perAddressLimit({ perHour: ACCOUNT_REQUESTS_PER_HOUR_PER_ADDRESS, code: 'too_many_attempts', message: 'Too many requests from this address. Wait a while and try again.' })
 
+  // the same answer whether or not the address has an account: the e-mail tells the rest
+  const accepted: AccountRequestResponse = { ok: true }
+
   r.post('/auth/register', accountWork, async (req, res) => {
     const input = parseWith(registerSchema, req.body)
-    const user = await registerComplainant(ctx, input)
+    await registerComplainant(ctx, input)
+    res.status(202).json(accepted)
+  })
+
+  r.post('/auth/confirm-email', accountWork, async (req, res) => {
+    const { token } = parseWith(confirmEmailSchema, req.body)
+    const user = await confirmEmailWithToken(ctx, token)
     await logIn(req, user)
-    res.status(201).json({ user })
+    res.json({ user })
   })
 
   r.post('/auth/password-reset', accountWork, async (req, res) => {
     const { email } = parseWith(resetRequestSchema, req.body)
     await requestPasswordReset(ctx, email)
-    res.status(202).json({ ok: true })
+    res.status(202).json(accepted)
   })
 
   r.post('/auth/set-password', accountWork, async (req, res) => {

@@ -9,7 +9,11 @@ export function configurePassport(db: Db): passport.PassportStatic {
   const p = new passport.Passport() as unknown as passport.PassportStatic
   p.use(
     new LocalStrategy({ usernameField: 'email' }, (email, password, done) => {
-      checkCredentials(db, email, password).then((user) => done(null, user ?? false), done)
+      // a right password on an unconfirmed address fails with a reason the route can tell
+      checkCredentials(db, email, password).then(
+        (found) => (found && 'user' in found ? done(null, found.user) : done(null, false, { message: found ? 'unconfirmed' : 'invalid' })),
+        done,
+      )
     }),
   )
   p.serializeUser((user, done) => done(null, user.id))

@@ -4,7 +4,7 @@
  * state (409 invalid_transition); write the change with an optimistic version check, append
  * the timeline event, and queue the e-mails it causes. Nothing is half-written.
  */
-import { and, asc, eq, inArray } from 'drizzle-orm'
+import { and, asc, eq, inArray, sql } from 'drizzle-orm'
 import type pg from 'pg'
 import { CASE_MOVE_LABELS, CASE_STATE_LABELS, moveAllowedFrom, stateAfter, type CaseMoveName, type CaseState, type Resolution } from '../../../shared/domain/case-lifecycle'
 import type { AffectedService, Priority } from '../../../shared/domain/services'
@@ -19,10 +19,11 @@ import {
   caseClosedMail,
   caseReopenedMail,
   findingProposedMail,
+  findingReturnedMail,
   investigatorAssignedMail,
 } from '../../mail/case-templates'
 import { canSeeCase, mayMakeMove, type CaseActor } from '../../policy/case-policy'
-import { appendEvent, findCase, officeTargetsHours, updateCaseIfVersion, userName } from './cases.repo'
+import { appendEvent, findCase, mergedReportsOf, officeTargetsHours, updateCaseIfVersion, userName } from './cases.repo'
 import { dueAt } from './due'
 import { issueTrackingLink } from './tracking-tokens'
 
@@ -164,22 +165,54 @@ export function transferCase(ctx: ServiceContext, actor: CaseActor, caseId: stri
   })
 }
 
-/** Joins a new report to an open case of the same office; the report closes as a duplicate. */
+/** How many merge links a merge follows at most (merged reports are re-pointed, so chains stay short). */
+const MAX_MERGE_CHAIN = 20
+
+/**
+ * Joins a new report to an open case of the same office; the report closes as a duplicate.
+ * The rule for merged reports (also in shared/domain/case-lifecycle.ts):
+ * - a merge follows the chain: choosing a case that was itself merged meanwhile merges into
+ *   the open case at the end of its chain;
+ * - merged reports follow their case: when a case that holds merged reports is merged in
+ *   turn, they are re-pointed to the new case, so every merged report points at the case
+ *   that does the work;
+ * - a case that holds merged reports is not closed at triage (see dismissReport).
+ */
 export function mergeCase(ctx: ServiceContext, actor: CaseActor, caseId: string, input: { version: number; intoCaseId: string }) {
   return makeMove(ctx, actor, caseId, 'merge', input.version, async ({ c, db, mail, trackingLink, actorName, now }) => {
+    const refuse = (message: string) => badRequest('validation_failed', 'Some fields need attention.', [{ path: 'intoCaseId', message }])
+    if (!CASE_ID.test(input.intoCaseId) || input.intoCaseId === c.id) throw refuse('Choose another open case of this office.')
     // Lock both cases, always in id order: two merges of the same pair in opposite directions
     // then run one after the other (never deadlock), and the second finds its target closed
-    // instead of leaving two cases closed as duplicates of each other.
+    // instead of leaving two cases closed as duplicates of each other. A dismissal or another
+    // merge of the target waits for this lock too, and then sees this merge.
     const pair = await db.select().from(cases).where(inArray(cases.id, [c.id, input.intoCaseId])).orderBy(asc(cases.id)).for('no key update')
-    const target = pair.find((p) => p.id === input.intoCaseId && p.id !== c.id && p.officeId === c.officeId && p.status !== 'closed')
-    if (!target) throw badRequest('validation_failed', 'Some fields need attention.', [{ path: 'intoCaseId', message: 'Choose another open case of this office.' }])
+    let target = pair.find((p) => p.id === input.intoCaseId)
+    const chosen = target
+    // follow the chain of merges to the open case at its end
+    for (let hops = 0; target && target.status === 'closed' && target.resolution === 'duplicate' && target.mergedIntoCaseId && hops < MAX_MERGE_CHAIN; hops++) {
+      ;[target] = await db.select().from(cases).where(eq(cases.id, target.mergedIntoCaseId)).for('no key update')
+    }
+    if (!target || target.id === c.id || target.officeId !== c.officeId || target.status === 'closed') throw refuse('Choose another open case of this office.')
+    const via = chosen && chosen.id !== target.id ? ` (${chosen.reference} had been merged into it)` : ''
     const summary = `Your report describes the same interference as case ${target.reference}, which our engineers are already working on. We have joined the two so the work is done once.`
+    const by = { actorUserId: actor.role === 'tracking_link' ? null : actor.id, actorLabel: actorName }
     return {
       changes: { mergedIntoCaseId: target.id, resolution: 'duplicate', closingSummary: summary, closedAt: now },
-      body: `Merged into ${target.reference}.`,
-      data: { intoCaseId: target.id, intoReference: target.reference },
+      body: `Merged into ${target.reference}${via}.`,
+      data: { intoCaseId: target.id, intoReference: target.reference, chosenCaseId: chosen?.id ?? null },
       after: async (u) => {
-        await appendEvent(db, { caseId: target.id, at: now, actorUserId: actor.role === 'tracking_link' ? null : actor.id, actorLabel: actorName, kind: 'merged_in', visibility: 'internal', body: `${u.reference} (${u.complainantName}) was merged into this case.`, data: { fromCaseId: u.id, fromReference: u.reference } })
+        // the reports merged into this case follow it (this case's row lock keeps new ones out meanwhile)
+        const followers = await db
+          .update(cases)
+          .set({ mergedIntoCaseId: target.id, version: sql`${cases.version} + 1`, updatedAt: sql`now()` })
+          .where(eq(cases.mergedIntoCaseId, u.id))
+          .returning({ id: cases.id, reference: cases.reference, complainantName: cases.complainantName })
+        await appendEvent(db, { caseId: target.id, at: now, ...by, kind: 'merged_in', visibility: 'internal', body: `${u.reference} (${u.complainantName}) was merged into this case.`, data: { fromCaseId: u.id, fromReference: u.reference } })
+        for (const f of followers) {
+          await appendEvent(db, { caseId: f.id, at: now, ...by, kind: 'merge_followed', visibility: 'internal', body: `${u.reference}, into which this report was merged, was merged into ${target.reference}; this report follows it.`, data: { intoCaseId: target.id, intoReference: target.reference, viaCaseId: u.id } })
+          await appendEvent(db, { caseId: target.id, at: now, ...by, kind: 'merged_in', visibility: 'internal', body: `${f.reference} (${f.complainantName}) came with ${u.reference}.`, data: { fromCaseId: f.id, fromReference: f.reference, viaCaseId: u.id } })
+        }
         await mail(caseClosedMail(u, 'duplicate', summary, await trackingLink()))
       },
     }
@@ -195,9 +228,29 @@ function closing(resolution: Resolution, summary: string, s: MoveScope): MovePla
   }
 }
 
-/** Closes a report at triage: no interference, or a matter for another authority. */
+/**
+ * Closes a report at triage: no interference, or a matter for another authority. Refused
+ * (409 holds_merged_reports) while reports are merged into the case: their complainants were
+ * told it is being worked on, and closing it at triage would close their reports with an
+ * outcome nobody gave them.
+ */
 export function dismissReport(ctx: ServiceContext, actor: CaseActor, caseId: string, input: { version: number; resolution: Resolution; reason: string }) {
-  return makeMove(ctx, actor, caseId, 'dismiss', input.version, async (s) => closing(input.resolution, input.reason, s))
+  return makeMove(ctx, actor, caseId, 'dismiss', input.version, async (s) => {
+    // under the case's row lock, so a merge into it either comes first (and is seen) or waits
+    await s.db.select({ id: cases.id }).from(cases).where(eq(cases.id, s.c.id)).for('no key update')
+    const merged = await mergedReportsOf(s.db, s.c.id)
+    if (merged.length > 0) throw holdsMergedReports(merged.map((m) => m.reference))
+    return closing(input.resolution, input.reason, s)
+  })
+}
+
+/** 409: a case that holds merged reports cannot be closed at triage; says what to do instead. */
+export function holdsMergedReports(references: string[]) {
+  const which = references.length === 1 ? `Report ${references[0]} was` : `Reports ${references.slice(0, 5).join(', ')}${references.length > 5 ? ` and ${references.length - 5} more` : ''} were`
+  return conflict(
+    'holds_merged_reports',
+    `${which} merged into this case, and ${references.length === 1 ? 'its complainant was' : 'their complainants were'} told it is being worked on, so it cannot be closed at triage. Assign it and close it with a finding, or merge it into another open case (the merged reports follow it there).`,
+  )
 }
 
 export function startFieldWork(ctx: ServiceContext, actor: CaseActor, caseId: string, input: { version: number }) {
@@ -218,8 +271,15 @@ export function proposeFinding(ctx: ServiceContext, actor: CaseActor, caseId: st
   }))
 }
 
+/** Sends a finding back for more work: the case returns to its investigator, who is e-mailed. */
 export function returnFinding(ctx: ServiceContext, actor: CaseActor, caseId: string, input: { version: number; reason: string }) {
-  return makeMove(ctx, actor, caseId, 'returnFinding', input.version, async () => ({ body: input.reason }))
+  return makeMove(ctx, actor, caseId, 'returnFinding', input.version, async ({ c, db, mail, actorName }) => ({
+    body: input.reason,
+    after: async (u) => {
+      const investigator = c.investigatorId ? await userName(db, c.investigatorId) : undefined
+      if (investigator?.active) await mail(findingReturnedMail(investigator, u, actorName, input.reason, caseLink(ctx, u.id)))
+    },
+  }))
 }
 
 /** Approves the finding and closes the case with a resolution and a summary for the complainant. */

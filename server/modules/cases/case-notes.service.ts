@@ -1,7 +1,9 @@
 /** Notes and messages on a case's timeline; they never change its state. */
 import type { ServiceContext } from '../../context'
 import { withTransaction } from '../../db/client'
-import { forbidden } from '../../http/errors'
+import { and, count, eq, gt } from 'drizzle-orm'
+import { caseEvents, cases } from '../../db/schema'
+import { forbidden, HttpError } from '../../http/errors'
 import { queueMail } from '../../jobs/boss'
 import { informationRequestedMail, messageToComplainantMail } from '../../mail/case-templates'
 import { mayAddComplainantInformation, mayAddInternalNote, mayMessageComplainant, type CaseActor } from '../../policy/case-policy'
@@ -33,11 +35,31 @@ export async function addCaseNote(
   })
 }
 
-/** The complainant adds information to their report (through the tracking link or their account). */
+/** Additions by the complainant per case per hour (abuse limit; common practice, no source). */
+export const ADDITIONS_PER_HOUR_PER_CASE = 10
+
+/**
+ * The complainant adds information to their report (through the tracking link or their
+ * account). At most ADDITIONS_PER_HOUR_PER_CASE an hour, counted in PostgreSQL under the
+ * case's row lock, so the limit holds across app processes and parallel requests.
+ */
 export async function addComplainantInformation(ctx: ServiceContext, actor: CaseActor, caseId: string, body: string): Promise<void> {
   await withTransaction(ctx.pool, async ({ db }) => {
     const c = await loadVisibleCase(db, actor, caseId)
     if (!mayAddComplainantInformation(actor, { ...c, status: c.status as CaseState })) throw forbidden()
+    await db.select({ id: cases.id }).from(cases).where(eq(cases.id, c.id)).for('no key update')
+    const hourAgo = new Date(ctx.now().getTime() - 60 * 60 * 1000)
+    const [recent] = await db
+      .select({ n: count() })
+      .from(caseEvents)
+      .where(and(eq(caseEvents.caseId, c.id), eq(caseEvents.kind, 'complainant_information'), gt(caseEvents.at, hourAgo)))
+    if (recent!.n >= ADDITIONS_PER_HOUR_PER_CASE) {
+      throw new HttpError(
+        429,
+        'too_many_additions',
+        `This report has had ${ADDITIONS_PER_HOUR_PER_CASE} additions in the last hour, the most we take. Please wait an hour, then send the rest in one message.`,
+      )
+    }
     await appendEvent(db, {
       caseId: c.id,
       at: ctx.now(),

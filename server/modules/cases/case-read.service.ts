@@ -8,6 +8,7 @@ import { caseAbilities, type CaseActor } from '../../policy/case-policy'
 import type { Actor } from '../../policy/policy'
 import { forbidden } from '../../http/errors'
 import { loadVisibleCase } from './case-moves.service'
+import { mergedReportsOf } from './cases.repo'
 import { presentCaseDetail, presentComplainantView, toTimelineEvent } from './cases.present'
 import type { InvestigatorLoad, MergeCandidate, MyReportRow, TimelineEvent, TransferOffice } from '../../../shared/schemas/views'
 
@@ -21,13 +22,14 @@ export async function getCaseDetail(ctx: ServiceContext, actor: Actor, caseId: s
   const [office] = await ctx.db.select({ name: offices.name }).from(offices).where(eq(offices.id, c.officeId))
   const investigator = c.investigatorId ? (await ctx.db.select({ name: users.name }).from(users).where(eq(users.id, c.investigatorId)))[0] : undefined
   const merged = c.mergedIntoCaseId ? (await ctx.db.select({ reference: cases.reference }).from(cases).where(eq(cases.id, c.mergedIntoCaseId)))[0] : undefined
+  const holdsMergedReports = (await mergedReportsOf(ctx.db, c.id)).length > 0
   return presentCaseDetail(
     c,
     {
       officeName: office!.name,
       investigatorName: investigator?.name ?? null,
       mergedIntoReference: merged?.reference ?? null,
-      abilities: caseAbilities(actor, { ...c, status: c.status as CaseState }),
+      abilities: caseAbilities(actor, { ...c, status: c.status as CaseState, holdsMergedReports }),
       timeline: await timeline(ctx, c.id),
     },
     ctx.now(),
@@ -40,9 +42,18 @@ export async function getComplainantView(ctx: ServiceContext, actor: CaseActor, 
   return presentComplainantView(c, await timeline(ctx, c.id), { withdraw: abilities.withdraw, addInformation: true })
 }
 
-/** A signed-in complainant's reports, newest first. */
+/**
+ * A signed-in complainant's reports, newest first. Reports filed without signing in, with the
+ * account's address, join the account first — once the address is confirmed (it proves the
+ * reports are this person's), including reports filed so after the account was made.
+ */
 export async function listMyReports(ctx: ServiceContext, actor: Actor): Promise<MyReportRow[]> {
   if (actor.role !== 'complainant') throw forbidden('Only complainant accounts have reports.')
+  await ctx.db.execute(
+    sql`UPDATE ${cases} SET complainant_user_id = u.id FROM ${users} u
+        WHERE u.id = ${actor.id} AND u.email_confirmed_at IS NOT NULL
+          AND ${cases.complainantUserId} IS NULL AND ${cases.complainantEmail} = u.email`,
+  )
   const rows = await ctx.db.select().from(cases).where(eq(cases.complainantUserId, actor.id)).orderBy(desc(cases.receivedAt))
   return rows.map((c) => ({ id: c.id, reference: c.reference, step: COMPLAINANT_STEP_OF_STATE[c.status as CaseState], statusLabel: COMPLAINANT_STEP_LABELS[COMPLAINANT_STEP_OF_STATE[c.status as CaseState]], service: c.service, address: c.address, freqLowHz: c.freqLowHz, freqHighHz: c.freqHighHz, receivedAt: c.receivedAt.toISOString(), closedAt: c.closedAt?.toISOString() ?? null }))
 }

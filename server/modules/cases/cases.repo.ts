@@ -1,5 +1,5 @@
 /** Reading and writing case rows and timeline events. No authorization here. */
-import { and, eq, sql } from 'drizzle-orm'
+import { and, asc, eq, sql } from 'drizzle-orm'
 import type { Db } from '../../db/client'
 import { caseEvents, cases, offices, users, type CaseRow } from '../../db/schema'
 import type { CaseState } from '../../../shared/domain/case-lifecycle'
@@ -39,6 +39,11 @@ export async function updateCaseIfVersion(db: Db, id: string, version: number, c
     .where(and(eq(cases.id, id), eq(cases.version, version)))
     .returning()
   return row
+}
+
+/** The reports merged into a case (closed as its duplicates), oldest first. */
+export async function mergedReportsOf(db: Db, caseId: string): Promise<{ id: string; reference: string }[]> {
+  return db.select({ id: cases.id, reference: cases.reference }).from(cases).where(eq(cases.mergedIntoCaseId, caseId)).orderBy(asc(cases.receivedAt), asc(cases.id))
 }
 
 export async function officeTargetsHours(db: Db, officeId: string): Promise<Record<Priority, number>> {

@@ -6,7 +6,7 @@
 import { and, eq } from 'drizzle-orm'
 import { nearestOffice } from '../../../shared/radio/geo'
 import { suggestPriority, type Priority } from '../../../shared/domain/services'
-import { reportFrequencyHz, type Report } from '../../../shared/schemas/cases'
+import { reportFrequencyHz, type Report, type ReportWarning } from '../../../shared/schemas/cases'
 import type { SessionUser } from '../../../shared/schemas/auth'
 import { withTransaction } from '../../db/client'
 import { cases, offices, users } from '../../db/schema'
@@ -18,11 +18,20 @@ import { appendEvent, nextCaseReference } from './cases.repo'
 import { dueAt } from './due'
 import { issueTrackingLink } from './tracking-tokens'
 
+/**
+ * Distance beyond which a report lies "far from every office" [m]: it is still accepted and
+ * routed to the nearest office, but the reporter is warned and the case says so (a field
+ * office covers a region a few hours' drive across; common practice, no source).
+ */
+export const FAR_FROM_EVERY_OFFICE_M = 200_000
+
 export interface SubmittedReport {
   caseId: string
   reference: string
   officeName: string
   trackingUrl: string
+  /** Things the reporter should check; the report is filed all the same. */
+  warnings: ReportWarning[]
 }
 
 export async function submitReport(ctx: ServiceContext, report: Report, signedIn?: SessionUser): Promise<SubmittedReport> {
@@ -35,6 +44,17 @@ export async function submitReport(ctx: ServiceContext, report: Report, signedIn
   const office = allOffices.find((o) => o.id === nearest.id)!
   const priority: Priority = suggestPriority(report.service, report.experience)
   const { lowHz, highHz } = reportFrequencyHz(report)
+  const farKm = nearest.distanceM > FAR_FROM_EVERY_OFFICE_M ? Math.round(nearest.distanceM / 1000) : undefined
+  const warnings: ReportWarning[] =
+    farKm === undefined
+      ? []
+      : [
+          {
+            code: 'far_from_offices',
+            path: 'latDeg',
+            message: `The place you gave is ${farKm} km from our nearest field office (${office.name}), outside the area we cover. We have filed your report there all the same. If the latitude or longitude is wrong, add the right place on your tracking page.`,
+          },
+        ]
   const targets = { 1: office.targetP1Hours, 2: office.targetP2Hours, 3: office.targetP3Hours, 4: office.targetP4Hours } as const
 
   return withTransaction(ctx.pool, async ({ db, client }) => {
@@ -80,6 +100,18 @@ export async function submitReport(ctx: ServiceContext, report: Report, signedIn
       body: `Routed to ${office.name}, the nearest office (${(nearest.distanceM / 1000).toFixed(1)} km, geodesic). Suggested priority ${priority} from the affected service.`,
       data: { officeId: office.id, distanceM: nearest.distanceM, suggestedPriority: priority, method: nearest.method },
     })
+    if (farKm !== undefined) {
+      await appendEvent(db, {
+        caseId: c!.id,
+        at: now,
+        actorUserId: null,
+        actorLabel: 'Quietband',
+        kind: 'far_from_offices',
+        visibility: 'internal',
+        body: `Check the location: it is ${farKm} km from the nearest office (${office.name}), more than ${FAR_FROM_EVERY_OFFICE_M / 1000} km from every office. The complainant was warned when filing.`,
+        data: { distanceM: nearest.distanceM, thresholdM: FAR_FROM_EVERY_OFFICE_M, latDeg: report.latDeg, lonDeg: report.lonDeg },
+      })
+    }
     const trackingUrl = await issueTrackingLink(db, ctx.publicUrl, c!.id)
     await queueMail(ctx.boss, client, reportReceivedMail({ ...c!, officeName: office.name }, trackingUrl), ctx.mailQueue)
     if (priority === 1) {
@@ -91,6 +123,6 @@ export async function submitReport(ctx: ServiceContext, report: Report, signedIn
         await queueMail(ctx.boss, client, safetyReportMail(s, { ...c!, service: report.service }, `${ctx.publicUrl}/cases/${c!.id}`), ctx.mailQueue)
       }
     }
-    return { caseId: c!.id, reference, officeName: office.name, trackingUrl }
+    return { caseId: c!.id, reference, officeName: office.name, trackingUrl, warnings }
   })
 }

@@ -34,6 +34,11 @@ describe('timeline lanes', () => {
     expect(eventTitle(ev('assign', 'internal', { investigatorName: 'Marta Ferreira' }))).toBe('Assigned to Marta Ferreira')
     expect(eventTitle(ev('close', 'internal', { resolution: 'source_corrected' }))).toBe('Approved and closed: Source found and corrected')
   })
+
+  it('names a merged report following its case, and a report filed far from every office', () => {
+    expect(eventTitle(ev('merge_followed', 'internal', { intoReference: 'QB-26-000042' }))).toBe('Now part of QB-26-000042')
+    expect(eventTitle(ev('far_from_offices', 'internal'))).toBe('Check the location: far from every office')
+  })
 })
 
 describe('complainant steps', () => {

@@ -24,6 +24,7 @@ describe('safeNextPath', () => {
   it('refuses the sign-in and password pages themselves, so sign-in cannot loop', () => {
     expect(safeNextPath('/sign-in?next=/work')).toBeNull()
     expect(safeNextPath('/set-password?token=abc')).toBeNull()
+    expect(safeNextPath('/confirm-email?token=abc')).toBeNull()
   })
 
   it('gives null for a missing value', () => {

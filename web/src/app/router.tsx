@@ -24,6 +24,7 @@ export const routes: RouteObject[] = [
           { path: 'register', lazy: () => import('./routes/register') },
           { path: 'forgot-password', lazy: () => import('./routes/forgot-password') },
           { path: 'set-password', lazy: () => import('./routes/set-password') },
+          { path: 'confirm-email', lazy: () => import('./routes/confirm-email') },
           { path: 'report', lazy: () => import('./routes/report') },
           { path: 'track', lazy: () => import('./routes/track') },
           { path: 'track/:token', lazy: () => import('./routes/track-token') },

@@ -25,8 +25,9 @@ export function Component() {
       </div>
       {mailbox.isPending && <Loading label="Loading messages…" />}
       {disabled && (
-        <Notice tone="info" title="Mailbox disabled: a real mail server is configured.">
-          <p>Messages go out by e-mail; read them in the receiving mailboxes.</p>
+        <Notice tone="info" title="The development mailbox is off.">
+          <p>{isApiError(mailbox.error) ? mailbox.error.message : null}</p>
+          <p>Read the e-mails in the mailboxes they were sent to instead.</p>
         </Notice>
       )}
       {mailbox.isError && !disabled && <QueryError error={mailbox.error} what="the mailbox" onRetry={() => void mailbox.refetch()} />}

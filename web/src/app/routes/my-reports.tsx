@@ -11,7 +11,7 @@ export function Component() {
   const reports = useMyReports()
   return (
     <>
-      <PageHeader title="My reports" lead={<p>Reports you sent while signed in, with where each one stands.</p>} />
+      <PageHeader title="My reports" lead={<p>Reports you sent while signed in or with this account’s e-mail address, with where each one stands.</p>} />
       <div className="flex flex-col gap-5">
         {reports.isPending && <Loading label="Loading your reports…" />}
         {reports.isError && <QueryError error={reports.error} what="your reports" onRetry={() => void reports.refetch()} />}

@@ -1,19 +1,14 @@
-/** GET /api/me — who is signed in. A 401 is not an error here: it means "nobody" (null). */
+/** GET /api/me — who is signed in: the user, or null for an anonymous visitor (200 either way). */
 import { queryOptions, useQuery } from '@tanstack/react-query'
-import type { SessionUser } from '../../../../../shared/schemas/auth'
+import type { MeResponse, SessionUser } from '../../../../../shared/schemas/auth'
 import { ApiError, api } from '../../../lib/api-client'
 import { ME_QUERY_KEY } from '../../../lib/query-client'
 
 export const meQueryKey = ME_QUERY_KEY
 
 export async function getMe(signal?: AbortSignal): Promise<SessionUser | null> {
-  try {
-    const { user } = await api.get<{ user: SessionUser }>('/api/me', signal)
-    return user
-  } catch (error) {
-    if (error instanceof ApiError && error.status === 401) return null
-    throw error
-  }
+  const { user } = await api.get<MeResponse>('/api/me', signal)
+  return user
 }
 
 export const meQueryOptions = () =>

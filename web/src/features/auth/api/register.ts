@@ -1,8 +1,11 @@
-/** POST /api/auth/register — a complainant account; the server signs the person in. */
-import type { RegisterInput, SessionUser } from '../../../../../shared/schemas/auth'
+/**
+ * POST /api/auth/register — a complainant account. The answer is the same whether or not the
+ * address has an account already; the e-mail tells the rest, and nobody is signed in yet.
+ */
+import { useMutation } from '@tanstack/react-query'
+import type { AccountRequestResponse, RegisterInput } from '../../../../../shared/schemas/auth'
 import { api } from '../../../lib/api-client'
-import { useSigningInMutation } from './remember-user'
 
-export const register = (input: RegisterInput) => api.post<{ user: SessionUser }>('/api/auth/register', input)
+export const register = (input: RegisterInput) => api.post<AccountRequestResponse>('/api/auth/register', input)
 
-export const useRegister = () => useSigningInMutation(register)
+export const useRegister = () => useMutation({ mutationFn: register })

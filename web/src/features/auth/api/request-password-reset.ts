@@ -1,4 +1,4 @@
-/** POST /api/auth/password-reset — always 202, whether or not the address has an account. */
+/** POST /api/auth/password-reset — always 202, whether or not the address has an account (the e-mail says which). */
 import { useMutation } from '@tanstack/react-query'
 import type { ResetRequestInput } from '../../../../../shared/schemas/auth'
 import { api } from '../../../lib/api-client'

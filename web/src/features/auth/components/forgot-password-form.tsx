@@ -1,6 +1,6 @@
 /**
  * Asks for a reset link. The answer is the same whether or not an account exists, so the page
- * never reveals who has one.
+ * never reveals who has one: the e-mail says which.
  */
 import { zodResolver } from '@hookform/resolvers/zod'
 import { useEffect, useState } from 'react'
@@ -35,8 +35,13 @@ export function ForgotPasswordForm() {
 
   if (requestReset.isSuccess) {
     return (
-      <Notice tone="ok" title="If an account exists for that address, we have sent a link." live>
-        <p>The link works once and expires after a while. Check your spam folder if nothing arrives within a few minutes.</p>
+      <Notice tone="ok" title="Check your e-mail." live>
+        <p>
+          We have sent a message to that address. If it belongs to an account, the message holds a link to choose a new password; it
+          works once and expires after 30 minutes. Choosing a password also ends any slow-down or refusal of sign-ins after wrong
+          passwords.
+        </p>
+        <p>Check your spam folder if nothing arrives within a few minutes.</p>
       </Notice>
     )
   }

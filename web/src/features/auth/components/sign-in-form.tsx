@@ -1,15 +1,37 @@
-/** E-mail and password sign-in. Field problems sit beside fields; the server's verdict above the button. */
+/**
+ * E-mail and password sign-in. Field problems sit beside fields; the server's verdict above the
+ * button, in its own plain words (wrong password, slowed down, refused for a while, address not
+ * confirmed yet), with the way out: a password link by e-mail.
+ */
 import { zodResolver } from '@hookform/resolvers/zod'
 import { useEffect, useState } from 'react'
 import { useForm } from 'react-hook-form'
+import { Link } from 'react-router-dom'
 import { signInSchema, type SessionUser, type SignInInput } from '../../../../../shared/schemas/auth'
 import { FormAlert } from '../../../components/ui/form-alert'
 import { SubmitButton } from '../../../components/ui/submit-button'
 import { TextField } from '../../../components/ui/text-field'
+import { isApiError } from '../../../lib/api-client'
 import { applyFieldErrors, formProblem, type FormProblem } from '../../../lib/form-errors'
 import { useSignIn } from '../api/sign-in'
 
 const FIELDS = ['email', 'password'] as const
+/** How long a sign-in may take before the form says why it is slow [ms]. */
+const SLOW_ANSWER_MS = 1_200
+
+/** True once `pending` has lasted `afterMs`. */
+function useTakingLong(pending: boolean, afterMs: number): boolean {
+  const [long, setLong] = useState(false)
+  useEffect(() => {
+    if (!pending) {
+      setLong(false)
+      return
+    }
+    const timer = setTimeout(() => setLong(true), afterMs)
+    return () => clearTimeout(timer)
+  }, [pending, afterMs])
+  return long
+}
 
 export function SignInForm({ onSignedIn }: { onSignedIn: (user: SessionUser) => void }) {
   const { register, handleSubmit, setError, setFocus, formState } = useForm<SignInInput>({
@@ -18,18 +40,22 @@ export function SignInForm({ onSignedIn }: { onSignedIn: (user: SessionUser) => 
   })
   const signIn = useSignIn()
   const [problem, setProblem] = useState<FormProblem | null>(null)
+  const [offerReset, setOfferReset] = useState(false)
+  const slow = useTakingLong(formState.isSubmitting, SLOW_ANSWER_MS)
 
   useEffect(() => setFocus('email'), [setFocus])
 
   const onSubmit = handleSubmit(async (values) => {
     setProblem(null)
+    setOfferReset(false)
     try {
       const { user } = await signIn.mutateAsync(values)
       onSignedIn(user)
     } catch (error) {
       if (applyFieldErrors({ error, setError, fields: FIELDS })) return
-      // A 401 shows the server's own generic words ("E-mail or password is not correct.").
-      setProblem(formProblem(error, { byStatus: { 429: 'Too many attempts. Wait a few minutes and try again.' } }))
+      // The server's own words: the generic 401, the slow-down, the refusal, the unconfirmed address.
+      setProblem(formProblem(error))
+      setOfferReset(isApiError(error) && [401, 403, 429].includes(error.status))
     }
   })
 
@@ -51,7 +77,17 @@ export function SignInForm({ onSignedIn }: { onSignedIn: (user: SessionUser) => 
         error={formState.errors.password?.message}
         {...register('password')}
       />
+      {slow && (
+        <p role="status" className="text-ink-muted">
+          Still checking. After several wrong passwords on an account, each try is answered more slowly for a while, to protect it.
+        </p>
+      )}
       <FormAlert problem={problem} />
+      {offerReset && (
+        <p>
+          <Link to="/forgot-password">Get a link by e-mail to choose a new password</Link> — it signs you in at once.
+        </p>
+      )}
       <div>
         <SubmitButton submitting={formState.isSubmitting} pendingLabel="Signing in…">
           Sign in

@@ -23,7 +23,7 @@ export function safeNextPath(next: string | null | undefined): string | null {
   if (!next.startsWith('/') || next.startsWith('//') || next.includes('\\')) return null
   if (/[\u0000-\u001f]/.test(next)) return null
   const pathname = next.split(/[?#]/)[0] ?? ''
-  if (['/sign-in', '/register', '/forgot-password', '/set-password'].includes(pathname)) return null
+  if (['/sign-in', '/register', '/forgot-password', '/set-password', '/confirm-email'].includes(pathname)) return null
   return next
 }
 

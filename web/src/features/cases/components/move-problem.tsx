@@ -24,7 +24,7 @@ export function MoveProblem({ error, onReload, reloading }: { error: unknown; on
   }
   const problem = formProblem(error)
   return (
-    <Notice tone="danger" title={isApiError(error) && error.code === 'invalid_transition' ? 'Not possible now.' : 'That did not go through.'} live>
+    <Notice tone="danger" title={isApiError(error) && (error.code === 'invalid_transition' || error.code === 'holds_merged_reports') ? 'Not possible now.' : 'That did not go through.'} live>
       <p>{problem.message}</p>
       <RequestId id={problem.requestId} />
     </Notice>

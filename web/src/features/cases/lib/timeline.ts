@@ -50,6 +50,10 @@ export function eventTitle(e: TimelineEventLike): string {
       return str(d.intoReference) ? `Merged into ${str(d.intoReference)}` : 'Merged into another case'
     case 'merged_in':
       return str(d.fromReference) ? `${str(d.fromReference)} merged into this case` : 'Another report merged in'
+    case 'merge_followed':
+      return str(d.intoReference) ? `Now part of ${str(d.intoReference)}` : 'Followed its case into another'
+    case 'far_from_offices':
+      return 'Check the location: far from every office'
     case 'dismiss':
       return `Closed at triage${resolutionSuffix(d.resolution)}`
     case 'startFieldWork':

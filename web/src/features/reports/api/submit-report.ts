@@ -1,6 +1,6 @@
 /** POST /api/reports — anyone may report; a signed-in complainant's report joins their account. */
 import { useMutation, useQueryClient } from '@tanstack/react-query'
-import type { Report } from '../../../../../shared/schemas/cases'
+import type { Report, ReportWarning } from '../../../../../shared/schemas/cases'
 import { api } from '../../../lib/api-client'
 
 export interface SubmittedReport {
@@ -8,6 +8,8 @@ export interface SubmittedReport {
   officeName: string
   /** The private tracking link, also e-mailed to the complainant. */
   trackingUrl: string
+  /** Things to check about the report, which was filed all the same (a place far from every office). */
+  warnings: ReportWarning[]
 }
 
 export const submitReport = (input: Report) => api.post<SubmittedReport>('/api/reports', input)

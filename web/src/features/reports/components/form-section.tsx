@@ -13,9 +13,12 @@ export function FormSection({ title, lead, children }: { title: string; lead?: R
   )
 }
 
-/** Typed figures: blank means "not given", and a typographic minus or a decimal comma are understood. */
+/**
+ * Typed figures: blank means "not given"; anything else goes to the shared number parser as
+ * typed (it understands a typographic minus and a decimal comma, and asks about "1,000").
+ */
 export function figureOrUndefined(value: unknown): unknown {
   if (typeof value !== 'string') return value
-  const t = value.trim().replace(/\u2212/g, '-').replace(',', '.')
+  const t = value.trim()
   return t === '' ? undefined : t
 }

@@ -1,5 +1,7 @@
 /** Where it happens: an address or place, and latitude/longitude typed or picked on the map. */
 import type { ReactNode } from 'react'
+import { latDegSpec, lonDegSpec } from '../../../../../shared/schemas/cases'
+import { readNumberWithUnit } from '../../../../../shared/schemas/number-with-unit'
 import type { UseFormReturn } from 'react-hook-form'
 import { TextField } from '../../../components/ui/text-field'
 import { FormSection, figureOrUndefined } from './form-section'
@@ -48,10 +50,9 @@ export function LocationFields({
   )
 }
 
-/** The typed pair as numbers, or null while either is blank or not a number. */
+/** The typed pair as numbers (read as the form reads them), or null while either is blank or wrong. */
 function positionOf(lat: unknown, lon: unknown): { latDeg: number; lonDeg: number } | null {
-  const latDeg = Number(figureOrUndefined(lat))
-  const lonDeg = Number(figureOrUndefined(lon))
-  if (lat === undefined || lon === undefined || lat === '' || lon === '' || !Number.isFinite(latDeg) || !Number.isFinite(lonDeg)) return null
-  return { latDeg, lonDeg }
+  const latDeg = readNumberWithUnit(lat, latDegSpec)
+  const lonDeg = readNumberWithUnit(lon, lonDegSpec)
+  return latDeg.ok && lonDeg.ok ? { latDeg: latDeg.value, lonDeg: lonDeg.value } : null
 }

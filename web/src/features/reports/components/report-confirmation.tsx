@@ -2,6 +2,7 @@
 import { useEffect, useRef, useState } from 'react'
 import { Link } from 'react-router-dom'
 import { Button, buttonClass } from '../../../components/ui/button'
+import { Notice } from '../../../components/ui/notice'
 import { Sign } from '../../../components/ui/sign'
 import type { SubmittedReport } from '../api/submit-report'
 
@@ -37,6 +38,11 @@ export function ReportConfirmation({ result, email }: { result: SubmittedReport;
           </Button>
         </dd>
       </dl>
+      {result.warnings?.map((w) => (
+        <Notice key={w.code} tone="caution" title="Please check the place you gave" live>
+          <p>{w.message}</p>
+        </Notice>
+      ))}
       <p className="text-lg">
         It went to the <strong>{result.officeName}</strong> field office, the one nearest the place you gave.
       </p>

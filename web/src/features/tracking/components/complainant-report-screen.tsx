@@ -13,6 +13,7 @@ import { ComplainantReportView } from './complainant-report-view'
 export function ComplainantReportScreen({ source }: { source: ReportSource }) {
   const report = useComplainantReport(source)
   const missing = isApiError(report.error) && report.error.status === 404
+  const tooMany = isApiError(report.error) && report.error.status === 429
   const byLink = source.kind === 'token'
   return (
     <>
@@ -28,7 +29,12 @@ export function ComplainantReportScreen({ source }: { source: ReportSource }) {
           <p>It may belong to another account. Reports sent without signing in are followed through the link in their e-mail.</p>
         </Notice>
       )}
-      {report.isError && !missing && <QueryError error={report.error} what="your report" onRetry={() => void report.refetch()} />}
+      {tooMany && (
+        <Notice tone="danger" title="Too many tries from this address." live>
+          <p>{report.error?.message}</p>
+        </Notice>
+      )}
+      {report.isError && !missing && !tooMany && <QueryError error={report.error} what="your report" onRetry={() => void report.refetch()} />}
       {report.data && <ComplainantReportView source={source} report={report.data} />}
       {report.data && byLink && <p className="mt-6 text-sm text-ink-muted">Keep this link private: anyone who has it can read this report.</p>}
     </>

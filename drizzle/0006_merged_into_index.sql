@@ -1,0 +1,1 @@
+CREATE INDEX "cases_merged_into_idx" ON "cases" USING btree ("merged_into_case_id") WHERE "cases"."merged_into_case_id" is not null;

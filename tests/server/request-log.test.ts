@@ -1,0 +1,71 @@
+import { PassThrough } from 'node:stream'
+import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import request from 'supertest'
+import { createTestContext, DEMO, DEMO_PASSWORD, signedInAgent, uniqueAddress, type TestContext } from '../support/harness'
+import { fileReport } from '../support/cases'
+import { createLogger } from '../../server/log/logger'
+import { loggablePath, REDACTED } from '../../server/http/request-log'
+
+/** Every line the app logs, as parsed JSON objects, plus the raw text. */
+const sink = new PassThrough()
+let raw = ''
+sink.on('data', (chunk: Buffer) => (raw += chunk.toString('utf8')))
+const lines = () => raw.split('\n').filter(Boolean).map((l) => JSON.parse(l) as Record<string, unknown>)
+const lineFor = (requestId: string) => lines().find((l) => l.requestId === requestId)
+
+let t: TestContext
+beforeAll(async () => {
+  t = await createTestContext({ logger: createLogger({ level: 'info', format: 'json', destination: sink }) })
+})
+afterAll(() => t.close())
+
+describe('the request log', () => {
+  it('writes one JSON line per request with method, path, status, duration and request id', async () => {
+    const res = await request(t.app).get('/api/health').set('X-Forwarded-For', uniqueAddress())
+    const line = lineFor(res.headers['x-request-id'] as string)
+    expect(line).toMatchObject({ req: { method: 'GET', path: '/api/health' }, res: { status: 200 }, level: 30 })
+    expect(typeof line!.durationMs).toBe('number')
+  })
+
+  it('names the signed-in user by id, never by e-mail', async () => {
+    const agent = await signedInAgent(t.app, DEMO.supervisor)
+    const res = await agent.get('/api/cases?pageSize=1').expect(200)
+    const line = lineFor(res.headers['x-request-id'] as string)!
+    const { rows } = await t.pool.query(`SELECT id FROM users WHERE email = $1`, [DEMO.supervisor])
+    expect(line.userId).toBe(rows[0].id)
+    expect(JSON.stringify(line)).not.toContain(DEMO.supervisor)
+  })
+
+  it('logs client errors as warnings', async () => {
+    const res = await request(t.app).get('/api/no-such-route').set('X-Forwarded-For', uniqueAddress()).expect(404)
+    expect(lineFor(res.headers['x-request-id'] as string)).toMatchObject({ level: 40, res: { status: 404 } })
+  })
+
+  it('never writes a password, a session cookie or a tracking link', async () => {
+    const agent = request.agent(t.app).set('X-Forwarded-For', uniqueAddress())
+    const signIn = await agent.post('/api/auth/sign-in').send({ email: DEMO.investigator, password: DEMO_PASSWORD }).expect(200)
+    const cookie = String(signIn.headers['set-cookie']).split(';')[0]!.split('=')[1]!
+    const report = await fileReport(t)
+    const tracked = await request(t.app).get(`/api/track/${report.trackingToken}?token=${report.trackingToken}`).set('X-Forwarded-For', uniqueAddress())
+    expect(tracked.status).toBe(200)
+    const line = lineFor(tracked.headers['x-request-id'] as string)!
+    expect((line.req as { path: string }).path).toBe(`/api/track/${REDACTED}?token=${REDACTED}`)
+    expect(raw).not.toContain(DEMO_PASSWORD)
+    expect(raw).not.toContain(decodeURIComponent(cookie))
+    expect(raw).not.toContain(report.trackingToken)
+  })
+})
+
+describe('a loggable path', () => {
+  it.each([
+    ['/api/cases/0b6f1d9e-8a8e-4d7e-9a51-1d2c3b4a5f60', '/api/cases/0b6f1d9e-8a8e-4d7e-9a51-1d2c3b4a5f60'],
+    ['/track/abcDEF0123456789abcdefXYZ', `/track/${REDACTED}`],
+    ['/api/track/short/information', `/api/track/${REDACTED}/information`],
+    ['/api/auth/confirm/xyz', `/api/auth/confirm/${REDACTED}`],
+    ['/anything/Zm9vYmFyYmF6cXV4cXV1eGNvcmdl', `/anything/${REDACTED}`],
+    ['/api/cases?status=open&q=Lindqvist&page=2', `/api/cases?status=open&q=${REDACTED}&page=2`],
+    ['/api/x?resetToken=abc&email=a%40b.test', `/api/x?resetToken=${REDACTED}&email=${REDACTED}`],
+  ])('keeps record ids and hides secrets: %s', (url, expected) => {
+    expect(loggablePath(url)).toBe(expected)
+  })
+})

@@ -1,0 +1,37 @@
+/** /confirm-email?token=… — the link in the e-mail sent at registration. */
+import { useState } from 'react'
+import { Link, useNavigate, useSearchParams } from 'react-router-dom'
+import { Notice } from '../../components/ui/notice'
+import { PageHeader } from '../../components/ui/page-header'
+import { Panel } from '../../components/ui/panel'
+import { ConfirmEmailButton } from '../../features/auth/components/confirm-email-button'
+import { landingPathFor } from '../../features/auth/lib/landing'
+
+export function Component() {
+  const [params] = useSearchParams()
+  const navigate = useNavigate()
+  const token = params.get('token') ?? ''
+  const [tokenRejected, setTokenRejected] = useState(false)
+  const usable = token.length >= 20 && !tokenRejected
+
+  return (
+    <div className="max-w-lg">
+      <PageHeader
+        title="Confirm your e-mail address"
+        lead={usable ? <p>This makes your account work, and brings the reports you filed with this address into your list.</p> : undefined}
+      />
+      {usable ? (
+        <Panel>
+          <ConfirmEmailButton token={token} onDone={(user) => navigate(landingPathFor(user.role), { replace: true })} onInvalidToken={() => setTokenRejected(true)} />
+        </Panel>
+      ) : (
+        <Notice tone="caution" title="This link cannot be used." live>
+          <p>
+            It may be incomplete, already used, or expired. If your address is confirmed already, <Link to="/sign-in">sign in</Link>.
+            Otherwise <Link to="/forgot-password">ask for a link to choose a password</Link>: choosing one also confirms the address.
+          </p>
+        </Notice>
+      )}
+    </div>
+  )
+}
