@@ -3,16 +3,10 @@
  * Run with `node --import tsx server/index.ts`. For the local stack use `npm start`.
  */
 import { ConfigError, loadEnv } from './config/env'
-import { startServer } from './main'
+import { guardProcess, startServer } from './main'
 import { mailboxSetting } from './modules/dev/mailbox-guard'
-import { isDatabaseUnavailable } from './db/client'
 
-// A library's promise rejected because a connection was lost (PostgreSQL went away) is logged
-// and survived: pools reconnect. Any other unhandled rejection is a bug and ends the process.
-process.on('unhandledRejection', (reason) => {
-  if (!isDatabaseUnavailable(reason)) throw reason
-  console.error('unhandled rejection after a lost connection (still running):', (reason as Error)?.message ?? reason)
-})
+guardProcess()
 
 try {
   const env = loadEnv()

@@ -10,7 +10,8 @@ import { prepareDatabase } from './db/roles'
 import { startBoss, startMailWorker } from './jobs/boss'
 import { createMailer } from './mail/mailer'
 import { createApp } from './app'
-import { createLogger } from './log/logger'
+import { createLogger, log, setProcessLogger } from './log/logger'
+import { isDatabaseUnavailable } from './db/client'
 
 export interface RunningServer {
   url: string
@@ -18,7 +19,23 @@ export interface RunningServer {
   close(): Promise<void>
 }
 
+/**
+ * A library's promise rejected because a connection was lost (PostgreSQL went away) is logged
+ * and survived: pools reconnect. Any other unhandled rejection is a bug and ends the process.
+ * Installed once by every entry that serves (server/index.ts, npm start, npm run dev).
+ */
+export function guardProcess(): void {
+  if (process.listenerCount('unhandledRejection') > 0) return
+  process.on('unhandledRejection', (reason) => {
+    if (!isDatabaseUnavailable(reason)) throw reason
+    log().warn(`unhandled rejection after a lost connection (still running): ${(reason as Error)?.message ?? String(reason)}`)
+  })
+}
+
 export async function startServer(env: Env): Promise<RunningServer> {
+  guardProcess()
+  const logger = createLogger({ level: env.LOG_LEVEL, format: env.LOG_FORMAT ?? (env.NODE_ENV === 'development' ? 'pretty' : 'json') })
+  setProcessLogger(logger)
   // as the owner: migrations, the job queue's schema and the application's grants
   await prepareDatabase(env.MIGRATION_DATABASE_URL)
   const pool = createPool(env.DATABASE_URL)
@@ -36,7 +53,7 @@ export async function startServer(env: Env): Promise<RunningServer> {
     nodeEnv: env.NODE_ENV,
     pruneSessions: true,
     trustProxy: env.TRUST_PROXY,
-    logger: createLogger({ level: env.LOG_LEVEL, format: env.LOG_FORMAT ?? (env.NODE_ENV === 'development' ? 'pretty' : 'json') }),
+    logger,
   })
   const server: Server = await new Promise((resolve, reject) => {
     const s = handle.app.listen(env.PORT, env.HOST, () => resolve(s))

@@ -3,6 +3,7 @@ import pg from 'pg'
 import { drizzle, type NodePgDatabase } from 'drizzle-orm/node-postgres'
 import { migrate } from 'drizzle-orm/node-postgres/migrator'
 import * as schema from './schema'
+import { log } from '../log/logger'
 
 export const migrationsFolder = fileURLToPath(new URL('../../drizzle', import.meta.url))
 
@@ -17,7 +18,7 @@ export const CONNECTION_TIMEOUT_MS = 5_000
  */
 export function createPool(connectionString: string, max = 10): pg.Pool {
   const pool = new pg.Pool({ connectionString, max, connectionTimeoutMillis: CONNECTION_TIMEOUT_MS })
-  pool.on('error', (err) => console.error(`database connection lost: ${describeDbError(err)}`))
+  pool.on('error', (err) => log().warn(`database connection lost: ${describeDbError(err)}`))
   return pool
 }
 

@@ -7,6 +7,7 @@
 import pg from 'pg'
 import PgBoss from 'pg-boss'
 import { runMigrations } from './client'
+import { log } from '../log/logger'
 
 export const APP_GROUP_ROLE = 'quietband_app'
 export const JOB_QUEUE_SCHEMA = 'pgboss'
@@ -25,7 +26,7 @@ export async function prepareDatabase(migrationUrl: string): Promise<void> {
 
 export async function prepareJobQueue(migrationUrl: string): Promise<void> {
   const boss = new PgBoss({ connectionString: migrationUrl, schema: JOB_QUEUE_SCHEMA, max: 1, supervise: false, schedule: false, migrate: true })
-  boss.on('error', (err) => console.error('job queue error while preparing:', err))
+  boss.on('error', (err) => log().error({ err }, 'job queue error while preparing the database'))
   await boss.start()
   await boss.stop({ graceful: false, wait: true, timeout: 2000 })
   const client = new pg.Client({ connectionString: migrationUrl })

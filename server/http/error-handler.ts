@@ -11,6 +11,14 @@ function body(req: { id: string }, code: string, message: string, details?: ApiE
   return { error: { code, message, ...(details ? { details } : {}), requestId: req.id } }
 }
 
+/** What the request log records for an outage: the driver's code and words, no stack. */
+class DatabaseUnavailable extends Error {
+  constructor(message: string) {
+    super(message)
+    this.stack = undefined
+  }
+}
+
 /** Unknown /api routes answer 404 JSON (the web app answers other paths). */
 export const apiNotFound: RequestHandler = (req, res) => {
   res.status(404).json(body(req, 'route_not_found', `No API route ${req.method} ${req.path}.`))
@@ -45,12 +53,13 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
   if (isDatabaseUnavailable(err)) {
     let e = err as { code?: string; message?: string; cause?: unknown }
     for (let i = 0; i < 5 && e.cause && typeof e.cause === 'object'; i++) e = e.cause as typeof e // drizzle wraps the driver's error
-    console.error(`[${req.id}] database unavailable: ${[e.code, e.message].filter(Boolean).join(' ')}`)
+    // the request's own log line carries this (pino-http reads res.err); no stack for an expected outage
+    res.err = new DatabaseUnavailable([e.code, e.message].filter(Boolean).join(' '))
     res.setHeader('Retry-After', String(DATABASE_RETRY_AFTER_SECONDS))
     res.status(503).json(body(req, 'database_unavailable', 'The service is briefly unavailable. Please try again in a moment.'))
     return
   }
-  console.error(`[${req.id}]`, err)
+  res.err = err instanceof Error ? err : new Error(String(err)) // logged with its stack on the request's line
   res.status(500).json(body(req, 'internal_error', 'Something went wrong on our side. Quote the request id if you report it.'))
 }
 

@@ -13,6 +13,7 @@ import PgBoss from 'pg-boss'
 import type pg from 'pg'
 import { CONNECTION_TIMEOUT_MS, isDatabaseUnavailable } from '../db/client'
 import type { OutgoingMail, Mailer } from '../mail/mailer'
+import { log } from '../log/logger'
 
 export const MAIL_QUEUE = 'mail-send'
 
@@ -45,8 +46,8 @@ export async function startBoss(databaseUrl: string, opts: BossOptions = {}): Pr
   }
   const boss = new PgBoss(config)
   boss.on('error', (err) => {
-    if (isDatabaseUnavailable(err)) console.error(`job queue: database unavailable (${describeError(err)})`)
-    else console.error('job queue error:', err)
+    if (isDatabaseUnavailable(err)) log().warn(`job queue: database unavailable (${describeError(err)})`)
+    else log().error({ err }, 'job queue error')
   })
   await boss.start()
   await boss.createQueue(opts.mailQueueName ?? MAIL_QUEUE)
@@ -61,7 +62,9 @@ export interface MailQueueOptions {
   retryLimit: number
 }
 
-export const DEFAULT_MAIL_QUEUE_OPTIONS: MailQueueOptions = { retryDelaySeconds: 10, retryLimit: 30 }
+// a first retry within seconds keeps a message cut off by a crash inside the one-minute target
+// (expiry 20 s + maintenance ≤ 5 s + this delay, doubled by pg-boss's jitter at worst)
+export const DEFAULT_MAIL_QUEUE_OPTIONS: MailQueueOptions = { retryDelaySeconds: 5, retryLimit: 30 }
 
 /** Queues an e-mail on the given transaction's connection (commits or rolls back with it). */
 export async function queueMail(
@@ -122,7 +125,7 @@ export async function startMailWorker(
       } catch (err) {
         if (stopping || Date.now() > giveUpAt || !isDatabaseUnavailable(err)) {
           // the job stays active until it expires, then pg-boss retries it
-          console.error(`mail worker: could not record the outcome of job ${job.id}:`, describeError(err))
+          log().error({ jobId: job.id }, `mail worker: could not record the outcome of the job: ${describeError(err)}`)
           return
         }
         await pause(500)
@@ -152,7 +155,7 @@ export async function startMailWorker(
           await deliver(job)
         }
       } catch (err) {
-        console.error('mail worker error:', err)
+        log().error({ err }, 'mail worker error')
       }
       if (!found && !stopping) await pause(pollMs)
     }

@@ -28,3 +28,17 @@ export function createLogger(opts: LoggerOptions = {}): Logger {
 
 /** A logger that writes nothing, for tests and tools that do not ask for one. */
 export const silentLogger: Logger = pino({ level: 'silent' })
+
+/**
+ * The process's logger for work outside a request (job queue, connection pools, the mail
+ * worker). JSON at `LOG_LEVEL` until the server's start sets the configured one.
+ */
+let processLogger: Logger = pino({ level: process.env.LOG_LEVEL ?? 'info', base: { service: 'quietband' } })
+
+export function setProcessLogger(logger: Logger): void {
+  processLogger = logger
+}
+
+export function log(): Logger {
+  return processLogger
+}

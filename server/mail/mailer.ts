@@ -24,6 +24,9 @@ export function createMailer(opts: { smtpUrl: string; from: string }): Mailer {
     auth: u.username ? { user: decodeURIComponent(u.username), pass: decodeURIComponent(u.password) } : undefined,
     connectionTimeout: 10_000,
     greetingTimeout: 10_000,
+    // below the mail worker's deadline for one send: a hung connection is dropped before the
+    // worker counts the send as failed, so a late acceptance cannot double a message
+    socketTimeout: 14_000,
   })
   return {
     async send(mail) {

@@ -4,7 +4,10 @@ import request from 'supertest'
 import { createTestContext, DEMO, DEMO_PASSWORD, signedInAgent, uniqueAddress, type TestContext } from '../support/harness'
 import { fileReport } from '../support/cases'
 import { createLogger } from '../../server/log/logger'
-import { loggablePath, REDACTED } from '../../server/http/request-log'
+import { loggablePath, REDACTED, requestLog } from '../../server/http/request-log'
+import express from 'express'
+import { requestId } from '../../server/http/request-id'
+import { errorHandler } from '../../server/http/error-handler'
 
 /** Every line the app logs, as parsed JSON objects, plus the raw text. */
 const sink = new PassThrough()
@@ -67,5 +70,36 @@ describe('a loggable path', () => {
     ['/api/x?resetToken=abc&email=a%40b.test', `/api/x?resetToken=${REDACTED}&email=${REDACTED}`],
   ])('keeps record ids and hides secrets: %s', (url, expected) => {
     expect(loggablePath(url)).toBe(expected)
+  })
+})
+
+describe('the request log, when a request fails on our side', () => {
+  const out = new PassThrough()
+  let text = ''
+  out.on('data', (c: Buffer) => (text += c.toString('utf8')))
+  const app = express()
+  app.use(requestId)
+  app.use(requestLog(createLogger({ format: 'json', destination: out })))
+  app.get('/bug', () => {
+    throw new Error('an unexpected bug')
+  })
+  app.get('/outage', () => {
+    throw Object.assign(new Error('terminating connection due to administrator command'), { code: '57P01' })
+  })
+  app.use(errorHandler)
+  const lineOf = (id: string) => text.split('\n').filter(Boolean).map((l) => JSON.parse(l)).find((l) => l.requestId === id)
+
+  it('writes the error with its stack on the request’s own line', async () => {
+    const res = await request(app).get('/bug').expect(500)
+    const line = lineOf(res.headers['x-request-id'] as string)
+    expect(line).toMatchObject({ level: 50, res: { status: 500 }, err: { message: 'an unexpected bug' } })
+    expect(line.err.stack).toContain('request-log.test.ts')
+  })
+
+  it('writes a database outage as one short line, without a stack', async () => {
+    const res = await request(app).get('/outage').expect(503)
+    const line = lineOf(res.headers['x-request-id'] as string)
+    expect(line).toMatchObject({ level: 50, res: { status: 503 }, err: { type: 'DatabaseUnavailable', message: '57P01 terminating connection due to administrator command' } })
+    expect(line.err.stack ?? '').toBe('')
   })
 })

@@ -16,6 +16,7 @@ import type { ServiceContext } from '../../context'
 import type { RegisterInput } from '../../../shared/schemas/auth'
 import type { SessionUser } from '../../../shared/schemas/auth'
 import { findUserById } from '../users/users.repo'
+import { linkReportsToConfirmedAccount } from '../cases/cases.repo'
 import { decoyPasswordHash, hashPassword, hashToken, newToken, verifyPassword } from './passwords'
 
 export const SIGN_IN_WINDOW_MINUTES = 15
@@ -165,6 +166,7 @@ export async function confirmEmailWithToken(ctx: ServiceContext, token: string):
       .where(and(eq(users.id, t.userId), eq(users.active, true)))
       .returning({ id: users.id })
     if (!u) throw badRequest('invalid_token', 'This confirmation link is not valid any more.')
+    await linkReportsToConfirmedAccount(db, u.id)
     return u.id
   })
   return toSessionUser((await findUserById(ctx.db, userId))!)
@@ -228,6 +230,7 @@ export async function setPasswordWithToken(ctx: ServiceContext, token: string, p
       .where(and(eq(users.id, t.userId), eq(users.active, true)))
       .returning({ id: users.id, email: users.email })
     if (!u) throw badRequest('invalid_token', 'This link is not valid any more. Ask for a new one.')
+    await linkReportsToConfirmedAccount(db, u.id)
     // other outstanding links of this user stop working too
     await db.update(passwordTokens).set({ usedAt: sql`now()` }).where(and(eq(passwordTokens.userId, t.userId), isNull(passwordTokens.usedAt)))
     // and so do the sessions signed in before: whoever held one (or knew the old password) is out

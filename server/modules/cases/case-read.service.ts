@@ -43,17 +43,11 @@ export async function getComplainantView(ctx: ServiceContext, actor: CaseActor, 
 }
 
 /**
- * A signed-in complainant's reports, newest first. Reports filed without signing in, with the
- * account's address, join the account first — once the address is confirmed (it proves the
- * reports are this person's), including reports filed so after the account was made.
+ * A signed-in complainant's reports, newest first — including those filed without signing in
+ * with the account's confirmed address (see linkReportsToConfirmedAccount).
  */
 export async function listMyReports(ctx: ServiceContext, actor: Actor): Promise<MyReportRow[]> {
   if (actor.role !== 'complainant') throw forbidden('Only complainant accounts have reports.')
-  await ctx.db.execute(
-    sql`UPDATE ${cases} SET complainant_user_id = u.id FROM ${users} u
-        WHERE u.id = ${actor.id} AND u.email_confirmed_at IS NOT NULL
-          AND ${cases.complainantUserId} IS NULL AND ${cases.complainantEmail} = u.email`,
-  )
   const rows = await ctx.db.select().from(cases).where(eq(cases.complainantUserId, actor.id)).orderBy(desc(cases.receivedAt))
   return rows.map((c) => ({ id: c.id, reference: c.reference, step: COMPLAINANT_STEP_OF_STATE[c.status as CaseState], statusLabel: COMPLAINANT_STEP_LABELS[COMPLAINANT_STEP_OF_STATE[c.status as CaseState]], service: c.service, address: c.address, freqLowHz: c.freqLowHz, freqHighHz: c.freqHighHz, receivedAt: c.receivedAt.toISOString(), closedAt: c.closedAt?.toISOString() ?? null }))
 }

@@ -62,3 +62,25 @@ export async function userName(db: Db, id: string): Promise<{ name: string; emai
   const [u] = await db.select({ name: users.name, email: users.email, role: users.role, officeId: users.officeId, active: users.active }).from(users).where(eq(users.id, id))
   return u
 }
+
+/**
+ * Reports filed without signing in, with the address of a complainant account whose address is
+ * confirmed, belong to that account (the confirmation proves the address is this person's).
+ * Run when the address is confirmed; reports filed later find the account at filing.
+ */
+export async function linkReportsToConfirmedAccount(db: Db, userId: string): Promise<void> {
+  await db.execute(
+    sql`UPDATE ${cases} SET complainant_user_id = u.id FROM ${users} u
+        WHERE u.id = ${userId} AND u.role = 'complainant' AND u.email_confirmed_at IS NOT NULL
+          AND ${cases.complainantUserId} IS NULL AND ${cases.complainantEmail} = u.email`,
+  )
+}
+
+/** The confirmed, active complainant account of an address, if there is one. */
+export async function confirmedComplainantOf(db: Db, email: string): Promise<string | null> {
+  const [u] = await db
+    .select({ id: users.id })
+    .from(users)
+    .where(and(eq(users.email, email), eq(users.role, 'complainant'), eq(users.active, true), sql`${users.emailConfirmedAt} IS NOT NULL`))
+  return u?.id ?? null
+}

@@ -14,7 +14,7 @@ import type { ServiceContext } from '../../context'
 import { HttpError } from '../../http/errors'
 import { queueMail } from '../../jobs/boss'
 import { reportReceivedMail, safetyReportMail } from '../../mail/case-templates'
-import { appendEvent, nextCaseReference } from './cases.repo'
+import { appendEvent, confirmedComplainantOf, nextCaseReference } from './cases.repo'
 import { dueAt } from './due'
 import { issueTrackingLink } from './tracking-tokens'
 
@@ -84,7 +84,7 @@ export async function submitReport(ctx: ServiceContext, report: Report, signedIn
         complainantEmail: report.email,
         complainantPhone: report.phone ?? null,
         complainantOrganisation: report.organisation ?? null,
-        complainantUserId: signedIn?.role === 'complainant' ? signedIn.id : null,
+        complainantUserId: signedIn?.role === 'complainant' ? signedIn.id : await confirmedComplainantOf(db, report.email),
         receivedAt: now,
         dueAt: dueAt(now, priority, targets),
       })

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest'
 import geographiclib from 'geographiclib-geodesic'
 import { createLocalTangentPlane, centroidOf, geodesicDirect, geodesicInverse, nearestOffice } from '../../../../shared/radio/geo'
 
-// Check values: /work/shared/reference/CHECKS.md §13 (tolerances: distance 1 mm, azimuth 1e-6°).
+// Check values: the team's check-value register, section 13 (geodesics) (tolerances: distance 1 mm, azimuth 1e-6°).
 const INVERSE_CHECKS = [
   { id: '13-1', from: { latDeg: -41.32, lonDeg: 174.81 }, to: { latDeg: 40.96, lonDeg: -5.5 }, s12: 19959679.26735382, tolM: 0.001, azi1: 161.06766998616, azi2: 18.82519512325, tolDeg: 1e-6,
     source: 'CHECKS 13-1 [V-S] GeographicLib JS README/tutorial and geodesic.py docstring (Wellington → Salamanca)' },
