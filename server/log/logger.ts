@@ -20,8 +20,9 @@ export interface LoggerOptions {
 export function createLogger(opts: LoggerOptions = {}): Logger {
   const base = { level: opts.level ?? 'info', base: { service: 'quietband' } }
   if (opts.format === 'pretty') {
-    // synchronous pretty-printing in this thread: no worker to lose lines at exit
-    return pino(base, pretty({ sync: true, colorize: process.stdout.isTTY, ignore: 'pid,hostname,service', destination: opts.destination ?? 1 }))
+    // synchronous pretty-printing in this thread (no worker to lose lines at exit); one line a
+    // request: the message already says method, path, status and duration
+    return pino(base, pretty({ sync: true, colorize: process.stdout.isTTY, singleLine: true, ignore: 'pid,hostname,service,req,res,durationMs', destination: opts.destination ?? 1 }))
   }
   return opts.destination ? pino(base, opts.destination) : pino(base)
 }

@@ -103,3 +103,20 @@ describe('the request log, when a request fails on our side', () => {
     expect(line.err.stack ?? '').toBe('')
   })
 })
+
+describe('the readable log of development', () => {
+  it('writes one line per request that says method, path, status and duration', async () => {
+    const out = new PassThrough()
+    let text = ''
+    out.on('data', (c: Buffer) => (text += c.toString('utf8')))
+    const app = express()
+    app.use(requestId)
+    app.use(requestLog(createLogger({ format: 'pretty', destination: out })))
+    app.get('/api/track/:token', (_req, res) => res.json({ ok: true }))
+    await request(app).get('/api/track/Zm9vYmFyYmF6cXV4cXV1eGNvcmdl').expect(200)
+    const lines = text.split('\n').filter(Boolean)
+    expect(lines).toHaveLength(1)
+    expect(lines[0]).toMatch(new RegExp(`GET /api/track/\\[redacted\\] 200 \\d+ ms`))
+    expect(text).not.toContain('Zm9vYmFyYmF6cXV4cXV1eGNvcmdl')
+  })
+})
