@@ -1,8 +1,9 @@
 import { defineConfig } from 'vitest/config'
 
 // Kept apart from vite.config.ts: when this file exists vitest does not load that one.
-// Two projects: the pure library and domain tests need nothing running; the API and
-// browser tests share one throwaway PostgreSQL cluster started by the global setup.
+// Projects: the pure library and domain tests need nothing running; the web tests run in
+// jsdom with the API mocked; the API and browser tests share one throwaway PostgreSQL
+// cluster started by the global setup.
 export default defineConfig({
   test: {
     testTimeout: 60_000,
@@ -13,6 +14,18 @@ export default defineConfig({
           name: 'shared',
           environment: 'node',
           include: ['tests/shared/**/*.test.ts'],
+        },
+      },
+      {
+        // The web app's components and helpers in a DOM (jsdom), with the API mocked at the
+        // network layer (MSW) from the shared view schemas; nothing running needed.
+        test: {
+          name: 'web',
+          environment: 'jsdom',
+          include: ['tests/web/**/*.test.ts', 'tests/web/**/*.test.tsx'],
+          setupFiles: ['tests/support/web-setup.ts'],
+          // a whole form typed key by key in jsdom takes a few seconds on a busy machine
+          testTimeout: 30_000,
         },
       },
       {

@@ -19,9 +19,10 @@ import type { Actor } from '../server/policy/policy'
 import { submitReport } from '../server/modules/cases/reports.service'
 import { assignCase, closeCase, dismissReport, proposeFinding, returnFinding, startFieldWork, triageCase } from '../server/modules/cases/case-moves.service'
 import { addCaseNote } from '../server/modules/cases/case-notes.service'
+import { DEMO_REGION_BOX } from './seed-demo-region'
 
 /** The demo region's bounding box (every demo and generated location lies inside it). */
-export const DEMO_REGION = { latMinDeg: 47.2, latMaxDeg: 48.6, lonMinDeg: -32.2, lonMaxDeg: -29.8 } as const
+export const DEMO_REGION = DEMO_REGION_BOX
 
 type Step =
   | { move: 'triage'; priority: Priority; note?: string }

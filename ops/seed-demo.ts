@@ -8,6 +8,7 @@ import { createDb } from '../server/db/client'
 import { offices, users } from '../server/db/schema'
 import { hashPassword } from '../server/modules/auth/passwords'
 import { seedDemoCases } from './seed-demo-cases'
+import { seedDemoRegion } from './seed-demo-region'
 
 export const DEMO_PASSWORD = 'quietband-demo'
 
@@ -37,12 +38,15 @@ export async function seedDemo(pool: pg.Pool): Promise<boolean> {
     await client.query('SELECT pg_advisory_xact_lock(5172032)')
     const { rows } = await client.query('SELECT count(*)::int AS n FROM offices')
     if (rows[0].n > 0) {
-      await client.query('ROLLBACK')
+      // a demo database seeded before the region map gets the demo region (nothing else is touched)
+      await seedDemoRegion(createDb(client))
+      await client.query('COMMIT')
       return false
     }
     const tx = createDb(client)
     const inserted = await tx.insert(offices).values([...DEMO_OFFICES]).returning({ id: offices.id, name: offices.name })
     const officeId = new Map(inserted.map((o) => [o.name, o.id]))
+    await seedDemoRegion(tx)
     const passwordHash = await hashPassword(DEMO_PASSWORD)
     await tx.insert(users).values(
       DEMO_USERS.map((u) => ({ email: u.email, name: u.name, role: u.role, officeId: u.office ? officeId.get(u.office)! : null, passwordHash })),

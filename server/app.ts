@@ -22,6 +22,7 @@ import { authRoutes } from './modules/auth/auth.routes'
 import type { SignInDelay } from './modules/auth/sign-in-delay'
 import { usersRoutes } from './modules/users/users.routes'
 import { officesRoutes } from './modules/offices/offices.routes'
+import { regionRoutes } from './modules/regions/regions.routes'
 import { mailboxRoutes } from './modules/dev/mailbox.routes'
 import { casesRoutes } from './modules/cases/cases.routes'
 import { publicCaseRoutes } from './modules/cases/public.routes'
@@ -122,6 +123,7 @@ export function createApp(deps: AppDeps): AppHandle {
   api.use(authRoutes(ctx, passport, { signInDelay: deps.signInDelay }))
   api.use(usersRoutes(ctx))
   api.use(officesRoutes(ctx))
+  api.use(regionRoutes(ctx))
   api.use(publicCaseRoutes(ctx))
   api.use(casesRoutes(ctx))
   api.use(mailboxRoutes({ dir: deps.mailboxDir, listenHost: deps.listenHost, nodeEnv: deps.nodeEnv ?? process.env.NODE_ENV, trustProxy: deps.trustProxy }))

@@ -101,6 +101,7 @@ async function runOnce(c: Copy, scenario: Scenario): Promise<RunResult> {
   let output = ''
   child.stdout!.on('data', (d: Buffer) => (output += d.toString()))
   child.stderr!.on('data', (d: Buffer) => (output += d.toString()))
+  let measured: RunResult
   try {
     const t1 = await waitForUrl(url, child, 120_000)
     const health = await fetch(`${url}api/health`)
@@ -108,27 +109,35 @@ async function runOnce(c: Copy, scenario: Scenario): Promise<RunResult> {
     // give start.ts a moment to print its banner (it prints right after listening)
     for (let i = 0; i < 40 && !/ready in/.test(output); i++) await new Promise((r) => setTimeout(r, 25))
     const readyLine = /\(ready in [^)]*\)/.exec(output)?.[0] ?? '(no ready line)'
-    return { scenario, urlAnswersS: (t1 - t0) / 1000, readyLine, pgStoppedAfter: null }
+    measured = { scenario, urlAnswersS: (t1 - t0) / 1000, readyLine, pgStoppedAfter: null }
   } catch (e) {
     console.error(output)
+    await stopProcessGroup(child.pid!)
     throw e
-  } finally {
-    // Ctrl-C: SIGINT to the process group this benchmark started (npm, its shell, node);
-    // npm itself dies of the signal at once, so wait until the whole group has gone
-    const pgid = child.pid!
-    const groupAlive = () => {
-      try {
-        process.kill(-pgid, 0)
-        return true
-      } catch {
-        return false
-      }
-    }
-    if (groupAlive()) process.kill(-pgid, 'SIGINT')
-    const t0 = Date.now()
-    while (groupAlive() && Date.now() - t0 < 30_000) await new Promise((r) => setTimeout(r, 50))
-    if (groupAlive()) throw new Error(`npm start (process group ${pgid}) did not stop within 30 s of SIGINT`)
   }
+  if (!(await stopProcessGroup(child.pid!))) {
+    throw new Error(`npm start (process group ${child.pid}) did not stop within 30 s of SIGINT`)
+  }
+  return measured
+}
+
+/**
+ * Ctrl-C: SIGINT to the process group this benchmark started (npm, its shell, node); npm
+ * itself dies of the signal at once, so wait until the whole group has gone. True when it has.
+ */
+async function stopProcessGroup(pgid: number): Promise<boolean> {
+  const groupAlive = () => {
+    try {
+      process.kill(-pgid, 0)
+      return true
+    } catch {
+      return false
+    }
+  }
+  if (groupAlive()) process.kill(-pgid, 'SIGINT')
+  const t0 = Date.now()
+  while (groupAlive() && Date.now() - t0 < 30_000) await new Promise((r) => setTimeout(r, 50))
+  return !groupAlive()
 }
 
 async function main(): Promise<void> {

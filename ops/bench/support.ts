@@ -15,6 +15,7 @@ import { createApp } from '../../server/app'
 import { createPool } from '../../server/db/client'
 import { MAIL_QUEUE } from '../../server/jobs/boss'
 import { DEMO_PASSWORD } from '../seed-demo'
+import { optionValue } from '../command-line'
 
 export interface BenchServer {
   url: string
@@ -140,14 +141,8 @@ export function machineLine(m: MachineInfo): string {
   return `${m.date.slice(0, 16).replace('T', ' ')} UTC · ${m.cpus} CPUs (nproc; ${m.cpuModel}) · ${m.memoryGiB} GiB RAM · Node ${m.node}${m.postgres ? ` · PostgreSQL ${m.postgres}` : ''} · load average (1/5/15 min) ${m.loadStart} at start${m.loadEnd ? `, ${m.loadEnd} at end` : ''} — the machine is shared with other engineers' jobs`
 }
 
-/** Reads `--name value` from argv, with a default. */
-export function argValue(name: string, fallback: string): string
-export function argValue(name: string, fallback?: string): string | undefined
-export function argValue(name: string, fallback?: string): string | undefined {
-  const argv = process.argv.slice(2)
-  const i = argv.indexOf(name)
-  return i >= 0 && argv[i + 1] !== undefined ? argv[i + 1] : fallback
-}
+/** Reads `--name value` from the command line (node:util parseArgs, ops/command-line.ts), with a default. */
+export const argValue = optionValue
 
 /** Prints a result table, and writes it to `out` when given (the results/ files). */
 export function reportResult(md: string, out: string | undefined): void {

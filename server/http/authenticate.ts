@@ -1,19 +1,15 @@
 import type { Request, RequestHandler } from 'express'
 import type { Role } from '../../shared/domain/roles'
+import type { SessionUser } from '../../shared/schemas/auth'
 import type { Actor } from '../policy/policy'
 import { forbidden, unauthenticated } from './errors'
 
 declare global {
   // eslint-disable-next-line @typescript-eslint/no-namespace
   namespace Express {
-    interface User {
-      id: string
-      email: string
-      name: string
-      role: Role
-      officeId: string | null
-      officeName: string | null
-    }
+    /** The signed-in user (the session's shape, declared once in shared/schemas/auth). */
+    // eslint-disable-next-line @typescript-eslint/no-empty-object-type -- merges the shared shape into Express's declaration
+    interface User extends SessionUser {}
   }
 }
 

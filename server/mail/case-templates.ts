@@ -75,7 +75,7 @@ export function caseReopenedMail(c: CaseRef, reason: string, trackingLink: strin
 export function investigatorAssignedMail(to: { name: string; email: string }, c: { reference: string; priority: Priority; service: AffectedService; address: string }, caseLink: string): OutgoingMail {
   return composeMail(to.email, `[${c.reference}] Assigned to you — priority ${c.priority}`, [
     `Hello ${to.name},`,
-    `${c.reference} is now yours: priority ${c.priority} (${PRIORITY_LABELS[c.priority]}), ${SERVICE_LABELS[c.service]}, at ${c.address}.`,
+    `${c.reference} is now yours: priority ${c.priority} (${PRIORITY_LABELS[c.priority].long}), ${SERVICE_LABELS[c.service]}, at ${c.address}.`,
     caseLink,
   ])
 }

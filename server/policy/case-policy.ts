@@ -5,6 +5,7 @@
  * 403 when the role or relation is wrong, and 409 when the state does not allow the move.
  */
 import { CASE_MOVES, moveAllowedFrom, MOVES_REFUSED_WHILE_HOLDING_MERGED_REPORTS, type CaseMoveName, type CaseState, type Mover } from '../../shared/domain/case-lifecycle'
+import type { CaseAbilities } from '../../shared/schemas/views'
 import type { Actor } from './policy'
 
 /** The parts of a case that authorization looks at. */
@@ -67,7 +68,6 @@ export function mayMessageComplainant(actor: CaseActor, c: CaseAccess): boolean 
   return isMover(actor, 'office_supervisor', c) || isMover(actor, 'assigned_investigator', c)
 }
 
-export type CaseAbilities = Record<CaseMoveName, boolean> & { addInternalNote: boolean; messageComplainant: boolean }
 
 /** What the actor can do now: role, relation and state together. Sent with every case. */
 export function caseAbilities(actor: CaseActor, c: CaseAccess): CaseAbilities {

@@ -63,6 +63,10 @@ export const RESOLUTION_LABELS: Record<Resolution, string> = {
   duplicate: 'Duplicate of another case',
 }
 
+/** Who sees a timeline entry: the office's staff only, or the complainant too. */
+export const TIMELINE_VISIBILITIES = ['internal', 'complainant'] as const
+export type TimelineVisibility = (typeof TIMELINE_VISIBILITIES)[number]
+
 /** Who makes a move, relative to the case. */
 export type Mover =
   | 'office_supervisor' // a supervisor of the case's office

@@ -53,11 +53,12 @@ export const OCCURRENCE_LABELS: Record<OccurrencePattern, string> = {
 
 export const PRIORITIES = [1, 2, 3, 4] as const
 export type Priority = (typeof PRIORITIES)[number]
-export const PRIORITY_LABELS: Record<Priority, string> = {
-  1: 'Safety of life',
-  2: 'Licensed service lost',
-  3: 'Licensed service degraded',
-  4: 'Licence-exempt or nuisance',
+/** The words of each priority: `short` beside the figure (badges, options, e-mails), `long` where there is room. */
+export const PRIORITY_LABELS: Record<Priority, { short: string; long: string }> = {
+  1: { short: 'Safety of life', long: 'Safety-of-life service endangered (aeronautical, maritime distress and safety, radionavigation, public protection)' },
+  2: { short: 'Outage', long: 'Outage of a licensed service' },
+  3: { short: 'Degradation', long: 'Degradation of a licensed service' },
+  4: { short: 'Licence-exempt', long: 'Licence-exempt use and nuisance' },
 }
 
 /**

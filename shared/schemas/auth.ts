@@ -48,6 +48,7 @@ export const createStaffSchema = z.object({
 })
 export type CreateStaffInput = z.infer<typeof createStaffSchema>
 
+/** The signed-in user as the session and /api/me give it. */
 export const sessionUserSchema = z.object({
   id: z.uuid(),
   email: z.string(),
@@ -58,8 +59,46 @@ export const sessionUserSchema = z.object({
 })
 export type SessionUser = z.infer<typeof sessionUserSchema>
 
-/** GET /api/me: the signed-in user, or null for an anonymous visitor (200 either way). */
-export const meResponseSchema = z.object({ user: sessionUserSchema.nullable() })
+/**
+ * What an account may do across the product, computed by the server's policies. The web shows
+ * pages, links and start pages from these and never reads the role to decide anything.
+ */
+export const accountAbilitiesSchema = z.object({
+  /** Reports filed while signed in belong to the account (the report form fills in its name and address). */
+  reportAsAccount: z.boolean(),
+  /** Lists and follows the account's own reports. */
+  followOwnReports: z.boolean(),
+  /** Works the cases assigned to them (field work, findings). */
+  workAssignedCases: z.boolean(),
+  /** Runs the office's queue: triage, assignment, review of findings. */
+  runOfficeQueue: z.boolean(),
+  /** Reads the case list and case pages (of their office, or of every office). */
+  readCases: z.boolean(),
+  /** Lists, creates and deactivates accounts. */
+  manageUsers: z.boolean(),
+  /** Sets every office's response targets. */
+  manageOffices: z.boolean(),
+})
+export type AccountAbilities = z.infer<typeof accountAbilitiesSchema>
+export type AccountAbility = keyof AccountAbilities
+
+/** What an anonymous visitor may do as an account: nothing (the public pages need none). */
+export const NO_ACCOUNT_ABILITIES: AccountAbilities = {
+  reportAsAccount: false,
+  followOwnReports: false,
+  workAssignedCases: false,
+  runOfficeQueue: false,
+  readCases: false,
+  manageUsers: false,
+  manageOffices: false,
+}
+
+/** A signed-in session: the user and what the account may do (sign-in, confirmation, password, /api/me). */
+export const signedInSchema = z.object({ user: sessionUserSchema, abilities: accountAbilitiesSchema })
+export type SignedIn = z.infer<typeof signedInSchema>
+
+/** GET /api/me: the signed-in user with their abilities, or `{ user: null }` for an anonymous visitor (200 either way). */
+export const meResponseSchema = z.union([signedInSchema, z.object({ user: z.null() })])
 export type MeResponse = z.infer<typeof meResponseSchema>
 
 /** Registration and reset requests: one answer whether or not the address has an account. */

@@ -126,14 +126,8 @@ export const reportSchema = z
 export type ReportInput = z.input<typeof reportSchema>
 export type Report = z.output<typeof reportSchema>
 
-/** Something the reporter should check about a report that was filed all the same. */
-export interface ReportWarning {
-  /** 'far_from_offices': the place lies more than a set distance from every office. */
-  code: 'far_from_offices'
-  /** The form field it is about. */
-  path: string
-  message: string
-}
+/** Something the reporter should check about a report that was filed all the same (declared with the answers, in ./views). */
+export type { ReportWarning } from './views'
 
 /** The frequency range of a report in Hz (scaled in decimal: 433.92 MHz is exactly 433 920 000 Hz). */
 export function reportFrequencyHz(r: Pick<Report, 'frequencyFrom' | 'frequencyTo' | 'frequencyUnit'>): { lowHz: number; highHz: number } {

@@ -1,179 +1,272 @@
 /**
  * What the API answers, as the browser receives it (JSON: times are ISO 8601 strings).
- * The server's presenters are typed with these and the web reads them, so the two sides
- * cannot drift apart without the type-check saying so.
+ * Each shape is a zod schema and its type is inferred from it: the server's presenters are
+ * typed with these types, tests parse real answers with the schemas, network mocks and the
+ * API document are generated from them. Change a shape here, and only here.
  */
-import type { CaseMoveName, CaseState, ComplainantStep } from '../domain/case-lifecycle'
+import { z } from 'zod'
+import { CASE_MOVES, CASE_STATES, COMPLAINANT_STEPS, RESOLUTIONS, TIMELINE_VISIBILITIES, type CaseMoveName } from '../domain/case-lifecycle'
+import { ROLES } from '../domain/roles'
+import { AFFECTED_SERVICES, EXPERIENCES, OCCURRENCE_PATTERNS, PRIORITIES } from '../domain/services'
 
-export type PriorityLevel = 1 | 2 | 3 | 4
+/** An instant as JSON carries it: ISO 8601 in UTC (`2026-03-01T09:30:00.000Z`). */
+const instant = z.iso.datetime()
+const id = z.uuid()
 
-export interface TimelineEvent {
-  id: number
-  at: string
+export const prioritySchema = z.literal(PRIORITIES)
+export const caseStateSchema = z.enum(CASE_STATES)
+export const complainantStepSchema = z.enum(COMPLAINANT_STEPS)
+export const affectedServiceSchema = z.enum(AFFECTED_SERVICES)
+export const resolutionSchema = z.enum(RESOLUTIONS)
+export const roleSchema = z.enum(ROLES)
+
+export const timelineEventSchema = z.object({
+  id: z.number().int(),
+  at: instant,
   /** A staff name, 'Complainant', or 'Quietband' for automatic steps. */
-  actor: string
-  kind: string
-  fromState: string | null
-  toState: string | null
-  body: string | null
-  visibility: 'internal' | 'complainant'
-  data: Record<string, unknown> | null
-}
+  actor: z.string(),
+  kind: z.string(),
+  fromState: caseStateSchema.nullable(),
+  toState: caseStateSchema.nullable(),
+  body: z.string().nullable(),
+  visibility: z.enum(TIMELINE_VISIBILITIES),
+  data: z.record(z.string(), z.unknown()).nullable(),
+})
+export type TimelineEvent = z.infer<typeof timelineEventSchema>
 
-export type CaseAbilities = Record<CaseMoveName, boolean> & { addInternalNote: boolean; messageComplainant: boolean }
+const moveFlags = Object.fromEntries((Object.keys(CASE_MOVES) as CaseMoveName[]).map((m) => [m, z.boolean()])) as Record<CaseMoveName, z.ZodBoolean>
 
-export interface CaseDetail {
-  id: string
-  reference: string
+/** What the viewer may do with a case now (computed by the case policy): one flag per move, and notes. */
+export const caseAbilitiesSchema = z.object({ ...moveFlags, addInternalNote: z.boolean(), messageComplainant: z.boolean() })
+export type CaseAbilities = z.infer<typeof caseAbilitiesSchema>
+
+export const caseDetailSchema = z.object({
+  id,
+  reference: z.string(),
   /** Sent back with every move; the server refuses a stale one (409 stale_version). */
-  version: number
-  status: CaseState
-  statusLabel: string
-  priority: PriorityLevel
-  suggestedPriority: PriorityLevel
-  service: string
-  licenceRef: string | null
-  freqLowHz: number
-  freqHighHz: number
-  address: string
-  latDeg: number
-  lonDeg: number
-  sinceDate: string
-  pattern: string
-  patternDetail: string | null
-  experience: string
-  description: string
-  complainant: { name: string; email: string; phone: string | null; organisation: string | null; hasAccount: boolean }
-  officeId: string
-  officeName: string
-  investigatorId: string | null
-  investigatorName: string | null
-  mergedIntoCaseId: string | null
-  mergedIntoReference: string | null
-  resolution: string | null
-  resolutionLabel: string | null
-  closingSummary: string | null
-  receivedAt: string
-  dueAt: string
-  closedAt: string | null
-  overdue: boolean
-  abilities: CaseAbilities
-  timeline: TimelineEvent[]
-}
+  version: z.number().int().min(1),
+  status: caseStateSchema,
+  statusLabel: z.string(),
+  priority: prioritySchema,
+  suggestedPriority: prioritySchema,
+  service: affectedServiceSchema,
+  licenceRef: z.string().nullable(),
+  freqLowHz: z.number(),
+  freqHighHz: z.number(),
+  address: z.string(),
+  latDeg: z.number(),
+  lonDeg: z.number(),
+  sinceDate: z.iso.date(),
+  pattern: z.enum(OCCURRENCE_PATTERNS),
+  patternDetail: z.string().nullable(),
+  experience: z.enum(EXPERIENCES),
+  description: z.string(),
+  complainant: z.object({
+    name: z.string(),
+    email: z.string(),
+    phone: z.string().nullable(),
+    organisation: z.string().nullable(),
+    hasAccount: z.boolean(),
+  }),
+  officeId: id,
+  officeName: z.string(),
+  investigatorId: id.nullable(),
+  investigatorName: z.string().nullable(),
+  mergedIntoCaseId: id.nullable(),
+  mergedIntoReference: z.string().nullable(),
+  resolution: resolutionSchema.nullable(),
+  resolutionLabel: z.string().nullable(),
+  closingSummary: z.string().nullable(),
+  receivedAt: instant,
+  dueAt: instant,
+  closedAt: instant.nullable(),
+  overdue: z.boolean(),
+  abilities: caseAbilitiesSchema,
+  timeline: z.array(timelineEventSchema),
+})
+export type CaseDetail = z.infer<typeof caseDetailSchema>
 
-export interface CaseListItem {
-  id: string
-  reference: string
-  status: CaseState
-  statusLabel: string
-  priority: PriorityLevel
-  service: string
-  freqLowHz: number
-  freqHighHz: number
-  address: string
-  officeId: string
-  officeName: string
-  investigatorId: string | null
-  investigatorName: string | null
-  complainantName: string
-  receivedAt: string
-  dueAt: string
-  closedAt: string | null
-  overdue: boolean
-}
+export const caseListItemSchema = z.object({
+  id,
+  reference: z.string(),
+  status: caseStateSchema,
+  statusLabel: z.string(),
+  priority: prioritySchema,
+  service: affectedServiceSchema,
+  freqLowHz: z.number(),
+  freqHighHz: z.number(),
+  address: z.string(),
+  officeId: id,
+  officeName: z.string(),
+  investigatorId: id.nullable(),
+  investigatorName: z.string().nullable(),
+  complainantName: z.string(),
+  receivedAt: instant,
+  dueAt: instant,
+  closedAt: instant.nullable(),
+  overdue: z.boolean(),
+})
+export type CaseListItem = z.infer<typeof caseListItemSchema>
 
-export interface CasePage {
-  items: CaseListItem[]
-  total: number
-  page: number
-  pageSize: number
-}
+/** GET /api/cases */
+export const casePageSchema = z.object({
+  items: z.array(caseListItemSchema),
+  /** Exact up to EXACT_TOTAL_UP_TO (shared/domain/case-list.ts); that number when more match. */
+  total: z.number().int().min(0),
+  /** More cases match than `total` says: the server stopped counting at EXACT_TOTAL_UP_TO. */
+  totalCapped: z.boolean(),
+  page: z.number().int().min(1),
+  pageSize: z.number().int().min(1),
+})
+export type CasePage = z.infer<typeof casePageSchema>
 
-export interface MergeCandidate {
-  id: string
-  reference: string
-  status: string
-  service: string
-  address: string
-  freqLowHz: number
-  freqHighHz: number
-  distanceM: number
-  receivedAt: string
-}
+export const mergeCandidateSchema = z.object({
+  id,
+  reference: z.string(),
+  status: caseStateSchema,
+  service: affectedServiceSchema,
+  address: z.string(),
+  freqLowHz: z.number(),
+  freqHighHz: z.number(),
+  distanceM: z.number().min(0),
+  receivedAt: instant,
+})
+export type MergeCandidate = z.infer<typeof mergeCandidateSchema>
 
-export interface InvestigatorLoad {
-  id: string
-  name: string
-  openCases: number
-}
+export const investigatorLoadSchema = z.object({
+  id,
+  name: z.string(),
+  openCases: z.number().int().min(0),
+})
+export type InvestigatorLoad = z.infer<typeof investigatorLoadSchema>
 
-export interface TransferOffice {
-  id: string
-  name: string
+export const transferOfficeSchema = z.object({
+  id,
+  name: z.string(),
   /** Geodesic distance from the report's location to the office [m]. */
-  distanceM: number
-}
+  distanceM: z.number().min(0),
+})
+export type TransferOffice = z.infer<typeof transferOfficeSchema>
 
-export interface ComplainantEntry {
-  at: string
-  from: 'you' | 'office'
+export const complainantEntrySchema = z.object({
+  at: instant,
+  from: z.enum(['you', 'office']),
   /** 'status', 'message', 'information_requested', 'complainant_information', … */
-  kind: string
-  text: string
-}
+  kind: z.string(),
+  text: z.string(),
+})
+export type ComplainantEntry = z.infer<typeof complainantEntrySchema>
 
 /** The complainant's view of their report: plain steps, never the office's internal states or staff. */
-export interface ComplainantReport {
-  reference: string
-  step: ComplainantStep
-  statusLabel: string
-  service: string
-  freqLowHz: number
-  freqHighHz: number
-  address: string
-  description: string
-  receivedAt: string
-  closedAt: string | null
-  resolution: string | null
-  resolutionLabel: string | null
-  closingSummary: string | null
-  entries: ComplainantEntry[]
-  abilities: { withdraw: boolean; addInformation: boolean }
-}
+export const complainantReportSchema = z.object({
+  reference: z.string(),
+  step: complainantStepSchema,
+  statusLabel: z.string(),
+  service: affectedServiceSchema,
+  freqLowHz: z.number(),
+  freqHighHz: z.number(),
+  address: z.string(),
+  description: z.string(),
+  receivedAt: instant,
+  closedAt: instant.nullable(),
+  resolution: resolutionSchema.nullable(),
+  resolutionLabel: z.string().nullable(),
+  closingSummary: z.string().nullable(),
+  entries: z.array(complainantEntrySchema),
+  abilities: z.object({ withdraw: z.boolean(), addInformation: z.boolean() }),
+})
+export type ComplainantReport = z.infer<typeof complainantReportSchema>
 
-export interface MyReportRow {
-  id: string
-  reference: string
-  step: ComplainantStep
-  statusLabel: string
-  service: string
-  address: string
-  freqLowHz: number
-  freqHighHz: number
-  receivedAt: string
-  closedAt: string | null
-}
+export const myReportRowSchema = z.object({
+  id,
+  reference: z.string(),
+  step: complainantStepSchema,
+  statusLabel: z.string(),
+  service: affectedServiceSchema,
+  address: z.string(),
+  freqLowHz: z.number(),
+  freqHighHz: z.number(),
+  receivedAt: instant,
+  closedAt: instant.nullable(),
+})
+export type MyReportRow = z.infer<typeof myReportRowSchema>
 
-export interface OfficeView {
-  id: string
-  name: string
-  regionName: string
-  centreLatDeg: number
-  centreLonDeg: number
+/** Response target per priority [h]. */
+export const responseTargetsHoursSchema = z.object({ p1: z.number(), p2: z.number(), p3: z.number(), p4: z.number() })
+
+export const officeViewSchema = z.object({
+  id,
+  name: z.string(),
+  regionName: z.string(),
+  centreLatDeg: z.number(),
+  centreLonDeg: z.number(),
   /** Response target per priority, in hours. */
-  responseTargetsHours: { p1: number; p2: number; p3: number; p4: number }
+  responseTargetsHours: responseTargetsHoursSchema,
   /** What the viewer may do with this office (computed by the policy). */
-  abilities: { setResponseTargets: boolean }
-}
+  abilities: z.object({ setResponseTargets: z.boolean() }),
+})
+export type OfficeView = z.infer<typeof officeViewSchema>
+
+/**
+ * An account as staff lists and the administrator's user list show it. The signed-in user
+ * (`SessionUser` in ./auth) is this shape without `active` and `createdAt`.
+ */
+export const userRowSchema = z.object({
+  id,
+  email: z.string(),
+  name: z.string(),
+  role: roleSchema,
+  officeId: id.nullable(),
+  officeName: z.string().nullable(),
+  active: z.boolean(),
+  createdAt: instant,
+})
+export type UserRow = z.infer<typeof userRowSchema>
+
+/** Something the reporter should check about a report that was filed all the same. */
+export const reportWarningSchema = z.object({
+  /** 'far_from_offices': the place lies more than a set distance from every office. */
+  code: z.enum(['far_from_offices']),
+  /** The form field it is about. */
+  path: z.string(),
+  message: z.string(),
+})
+export type ReportWarning = z.infer<typeof reportWarningSchema>
+
+/** POST /api/reports (201): where the report went and how to follow it. */
+export const submittedReportSchema = z.object({
+  reference: z.string(),
+  officeName: z.string(),
+  /** The private tracking link, also e-mailed to the complainant. */
+  trackingUrl: z.string(),
+  warnings: z.array(reportWarningSchema),
+})
+export type SubmittedReportView = z.infer<typeof submittedReportSchema>
 
 /** A message kept by the local SMTP fake, as the development mailbox lists it. */
-export interface MailboxMessage {
-  id: string
-  from: string
-  to: string[]
-  subject: string
-  date: string
-  text: string
-  html: string | null
-  messageId: string | null
-}
+export const mailboxMessageSchema = z.object({
+  id: z.string(),
+  from: z.string(),
+  to: z.array(z.string()),
+  subject: z.string(),
+  date: z.string(),
+  text: z.string(),
+  html: z.string().nullable(),
+  messageId: z.string().nullable(),
+})
+export type MailboxMessage = z.infer<typeof mailboxMessageSchema>
+
+/** The bodies of the API's answers, by route (each wraps the shapes above in one named field). */
+export const caseResponseSchema = z.object({ case: caseDetailSchema })
+export const mergeCandidatesResponseSchema = z.object({ candidates: z.array(mergeCandidateSchema) })
+export const investigatorsResponseSchema = z.object({ investigators: z.array(investigatorLoadSchema) })
+export const transferOfficesResponseSchema = z.object({ offices: z.array(transferOfficeSchema) })
+export const complainantReportResponseSchema = z.object({ report: complainantReportSchema })
+export const myReportsResponseSchema = z.object({ reports: z.array(myReportRowSchema) })
+export const officesResponseSchema = z.object({ offices: z.array(officeViewSchema) })
+export const officeResponseSchema = z.object({ office: officeViewSchema })
+export const usersResponseSchema = z.object({ users: z.array(userRowSchema) })
+export const userResponseSchema = z.object({ user: userRowSchema })
+export const staffListResponseSchema = z.object({ staff: z.array(userRowSchema) })
+export const staffMemberResponseSchema = z.object({ staff: userRowSchema })
+export const mailboxResponseSchema = z.object({ messages: z.array(mailboxMessageSchema) })

@@ -3,6 +3,7 @@ import request from 'supertest'
 import { createTestContext, DEMO, DEMO_PASSWORD, signedInAgent, uniqueAddress, type TestContext } from '../support/harness'
 import { queuedMails, registerConfirmed } from '../support/accounts'
 import { MAX_FAILURES_PER_ACCOUNT } from '../../server/modules/auth/auth.service'
+import { NO_ACCOUNT_ABILITIES } from '../../shared/schemas/auth'
 
 let t: TestContext
 beforeAll(async () => {
@@ -35,6 +36,29 @@ describe('sign-in', () => {
     const me = await agent.get('/api/me').expect(200)
     expect(me.body.user).toMatchObject({ email, role })
     if (role === 'supervisor' || role === 'investigator') expect(me.body.user.officeName).toBe('Harrowmere')
+  })
+
+  it.each([
+    ['admin', DEMO.admin, { readCases: true, manageUsers: true, manageOffices: true }],
+    ['supervisor', DEMO.supervisor, { runOfficeQueue: true, readCases: true }],
+    ['investigator', DEMO.investigator, { workAssignedCases: true, readCases: true }],
+    ['complainant', DEMO.complainant, { reportAsAccount: true, followOwnReports: true }],
+  ])('tells the signed-in %s what their account may do, and nothing more', async (_role, email, allowed) => {
+    const agent = await signedInAgent(t.app, email)
+    const me = await agent.get('/api/me').expect(200)
+    expect(me.body.abilities).toEqual({ ...NO_ACCOUNT_ABILITIES, ...allowed })
+  })
+
+  it('gives the same abilities with the sign-in answer as /api/me does afterwards', async () => {
+    const agent = anon()
+    const signIn = await agent.post('/api/auth/sign-in').send({ email: DEMO.supervisor, password: DEMO_PASSWORD }).expect(200)
+    const me = await agent.get('/api/me').expect(200)
+    expect(signIn.body).toEqual(me.body)
+    expect(signIn.body.abilities.runOfficeQueue).toBe(true)
+  })
+
+  it('gives an anonymous visitor no user and no abilities', async () => {
+    expect((await anon().get('/api/me').expect(200)).body).toEqual({ user: null })
   })
 
   it('sets an HttpOnly, SameSite=Lax session cookie and a new session id at sign-in', async () => {

@@ -1,5 +1,13 @@
 /** The case list: scoping, filters, sorting, paging, overdue flags, CSV, response targets. */
+import { sql } from 'drizzle-orm'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import { CASE_STATES } from '../../shared/domain/case-lifecycle'
+import { dueAtFor, isOverdue } from '../../shared/domain/case-clocks'
+import type { Priority } from '../../shared/domain/services'
+import { caseListQuerySchema } from '../../shared/schemas/cases'
+import { createDb } from '../../server/db/client'
+import { findCasePage } from '../../server/modules/cases/case-list.repo'
+import { notOverdueSql, overdueSql } from '../../server/modules/cases/due'
 import { createTestContext, DEMO, signedInAgent, type TestContext } from '../support/harness'
 import { caseVersion, fileReport, NEAR_KESTREL_BAY, userId } from '../support/cases'
 
@@ -136,5 +144,82 @@ describe('response targets', () => {
     await supervisor.put(`/api/offices/${officeId}/response-targets`).send({ p1: 4, p2: 24, p3: 72, p4: 240 }).expect(200)
     await supervisor.put(`/api/offices/${officeId}/response-targets`).send({ p1: 0, p2: 24, p3: 72, p4: 240 }).expect(400)
     await investigator.put(`/api/offices/${officeId}/response-targets`).send({ p1: 4, p2: 24, p3: 72, p4: 240 }).expect(403)
+  })
+})
+
+describe('the list’s total', () => {
+  const matching = async () => (await t.pool.query(`SELECT count(*)::int AS n FROM cases WHERE search_text LIKE $1`, [`%${tag}%`])).rows[0].n as number
+
+  it('is exact, and says it is not capped, while few cases match', async () => {
+    const n = await matching()
+    const res = await list(admin, 'pageSize=2').expect(200)
+    expect(res.body).toMatchObject({ total: n, totalCapped: false })
+    expect(res.body.items).toHaveLength(2)
+  })
+
+  it('stops counting one case past the cap, and says the total is capped', async () => {
+    const db = createDb(t.pool)
+    const n = await matching()
+    const q = caseListQuerySchema.parse({ q: tag, pageSize: '2' })
+    const me = await userId(t.pool, DEMO.admin)
+    expect(await findCasePage(db, { all: true }, q, me, new Date(), n)).toMatchObject({ total: n, capped: false })
+    const capped = await findCasePage(db, { all: true }, q, me, new Date(), n - 1)
+    expect(capped).toMatchObject({ total: n - 1, capped: true })
+    expect(capped.rows).toHaveLength(2) // the page itself is whole
+  })
+})
+
+describe('overdue, in SQL and in the shared rule', () => {
+  const due = new Date('2026-06-01T12:00:00.000Z')
+  const instants = [-1000, 0, 1000].map((ms) => new Date(due.getTime() + ms))
+
+  it('agree for every state a second before, at, and a second after the due time', async () => {
+    const db = createDb(t.pool)
+    for (const status of CASE_STATES) {
+      for (const now of instants) {
+        const { rows } = await db.execute<{ overdue: boolean; not_overdue: boolean }>(
+          sql`SELECT ${overdueSql('resolution', now)} AS overdue, ${notOverdueSql('resolution', now)} AS not_overdue
+              FROM (VALUES (${status}::text, ${due.toISOString()}::timestamptz)) AS cases(status, due_at)`,
+        )
+        const shared = isOverdue('resolution', { status, dueAt: due }, now)
+        expect(rows[0]!.overdue, `${status} at ${now.toISOString()}`).toBe(shared)
+        expect(rows[0]!.not_overdue, `${status} at ${now.toISOString()}`).toBe(!shared)
+      }
+    }
+    // the edge itself: open at the due time is not yet overdue, a second later it is
+    expect(instants.map((now) => isOverdue('resolution', { status: 'assigned', dueAt: due }, now))).toEqual([false, false, true])
+  })
+
+  it('agree on a real case through the list’s overdue filter, both ways', async () => {
+    const db = createDb(t.pool)
+    const open = made[3]!
+    await t.pool.query(`UPDATE cases SET due_at = $2 WHERE id = $1`, [open.id, due])
+    const me = await userId(t.pool, DEMO.admin)
+    for (const now of instants) {
+      const expected = isOverdue('resolution', { status: 'received', dueAt: due }, now)
+      const overdue = await findCasePage(db, { all: true }, caseListQuerySchema.parse({ q: tag, overdue: 'true', pageSize: '50' }), me, now)
+      const notOverdue = await findCasePage(db, { all: true }, caseListQuerySchema.parse({ q: tag, overdue: 'false', pageSize: '50' }), me, now)
+      const row = [...overdue.rows, ...notOverdue.rows].filter((r) => r.id === open.id)
+      expect(row, now.toISOString()).toHaveLength(1) // in exactly one of the two lists
+      expect(overdue.rows.some((r) => r.id === open.id), now.toISOString()).toBe(expected)
+      expect(row[0]!.overdue, now.toISOString()).toBe(expected)
+    }
+  })
+
+  it('due times recomputed in SQL for new targets equal the shared rule’s', async () => {
+    const { rows } = await t.pool.query(`SELECT id FROM offices WHERE name = 'Harrowmere'`)
+    const officeId = rows[0].id
+    const targets = { 1: 3, 2: 13, 3: 50, 4: 201 } as const
+    await supervisor.put(`/api/offices/${officeId}/response-targets`).send({ p1: 3, p2: 13, p3: 50, p4: 201 }).expect(200)
+    try {
+      const { rows: open } = await t.pool.query<{ received_at: Date; priority: Priority; due_at: Date }>(
+        `SELECT received_at, priority, due_at FROM cases WHERE id = ANY($1) AND status <> 'closed'`,
+        [made.slice(0, 4).map((m) => m.id)],
+      )
+      expect(open.length).toBeGreaterThan(0)
+      for (const c of open) expect(c.due_at.toISOString()).toBe(dueAtFor(c.received_at, c.priority, targets).toISOString())
+    } finally {
+      await supervisor.put(`/api/offices/${officeId}/response-targets`).send({ p1: 4, p2: 24, p3: 72, p4: 240 }).expect(200)
+    }
   })
 })

@@ -61,6 +61,8 @@ const MATRIX: Row[] = [
   { route: 'GET /api/offices', expect: [401, 403, 200, 200, 200] },
   { route: 'GET /api/offices/:id', path: (ids) => `/api/offices/${ids.otherOfficeId}`, expect: [401, 403, 404, 404, 200] },
   { route: 'PUT /api/offices/:id/response-targets', path: (ids) => `/api/offices/${ids.otherOfficeId}/response-targets`, body: { p1: 4, p2: 24, p3: 72, p4: 240 }, expect: [401, 403, 403, 404, 200] },
+  // the region map (outline, coast, offices' points and areas) is public: the report form needs it
+  { route: 'GET /api/region', expect: [200, 200, 200, 200, 200] },
   // served only to loopback connections of a loopback development server with no proxy declared;
   // this app trusts a proxy, so it is off for everyone (each condition: dev-mailbox.test.ts)
   { route: 'GET /api/dev/mailbox', expect: [404, 404, 404, 404, 404] },

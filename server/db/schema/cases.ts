@@ -6,6 +6,7 @@ import {
   doublePrecision,
   index,
   integer,
+  jsonb,
   pgSequence,
   pgTable,
   text,
@@ -13,7 +14,11 @@ import {
   uuid,
   type AnyPgColumn,
 } from 'drizzle-orm/pg-core'
+import { CASE_STATES, RESOLUTIONS, TIMELINE_VISIBILITIES } from '../../../shared/domain/case-lifecycle'
+import { CASE_CLOCKS } from '../../../shared/domain/case-clocks'
+import { AFFECTED_SERVICES, EXPERIENCES, OCCURRENCE_PATTERNS, PRIORITIES, type Priority } from '../../../shared/domain/services'
 import { offices } from './offices'
+import { sqlList } from './sql-list'
 import { users } from './users'
 
 /** Yearly-looking but global sequence behind case references (QB-26-000123). */
@@ -30,11 +35,11 @@ export const cases = pgTable(
     id: uuid('id').primaryKey().defaultRandom(),
     reference: text('reference').notNull().unique(),
     officeId: uuid('office_id').notNull().references(() => offices.id),
-    status: text('status').notNull().default('received'),
+    status: text('status', { enum: CASE_STATES }).notNull().default('received'),
     /** Priority set (or confirmed) at triage; the suggested one until then. */
-    priority: integer('priority').notNull(),
-    suggestedPriority: integer('suggested_priority').notNull(),
-    service: text('service').notNull(),
+    priority: integer('priority').$type<Priority>().notNull(),
+    suggestedPriority: integer('suggested_priority').$type<Priority>().notNull(),
+    service: text('service', { enum: AFFECTED_SERVICES }).notNull(),
     licenceRef: text('licence_ref'),
     freqLowHz: doublePrecision('freq_low_hz').notNull(),
     freqHighHz: doublePrecision('freq_high_hz').notNull(),
@@ -42,9 +47,9 @@ export const cases = pgTable(
     latDeg: doublePrecision('lat_deg').notNull(),
     lonDeg: doublePrecision('lon_deg').notNull(),
     sinceDate: date('since_date').notNull(),
-    pattern: text('pattern').notNull(),
+    pattern: text('pattern', { enum: OCCURRENCE_PATTERNS }).notNull(),
     patternDetail: text('pattern_detail'),
-    experience: text('experience').notNull(),
+    experience: text('experience', { enum: EXPERIENCES }).notNull(),
     description: text('description').notNull(),
     complainantName: text('complainant_name').notNull(),
     complainantEmail: text('complainant_email').notNull(),
@@ -53,7 +58,7 @@ export const cases = pgTable(
     complainantUserId: uuid('complainant_user_id').references(() => users.id, { onDelete: 'set null' }),
     investigatorId: uuid('investigator_id').references(() => users.id),
     mergedIntoCaseId: uuid('merged_into_case_id').references((): AnyPgColumn => cases.id),
-    resolution: text('resolution'),
+    resolution: text('resolution', { enum: RESOLUTIONS }),
     closingSummary: text('closing_summary'),
     receivedAt: timestamp('received_at', { withTimezone: true }).notNull().defaultNow(),
     /** Response target: received_at + the office's target hours for the priority. */
@@ -66,13 +71,17 @@ export const cases = pgTable(
     ),
   },
   (t) => [
-    check('cases_status_valid', sql`${t.status} in ('received','triaged','assigned','field_work','finding_proposed','returned','closed')`),
-    check('cases_priority_valid', sql`${t.priority} between 1 and 4 and ${t.suggestedPriority} between 1 and 4`),
+    // the CHECKs list the same arrays as the column types (shared/domain)
+    check('cases_status_valid', sql`${t.status} in ${sqlList(CASE_STATES)}`),
+    check('cases_priority_valid', sql`${t.priority} in ${sqlList(PRIORITIES)} and ${t.suggestedPriority} in ${sqlList(PRIORITIES)}`),
+    check('cases_service_valid', sql`${t.service} in ${sqlList(AFFECTED_SERVICES)}`),
+    check('cases_pattern_valid', sql`${t.pattern} in ${sqlList(OCCURRENCE_PATTERNS)}`),
+    check('cases_experience_valid', sql`${t.experience} in ${sqlList(EXPERIENCES)}`),
     check('cases_freq_valid', sql`${t.freqLowHz} > 0 and ${t.freqHighHz} >= ${t.freqLowHz}`),
     check('cases_lat_valid', sql`${t.latDeg} between -90 and 90 and ${t.lonDeg} between -180 and 180`),
     check(
       'cases_resolution_valid',
-      sql`${t.resolution} is null or ${t.resolution} in ('source_corrected','enforcement_action','no_interference_found','referred','withdrawn','duplicate')`,
+      sql`${t.resolution} is null or ${t.resolution} in ${sqlList(RESOLUTIONS)}`,
     ),
     check('cases_closed_has_resolution', sql`(${t.status} = 'closed') = (${t.resolution} is not null and ${t.closedAt} is not null)`),
     index('cases_office_status_idx').on(t.officeId, t.status),
@@ -80,7 +89,9 @@ export const cases = pgTable(
     index('cases_office_due_idx').on(t.officeId, t.dueAt),
     index('cases_office_priority_received_idx').on(t.officeId, t.priority, t.receivedAt),
     index('cases_investigator_idx').on(t.investigatorId, t.status),
-    index('cases_due_open_idx').on(t.dueAt).where(sql`${t.status} <> 'closed'`),
+    // overdue (server/modules/cases/due.ts): the resolution clock runs and its due time has
+    // passed; with the office, a supervisor's overdue count is an index-only scan too
+    index('cases_due_open_idx').on(t.dueAt, t.officeId).where(sql`${t.status} not in ${sqlList(CASE_CLOCKS.resolution.stopsIn)}`),
     index('cases_complainant_user_idx').on(t.complainantUserId),
     index('cases_complainant_email_idx').on(t.complainantEmail),
     // the reports merged into a case (checked before closing it at triage and when it is merged)
@@ -116,17 +127,18 @@ export const caseEvents = pgTable(
     /** Who acted, as shown: a staff name, 'Complainant', or 'Quietband' for automatic steps. */
     actorLabel: text('actor_label').notNull(),
     kind: text('kind').notNull(),
-    fromState: text('from_state'),
-    toState: text('to_state'),
+    fromState: text('from_state', { enum: CASE_STATES }),
+    toState: text('to_state', { enum: CASE_STATES }),
     /** Reason, note or message text. */
     body: text('body'),
     /** 'internal' (staff only) or 'complainant' (shown on the tracking page). */
-    visibility: text('visibility').notNull(),
+    visibility: text('visibility', { enum: TIMELINE_VISIBILITIES }).notNull(),
     /** Structured details of the event (priority, investigator, office, merged case…). */
-    data: text('data'),
+    data: jsonb('data').$type<Record<string, unknown>>(),
   },
   (t) => [
-    check('case_events_visibility_valid', sql`${t.visibility} in ('internal','complainant')`),
+    check('case_events_visibility_valid', sql`${t.visibility} in ${sqlList(TIMELINE_VISIBILITIES)}`),
+    check('case_events_states_valid', sql`(${t.fromState} is null or ${t.fromState} in ${sqlList(CASE_STATES)}) and (${t.toState} is null or ${t.toState} in ${sqlList(CASE_STATES)})`),
     index('case_events_case_idx').on(t.caseId, t.id),
   ],
 )

@@ -1,4 +1,5 @@
 export * from './offices'
+export * from './region'
 export * from './users'
 export * from './sessions'
 export * from './cases'

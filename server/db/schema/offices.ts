@@ -1,5 +1,6 @@
 import { sql } from 'drizzle-orm'
-import { check, doublePrecision, integer, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core'
+import { check, doublePrecision, integer, jsonb, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core'
+import type { AreaGeometry } from '../../../shared/schemas/region'
 
 /** A field office. Reports are routed to the office whose region centre is nearest. */
 export const offices = pgTable(
@@ -10,6 +11,8 @@ export const offices = pgTable(
     regionName: text('region_name').notNull(),
     centreLatDeg: doublePrecision('centre_lat_deg').notNull(),
     centreLonDeg: doublePrecision('centre_lon_deg').notNull(),
+    /** The office's area on the map (GeoJSON Polygon or MultiPolygon, shared/schemas/region.ts); none yet: null. */
+    area: jsonb('area').$type<AreaGeometry>(),
     /** Response targets per priority, in hours (office-configurable). */
     targetP1Hours: integer('target_p1_hours').notNull().default(4),
     targetP2Hours: integer('target_p2_hours').notNull().default(24),
@@ -20,6 +23,7 @@ export const offices = pgTable(
   (t) => [
     check('offices_lat_range', sql`${t.centreLatDeg} between -90 and 90`),
     check('offices_lon_range', sql`${t.centreLonDeg} between -180 and 180`),
+    check('offices_area_polygon', sql`${t.area} is null or ${t.area}->>'type' in ('Polygon', 'MultiPolygon')`),
     check('offices_targets_positive', sql`least(${t.targetP1Hours}, ${t.targetP2Hours}, ${t.targetP3Hours}, ${t.targetP4Hours}) > 0`),
   ],
 )

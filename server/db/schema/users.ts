@@ -1,6 +1,11 @@
 import { sql } from 'drizzle-orm'
 import { boolean, check, index, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core'
+import { ROLES, STAFF_ROLES } from '../../../shared/domain/roles'
 import { offices } from './offices'
+import { sqlList } from './sql-list'
+
+export const PASSWORD_TOKEN_PURPOSES = ['reset', 'invite', 'confirm'] as const
+export const ACCOUNT_MAIL_KINDS = ['register', 'reset'] as const
 
 /**
  * People who sign in. Roles are text with a CHECK rather than a pg enum, so that a later
@@ -12,7 +17,7 @@ export const users = pgTable(
     id: uuid('id').primaryKey().defaultRandom(),
     email: text('email').notNull().unique(),
     name: text('name').notNull(),
-    role: text('role', { enum: ['complainant', 'investigator', 'supervisor', 'admin'] }).notNull(),
+    role: text('role', { enum: ROLES }).notNull(),
     officeId: uuid('office_id').references(() => offices.id, { onDelete: 'restrict' }),
     /** argon2id; null until an invited staff member sets a password. */
     passwordHash: text('password_hash'),
@@ -27,8 +32,8 @@ export const users = pgTable(
     createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [
-    check('users_role_valid', sql`${t.role} in ('complainant', 'investigator', 'supervisor', 'admin')`),
-    check('users_staff_have_office', sql`${t.role} not in ('investigator', 'supervisor') or ${t.officeId} is not null`),
+    check('users_role_valid', sql`${t.role} in ${sqlList(ROLES)}`),
+    check('users_staff_have_office', sql`${t.role} not in ${sqlList(STAFF_ROLES)} or ${t.officeId} is not null`),
     check('users_email_lowercase', sql`${t.email} = lower(${t.email})`),
     index('users_office_idx').on(t.officeId),
   ],
@@ -46,12 +51,12 @@ export const passwordTokens = pgTable(
     id: uuid('id').primaryKey().defaultRandom(),
     userId: uuid('user_id').notNull().references(() => users.id, { onDelete: 'cascade' }),
     tokenHash: text('token_hash').notNull().unique(),
-    purpose: text('purpose', { enum: ['reset', 'invite', 'confirm'] }).notNull(),
+    purpose: text('purpose', { enum: PASSWORD_TOKEN_PURPOSES }).notNull(),
     expiresAt: timestamp('expires_at', { withTimezone: true }).notNull(),
     usedAt: timestamp('used_at', { withTimezone: true }),
     createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
   },
-  (t) => [check('password_tokens_purpose_valid', sql`${t.purpose} in ('reset', 'invite', 'confirm')`)],
+  (t) => [check('password_tokens_purpose_valid', sql`${t.purpose} in ${sqlList(PASSWORD_TOKEN_PURPOSES)}`)],
 )
 
 /**
@@ -64,10 +69,10 @@ export const accountMails = pgTable(
   {
     id: uuid('id').primaryKey().defaultRandom(),
     email: text('email').notNull(),
-    kind: text('kind', { enum: ['register', 'reset'] }).notNull(),
+    kind: text('kind', { enum: ACCOUNT_MAIL_KINDS }).notNull(),
     at: timestamp('at', { withTimezone: true }).notNull().defaultNow(),
   },
-  (t) => [check('account_mails_kind_valid', sql`${t.kind} in ('register', 'reset')`), index('account_mails_email_at_idx').on(t.email, t.at)],
+  (t) => [check('account_mails_kind_valid', sql`${t.kind} in ${sqlList(ACCOUNT_MAIL_KINDS)}`), index('account_mails_email_at_idx').on(t.email, t.at)],
 )
 
 /** Sign-in attempts, for per-account and per-address limits that hold across app processes. */

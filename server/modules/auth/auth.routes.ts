@@ -1,4 +1,4 @@
-import { Router, type Request } from 'express'
+import { Router, type Request, type RequestHandler } from 'express'
 import type passport from 'passport'
 import {
   confirmEmailSchema,
@@ -9,7 +9,9 @@ import {
   type AccountRequestResponse,
   type MeResponse,
   type SessionUser,
+  type SignedIn,
 } from '../../../shared/schemas/auth'
+import { accountAbilities } from '../../policy/account-policy'
 import type { ServiceContext } from '../../context'
 import { HttpError } from '../../http/errors'
 import { parseWith } from '../../http/validate'
@@ -46,19 +48,31 @@ const unconfirmedEmail = () =>
     'Confirm your e-mail address first: open the link we sent when you created the account. If it has expired, ask for a password link instead — choosing a password also confirms the address.',
   )
 
-/** passport.login regenerates the session id (no session fixation). */
+/** Starts the session (passport regenerates the session id: no session fixation). */
 function logIn(req: Request, user: SessionUser): Promise<void> {
   return new Promise((resolve, reject) => req.login(user, (err) => (err ? reject(err) : resolve())))
 }
 
-type LocalResult = { user: SessionUser } | { user: false; unconfirmed: boolean }
+/** The answer of every call that signs someone in: the user and what the account may do. */
+export const signedIn = (user: SessionUser): SignedIn => ({ user, abilities: accountAbilities(user) })
 
-function authenticateLocal(p: passport.PassportStatic, req: Request): Promise<LocalResult> {
-  return new Promise((resolve, reject) => {
-    p.authenticate('local', { session: false }, (err: unknown, user: SessionUser | false, info?: { message?: string }) =>
-      err ? reject(err) : resolve(user ? { user } : { user: false, unconfirmed: info?.message === 'unconfirmed' }),
-    )(req, {} as never, reject)
-  })
+/** What the local strategy found, kept for the next handler of the sign-in route. */
+type LocalResult = { user: SessionUser } | { user: false; unconfirmed: boolean }
+interface SignInLocals {
+  attempt: { id: string; accountFailures: number }
+  local: LocalResult
+}
+
+/** Runs the local strategy as ordinary middleware; its verdict goes to `res.locals.local`. */
+function checkPassword(p: passport.PassportStatic): RequestHandler {
+  return (req, res, next) => {
+    p.authenticate('local', { session: false }, (err: unknown, user: SessionUser | false, info?: { message?: string }) => {
+      if (err) return next(err)
+      const locals = res.locals as SignInLocals
+      locals.local = user ? { user } : { user: false, unconfirmed: info?.message === 'unconfirmed' }
+      next()
+    })(req, res, next)
+  }
 }
 
 export interface AuthRouteOptions {
@@ -70,14 +84,19 @@ export function authRoutes(ctx: ServiceContext, p: passport.PassportStatic, opts
   const r = Router()
   const signInDelay = opts.signInDelay ?? signInDelayMs
 
-  r.post('/auth/sign-in', async (req, res) => {
+  const openAttempt: RequestHandler = async (req, res, next) => {
     const input = parseWith(signInSchema, req.body)
-    const ip = req.ip ?? 'unknown'
-    const attempt = await openSignInAttempt(ctx.db, input.email, ip)
+    const attempt = await openSignInAttempt(ctx.db, input.email, req.ip ?? 'unknown')
+    const locals = res.locals as SignInLocals
+    locals.attempt = attempt
     // the account's failures from elsewhere slow the answer down; they never refuse the right password
     await wait(signInDelay(attempt.accountFailures))
     req.body = input
-    const result = await authenticateLocal(p, req)
+    next()
+  }
+
+  r.post('/auth/sign-in', openAttempt, checkPassword(p), async (req, res) => {
+    const { attempt, local: result } = res.locals as SignInLocals
     if (!result.user) {
       if (!result.unconfirmed) throw invalidCredentials(attempt.accountFailures)
       await markSignInSucceeded(ctx.db, attempt.id) // the password was right: not a guess
@@ -85,7 +104,7 @@ export function authRoutes(ctx: ServiceContext, p: passport.PassportStatic, opts
     }
     await markSignInSucceeded(ctx.db, attempt.id)
     await logIn(req, result.user)
-    res.json({ user: result.user })
+    res.json(signedIn(result.user))
   })
 
   r.post('/auth/sign-out', (req, res, next) => {
@@ -97,7 +116,7 @@ export function authRoutes(ctx: ServiceContext, p: passport.PassportStatic, opts
 
   // an anonymous visitor is an ordinary answer (no user), not an error
   r.get('/me', (req, res) => {
-    const body: MeResponse = { user: req.isAuthenticated() ? req.user! : null }
+    const body: MeResponse = req.isAuthenticated() ? signedIn(req.user!) : { user: null }
     res.json(body)
   })
 
@@ -117,7 +136,7 @@ export function authRoutes(ctx: ServiceContext, p: passport.PassportStatic, opts
     const { token } = parseWith(confirmEmailSchema, req.body)
     const user = await confirmEmailWithToken(ctx, token)
     await logIn(req, user)
-    res.json({ user })
+    res.json(signedIn(user))
   })
 
   r.post('/auth/password-reset', accountWork, async (req, res) => {
@@ -130,7 +149,7 @@ export function authRoutes(ctx: ServiceContext, p: passport.PassportStatic, opts
     const input = parseWith(setPasswordSchema, req.body)
     const user = await setPasswordWithToken(ctx, input.token, input.password)
     await logIn(req, user)
-    res.json({ user })
+    res.json(signedIn(user))
   })
 
   return r

@@ -13,8 +13,7 @@ import { badRequest, HttpError } from '../../http/errors'
 import { queueMail } from '../../jobs/boss'
 import { alreadyRegisteredMail, confirmAddressMail, noAccountResetMail, passwordResetMail } from '../../mail/templates'
 import type { ServiceContext } from '../../context'
-import type { RegisterInput } from '../../../shared/schemas/auth'
-import type { SessionUser } from '../../../shared/schemas/auth'
+import type { RegisterInput, SessionUser } from '../../../shared/schemas/auth'
 import { findUserById } from '../users/users.repo'
 import { linkReportsToConfirmedAccount } from '../cases/cases.repo'
 import { decoyPasswordHash, hashPassword, hashToken, newToken, verifyPassword } from './passwords'
@@ -33,8 +32,9 @@ export const MAX_ACCOUNT_MAILS_PER_HOUR = 3
 /** Advisory-lock class of the per-address lock of account requests (any constant unused elsewhere). */
 const ACCOUNT_MAIL_LOCK_CLASS = 7207
 
-export function toSessionUser(u: { id: string; email: string; name: string; role: SessionUser['role']; officeId: string | null; officeName: string | null }): SessionUser {
-  return { id: u.id, email: u.email, name: u.name, role: u.role, officeId: u.officeId, officeName: u.officeName }
+/** The session's part of a user record (any record with at least these fields). */
+export function toSessionUser({ id, email, name, role, officeId, officeName }: SessionUser): SessionUser {
+  return { id, email, name, role, officeId, officeName }
 }
 
 /** What a password check found. `unconfirmed`: the password is right but the address is not confirmed yet. */

@@ -2,7 +2,7 @@ import passport from 'passport'
 import { Strategy as LocalStrategy } from 'passport-local'
 import type { Db } from '../../db/client'
 import { findUserById } from '../users/users.repo'
-import { checkCredentials } from './auth.service'
+import { checkCredentials, toSessionUser } from './auth.service'
 
 /** One Passport instance per app (keeps tests isolated). The session holds the user id only. */
 export function configurePassport(db: Db): passport.PassportStatic {
@@ -19,7 +19,7 @@ export function configurePassport(db: Db): passport.PassportStatic {
   p.serializeUser((user, done) => done(null, user.id))
   p.deserializeUser((id: string, done) => {
     findUserById(db, id).then(
-      (u) => done(null, u && u.active ? { id: u.id, email: u.email, name: u.name, role: u.role, officeId: u.officeId, officeName: u.officeName } : false),
+      (u) => done(null, u && u.active ? toSessionUser(u) : false),
       done,
     )
   })

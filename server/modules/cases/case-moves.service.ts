@@ -4,14 +4,13 @@
  * state (409 invalid_transition); write the change with an optimistic version check, append
  * the timeline event, and queue the e-mails it causes. Nothing is half-written.
  */
-import { and, asc, eq, inArray, sql } from 'drizzle-orm'
 import type pg from 'pg'
-import { CASE_MOVE_LABELS, CASE_STATE_LABELS, moveAllowedFrom, stateAfter, type CaseMoveName, type CaseState, type Resolution } from '../../../shared/domain/case-lifecycle'
-import type { AffectedService, Priority } from '../../../shared/domain/services'
+import { CASE_MOVE_LABELS, CASE_STATE_LABELS, moveAllowedFrom, stateAfter, type CaseMoveName, type Resolution } from '../../../shared/domain/case-lifecycle'
+import type { Priority } from '../../../shared/domain/services'
 import { withTransaction, type Db } from '../../db/client'
-import { cases, offices, users, type CaseRow } from '../../db/schema'
+import type { CaseRow } from '../../db/schema'
 import type { ServiceContext } from '../../context'
-import { badRequest, conflict, forbidden, notFound } from '../../http/errors'
+import { badRequest, conflict, forbidden } from '../../http/errors'
 import { queueMail } from '../../jobs/boss'
 import type { OutgoingMail } from '../../mail/mailer'
 import {
@@ -22,12 +21,13 @@ import {
   findingReturnedMail,
   investigatorAssignedMail,
 } from '../../mail/case-templates'
-import { canSeeCase, mayMakeMove, type CaseActor } from '../../policy/case-policy'
-import { appendEvent, findCase, mergedReportsOf, officeTargetsHours, updateCaseIfVersion, userName } from './cases.repo'
-import { dueAt } from './due'
+import { mayMakeMove, type CaseActor } from '../../policy/case-policy'
+import { findOffice } from '../offices/offices.repo'
+import { activeStaffOf, findUserById } from '../users/users.repo'
+import { loadVisibleCase, staleVersion } from './case-access'
+import { appendEvent, lockCase, lockCasesInIdOrder, mergedReportsOf, repointMergedReports, updateCaseIfVersion, type NewCase } from './cases.repo'
+import { CLOCK_COLUMNS, dueAtFor } from './due'
 import { issueTrackingLink } from './tracking-tokens'
-
-export const caseNotFound = () => notFound('case_not_found', 'No such case in your office.')
 
 interface MoveScope {
   c: CaseRow
@@ -43,21 +43,10 @@ interface MoveScope {
 }
 
 interface MovePlan {
-  changes?: Partial<typeof cases.$inferInsert>
+  changes?: Partial<NewCase>
   body?: string | null
   data?: Record<string, unknown>
   after?: (updated: CaseRow) => Promise<void>
-}
-
-/** A case id as PostgreSQL reads a uuid; anything else is no case (404), never a query error. */
-const CASE_ID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i
-
-/** Loads a case the actor may see, or throws 404. */
-export async function loadVisibleCase(db: Db, actor: CaseActor, caseId: string): Promise<CaseRow> {
-  if (!CASE_ID.test(caseId)) throw caseNotFound()
-  const c = await findCase(db, caseId)
-  if (!c || !canSeeCase(actor, { ...c, status: c.status as CaseState })) throw caseNotFound()
-  return c
 }
 
 async function makeMove(
@@ -70,15 +59,15 @@ async function makeMove(
 ): Promise<CaseRow> {
   return withTransaction(ctx.pool, async ({ db, client }) => {
     const c = await loadVisibleCase(db, actor, caseId)
-    const state = c.status as CaseState
-    if (!mayMakeMove(actor, move, { ...c, status: state })) throw forbidden(`Your role cannot ${CASE_MOVE_LABELS[move].toLowerCase()} on this case.`)
+    const state = c.status
+    if (!mayMakeMove(actor, move, c)) throw forbidden(`Your role cannot ${CASE_MOVE_LABELS[move].toLowerCase()} on this case.`)
     const expected = version === 'current' ? c.version : version
     if (c.version !== expected) throw staleVersion()
     if (!moveAllowedFrom(move, state)) {
       throw conflict('invalid_transition', `“${CASE_MOVE_LABELS[move]}” is not possible while the case is “${CASE_STATE_LABELS[state]}”.`)
     }
     const actorUserId = actor.role === 'tracking_link' ? null : actor.id
-    const actorName = actor.role === 'tracking_link' || actor.role === 'complainant' ? 'Complainant' : ((await userName(db, actor.id))?.name ?? 'Unknown user')
+    const actorName = actor.role === 'tracking_link' || actor.role === 'complainant' ? 'Complainant' : ((await findUserById(db, actor.id))?.name ?? 'Unknown user')
     const now = ctx.now()
     const scope: MoveScope = {
       c,
@@ -112,17 +101,14 @@ async function makeMove(
   })
 }
 
-export const staleVersion = () =>
-  conflict('stale_version', 'Someone else changed this case a moment ago. Reload it to see their change, then try again.')
-
 const caseLink = (ctx: ServiceContext, id: string) => `${ctx.publicUrl}/cases/${id}`
 
 /** Sets (or confirms) the priority; the response target follows it. */
 export function triageCase(ctx: ServiceContext, actor: CaseActor, caseId: string, input: { version: number; priority: Priority; note?: string }) {
   return makeMove(ctx, actor, caseId, 'triage', input.version, async ({ c, db }) => {
-    const targets = await officeTargetsHours(db, c.officeId)
+    const office = await findOffice(db, c.officeId)
     return {
-      changes: { priority: input.priority, dueAt: dueAt(c.receivedAt, input.priority, targets) },
+      changes: { priority: input.priority, dueAt: dueAtFor(c.receivedAt, input.priority, CLOCK_COLUMNS.resolution.targetsHours(office!)) },
       body: input.note ?? null,
       data: { priority: input.priority, suggestedPriority: c.suggestedPriority },
     }
@@ -132,7 +118,7 @@ export function triageCase(ctx: ServiceContext, actor: CaseActor, caseId: string
 /** Gives the case to an active investigator of its office. */
 export function assignCase(ctx: ServiceContext, actor: CaseActor, caseId: string, input: { version: number; investigatorId: string }) {
   return makeMove(ctx, actor, caseId, 'assign', input.version, async ({ c, db, mail, trackingLink }) => {
-    const inv = await userName(db, input.investigatorId)
+    const inv = await findUserById(db, input.investigatorId)
     if (!inv || inv.role !== 'investigator' || inv.officeId !== c.officeId || !inv.active) {
       throw badRequest('validation_failed', 'Some fields need attention.', [{ path: 'investigatorId', message: 'Choose an active investigator of this office.' }])
     }
@@ -142,7 +128,7 @@ export function assignCase(ctx: ServiceContext, actor: CaseActor, caseId: string
       data: { investigatorId: input.investigatorId, investigatorName: inv.name, previousInvestigatorId: c.investigatorId },
       body: `Assigned to ${inv.name}.`,
       after: async (u) => {
-        await mail(investigatorAssignedMail(inv, { ...u, priority: u.priority as Priority, service: u.service as AffectedService }, caseLink(ctx, u.id)))
+        await mail(investigatorAssignedMail(inv, u, caseLink(ctx, u.id)))
         if (firstAssignment) await mail(caseAssignedComplainantMail(u, await trackingLink()))
       },
     }
@@ -152,13 +138,12 @@ export function assignCase(ctx: ServiceContext, actor: CaseActor, caseId: string
 /** Hands a new report to another office, which triages it afresh. */
 export function transferCase(ctx: ServiceContext, actor: CaseActor, caseId: string, input: { version: number; officeId: string; reason: string }) {
   return makeMove(ctx, actor, caseId, 'transfer', input.version, async ({ c, db }) => {
-    const [o] = await db.select().from(offices).where(eq(offices.id, input.officeId))
+    const o = await findOffice(db, input.officeId)
     if (!o || o.id === c.officeId) {
       throw badRequest('validation_failed', 'Some fields need attention.', [{ path: 'officeId', message: 'Choose another office.' }])
     }
-    const targets = await officeTargetsHours(db, o.id)
     return {
-      changes: { officeId: o.id, investigatorId: null, dueAt: dueAt(c.receivedAt, c.priority as Priority, targets) },
+      changes: { officeId: o.id, investigatorId: null, dueAt: dueAtFor(c.receivedAt, c.priority, CLOCK_COLUMNS.resolution.targetsHours(o)) },
       body: input.reason,
       data: { fromOfficeId: c.officeId, toOfficeId: o.id, toOfficeName: o.name },
     }
@@ -181,17 +166,17 @@ const MAX_MERGE_CHAIN = 20
 export function mergeCase(ctx: ServiceContext, actor: CaseActor, caseId: string, input: { version: number; intoCaseId: string }) {
   return makeMove(ctx, actor, caseId, 'merge', input.version, async ({ c, db, mail, trackingLink, actorName, now }) => {
     const refuse = (message: string) => badRequest('validation_failed', 'Some fields need attention.', [{ path: 'intoCaseId', message }])
-    if (!CASE_ID.test(input.intoCaseId) || input.intoCaseId === c.id) throw refuse('Choose another open case of this office.')
+    if (input.intoCaseId === c.id) throw refuse('Choose another open case of this office.')
     // Lock both cases, always in id order: two merges of the same pair in opposite directions
     // then run one after the other (never deadlock), and the second finds its target closed
     // instead of leaving two cases closed as duplicates of each other. A dismissal or another
     // merge of the target waits for this lock too, and then sees this merge.
-    const pair = await db.select().from(cases).where(inArray(cases.id, [c.id, input.intoCaseId])).orderBy(asc(cases.id)).for('no key update')
+    const pair = await lockCasesInIdOrder(db, [c.id, input.intoCaseId])
     let target = pair.find((p) => p.id === input.intoCaseId)
     const chosen = target
     // follow the chain of merges to the open case at its end
     for (let hops = 0; target && target.status === 'closed' && target.resolution === 'duplicate' && target.mergedIntoCaseId && hops < MAX_MERGE_CHAIN; hops++) {
-      ;[target] = await db.select().from(cases).where(eq(cases.id, target.mergedIntoCaseId)).for('no key update')
+      target = await lockCase(db, target.mergedIntoCaseId)
     }
     if (!target || target.id === c.id || target.officeId !== c.officeId || target.status === 'closed') throw refuse('Choose another open case of this office.')
     const via = chosen && chosen.id !== target.id ? ` (${chosen.reference} had been merged into it)` : ''
@@ -203,11 +188,7 @@ export function mergeCase(ctx: ServiceContext, actor: CaseActor, caseId: string,
       data: { intoCaseId: target.id, intoReference: target.reference, chosenCaseId: chosen?.id ?? null },
       after: async (u) => {
         // the reports merged into this case follow it (this case's row lock keeps new ones out meanwhile)
-        const followers = await db
-          .update(cases)
-          .set({ mergedIntoCaseId: target.id, version: sql`${cases.version} + 1`, updatedAt: sql`now()` })
-          .where(eq(cases.mergedIntoCaseId, u.id))
-          .returning({ id: cases.id, reference: cases.reference, complainantName: cases.complainantName })
+        const followers = await repointMergedReports(db, u.id, target.id)
         await appendEvent(db, { caseId: target.id, at: now, ...by, kind: 'merged_in', visibility: 'internal', body: `${u.reference} (${u.complainantName}) was merged into this case.`, data: { fromCaseId: u.id, fromReference: u.reference } })
         for (const f of followers) {
           await appendEvent(db, { caseId: f.id, at: now, ...by, kind: 'merge_followed', visibility: 'internal', body: `${u.reference}, into which this report was merged, was merged into ${target.reference}; this report follows it.`, data: { intoCaseId: target.id, intoReference: target.reference, viaCaseId: u.id } })
@@ -237,7 +218,7 @@ function closing(resolution: Resolution, summary: string, s: MoveScope): MovePla
 export function dismissReport(ctx: ServiceContext, actor: CaseActor, caseId: string, input: { version: number; resolution: Resolution; reason: string }) {
   return makeMove(ctx, actor, caseId, 'dismiss', input.version, async (s) => {
     // under the case's row lock, so a merge into it either comes first (and is seen) or waits
-    await s.db.select({ id: cases.id }).from(cases).where(eq(cases.id, s.c.id)).for('no key update')
+    await lockCase(s.db, s.c.id)
     const merged = await mergedReportsOf(s.db, s.c.id)
     if (merged.length > 0) throw holdsMergedReports(merged.map((m) => m.reference))
     return closing(input.resolution, input.reason, s)
@@ -262,10 +243,7 @@ export function proposeFinding(ctx: ServiceContext, actor: CaseActor, caseId: st
   return makeMove(ctx, actor, caseId, 'proposeFinding', input.version, async ({ c, db, mail, actorName }) => ({
     body: input.reason,
     after: async (u) => {
-      const supervisors = await db
-        .select({ name: users.name, email: users.email })
-        .from(users)
-        .where(and(eq(users.officeId, c.officeId), eq(users.role, 'supervisor'), eq(users.active, true)))
+      const supervisors = await activeStaffOf(db, c.officeId, 'supervisor')
       for (const s of supervisors) await mail(findingProposedMail(s, u, actorName, caseLink(ctx, u.id)))
     },
   }))
@@ -276,7 +254,7 @@ export function returnFinding(ctx: ServiceContext, actor: CaseActor, caseId: str
   return makeMove(ctx, actor, caseId, 'returnFinding', input.version, async ({ c, db, mail, actorName }) => ({
     body: input.reason,
     after: async (u) => {
-      const investigator = c.investigatorId ? await userName(db, c.investigatorId) : undefined
+      const investigator = c.investigatorId ? await findUserById(db, c.investigatorId) : undefined
       if (investigator?.active) await mail(findingReturnedMail(investigator, u, actorName, input.reason, caseLink(ctx, u.id)))
     },
   }))
@@ -291,7 +269,7 @@ export function closeCase(ctx: ServiceContext, actor: CaseActor, caseId: string,
 export function reopenCase(ctx: ServiceContext, actor: CaseActor, caseId: string, input: { version: number; reason: string }) {
   return makeMove(ctx, actor, caseId, 'reopen', input.version, async ({ c, db, mail, trackingLink }) => {
     // an investigator who has left since goes off the case, which then returns to triage
-    const investigator = c.investigatorId ? await userName(db, c.investigatorId) : undefined
+    const investigator = c.investigatorId ? await findUserById(db, c.investigatorId) : undefined
     const keepInvestigator = !!investigator?.active
     return {
       changes: { resolution: null, closingSummary: null, closedAt: null, mergedIntoCaseId: null, ...(keepInvestigator ? {} : { investigatorId: null }) },

@@ -1,15 +1,13 @@
 /** Notes and messages on a case's timeline; they never change its state. */
 import type { ServiceContext } from '../../context'
 import { withTransaction } from '../../db/client'
-import { and, count, eq, gt } from 'drizzle-orm'
-import { caseEvents, cases } from '../../db/schema'
 import { forbidden, HttpError } from '../../http/errors'
 import { queueMail } from '../../jobs/boss'
 import { informationRequestedMail, messageToComplainantMail } from '../../mail/case-templates'
 import { mayAddComplainantInformation, mayAddInternalNote, mayMessageComplainant, type CaseActor } from '../../policy/case-policy'
-import type { CaseState } from '../../../shared/domain/case-lifecycle'
-import { appendEvent, userName } from './cases.repo'
-import { loadVisibleCase } from './case-moves.service'
+import { findUserById } from '../users/users.repo'
+import { loadVisibleCase } from './case-access'
+import { appendEvent, countEventsSince, lockCase } from './cases.repo'
 import { issueTrackingLink } from './tracking-tokens'
 
 /** An internal note (staff only) or a message to the complainant (shown and e-mailed). */
@@ -21,10 +19,9 @@ export async function addCaseNote(
 ): Promise<void> {
   await withTransaction(ctx.pool, async ({ db, client }) => {
     const c = await loadVisibleCase(db, actor, caseId)
-    const access = { ...c, status: c.status as CaseState }
-    const allowed = input.visibility === 'internal' ? mayAddInternalNote(actor, access) : mayMessageComplainant(actor, access)
+    const allowed = input.visibility === 'internal' ? mayAddInternalNote(actor, c) : mayMessageComplainant(actor, c)
     if (!allowed || actor.role === 'tracking_link') throw forbidden(input.visibility === 'internal' ? 'Only staff of this office can add notes.' : 'Only the supervisor or the assigned investigator can write to the complainant while the case is open.')
-    const name = (await userName(db, actor.id))?.name ?? 'Unknown user'
+    const name = (await findUserById(db, actor.id))?.name ?? 'Unknown user'
     const kind = input.visibility === 'internal' ? 'note' : input.requestsInformation ? 'information_requested' : 'message'
     await appendEvent(db, { caseId: c.id, at: ctx.now(), actorUserId: actor.id, actorLabel: name, kind, body: input.body, visibility: input.visibility })
     if (input.visibility === 'complainant') {
@@ -46,14 +43,10 @@ export const ADDITIONS_PER_HOUR_PER_CASE = 10
 export async function addComplainantInformation(ctx: ServiceContext, actor: CaseActor, caseId: string, body: string): Promise<void> {
   await withTransaction(ctx.pool, async ({ db }) => {
     const c = await loadVisibleCase(db, actor, caseId)
-    if (!mayAddComplainantInformation(actor, { ...c, status: c.status as CaseState })) throw forbidden()
-    await db.select({ id: cases.id }).from(cases).where(eq(cases.id, c.id)).for('no key update')
+    if (!mayAddComplainantInformation(actor, c)) throw forbidden()
+    await lockCase(db, c.id)
     const hourAgo = new Date(ctx.now().getTime() - 60 * 60 * 1000)
-    const [recent] = await db
-      .select({ n: count() })
-      .from(caseEvents)
-      .where(and(eq(caseEvents.caseId, c.id), eq(caseEvents.kind, 'complainant_information'), gt(caseEvents.at, hourAgo)))
-    if (recent!.n >= ADDITIONS_PER_HOUR_PER_CASE) {
+    if ((await countEventsSince(db, c.id, 'complainant_information', hourAgo)) >= ADDITIONS_PER_HOUR_PER_CASE) {
       throw new HttpError(
         429,
         'too_many_additions',

@@ -1,35 +1,34 @@
 /** Reading cases: the staff case page, the complainant's view, and triage helpers. */
-import { and, asc, count, desc, eq, gte, lte, ne, sql } from 'drizzle-orm'
-import { COMPLAINANT_STEP_LABELS, COMPLAINANT_STEP_OF_STATE, moveAllowedFrom, OPEN_STATES, type CaseState } from '../../../shared/domain/case-lifecycle'
+import { COMPLAINANT_STEP_LABELS, COMPLAINANT_STEP_OF_STATE, moveAllowedFrom } from '../../../shared/domain/case-lifecycle'
 import { geodesicInverse } from '../../../shared/radio/geo'
 import type { ServiceContext } from '../../context'
-import { caseEvents, cases, offices, users, type CaseRow } from '../../db/schema'
 import { caseAbilities, type CaseActor } from '../../policy/case-policy'
 import type { Actor } from '../../policy/policy'
 import { forbidden } from '../../http/errors'
-import { loadVisibleCase } from './case-moves.service'
-import { mergedReportsOf } from './cases.repo'
+import { findOffice, otherOffices } from '../offices/offices.repo'
+import { findUserById } from '../users/users.repo'
+import { loadVisibleCase } from './case-access'
+import { casesOfComplainant, findCaseReference, investigatorLoads, mergedReportsOf, openCasesNear, timelineOf } from './cases.repo'
 import { presentCaseDetail, presentComplainantView, toTimelineEvent } from './cases.present'
 import type { InvestigatorLoad, MergeCandidate, MyReportRow, TimelineEvent, TransferOffice } from '../../../shared/schemas/views'
 
 async function timeline(ctx: ServiceContext, caseId: string): Promise<TimelineEvent[]> {
-  const rows = await ctx.db.select().from(caseEvents).where(eq(caseEvents.caseId, caseId)).orderBy(asc(caseEvents.id))
-  return rows.map(toTimelineEvent)
+  return (await timelineOf(ctx.db, caseId)).map(toTimelineEvent)
 }
 
 export async function getCaseDetail(ctx: ServiceContext, actor: Actor, caseId: string) {
   const c = await loadVisibleCase(ctx.db, actor, caseId)
-  const [office] = await ctx.db.select({ name: offices.name }).from(offices).where(eq(offices.id, c.officeId))
-  const investigator = c.investigatorId ? (await ctx.db.select({ name: users.name }).from(users).where(eq(users.id, c.investigatorId)))[0] : undefined
-  const merged = c.mergedIntoCaseId ? (await ctx.db.select({ reference: cases.reference }).from(cases).where(eq(cases.id, c.mergedIntoCaseId)))[0] : undefined
+  const office = await findOffice(ctx.db, c.officeId)
+  const investigator = c.investigatorId ? await findUserById(ctx.db, c.investigatorId) : undefined
+  const mergedIntoReference = c.mergedIntoCaseId ? await findCaseReference(ctx.db, c.mergedIntoCaseId) : undefined
   const holdsMergedReports = (await mergedReportsOf(ctx.db, c.id)).length > 0
   return presentCaseDetail(
     c,
     {
       officeName: office!.name,
       investigatorName: investigator?.name ?? null,
-      mergedIntoReference: merged?.reference ?? null,
-      abilities: caseAbilities(actor, { ...c, status: c.status as CaseState, holdsMergedReports }),
+      mergedIntoReference: mergedIntoReference ?? null,
+      abilities: caseAbilities(actor, { ...c, holdsMergedReports }),
       timeline: await timeline(ctx, c.id),
     },
     ctx.now(),
@@ -38,7 +37,7 @@ export async function getCaseDetail(ctx: ServiceContext, actor: Actor, caseId: s
 
 export async function getComplainantView(ctx: ServiceContext, actor: CaseActor, caseId: string) {
   const c = await loadVisibleCase(ctx.db, actor, caseId)
-  const abilities = caseAbilities(actor, { ...c, status: c.status as CaseState })
+  const abilities = caseAbilities(actor, c)
   return presentComplainantView(c, await timeline(ctx, c.id), { withdraw: abilities.withdraw, addInformation: true })
 }
 
@@ -48,8 +47,11 @@ export async function getComplainantView(ctx: ServiceContext, actor: CaseActor, 
  */
 export async function listMyReports(ctx: ServiceContext, actor: Actor): Promise<MyReportRow[]> {
   if (actor.role !== 'complainant') throw forbidden('Only complainant accounts have reports.')
-  const rows = await ctx.db.select().from(cases).where(eq(cases.complainantUserId, actor.id)).orderBy(desc(cases.receivedAt))
-  return rows.map((c) => ({ id: c.id, reference: c.reference, step: COMPLAINANT_STEP_OF_STATE[c.status as CaseState], statusLabel: COMPLAINANT_STEP_LABELS[COMPLAINANT_STEP_OF_STATE[c.status as CaseState]], service: c.service, address: c.address, freqLowHz: c.freqLowHz, freqHighHz: c.freqHighHz, receivedAt: c.receivedAt.toISOString(), closedAt: c.closedAt?.toISOString() ?? null }))
+  const rows = await casesOfComplainant(ctx.db, actor.id)
+  return rows.map((c) => {
+    const step = COMPLAINANT_STEP_OF_STATE[c.status]
+    return { id: c.id, reference: c.reference, step, statusLabel: COMPLAINANT_STEP_LABELS[step], service: c.service, address: c.address, freqLowHz: c.freqLowHz, freqHighHz: c.freqHighHz, receivedAt: c.receivedAt.toISOString(), closedAt: c.closedAt?.toISOString() ?? null }
+  })
 }
 
 /** Distance within which an open case is suggested for merging [m] (common practice, no source). */
@@ -61,25 +63,18 @@ export const MERGE_RADIUS_M = 5_000
  */
 export async function mergeCandidates(ctx: ServiceContext, actor: Actor, caseId: string): Promise<MergeCandidate[]> {
   const c = await loadVisibleCase(ctx.db, actor, caseId)
-  if (!moveAllowedFrom('merge', c.status as CaseState)) return []
+  if (!moveAllowedFrom('merge', c.status)) return []
   // coarse box first (1° latitude ≈ 111 km), then the exact geodesic distance
   const dLat = MERGE_RADIUS_M / 111_000 + 0.01
   const dLon = dLat / Math.max(0.1, Math.cos((c.latDeg * Math.PI) / 180))
-  const rows = await ctx.db
-    .select()
-    .from(cases)
-    .where(
-      and(
-        eq(cases.officeId, c.officeId),
-        ne(cases.id, c.id),
-        ne(cases.status, 'closed'),
-        lte(cases.freqLowHz, c.freqHighHz),
-        gte(cases.freqHighHz, c.freqLowHz),
-        sql`${cases.latDeg} between ${c.latDeg - dLat} and ${c.latDeg + dLat}`,
-        sql`${cases.lonDeg} between ${c.lonDeg - dLon} and ${c.lonDeg + dLon}`,
-      ),
-    )
-    .limit(200)
+  const rows = await openCasesNear(ctx.db, {
+    officeId: c.officeId,
+    exceptCaseId: c.id,
+    lowHz: c.freqLowHz,
+    highHz: c.freqHighHz,
+    latDeg: [c.latDeg - dLat, c.latDeg + dLat],
+    lonDeg: [c.lonDeg - dLon, c.lonDeg + dLon],
+  })
   return rows
     .map((o) => ({ o, distanceM: geodesicInverse({ from: { latDeg: c.latDeg, lonDeg: c.lonDeg }, to: { latDeg: o.latDeg, lonDeg: o.lonDeg } }).distanceM }))
     .filter((x) => x.distanceM <= MERGE_RADIUS_M)
@@ -90,23 +85,15 @@ export async function mergeCandidates(ctx: ServiceContext, actor: Actor, caseId:
 
 /** Active investigators of the case's office with their open workload, lightest first. */
 export async function investigatorsForCase(ctx: ServiceContext, actor: Actor, caseId: string): Promise<InvestigatorLoad[]> {
-  const c: CaseRow = await loadVisibleCase(ctx.db, actor, caseId)
-  const open = sql`${cases.status} in (${sql.join(OPEN_STATES.map((s) => sql`${s}`), sql`, `)})`
-  const rows = await ctx.db
-    .select({ id: users.id, name: users.name, openCases: count(cases.id) })
-    .from(users)
-    .leftJoin(cases, and(eq(cases.investigatorId, users.id), open))
-    .where(and(eq(users.officeId, c.officeId), eq(users.role, 'investigator'), eq(users.active, true)))
-    .groupBy(users.id, users.name)
-    .orderBy(asc(count(cases.id)), asc(users.name))
-  return rows
+  const c = await loadVisibleCase(ctx.db, actor, caseId)
+  return investigatorLoads(ctx.db, c.officeId)
 }
 
 /** Offices a case may be transferred to, nearest to the report's location first. */
 export async function transferOffices(ctx: ServiceContext, actor: Actor, caseId: string): Promise<TransferOffice[]> {
   const c = await loadVisibleCase(ctx.db, actor, caseId)
-  const rows = await ctx.db.select({ id: offices.id, name: offices.name, latDeg: offices.centreLatDeg, lonDeg: offices.centreLonDeg }).from(offices).where(ne(offices.id, c.officeId))
+  const rows = await otherOffices(ctx.db, c.officeId)
   return rows
-    .map((o) => ({ id: o.id, name: o.name, distanceM: Math.round(geodesicInverse({ from: { latDeg: c.latDeg, lonDeg: c.lonDeg }, to: { latDeg: o.latDeg, lonDeg: o.lonDeg } }).distanceM) }))
+    .map((o) => ({ id: o.id, name: o.name, distanceM: Math.round(geodesicInverse({ from: { latDeg: c.latDeg, lonDeg: c.lonDeg }, to: { latDeg: o.centreLatDeg, lonDeg: o.centreLonDeg } }).distanceM) }))
     .sort((a, b) => a.distanceM - b.distanceM)
 }

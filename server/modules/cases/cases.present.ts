@@ -1,8 +1,7 @@
 /** What the browser receives about a case: staff detail, list rows, and the complainant's view. */
-import { COMPLAINANT_STEP_LABELS, COMPLAINANT_STEP_OF_STATE, CASE_STATE_LABELS, RESOLUTION_LABELS, type CaseState, type Resolution } from '../../../shared/domain/case-lifecycle'
-import type { CaseRow } from '../../db/schema'
-import type { CaseAbilities } from '../../policy/case-policy'
-import type { CaseDetail, ComplainantReport, PriorityLevel, TimelineEvent } from '../../../shared/schemas/views'
+import { COMPLAINANT_STEP_LABELS, COMPLAINANT_STEP_OF_STATE, CASE_STATE_LABELS, RESOLUTION_LABELS } from '../../../shared/domain/case-lifecycle'
+import type { caseEvents, CaseRow } from '../../db/schema'
+import type { CaseAbilities, CaseDetail, ComplainantReport, TimelineEvent } from '../../../shared/schemas/views'
 import { isOverdue } from './due'
 
 
@@ -15,10 +14,10 @@ export function presentCaseDetail(
     id: c.id,
     reference: c.reference,
     version: c.version,
-    status: c.status as CaseState,
-    statusLabel: CASE_STATE_LABELS[c.status as CaseState],
-    priority: c.priority as PriorityLevel,
-    suggestedPriority: c.suggestedPriority as PriorityLevel,
+    status: c.status,
+    statusLabel: CASE_STATE_LABELS[c.status],
+    priority: c.priority,
+    suggestedPriority: c.suggestedPriority,
     service: c.service,
     licenceRef: c.licenceRef,
     freqLowHz: c.freqLowHz,
@@ -39,12 +38,12 @@ export function presentCaseDetail(
     mergedIntoCaseId: c.mergedIntoCaseId,
     mergedIntoReference: extra.mergedIntoReference,
     resolution: c.resolution,
-    resolutionLabel: c.resolution ? RESOLUTION_LABELS[c.resolution as Resolution] : null,
+    resolutionLabel: c.resolution ? RESOLUTION_LABELS[c.resolution] : null,
     closingSummary: c.closingSummary,
     receivedAt: c.receivedAt.toISOString(),
     dueAt: c.dueAt.toISOString(),
     closedAt: c.closedAt?.toISOString() ?? null,
-    overdue: isOverdue(c, now),
+    overdue: isOverdue('resolution', c, now),
     abilities: extra.abilities,
     timeline: extra.timeline,
   }
@@ -63,16 +62,16 @@ export function presentComplainantView(c: CaseRow, events: TimelineEvent[], abil
     // the reopening reason is e-mailed to the complainant, so their page shows it too
     if (e.kind === 'reopen') return [{ at: e.at, from: 'office' as const, kind: 'status', text: `Your report is open again: ${e.body ?? ''}`.trim() }]
     if (e.toState && e.toState !== e.fromState && e.kind !== 'transfer') {
-      const step = COMPLAINANT_STEP_OF_STATE[e.toState as CaseState]
-      const prev = e.fromState ? COMPLAINANT_STEP_OF_STATE[e.fromState as CaseState] : null
+      const step = COMPLAINANT_STEP_OF_STATE[e.toState]
+      const prev = e.fromState ? COMPLAINANT_STEP_OF_STATE[e.fromState] : null
       if (step !== prev) return [{ at: e.at, from: 'office' as const, kind: 'status', text: `Status: ${COMPLAINANT_STEP_LABELS[step]}` }]
     }
     return []
   })
   return {
     reference: c.reference,
-    step: COMPLAINANT_STEP_OF_STATE[c.status as CaseState],
-    statusLabel: COMPLAINANT_STEP_LABELS[COMPLAINANT_STEP_OF_STATE[c.status as CaseState]],
+    step: COMPLAINANT_STEP_OF_STATE[c.status],
+    statusLabel: COMPLAINANT_STEP_LABELS[COMPLAINANT_STEP_OF_STATE[c.status]],
     service: c.service,
     freqLowHz: c.freqLowHz,
     freqHighHz: c.freqHighHz,
@@ -81,14 +80,16 @@ export function presentComplainantView(c: CaseRow, events: TimelineEvent[], abil
     receivedAt: c.receivedAt.toISOString(),
     closedAt: c.closedAt?.toISOString() ?? null,
     resolution: c.resolution,
-    resolutionLabel: c.resolution ? RESOLUTION_LABELS[c.resolution as Resolution] : null,
+    resolutionLabel: c.resolution ? RESOLUTION_LABELS[c.resolution] : null,
     closingSummary: c.closingSummary,
     entries,
     abilities,
   }
 }
 
-export function toTimelineEvent(e: { id: number; at: Date; actorLabel: string; kind: string; fromState: string | null; toState: string | null; body: string | null; visibility: string; data: string | null }): TimelineEvent {
+type CaseEventRow = typeof caseEvents.$inferSelect
+
+export function toTimelineEvent(e: Pick<CaseEventRow, 'id' | 'at' | 'actorLabel' | 'kind' | 'fromState' | 'toState' | 'body' | 'visibility' | 'data'>): TimelineEvent {
   return {
     id: e.id,
     at: e.at.toISOString(),
@@ -97,7 +98,7 @@ export function toTimelineEvent(e: { id: number; at: Date; actorLabel: string; k
     fromState: e.fromState,
     toState: e.toState,
     body: e.body,
-    visibility: e.visibility as 'internal' | 'complainant',
-    data: e.data ? (JSON.parse(e.data) as Record<string, unknown>) : null,
+    visibility: e.visibility,
+    data: e.data ?? null,
   }
 }

@@ -1,13 +1,41 @@
-/** Reading and writing case rows and timeline events. No authorization here. */
-import { and, asc, eq, sql } from 'drizzle-orm'
+/**
+ * Every query of the cases module but the list's (case-list.repo.ts): case rows, the timeline,
+ * tracking-link hashes. Functions of (db, explicit arguments):
+ * the office a query is limited to is an argument the service decides with the policy; no
+ * authorization here.
+ */
+import { and, asc, count, desc, eq, gt, gte, inArray, isNull, lte, ne, sql } from 'drizzle-orm'
+import type { CaseState, TimelineVisibility } from '../../../shared/domain/case-lifecycle'
 import type { Db } from '../../db/client'
-import { caseEvents, cases, offices, users, type CaseRow } from '../../db/schema'
-import type { CaseState } from '../../../shared/domain/case-lifecycle'
-import type { Priority } from '../../../shared/domain/services'
+import { caseEvents, cases, caseTrackingTokens, users, type CaseRow } from '../../db/schema'
+import { clockRunsSql } from './due'
 
 export async function findCase(db: Db, id: string): Promise<CaseRow | undefined> {
   const [c] = await db.select().from(cases).where(eq(cases.id, id))
   return c
+}
+
+/** Locks a case's row until the transaction ends (FOR NO KEY UPDATE) and returns it. */
+export async function lockCase(db: Db, id: string): Promise<CaseRow | undefined> {
+  const [c] = await db.select().from(cases).where(eq(cases.id, id)).for('no key update')
+  return c
+}
+
+/** Locks several cases' rows, always in id order (two transactions locking the same pair never deadlock). */
+export function lockCasesInIdOrder(db: Db, ids: string[]): Promise<CaseRow[]> {
+  return db.select().from(cases).where(inArray(cases.id, ids)).orderBy(asc(cases.id)).for('no key update')
+}
+
+export async function findCaseReference(db: Db, id: string): Promise<string | undefined> {
+  const [c] = await db.select({ reference: cases.reference }).from(cases).where(eq(cases.id, id))
+  return c?.reference
+}
+
+export type NewCase = typeof cases.$inferInsert
+
+export async function insertCase(db: Db, values: NewCase): Promise<CaseRow> {
+  const [c] = await db.insert(cases).values(values).returning()
+  return c!
 }
 
 export interface NewEvent {
@@ -20,19 +48,35 @@ export interface NewEvent {
   fromState?: CaseState | null
   toState?: CaseState | null
   body?: string | null
-  visibility: 'internal' | 'complainant'
+  visibility: TimelineVisibility
   data?: Record<string, unknown>
 }
 
 export async function appendEvent(db: Db, e: NewEvent): Promise<void> {
-  await db.insert(caseEvents).values({ ...e, data: e.data ? JSON.stringify(e.data) : null })
+  await db.insert(caseEvents).values({ ...e, data: e.data ?? null })
+}
+
+export type CaseEventRow = typeof caseEvents.$inferSelect
+
+/** A case's timeline, oldest first. */
+export function timelineOf(db: Db, caseId: string): Promise<CaseEventRow[]> {
+  return db.select().from(caseEvents).where(eq(caseEvents.caseId, caseId)).orderBy(asc(caseEvents.id))
+}
+
+/** How many events of a kind a case has had since a time. */
+export async function countEventsSince(db: Db, caseId: string, kind: string, since: Date): Promise<number> {
+  const [r] = await db
+    .select({ n: count() })
+    .from(caseEvents)
+    .where(and(eq(caseEvents.caseId, caseId), eq(caseEvents.kind, kind), gt(caseEvents.at, since)))
+  return r!.n
 }
 
 /**
  * Writes changes only if nobody changed the case since `version` was read; bumps the
  * version. Returns undefined when the version is stale (another user acted first).
  */
-export async function updateCaseIfVersion(db: Db, id: string, version: number, changes: Partial<typeof cases.$inferInsert>): Promise<CaseRow | undefined> {
+export async function updateCaseIfVersion(db: Db, id: string, version: number, changes: Partial<NewCase>): Promise<CaseRow | undefined> {
   const [row] = await db
     .update(cases)
     .set({ ...changes, version: sql`${cases.version} + 1`, updatedAt: sql`now()` })
@@ -46,10 +90,13 @@ export async function mergedReportsOf(db: Db, caseId: string): Promise<{ id: str
   return db.select({ id: cases.id, reference: cases.reference }).from(cases).where(eq(cases.mergedIntoCaseId, caseId)).orderBy(asc(cases.receivedAt), asc(cases.id))
 }
 
-export async function officeTargetsHours(db: Db, officeId: string): Promise<Record<Priority, number>> {
-  const [o] = await db.select().from(offices).where(eq(offices.id, officeId))
-  if (!o) throw new Error(`office ${officeId} missing`)
-  return { 1: o.targetP1Hours, 2: o.targetP2Hours, 3: o.targetP3Hours, 4: o.targetP4Hours }
+/** Re-points the reports merged into one case to another (they follow it); returns them. */
+export function repointMergedReports(db: Db, fromCaseId: string, toCaseId: string) {
+  return db
+    .update(cases)
+    .set({ mergedIntoCaseId: toCaseId, version: sql`${cases.version} + 1`, updatedAt: sql`now()` })
+    .where(eq(cases.mergedIntoCaseId, fromCaseId))
+    .returning({ id: cases.id, reference: cases.reference, complainantName: cases.complainantName })
 }
 
 export async function nextCaseReference(db: Db, now: Date): Promise<string> {
@@ -58,9 +105,45 @@ export async function nextCaseReference(db: Db, now: Date): Promise<string> {
   return `QB-${yy}-${r.rows[0]!.n.padStart(6, '0')}`
 }
 
-export async function userName(db: Db, id: string): Promise<{ name: string; email: string; role: string; officeId: string | null; active: boolean } | undefined> {
-  const [u] = await db.select({ name: users.name, email: users.email, role: users.role, officeId: users.officeId, active: users.active }).from(users).where(eq(users.id, id))
-  return u
+/** A complainant account's reports, newest first. */
+export function casesOfComplainant(db: Db, userId: string): Promise<CaseRow[]> {
+  return db.select().from(cases).where(eq(cases.complainantUserId, userId)).orderBy(desc(cases.receivedAt))
+}
+
+/**
+ * Open cases of an office, other than one, whose frequency range overlaps [lowHz, highHz]
+ * and whose place lies in a latitude/longitude box (at most 200).
+ */
+export function openCasesNear(
+  db: Db,
+  q: { officeId: string; exceptCaseId: string; lowHz: number; highHz: number; latDeg: [number, number]; lonDeg: [number, number] },
+): Promise<CaseRow[]> {
+  return db
+    .select()
+    .from(cases)
+    .where(
+      and(
+        eq(cases.officeId, q.officeId),
+        ne(cases.id, q.exceptCaseId),
+        clockRunsSql('resolution'),
+        lte(cases.freqLowHz, q.highHz),
+        gte(cases.freqHighHz, q.lowHz),
+        sql`${cases.latDeg} between ${q.latDeg[0]} and ${q.latDeg[1]}`,
+        sql`${cases.lonDeg} between ${q.lonDeg[0]} and ${q.lonDeg[1]}`,
+      ),
+    )
+    .limit(200)
+}
+
+/** Active investigators of an office with how many open cases each holds, lightest first. */
+export function investigatorLoads(db: Db, officeId: string): Promise<{ id: string; name: string; openCases: number }[]> {
+  return db
+    .select({ id: users.id, name: users.name, openCases: count(cases.id) })
+    .from(users)
+    .leftJoin(cases, and(eq(cases.investigatorId, users.id), clockRunsSql('resolution')))
+    .where(and(eq(users.officeId, officeId), eq(users.role, 'investigator'), eq(users.active, true)))
+    .groupBy(users.id, users.name)
+    .orderBy(asc(count(cases.id)), asc(users.name))
 }
 
 /**
@@ -83,4 +166,17 @@ export async function confirmedComplainantOf(db: Db, email: string): Promise<str
     .from(users)
     .where(and(eq(users.email, email), eq(users.role, 'complainant'), eq(users.active, true), sql`${users.emailConfirmedAt} IS NOT NULL`))
   return u?.id ?? null
+}
+
+export async function insertTrackingToken(db: Db, caseId: string, tokenHash: string): Promise<void> {
+  await db.insert(caseTrackingTokens).values({ caseId, tokenHash })
+}
+
+/** The case of a tracking token's hash, unless the token was revoked. */
+export async function findCaseIdOfTokenHash(db: Db, tokenHash: string): Promise<string | undefined> {
+  const [t] = await db
+    .select({ caseId: caseTrackingTokens.caseId })
+    .from(caseTrackingTokens)
+    .where(and(eq(caseTrackingTokens.tokenHash, tokenHash), isNull(caseTrackingTokens.revokedAt)))
+  return t?.caseId
 }

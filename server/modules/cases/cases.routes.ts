@@ -18,13 +18,13 @@ import type { ServiceContext } from '../../context'
 import { actorOf, requireRole } from '../../http/authenticate'
 import { parseWith } from '../../http/validate'
 import { HttpError } from '../../http/errors'
+import { caseIdOf } from './case-access'
 import { addCaseNote } from './case-notes.service'
 import { exportCasesCsv, listCases } from './case-list.service'
 import * as moves from './case-moves.service'
 import { getCaseDetail, investigatorsForCase, mergeCandidates, transferOffices } from './case-read.service'
 import type { Actor } from '../../policy/policy'
 
-const idParam = z.object({ id: z.string() })
 
 /** Staff routes: the case list, the case page, and one route per move. */
 export function casesRoutes(ctx: ServiceContext): Router {
@@ -41,19 +41,19 @@ export function casesRoutes(ctx: ServiceContext): Router {
     res.send(csv)
   })
   r.get('/cases/:id', staff, async (req, res) => {
-    res.json({ case: await getCaseDetail(ctx, actorOf(req), parseWith(idParam, req.params).id) })
+    res.json({ case: await getCaseDetail(ctx, actorOf(req), caseIdOf(req.params)) })
   })
   r.get('/cases/:id/merge-candidates', staff, async (req, res) => {
-    res.json({ candidates: await mergeCandidates(ctx, actorOf(req), parseWith(idParam, req.params).id) })
+    res.json({ candidates: await mergeCandidates(ctx, actorOf(req), caseIdOf(req.params)) })
   })
   r.get('/cases/:id/investigators', staff, async (req, res) => {
-    res.json({ investigators: await investigatorsForCase(ctx, actorOf(req), parseWith(idParam, req.params).id) })
+    res.json({ investigators: await investigatorsForCase(ctx, actorOf(req), caseIdOf(req.params)) })
   })
   r.get('/cases/:id/transfer-offices', staff, async (req, res) => {
-    res.json({ offices: await transferOffices(ctx, actorOf(req), parseWith(idParam, req.params).id) })
+    res.json({ offices: await transferOffices(ctx, actorOf(req), caseIdOf(req.params)) })
   })
   r.post('/cases/:id/notes', staff, async (req, res) => {
-    const { id } = parseWith(idParam, req.params)
+    const id = caseIdOf(req.params)
     await addCaseNote(ctx, actorOf(req), id, parseWith(noteSchema, req.body))
     res.status(201).json({ case: await getCaseDetail(ctx, actorOf(req), id) })
   })
@@ -61,7 +61,7 @@ export function casesRoutes(ctx: ServiceContext): Router {
   // one route per move; each answers with the case as it now stands (with fresh abilities)
   const move = <S extends z.ZodType>(path: string, schema: S, run: (actor: Actor, id: string, input: z.infer<S>) => Promise<unknown>) => {
     r.post(`/cases/:id/${path}`, staff, async (req, res) => {
-      const { id } = parseWith(idParam, req.params)
+      const id = caseIdOf(req.params)
       const actor = actorOf(req)
       await run(actor, id, parseWith(schema, req.body))
       // after a transfer the case belongs to another office and is no longer the actor's to see

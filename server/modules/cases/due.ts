@@ -1,12 +1,52 @@
-import { addHours } from 'date-fns'
-import type { Priority } from '../../../shared/domain/services'
+/**
+ * The case clocks of shared/domain/case-clocks.ts in SQL: the same rule, built from the same
+ * constants, so the list's filter, its overdue column, the CSV and the recomputed due times
+ * agree with the presenters and the web. Nothing here restates a state list or a target.
+ */
+import { sql, type SQL } from 'drizzle-orm'
+import type { PgColumn } from 'drizzle-orm/pg-core'
+import { CASE_CLOCKS, type CaseClockName, type TargetsHours } from '../../../shared/domain/case-clocks'
+import { PRIORITIES } from '../../../shared/domain/services'
+import { cases, type Office } from '../../db/schema'
 
-/** The response target of a case: received time plus the office's target for its priority. */
-export function dueAt(receivedAt: Date, priority: Priority, targetsHours: Record<Priority, number>): Date {
-  return addHours(receivedAt, targetsHours[priority])
+export { dueAtFor, isOverdue } from '../../../shared/domain/case-clocks'
+
+/** Where each clock lives: its due time on the case, and its target hours on the office. */
+export const CLOCK_COLUMNS: Record<CaseClockName, { dueAt: PgColumn; targetsHours(o: Office): TargetsHours }> = {
+  resolution: {
+    dueAt: cases.dueAt,
+    targetsHours: (o) => ({ 1: o.targetP1Hours, 2: o.targetP2Hours, 3: o.targetP3Hours, 4: o.targetP4Hours }),
+  },
 }
 
-/** Overdue: still open after its response target. */
-export function isOverdue(c: { status: string; dueAt: Date }, now: Date): boolean {
-  return c.status !== 'closed' && c.dueAt.getTime() < now.getTime()
+/** SQL literal list of a clock's stopping states, e.g. ('closed'). Constants only, never input. */
+function stopStates(clock: CaseClockName): SQL {
+  return sql.raw(`(${CASE_CLOCKS[clock].stopsIn.map((s) => `'${s.replace(/'/g, "''")}'`).join(', ')})`)
+}
+
+/** The clock runs: the case is not in one of its stopping states. */
+export function clockRunsSql(clock: CaseClockName): SQL {
+  return sql`${cases.status} not in ${stopStates(clock)}`
+}
+
+/**
+ * Overdue on a clock at `now` (the service's clock, sent as a parameter): served by the partial
+ * index on the due column where the clock runs (cases_due_open_idx).
+ */
+export function overdueSql(clock: CaseClockName, now: Date): SQL<boolean> {
+  return sql<boolean>`(${clockRunsSql(clock)} and ${CLOCK_COLUMNS[clock].dueAt} < ${now.toISOString()}::timestamptz)`
+}
+
+/** Not overdue: the exact complement of overdueSql, written so that each branch can use an index. */
+export function notOverdueSql(clock: CaseClockName, now: Date): SQL<boolean> {
+  return sql<boolean>`(${cases.status} in ${stopStates(clock)} or ${CLOCK_COLUMNS[clock].dueAt} >= ${now.toISOString()}::timestamptz)`
+}
+
+/**
+ * A clock's due time for the case row in SQL, from given target hours: received_at plus the
+ * hours for its priority (the same sum as dueAtFor).
+ */
+export function dueAtSql(targetsHours: TargetsHours): SQL {
+  const whens = PRIORITIES.map((p) => sql`when ${p}::int then ${targetsHours[p]}::int`)
+  return sql`${cases.receivedAt} + make_interval(hours => case ${cases.priority} ${sql.join(whens, sql` `)} end)`
 }

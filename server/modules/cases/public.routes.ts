@@ -7,6 +7,7 @@ import { HttpError } from '../../http/errors'
 import { parseWith } from '../../http/validate'
 import rateLimit from 'express-rate-limit'
 import { perAddressLimit } from '../../http/rate-limit'
+import { caseIdOf } from './case-access'
 import { addComplainantInformation } from './case-notes.service'
 import { withdrawReport } from './case-moves.service'
 import { getComplainantView, listMyReports } from './case-read.service'
@@ -15,7 +16,6 @@ import { caseIdForToken } from './tracking-tokens'
 import type { TrackingLinkHolder } from '../../policy/case-policy'
 
 const tokenParam = z.object({ token: z.string() })
-const idParam = z.object({ id: z.string() })
 
 /** Reports per address per hour before the form refuses (abuse limit; common practice, no source). */
 export const REPORTS_PER_HOUR_PER_ADDRESS = 10
@@ -86,16 +86,16 @@ export function publicCaseRoutes(ctx: ServiceContext): Router {
     res.json({ reports: await listMyReports(ctx, actorOf(req)) })
   })
   r.get('/my/reports/:id', complainant, async (req, res) => {
-    const { id } = parseWith(idParam, req.params)
+    const id = caseIdOf(req.params)
     res.json({ report: await getComplainantView(ctx, actorOf(req), id) })
   })
   r.post('/my/reports/:id/information', complainant, async (req, res) => {
-    const { id } = parseWith(idParam, req.params)
+    const id = caseIdOf(req.params)
     await addComplainantInformation(ctx, actorOf(req), id, parseWith(complainantInfoSchema, req.body).body)
     res.status(201).json({ report: await getComplainantView(ctx, actorOf(req), id) })
   })
   r.post('/my/reports/:id/withdraw', complainant, async (req, res) => {
-    const { id } = parseWith(idParam, req.params)
+    const id = caseIdOf(req.params)
     await withdrawReport(ctx, actorOf(req), id, parseWith(withdrawSchema, req.body))
     res.json({ report: await getComplainantView(ctx, actorOf(req), id) })
   })

@@ -3,19 +3,19 @@
  * given a suggested priority from the affected service, and acknowledged by e-mail with a
  * private tracking link — all in one transaction.
  */
-import { and, eq } from 'drizzle-orm'
 import { nearestOffice } from '../../../shared/radio/geo'
 import { suggestPriority, type Priority } from '../../../shared/domain/services'
 import { reportFrequencyHz, type Report, type ReportWarning } from '../../../shared/schemas/cases'
 import type { SessionUser } from '../../../shared/schemas/auth'
 import { withTransaction } from '../../db/client'
-import { cases, offices, users } from '../../db/schema'
 import type { ServiceContext } from '../../context'
 import { HttpError } from '../../http/errors'
 import { queueMail } from '../../jobs/boss'
 import { reportReceivedMail, safetyReportMail } from '../../mail/case-templates'
-import { appendEvent, confirmedComplainantOf, nextCaseReference } from './cases.repo'
-import { dueAt } from './due'
+import { allOffices as officesAll } from '../offices/offices.repo'
+import { activeStaffOf } from '../users/users.repo'
+import { appendEvent, confirmedComplainantOf, insertCase, nextCaseReference } from './cases.repo'
+import { CLOCK_COLUMNS, dueAtFor } from './due'
 import { issueTrackingLink } from './tracking-tokens'
 
 /**
@@ -35,7 +35,7 @@ export interface SubmittedReport {
 }
 
 export async function submitReport(ctx: ServiceContext, report: Report, signedIn?: SessionUser): Promise<SubmittedReport> {
-  const allOffices = await ctx.db.select().from(offices)
+  const allOffices = await officesAll(ctx.db)
   if (allOffices.length === 0) throw new HttpError(503, 'no_office', 'No field office is set up yet; reports cannot be routed.')
   const nearest = nearestOffice({
     point: { latDeg: report.latDeg, lonDeg: report.lonDeg },
@@ -55,14 +55,12 @@ export async function submitReport(ctx: ServiceContext, report: Report, signedIn
             message: `The place you gave is ${farKm} km from our nearest field office (${office.name}), outside the area we cover. We have filed your report there all the same. If the latitude or longitude is wrong, add the right place on your tracking page.`,
           },
         ]
-  const targets = { 1: office.targetP1Hours, 2: office.targetP2Hours, 3: office.targetP3Hours, 4: office.targetP4Hours } as const
+  const targets = CLOCK_COLUMNS.resolution.targetsHours(office)
 
   return withTransaction(ctx.pool, async ({ db, client }) => {
     const now = ctx.now()
     const reference = await nextCaseReference(db, now)
-    const [c] = await db
-      .insert(cases)
-      .values({
+    const c = await insertCase(db, {
         reference,
         officeId: office.id,
         status: 'received',
@@ -86,12 +84,11 @@ export async function submitReport(ctx: ServiceContext, report: Report, signedIn
         complainantOrganisation: report.organisation ?? null,
         complainantUserId: signedIn?.role === 'complainant' ? signedIn.id : await confirmedComplainantOf(db, report.email),
         receivedAt: now,
-        dueAt: dueAt(now, priority, targets),
+        dueAt: dueAtFor(now, priority, targets),
       })
-      .returning()
-    await appendEvent(db, { caseId: c!.id, at: now, actorUserId: signedIn?.id ?? null, actorLabel: 'Complainant', kind: 'received', toState: 'received', visibility: 'complainant', data: { officeName: office.name } })
+    await appendEvent(db, { caseId: c.id, at: now, actorUserId: signedIn?.id ?? null, actorLabel: 'Complainant', kind: 'received', toState: 'received', visibility: 'complainant', data: { officeName: office.name } })
     await appendEvent(db, {
-      caseId: c!.id,
+      caseId: c.id,
       at: now,
       actorUserId: null,
       actorLabel: 'Quietband',
@@ -102,7 +99,7 @@ export async function submitReport(ctx: ServiceContext, report: Report, signedIn
     })
     if (farKm !== undefined) {
       await appendEvent(db, {
-        caseId: c!.id,
+        caseId: c.id,
         at: now,
         actorUserId: null,
         actorLabel: 'Quietband',
@@ -112,17 +109,14 @@ export async function submitReport(ctx: ServiceContext, report: Report, signedIn
         data: { distanceM: nearest.distanceM, thresholdM: FAR_FROM_EVERY_OFFICE_M, latDeg: report.latDeg, lonDeg: report.lonDeg },
       })
     }
-    const trackingUrl = await issueTrackingLink(db, ctx.publicUrl, c!.id)
-    await queueMail(ctx.boss, client, reportReceivedMail({ ...c!, officeName: office.name }, trackingUrl), ctx.mailQueue)
+    const trackingUrl = await issueTrackingLink(db, ctx.publicUrl, c.id)
+    await queueMail(ctx.boss, client, reportReceivedMail({ ...c, officeName: office.name }, trackingUrl), ctx.mailQueue)
     if (priority === 1) {
-      const supervisors = await db
-        .select({ name: users.name, email: users.email })
-        .from(users)
-        .where(and(eq(users.officeId, office.id), eq(users.role, 'supervisor'), eq(users.active, true)))
+      const supervisors = await activeStaffOf(db, office.id, 'supervisor')
       for (const s of supervisors) {
-        await queueMail(ctx.boss, client, safetyReportMail(s, { ...c!, service: report.service }, `${ctx.publicUrl}/cases/${c!.id}`), ctx.mailQueue)
+        await queueMail(ctx.boss, client, safetyReportMail(s, { ...c, service: report.service }, `${ctx.publicUrl}/cases/${c.id}`), ctx.mailQueue)
       }
     }
-    return { caseId: c!.id, reference, officeName: office.name, trackingUrl, warnings }
+    return { caseId: c.id, reference, officeName: office.name, trackingUrl, warnings }
   })
 }

@@ -1,7 +1,6 @@
-import { and, eq, isNull } from 'drizzle-orm'
-import type { Db } from '../../db/client'
-import { caseTrackingTokens } from '../../db/schema'
 import { hashToken, newToken } from '../auth/passwords'
+import type { Db } from '../../db/client'
+import { findCaseIdOfTokenHash, insertTrackingToken } from './cases.repo'
 
 /**
  * Issues a private tracking link for a case. Only the token's SHA-256 hash is stored, so each
@@ -9,16 +8,12 @@ import { hashToken, newToken } from '../auth/passwords'
  */
 export async function issueTrackingLink(db: Db, publicUrl: string, caseId: string): Promise<string> {
   const { token, tokenHash } = newToken()
-  await db.insert(caseTrackingTokens).values({ caseId, tokenHash })
+  await insertTrackingToken(db, caseId, tokenHash)
   return `${publicUrl}/track/${token}`
 }
 
 /** The case a tracking token opens, or undefined for an unknown or revoked token. */
 export async function caseIdForToken(db: Db, token: string): Promise<string | undefined> {
   if (!/^[A-Za-z0-9_-]{20,100}$/.test(token)) return undefined
-  const [t] = await db
-    .select({ caseId: caseTrackingTokens.caseId })
-    .from(caseTrackingTokens)
-    .where(and(eq(caseTrackingTokens.tokenHash, hashToken(token)), isNull(caseTrackingTokens.revokedAt)))
-  return t?.caseId
+  return findCaseIdOfTokenHash(db, hashToken(token))
 }

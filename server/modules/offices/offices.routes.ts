@@ -1,12 +1,12 @@
 import { Router } from 'express'
-import { z } from 'zod'
 import type { ServiceContext } from '../../context'
 import { actorOf, requireRole } from '../../http/authenticate'
 import { parseWith } from '../../http/validate'
+import { idParamSchema } from '../../../shared/schemas/ids'
 import { responseTargetsSchema } from '../../../shared/schemas/auth'
 import { getOffice, listOffices, setResponseTargets } from './offices.service'
 
-const idParam = z.object({ id: z.uuid({ message: 'Not a valid id.' }) })
+const idParam = idParamSchema
 
 export function officesRoutes(ctx: ServiceContext): Router {
   const r = Router()

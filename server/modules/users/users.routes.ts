@@ -4,9 +4,10 @@ import { createStaffSchema } from '../../../shared/schemas/auth'
 import type { ServiceContext } from '../../context'
 import { actorOf, requireRole } from '../../http/authenticate'
 import { parseWith } from '../../http/validate'
+import { idParamSchema } from '../../../shared/schemas/ids'
 import { createStaffUser, getStaffMember, listAllUsers, listStaff, setUserActive } from './users.service'
 
-const idParam = z.object({ id: z.uuid({ message: 'Not a valid id.' }) })
+const idParam = idParamSchema
 const activeBody = z.object({ active: z.boolean() })
 
 export function usersRoutes(ctx: ServiceContext): Router {

@@ -1,7 +1,5 @@
 /** Staff accounts, managed by an administrator. */
-import { eq, sql } from 'drizzle-orm'
 import { withTransaction } from '../../db/client'
-import { offices, passwordTokens, users } from '../../db/schema'
 import type { ServiceContext } from '../../context'
 import { badRequest, conflict, forbidden, notFound } from '../../http/errors'
 import { queueMail } from '../../jobs/boss'
@@ -9,7 +7,8 @@ import { staffInvitationMail } from '../../mail/templates'
 import { can, officeScope, type Actor } from '../../policy/policy'
 import type { CreateStaffInput } from '../../../shared/schemas/auth'
 import { newToken } from '../auth/passwords'
-import { findUserById, listUsers, type PublicUser } from './users.repo'
+import { findOffice } from '../offices/offices.repo'
+import { findUserById, insertPasswordToken, insertUser, listUsers, setActive, type PublicUser } from './users.repo'
 
 export const INVITE_TOKEN_HOURS = 72
 
@@ -23,24 +22,13 @@ export async function createStaffUser(ctx: ServiceContext, actor: Actor, input: 
   if (!can(actor, 'user.create')) throw forbidden()
   const officeId = input.role === 'admin' ? null : input.officeId
   if (officeId) {
-    const [o] = await ctx.db.select({ id: offices.id }).from(offices).where(eq(offices.id, officeId))
-    if (!o) throw badRequest('validation_failed', 'Some fields need attention.', [{ path: 'officeId', message: 'No such office.' }])
+    if (!(await findOffice(ctx.db, officeId))) throw badRequest('validation_failed', 'Some fields need attention.', [{ path: 'officeId', message: 'No such office.' }])
   }
   const id = await withTransaction(ctx.pool, async ({ db, client }) => {
-    const inserted = await db
-      .insert(users)
-      .values({ email: input.email, name: input.name, role: input.role, officeId })
-      .onConflictDoNothing({ target: users.email })
-      .returning({ id: users.id })
-    if (inserted.length === 0) throw conflict('email_taken', 'An account with this e-mail address already exists.')
-    const userId = inserted[0]!.id
+    const userId = await insertUser(db, { email: input.email, name: input.name, role: input.role, officeId })
+    if (!userId) throw conflict('email_taken', 'An account with this e-mail address already exists.')
     const { token, tokenHash } = newToken()
-    await db.insert(passwordTokens).values({
-      userId,
-      tokenHash,
-      purpose: 'invite',
-      expiresAt: sql`now() + make_interval(hours => ${INVITE_TOKEN_HOURS})`,
-    })
+    await insertPasswordToken(db, { userId, tokenHash, purpose: 'invite', hours: INVITE_TOKEN_HOURS })
     const link = `${ctx.publicUrl}/set-password?token=${encodeURIComponent(token)}`
     await queueMail(ctx.boss, client, staffInvitationMail({ to: input.email, name: input.name, link, expiresHours: INVITE_TOKEN_HOURS }), ctx.mailQueue)
     return userId
@@ -52,8 +40,7 @@ export async function createStaffUser(ctx: ServiceContext, actor: Actor, input: 
 export async function setUserActive(ctx: ServiceContext, actor: Actor, userId: string, active: boolean): Promise<PublicUser> {
   if (!can(actor, 'user.update')) throw forbidden()
   if (userId === actor.id && !active) throw conflict('cannot_deactivate_self', 'You cannot deactivate your own account.')
-  const [u] = await ctx.db.update(users).set({ active }).where(eq(users.id, userId)).returning({ id: users.id })
-  if (!u) throw notFound('user_not_found', 'No such user.')
+  if (!(await setActive(ctx.db, userId, active))) throw notFound('user_not_found', 'No such user.')
   return (await findUserById(ctx.db, userId))!
 }
 

@@ -2,8 +2,8 @@
  * Band-limit reference: licence-exempt limits with their regulation citations.
  *
  * Document: ETSI EN 300 328, ETSI EN 301 893, 47 CFR §§15.247, 15.407, 15.255 and
- * ERC/REC 70-03 Annexes 1 and 7, as listed with their verification status in the project's
- * check-value reference (§11). This is seed data that a supervisor edits in the product.
+ * ERC/REC 70-03 Annexes 1 and 7, as listed with their verification status in CHECK-VALUES.md
+ * §11 (the project's register of check values). This is seed data that a supervisor edits in the product.
  *
  * Status tags: [V-S] = value confirmed in a secondary published source (the citation names the
  * regulation, not that source); [M] = recalled, NOT verified — check the regulation text before

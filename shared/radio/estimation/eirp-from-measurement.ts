@@ -7,7 +7,7 @@
  * (ITU-R P.525-4 §3 [M]; see chain/received-power.ts).
  * ERP = EIRP − 2.15 dB (ITU Radio Regulations Nos. 1.161, 1.162).
  * Interval: JCGM 100:2008 budget of the caller's measurement contributions, the distance
- * (through c_d = S/(d ln 10), CHECKS §12) and the model's shadowing σ when it states one.
+ * (through c_d = S/(d ln 10), JCGM 100:2008 §5.1; register 12-2) and the model's shadowing σ when it states one.
  */
 import { FAR_FIELD_VALIDITY } from '../chain/far-field'
 import { DIPOLE_GAIN_DBI } from '../constants'

@@ -3,9 +3,9 @@
  * correction. A single reading of a flat, noise-like channel (and its inverse) is
  * chain/channel-power.ts rbwReadingToChannelPowerDbm / channelPowerToRbwReadingDbm.
  *
- * Document: CHECKS.md (the project's register of check values) §14 "Spectrum-analyser readings → channel power"
+ * Document: Keysight Application Note 150, Spectrum Analysis Basics, ch. 5 (noise measurements)
  * (P_ch = PSD + 10·log B_ch; P_ch = P_read − 10·log B_N + 10·log B_ch with B_N the ENBW of
- * the RBW filter) [D]. The `Eq. (n)` tags in this file refer to the list below.
+ * the RBW filter) [D]; check values in CHECK-VALUES.md §14 (register 14-1, 14-3). The `Eq. (n)` tags in this file refer to the list below.
  *
  * Each trace point is the power in the filter's noise bandwidth (ENBW) around its frequency;
  * the points are one bin spacing Δf apart. Summing the points counts every hertz Δf/ENBW
@@ -26,7 +26,7 @@ import { cellEdgesHz, cellSharesInBand, requireTrace, spacingIrregularity, type 
 
 export const CHANNEL_POWER_METHOD: MethodRef = {
   id: 'channel-power-enbw',
-  source: 'Sum of trace powers with the RBW noise-bandwidth correction 10·log(Δf/ENBW) (CHECKS.md §14) [D]',
+  source: 'Sum of trace powers with the RBW noise-bandwidth correction 10·log(Δf/ENBW) (Keysight AN 150 ch. 5; register 14-1, 14-3) [D]',
 }
 
 export interface ChannelPower {

@@ -11,7 +11,7 @@
  * Why a percentile: signals occupy part of the span, so the median (or the 10th percentile
  * when signals fill more than half of it) stays on the noise while a mean would be pulled up
  * (common practice, no source). It is a statistic of the displayed levels, not a mean noise
- * power: a trace averaged in log units already reads noise about 2.51 dB low (CHECKS.md §14-4).
+ * power: a trace averaged in log units already reads noise about 2.51 dB low (Keysight AN 150 ch. 5; register 14-4).
  */
 import { requireInRange } from '../guards'
 import type { MethodRef, RadioResult } from '../types'

@@ -4,7 +4,7 @@
  * Document: a generic format of the library's own (no standard): one optional header line
  * that may carry units ('Hz', 'kHz', 'MHz', 'GHz'; 'dBm', 'dBuV', 'dBµV'), comma or semicolon
  * separators, decimal point, blank lines and '#' comment lines ignored. Levels in dBµV are
- * converted to dBm across the receiver impedance (default 50 Ω) with units.ts (CHECKS.md §2).
+ * converted to dBm across the receiver impedance (default 50 Ω) with units.ts (register 2-6, 2-7 in CHECK-VALUES.md).
  * The `Eq. (n)` tags refer to the list below.
  *
  *  (1) f[Hz] = value · {1, 10³, 10⁶, 10⁹} for Hz, kHz, MHz, GHz   [Hz]
@@ -120,7 +120,7 @@ function splitRow(text: string, separator: string): string[] {
 function freqUnitFromHeader(field: string, lineNumber: number): FreqUnit | undefined {
   const m = field.toLowerCase().match(/(?:^|[^a-z])([gmk]?hz)(?![a-z])/)
   if (m) return ({ hz: 'Hz', khz: 'kHz', mhz: 'MHz', ghz: 'GHz' } as const)[m[1] as 'hz' | 'khz' | 'mhz' | 'ghz']
-  if (/[\[(]/.test(field)) throw new TraceCsvError(`frequency unit in '${field}' is not one of Hz, kHz, MHz, GHz.`, lineNumber)
+  if (/[[(]/.test(field)) throw new TraceCsvError(`frequency unit in '${field}' is not one of Hz, kHz, MHz, GHz.`, lineNumber)
   return undefined
 }
 

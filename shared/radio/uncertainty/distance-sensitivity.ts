@@ -15,14 +15,14 @@ import type { UncertaintyContribution, UncertaintyDistribution } from './gum-bud
 export function eirpDistanceSensitivityDbPerM(opts: { model: PropagationModel; distanceM: number }): number {
   const d = requirePositive('distanceM', opts.distanceM)
   const slopeDbPerDecade = requireFinite('slopeDbPerDecade', opts.model.slopeDbPerDecade(d))
-  return slopeDbPerDecade / (d * Math.LN10) // Eq. (CHECKS 12) c_d = S/(d ln 10) [dB/m]
+  return slopeDbPerDecade / (d * Math.LN10) // Eq. (JCGM 100:2008 §5.1.3, register 12-2) c_d = S/(d ln 10) [dB/m]
 }
 
 /** Linearised EIRP uncertainty from a distance standard uncertainty: |c_d|·u_d [dB]. */
 export function eirpUncertaintyFromDistanceDb(opts: { model: PropagationModel; distanceM: number; distanceUncertaintyM: number }): number {
   const ud = requireFinite('distanceUncertaintyM', opts.distanceUncertaintyM)
   if (ud < 0) throw new RangeError(`distanceUncertaintyM must not be negative (got ${ud}).`)
-  return Math.abs(eirpDistanceSensitivityDbPerM(opts)) * ud // Eq. (CHECKS 12) u_EIRP = |c_d| u_d [dB]
+  return Math.abs(eirpDistanceSensitivityDbPerM(opts)) * ud // Eq. (JCGM 100:2008 §5.1.2, register 12-2) u_EIRP = |c_d| u_d [dB]
 }
 
 /**
@@ -33,7 +33,7 @@ export function eirpChangeFromDistanceErrorDb(opts: { model: PropagationModel; d
   const d = requirePositive('distanceM', opts.distanceM)
   const dd = requireFinite('distanceErrorM', opts.distanceErrorM)
   requirePositive('distanceM + distanceErrorM', d + dd)
-  return opts.model.lossDb(d + dd).lossDb - opts.model.lossDb(d).lossDb // Eq. (CHECKS 12) exact finite form [dB]
+  return opts.model.lossDb(d + dd).lossDb - opts.model.lossDb(d).lossDb // Eq. (register 12-2) exact finite form [dB]
 }
 
 /** The distance row of an EIRP budget: the distance's own distribution [m] with c_d [dB/m]. */

@@ -1,6 +1,6 @@
 import fc from 'fast-check'
 import { describe, expect, it } from 'vitest'
-import checks from '../../fixtures/radio/units-checks.json'
+import { DBM_TO_DBUV_ROWS, DBUV_TO_DBM_ROWS, DENSITY_TO_POWER_ROWS, FIELD_TO_PFD_ROWS } from '../../fixtures/radio/units-checks'
 import {
   dbmToDbuv,
   dbmToWatts,
@@ -22,24 +22,24 @@ import {
 const level = fc.double({ min: -250, max: 250, noNaN: true })
 
 describe('units: published check values', () => {
-  for (const row of checks.dbmToDbuv) {
-    it(`${row.id}: ${row.inputs.powerDbm} dBm is ${row.expected.voltageDbuv} dBµV at 50 Ω within ${row.toleranceDb} dB (${row.source}, ${row.status})`, () => {
-      expect(Math.abs(dbmToDbuv({ powerDbm: row.inputs.powerDbm }) - row.expected.voltageDbuv)).toBeLessThanOrEqual(row.toleranceDb)
+  for (const row of DBM_TO_DBUV_ROWS) {
+    it(`${row.id}: ${row.inputs.powerDbm} dBm is ${row.expected.voltageDbuv} dBµV at 50 Ω within ${row.tolerance} dB (${row.source}, ${row.status})`, () => {
+      expect(Math.abs(dbmToDbuv({ powerDbm: row.inputs.powerDbm }) - row.expected.voltageDbuv)).toBeLessThanOrEqual(row.tolerance)
     })
   }
-  for (const row of checks.dbuvToDbm) {
-    it(`${row.id}: ${row.inputs.voltageDbuv} dBµV is ${row.expected.powerDbm} dBm at 50 Ω within ${row.toleranceDb} dB (${row.source}, ${row.status})`, () => {
-      expect(Math.abs(dbuvToDbm({ voltageDbuv: row.inputs.voltageDbuv }) - row.expected.powerDbm)).toBeLessThanOrEqual(row.toleranceDb)
+  for (const row of DBUV_TO_DBM_ROWS) {
+    it(`${row.id}: ${row.inputs.voltageDbuv} dBµV is ${row.expected.powerDbm} dBm at 50 Ω within ${row.tolerance} dB (${row.source}, ${row.status})`, () => {
+      expect(Math.abs(dbuvToDbm({ voltageDbuv: row.inputs.voltageDbuv }) - row.expected.powerDbm)).toBeLessThanOrEqual(row.tolerance)
     })
   }
-  for (const row of checks.fieldToPfd) {
-    it(`${row.id}: ${row.inputs.fieldStrengthDbuvPerM} dBµV/m is ${row.expected.pfdDbwPerM2} dBW/m² within ${row.toleranceDb} dB (${row.source}, ${row.status})`, () => {
-      expect(Math.abs(fieldToPfdDbwPerM2(row.inputs.fieldStrengthDbuvPerM) - row.expected.pfdDbwPerM2)).toBeLessThanOrEqual(row.toleranceDb)
+  for (const row of FIELD_TO_PFD_ROWS) {
+    it(`${row.id}: ${row.inputs.fieldStrengthDbuvPerM} dBµV/m is ${row.expected.pfdDbwPerM2} dBW/m² within ${row.tolerance} dB (${row.source}, ${row.status})`, () => {
+      expect(Math.abs(fieldToPfdDbwPerM2(row.inputs.fieldStrengthDbuvPerM) - row.expected.pfdDbwPerM2)).toBeLessThanOrEqual(row.tolerance)
     })
   }
-  for (const row of checks.densityToPower) {
+  for (const row of DENSITY_TO_POWER_ROWS) {
     it(`${row.id}: ${row.inputs.densityDbmPerHz} dBm/Hz over ${row.inputs.bandwidthHz} Hz is ${row.expected.powerDbm} dBm (${row.source}, ${row.status})`, () => {
-      expect(Math.abs(densityToPowerDbm(row.inputs) - row.expected.powerDbm)).toBeLessThanOrEqual(row.toleranceDb)
+      expect(Math.abs(densityToPowerDbm(row.inputs) - row.expected.powerDbm)).toBeLessThanOrEqual(row.tolerance)
     })
   }
 })

@@ -5,7 +5,7 @@
 import { useState } from 'react'
 import { Navigate, RouterProvider, createBrowserRouter, type RouteObject } from 'react-router-dom'
 import { AppLayout, ShellFallback } from './layout/app-layout'
-import { RequireRole } from './guards/require-role'
+import { RequireAbility } from './guards/require-ability'
 import { RouteError } from './routes/route-error'
 
 export const routes: RouteObject[] = [
@@ -30,27 +30,30 @@ export const routes: RouteObject[] = [
           { path: 'track/:token', lazy: () => import('./routes/track-token') },
           { path: 'dev/mailbox', lazy: () => import('./routes/dev-mailbox') },
           {
-            element: <RequireRole roles={['investigator', 'supervisor']} />,
+            element: <RequireAbility anyOf={['workAssignedCases', 'runOfficeQueue']} />,
             children: [{ path: 'work', lazy: () => import('./routes/work') }],
           },
           {
             // Administrators read every office's cases; the server gives them no moves.
-            element: <RequireRole roles={['investigator', 'supervisor', 'admin']} />,
+            element: <RequireAbility anyOf={['readCases']} />,
             children: [
               { path: 'cases', lazy: () => import('./routes/cases') },
               { path: 'cases/:id', lazy: () => import('./routes/case') },
             ],
           },
           {
-            element: <RequireRole roles={['admin']} />,
+            element: <RequireAbility anyOf={['manageUsers']} />,
             children: [
               { path: 'admin', element: <Navigate to="/admin/users" replace /> },
               { path: 'admin/users', lazy: () => import('./routes/admin-users') },
-              { path: 'admin/offices', lazy: () => import('./routes/admin-offices') },
             ],
           },
           {
-            element: <RequireRole roles={['complainant']} />,
+            element: <RequireAbility anyOf={['manageOffices']} />,
+            children: [{ path: 'admin/offices', lazy: () => import('./routes/admin-offices') }],
+          },
+          {
+            element: <RequireAbility anyOf={['followOwnReports']} />,
             children: [
               { path: 'my-reports', lazy: () => import('./routes/my-reports') },
               { path: 'my-reports/:id', lazy: () => import('./routes/my-report') },

@@ -2,6 +2,7 @@
  * The one way the web app talks to the API: JSON in and out, same-origin cookies, and every
  * failure turned into an ApiError carrying the server's stable code and request id.
  */
+import type { z } from 'zod'
 import type { ApiErrorBody } from '../../../shared/schemas/errors'
 
 export interface FieldIssue {
@@ -86,8 +87,23 @@ export async function apiRequest<T>(options: { method?: Method; path: string; bo
   return parsed as T
 }
 
+const UNEXPECTED_ANSWER_MESSAGE = 'The Quietband server answered in a form this page does not know. Reload the page; if this stays, tell the office the time it happened.'
+
+/**
+ * GET, checked against the answer's schema (shared/schemas): an answer of another shape is an
+ * ApiError ('unexpected_answer') instead of a page reading fields that are not there.
+ */
+async function readChecked<S extends z.ZodType>(schema: S, path: string, signal?: AbortSignal): Promise<z.output<S>> {
+  const body = await apiRequest<unknown>({ path, signal })
+  const parsed = schema.safeParse(body)
+  if (!parsed.success) throw new ApiError({ status: 200, code: 'unexpected_answer', message: UNEXPECTED_ANSWER_MESSAGE })
+  return parsed.data
+}
+
 export const api = {
   get: <T>(path: string, signal?: AbortSignal) => apiRequest<T>({ path, signal }),
+  /** GET whose answer is parsed with its schema from shared/schemas. */
+  read: readChecked,
   post: <T>(path: string, body?: unknown) => apiRequest<T>({ method: 'POST', path, body }),
   patch: <T>(path: string, body?: unknown) => apiRequest<T>({ method: 'PATCH', path, body }),
   put: <T>(path: string, body?: unknown) => apiRequest<T>({ method: 'PUT', path, body }),

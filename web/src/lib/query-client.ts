@@ -25,6 +25,6 @@ export function createQueryClient(): QueryClient {
 
 function forgetUserOn401(client: QueryClient, error: unknown) {
   if (isApiError(error) && error.status === 401 && error.code === 'unauthenticated') {
-    client.setQueryData(ME_QUERY_KEY, null)
+    client.setQueryData(ME_QUERY_KEY, { user: null })
   }
 }

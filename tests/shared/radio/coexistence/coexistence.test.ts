@@ -1,6 +1,6 @@
 import fc from 'fast-check'
 import { describe, expect, it } from 'vitest'
-import checks from '../../../fixtures/radio/coexistence-checks.json'
+import { DESENSITISATION_ROWS, LINK_BUDGET_ROWS, NOISE_FLOOR_ROWS } from '../../../fixtures/radio/coexistence-checks'
 import {
   assessCoexistence,
   bandwidthOverlapLossDb,
@@ -20,15 +20,15 @@ import { powerLawModel } from './power-law-model'
 const within = (actual: number, expected: number, tol: number) => expect(Math.abs(actual - expected)).toBeLessThanOrEqual(tol)
 
 describe('noiseFloorDbm', () => {
-  for (const row of checks.noiseFloor) {
-    it(`${row.id}: matches the exact kT0B value ${row.exactDbm} dBm within ${row.exactToleranceDb} dB (${row.source}, ${row.status})`, () => {
-      within(noiseFloorDbm(row).value.noiseDbm, row.exactDbm, row.exactToleranceDb)
+  for (const row of NOISE_FLOOR_ROWS) {
+    it(`${row.id}: matches the exact kT0B value ${row.expected.exactDbm} dBm within ${row.tolerance.exactDb} dB (${row.source}, ${row.status})`, () => {
+      within(noiseFloorDbm(row.inputs).value.noiseDbm, row.expected.exactDbm, row.tolerance.exactDb)
     })
-    it(`${row.id}: matches the "−174 dBm/Hz" value ${row.rounded174Dbm} dBm within ${row.rounded174ToleranceDb} dB (rounded constant)`, () => {
-      within(noiseFloorDbm(row).value.noiseDbm, row.rounded174Dbm, row.rounded174ToleranceDb)
+    it(`${row.id}: matches the "−174 dBm/Hz" value ${row.expected.rounded174Dbm} dBm within ${row.tolerance.rounded174Db} dB (rounded constant)`, () => {
+      within(noiseFloorDbm(row.inputs).value.noiseDbm, row.expected.rounded174Dbm, row.tolerance.rounded174Db)
     })
   }
-  it('gives kT at 300 K as −173.83 dBm/Hz, not the 290 K value (CHECKS §9 trap, [D])', () => {
+  it('gives kT at 300 K as −173.83 dBm/Hz, not the 290 K value (kT0B, register §9 trap, [D])', () => {
     within(thermalNoiseDensityDbmPerHz({ temperatureK: 300 }), -173.83, 0.01)
   })
   it('warns when the reference temperature is not 290 K', () => {
@@ -52,9 +52,9 @@ describe('noiseFloorDbm', () => {
 })
 
 describe('desensitisationDb', () => {
-  for (const row of checks.desensitisation) {
-    it(`${row.id}: I/N ${row.inrDb} dB gives ${row.expectedDb} dB within ${row.toleranceDb} dB (${row.source}, ${row.status})`, () => {
-      within(desensitisationDb(row.inrDb), row.expectedDb, row.toleranceDb)
+  for (const row of DESENSITISATION_ROWS) {
+    it(`${row.id}: I/N ${row.inputs.inrDb} dB gives ${row.expected} dB within ${row.tolerance} dB (${row.source}, ${row.status})`, () => {
+      within(desensitisationDb(row.inputs.inrDb), row.expected, row.tolerance)
     })
   }
   it('I/N → desensitisation → I/N returns the I/N', () => {
@@ -79,18 +79,8 @@ describe('protection criteria', () => {
   })
 })
 
-interface LinkRow {
-  id: string
-  source: string
-  status: string
-  toleranceDb: number
-  distanceToleranceRelative: number
-  inputs: Record<string, number>
-  expected: Record<string, number>
-}
-
 describe('interferencePowerDbm and assessCoexistence', () => {
-  const [row, row2] = checks.linkBudget as unknown as LinkRow[]
+  const [row, row2] = LINK_BUDGET_ROWS as [(typeof LINK_BUDGET_ROWS)[number], (typeof LINK_BUDGET_ROWS)[number]]
   const i = row.inputs
   const opts = {
     interfererEirpDbm: i.interfererEirpDbm,
@@ -100,29 +90,30 @@ describe('interferencePowerDbm and assessCoexistence', () => {
     victimNoise: { bandwidthHz: i.bandwidthHz, noiseFigureDb: i.noiseFigureDb },
     distanceM: i.distanceM,
   }
-  it(`${row.id}: matches the worked link budget within ${row.toleranceDb} dB (${row.source}, ${row.status})`, () => {
+  it(`${row.id}: matches the worked link budget within ${row.tolerance.db} dB (${row.source}, ${row.status})`, () => {
     const r = assessCoexistence(opts).value
     const e = row.expected
-    within(interferencePowerDbm(opts).value.pathLossDb, e.pathLossDb, row.toleranceDb)
-    within(r.interferenceDbm, e.interferenceDbm, row.toleranceDb)
-    within(r.noiseDbm, e.noiseDbm, row.toleranceDb)
-    within(r.inrDb, e.inrDb, row.toleranceDb)
-    within(r.desensitisationDb, e.desensitisationDb, row.toleranceDb)
-    within(r.marginDb, e.marginDbAgainstMinus6, row.toleranceDb)
-    within(r.eirpReductionDb, e.marginDbAgainstMinus6, row.toleranceDb)
-    within(r.requiredPathLossDb, e.requiredPathLossDb, row.toleranceDb)
-    expect(Math.abs(r.separationDistanceM / e.separationDistanceM - 1)).toBeLessThanOrEqual(row.distanceToleranceRelative)
+    const tol = row.tolerance.db
+    within(interferencePowerDbm(opts).value.pathLossDb, e.pathLossDb!, tol)
+    within(r.interferenceDbm, e.interferenceDbm, tol)
+    within(r.noiseDbm, e.noiseDbm!, tol)
+    within(r.inrDb, e.inrDb, tol)
+    within(r.desensitisationDb, e.desensitisationDb!, tol)
+    within(r.marginDb, e.marginDbAgainstMinus6!, tol)
+    within(r.eirpReductionDb, e.marginDbAgainstMinus6!, tol)
+    within(r.requiredPathLossDb, e.requiredPathLossDb!, tol)
+    expect(Math.abs(r.separationDistanceM / e.separationDistanceM! - 1)).toBeLessThanOrEqual(row.tolerance.distanceRelative!)
     expect(r.meetsCriterion).toBe(false)
   })
   it(`${row2.id}: applies bandwidth overlap and frequency-dependent rejection (${row2.source}, ${row2.status})`, () => {
     const j = row2.inputs
     const r = assessCoexistence({
       ...opts,
-      bandwidthOverlap: { overlapBandwidthHz: j.overlapBandwidthHz, interfererBandwidthHz: j.interfererBandwidthHz },
-      frequencyDependentRejectionDb: j.frequencyDependentRejectionDb,
+      bandwidthOverlap: { overlapBandwidthHz: j.overlapBandwidthHz!, interfererBandwidthHz: j.interfererBandwidthHz! },
+      frequencyDependentRejectionDb: j.frequencyDependentRejectionDb!,
     }).value
-    within(r.interferenceDbm, row2.expected.interferenceDbm, row2.toleranceDb)
-    within(r.inrDb, row2.expected.inrDb, row2.toleranceDb)
+    within(r.interferenceDbm, row2.expected.interferenceDbm, row2.tolerance.db)
+    within(r.inrDb, row2.expected.inrDb, row2.tolerance.db)
   })
   it('meets the criterion with zero EIRP reduction when I/N is below it', () => {
     const r = assessCoexistence({ ...opts, distanceM: 500e3 }).value

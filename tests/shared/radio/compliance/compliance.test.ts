@@ -1,6 +1,6 @@
 import fc from 'fast-check'
 import { describe, expect, it } from 'vitest'
-import checks from '../../../fixtures/radio/compliance-checks.json'
+import { APPLIED_LIMIT_ROWS } from '../../../fixtures/radio/compliance-checks'
 import {
   appliedLimitEirpDbm,
   assessCompliance,
@@ -18,9 +18,9 @@ function toSpec(raw: Record<string, unknown>): LimitSpec {
 }
 
 describe('appliedLimitEirpDbm', () => {
-  for (const row of checks.appliedLimits) {
-    it(`${row.id}: gives ${row.expectedLimitEirpDbm} dBm EIRP within ${row.toleranceDb} dB (${row.source}, ${row.status})`, () => {
-      within(appliedLimitEirpDbm(toSpec(row.spec), row.facts).limitEirpDbm, row.expectedLimitEirpDbm, row.toleranceDb)
+  for (const row of APPLIED_LIMIT_ROWS) {
+    it(`${row.id}: gives ${row.expected} dBm EIRP within ${row.tolerance} dB (${row.source}, ${row.status})`, () => {
+      within(appliedLimitEirpDbm(toSpec(row.inputs.spec), row.inputs.facts).limitEirpDbm, row.expected, row.tolerance)
     })
   }
   it('11-1: the dB-for-dB rule leaves 12 dBm conducted for a 24 dBi antenna, the point-to-point rule 24 dBm', () => {
@@ -33,7 +33,7 @@ describe('appliedLimitEirpDbm', () => {
   it('applies no reduction at or below the 6 dBi threshold: EIRP limit = 30 dBm + G', () => {
     expect(appliedLimitEirpDbm({ kind: 'conducted', conductedPowerDbm: 30, gainRule: GAIN_RULES.dbForDbAbove6Dbi }, { antennaGainDbi: 3, feederLossDb: 0 }).limitEirpDbm).toBe(33)
   })
-  it('caps the dB-for-dB rule at 36 dBm EIRP for any gain above 6 dBi (CHECKS §11 15.247(b)(4) "EIRP cap 36 dBm")', () => {
+  it('caps the dB-for-dB rule at 36 dBm EIRP for any gain above 6 dBi (47 CFR §15.247, register §11 15.247(b)(4) "EIRP cap 36 dBm")', () => {
     fc.assert(
       fc.property(fc.double({ min: 6, max: 50, noNaN: true }), (g) => {
         expect(appliedLimitEirpDbm({ kind: 'conducted', conductedPowerDbm: 30, gainRule: GAIN_RULES.dbForDbAbove6Dbi }, { antennaGainDbi: g, feederLossDb: 0 }).limitEirpDbm).toBeCloseTo(36, 9)
@@ -148,11 +148,11 @@ describe('band-limit reference', () => {
     expect(e.status).toBe('[V-S]')
     expect(appliedLimitEirpDbm(e.spec).limitEirpDbm).toBe(20)
   })
-  it('gives 30 dBm for EN 301 893 5470–5725 MHz with TPC over 20 MHz (the 30.01 dBm density total is higher, CHECKS 11-4)', () => {
+  it('gives 30 dBm for EN 301 893 5470–5725 MHz with TPC over 20 MHz (the 30.01 dBm density total is higher, EIRP density × bandwidth, register 11-4)', () => {
     const e = BAND_LIMITS.find((x) => x.id === 'en301893-5g47-tpc')!
     expect(appliedLimitEirpDbm(e.spec, { emissionBandwidthHz: 20e6 }).limitEirpDbm).toBe(30)
   })
-  it('gives 500 mW e.r.p. = 29.14 dBm EIRP for 869.4–869.65 MHz (CHECKS 3-3)', () => {
+  it('gives 500 mW e.r.p. = 29.14 dBm EIRP for 869.4–869.65 MHz (ITU RR Nos. 1.161/1.162, register 3-3)', () => {
     const e = findBandLimits(869.525e6)[0]
     within(appliedLimitEirpDbm(e.spec).limitEirpDbm, 29.14, 0.01)
   })

@@ -4,40 +4,40 @@ import { eirpFromMeasurement, predictMeasurementFromEirp } from '../../../../sha
 import { inlineFreeSpace, inlinePowerLaw } from './inline-models'
 
 describe('isotropic received power from a field', () => {
-  it('gives −57.22 dBm for 60 dBµV/m at 100 MHz, 0 dBi (CHECKS 1-9 [D], ±0.01 dB)', () => {
+  it('gives −57.22 dBm for 60 dBµV/m at 100 MHz, 0 dBi (ITU-R P.525-4, register 1-9 [D], ±0.01 dB)', () => {
     expect(Math.abs(fieldToReceivedPowerDbm({ fieldStrengthDbuvPerM: 60, freqHz: 100e6 }) - -57.22)).toBeLessThanOrEqual(0.01)
   })
-  it('gives −58.82 dBm with 6 dBi for 80 dBµV/m at 2400 MHz, i.e. −64.82 dBm isotropic (CHECKS 1-10 [D], ±0.01 dB)', () => {
+  it('gives −58.82 dBm with 6 dBi for 80 dBµV/m at 2400 MHz, i.e. −64.82 dBm isotropic (ITU-R P.525-4, register 1-10 [D], ±0.01 dB)', () => {
     expect(Math.abs(fieldToReceivedPowerDbm({ fieldStrengthDbuvPerM: 80, freqHz: 2400e6 }) + 6 - -58.82)).toBeLessThanOrEqual(0.01)
   })
-  it('gives the same power from the pfd −85.76 dBW/m² that 60 dBµV/m carries (CHECKS 1-8 and 1-9 [D], ±0.01 dB)', () => {
+  it('gives the same power from the pfd −85.76 dBW/m² that 60 dBµV/m carries (ITU-R P.525-4, register 1-8 and 1-9 [D], ±0.01 dB)', () => {
     expect(Math.abs(pfdToReceivedPowerDbm({ pfdDbwPerM2: -85.76, freqHz: 100e6 }) - -57.22)).toBeLessThanOrEqual(0.01)
   })
-  it('returns the field from the power (round trip, CHECKS 1-9)', () => {
+  it('returns the field from the power (round trip, ITU-R P.525-4, register 1-9)', () => {
     expect(receivedPowerToFieldDbuvPerM({ receivedPowerDbm: -57.22, freqHz: 100e6 })).toBeCloseTo(60, 2)
   })
 })
 
 describe('eirpFromMeasurement', () => {
   for (const freqHz of [100e6, 2400e6]) {
-    it(`gives back 36.00 dBm from 100.77 dBµV/m at 100 m in free space at ${freqHz / 1e6} MHz (CHECKS 1-6 [D], ±0.01 dB)`, () => {
+    it(`gives back 36.00 dBm from 100.77 dBµV/m at 100 m in free space at ${freqHz / 1e6} MHz (ITU-R P.525-4, register 1-6 [D], ±0.01 dB)`, () => {
       const r = eirpFromMeasurement({ measurement: { kind: 'field-strength', fieldStrengthDbuvPerM: 100.77, freqHz }, distanceM: 100, model: inlineFreeSpace(freqHz) })
       expect(Math.abs(r.value.eirpDbm - 36)).toBeLessThanOrEqual(0.01)
       expect(Math.abs(r.value.eirpDbw - 6)).toBeLessThanOrEqual(0.01)
     })
-    it(`gives back 36.00 dBm from −44.99 dBW/m² at 100 m in free space at ${freqHz / 1e6} MHz (CHECKS 1-6 [D], ±0.01 dB)`, () => {
+    it(`gives back 36.00 dBm from −44.99 dBW/m² at 100 m in free space at ${freqHz / 1e6} MHz (ITU-R P.525-4, register 1-6 [D], ±0.01 dB)`, () => {
       const r = eirpFromMeasurement({ measurement: { kind: 'pfd', pfdDbwPerM2: -44.99, freqHz }, distanceM: 100, model: inlineFreeSpace(freqHz) })
       expect(Math.abs(r.value.eirpDbm - 36)).toBeLessThanOrEqual(0.01)
     })
   }
 
-  it('adds the free-space loss 72.45 dB at 1 km, 100 MHz (CHECKS 1-1) to −57.22 dBm (CHECKS 1-9): EIRP 15.23 dBm ±0.02 dB', () => {
+  it('adds the free-space loss 72.45 dB at 1 km, 100 MHz (ITU-R P.525-4, register 1-1) to −57.22 dBm (ITU-R P.525-4, register 1-9): EIRP 15.23 dBm ±0.02 dB', () => {
     const r = eirpFromMeasurement({ measurement: { kind: 'field-strength', fieldStrengthDbuvPerM: 60, freqHz: 100e6 }, distanceM: 1000, model: inlineFreeSpace(100e6) })
     expect(Math.abs(r.value.pathLossDb - 72.45)).toBeLessThanOrEqual(0.01)
     expect(Math.abs(r.value.eirpDbm - 15.23)).toBeLessThanOrEqual(0.02)
   })
 
-  it('gives EIRP 20 dBm (100 mW) and ERP 17.85 dBm (60.95 mW) from 84.77 dBµV/m at 100 m (CHECKS 11-6 and 3-2 [D], ±0.01 dB)', () => {
+  it('gives EIRP 20 dBm (100 mW) and ERP 17.85 dBm (60.95 mW) from 84.77 dBµV/m at 100 m (ITU-R P.525-4, register 11-6 and 3-2 [D], ±0.01 dB)', () => {
     const r = eirpFromMeasurement({ measurement: { kind: 'field-strength', fieldStrengthDbuvPerM: 84.77, freqHz: 2400e6 }, distanceM: 100, model: inlineFreeSpace(2400e6) })
     expect(Math.abs(r.value.eirpDbm - 20)).toBeLessThanOrEqual(0.01)
     expect(Math.abs(r.value.eirpW - 0.1)).toBeLessThan(0.0003)
@@ -47,12 +47,12 @@ describe('eirpFromMeasurement', () => {
     expect(r.value.modelMethod.id).toBe('test-free-space')
   })
 
-  it('takes an isotropic received power directly: EIRP = P_r + L (CHECKS 1.1 "EIRP from received power" [D])', () => {
+  it('takes an isotropic received power directly: EIRP = P_r + L (ITU-R P.525-4, register §1 "EIRP from received power" [D])', () => {
     const r = eirpFromMeasurement({ measurement: { kind: 'isotropic-power', receivedPowerDbm: -44.05 }, distanceM: 100, model: inlineFreeSpace(2400e6) })
-    expect(Math.abs(r.value.eirpDbm - (-44.05 + 80.05))).toBeLessThanOrEqual(0.01) // CHECKS 1-3: 80.05 dB at 2400 MHz, 100 m
+    expect(Math.abs(r.value.eirpDbm - (-44.05 + 80.05))).toBeLessThanOrEqual(0.01) // ITU-R P.525-4, register 1-3: 80.05 dB at 2400 MHz, 100 m
   })
 
-  it('takes the power of an antenna of known gain: −58.82 dBm with 6 dBi (CHECKS 1-10) plus 80.05 dB (CHECKS 1-3) gives 15.23 dBm ±0.02 dB', () => {
+  it('takes the power of an antenna of known gain: −58.82 dBm with 6 dBi (ITU-R P.525-4, register 1-10) plus 80.05 dB (ITU-R P.525-4, register 1-3) gives 15.23 dBm ±0.02 dB', () => {
     const r = eirpFromMeasurement({ measurement: { kind: 'received-power', receivedPowerDbm: -58.82, antennaGainDbi: 6 }, distanceM: 100, model: inlineFreeSpace(2400e6) })
     expect(Math.abs(r.value.isotropicReceivedPowerDbm - -64.82)).toBeLessThanOrEqual(0.01)
     expect(Math.abs(r.value.eirpDbm - 15.23)).toBeLessThanOrEqual(0.02)
@@ -61,7 +61,7 @@ describe('eirpFromMeasurement', () => {
     expect(() => eirpFromMeasurement({ measurement: { kind: 'received-power', receivedPowerDbm: -60, antennaGainDbi: Number.NaN }, distanceM: 100, model: inlineFreeSpace(2400e6) })).toThrow(/antennaGainDbi/)
   })
 
-  it('puts a 5 % distance uncertainty into the budget as 0.43 dB (CHECKS 12-2 [D]) and combines by root sum of squares', () => {
+  it('puts a 5 % distance uncertainty into the budget as 0.43 dB (JCGM 100:2008 §5.1, register 12-2 [D]) and combines by root sum of squares', () => {
     const r = eirpFromMeasurement({
       measurement: { kind: 'field-strength', fieldStrengthDbuvPerM: 100.77, freqHz: 100e6 },
       distanceM: 100,
@@ -119,12 +119,12 @@ describe('eirpFromMeasurement', () => {
 })
 
 describe('predictMeasurementFromEirp (forward direction)', () => {
-  it('gives 100.77 dBµV/m and −44.99 dBW/m² for 36 dBm EIRP at 100 m in free space (CHECKS 1-6 [D], ±0.01 dB)', () => {
+  it('gives 100.77 dBµV/m and −44.99 dBW/m² for 36 dBm EIRP at 100 m in free space (ITU-R P.525-4, register 1-6 [D], ±0.01 dB)', () => {
     const r = predictMeasurementFromEirp({ eirpDbm: 36, distanceM: 100, model: inlineFreeSpace(2400e6), freqHz: 2400e6 })
     expect(Math.abs(r.value.fieldStrengthDbuvPerM! - 100.77)).toBeLessThanOrEqual(0.01)
     expect(Math.abs(r.value.pfdDbwPerM2! - -44.99)).toBeLessThanOrEqual(0.01)
   })
-  it('gives 74.77 dBµV/m for 1 W EIRP at 1 km (CHECKS 1-5 [D], ±0.01 dB)', () => {
+  it('gives 74.77 dBµV/m for 1 W EIRP at 1 km (ITU-R P.525-4, register 1-5 [D], ±0.01 dB)', () => {
     const r = predictMeasurementFromEirp({ eirpDbm: 30, distanceM: 1000, model: inlineFreeSpace(900e6), freqHz: 900e6 })
     expect(Math.abs(r.value.fieldStrengthDbuvPerM! - 74.77)).toBeLessThanOrEqual(0.01)
   })

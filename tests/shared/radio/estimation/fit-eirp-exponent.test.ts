@@ -4,7 +4,7 @@ import { fitEirpAndExponent, fitEirpFixedExponent, MIN_DISTANCE_SPAN_RATIO, type
 import { createNormalSource, createUniformSource } from '../../../../shared/radio/uncertainty'
 
 const FREQ_HZ = 2400e6
-const L0_2400_1M = 40.05 // CHECKS 6-1 [D]: free space at 1 m, 2400 MHz
+const L0_2400_1M = 40.05 // log-distance model (Rappaport §4.9.1), register 6-1 [D]: free space at 1 m, 2400 MHz
 
 /** Synthetic readings P = EIRP − L(d0) − 10 n log10(d/d0) + noise (the model's own definition). */
 function synth(opts: { eirpDbm: number; exponent: number; distancesM: number[]; sigmaDb: number; seed: number; refLossDb?: number }): ReadingAtDistance[] {
@@ -19,13 +19,13 @@ function logSpacedDistances(count: number, fromM: number, toM: number, seed: num
 }
 
 describe('fitEirpAndExponent', () => {
-  it('uses free space at d0 = 1 m, 2400 MHz as L(d0): 40.05 dB (CHECKS 6-1 [D], ±0.01 dB)', () => {
+  it('uses free space at d0 = 1 m, 2400 MHz as L(d0): 40.05 dB (log-distance model (Rappaport §4.9.1), register 6-1 [D], ±0.01 dB)', () => {
     const r = fitEirpAndExponent({ readings: [{ distanceM: 10, receivedPowerDbm: -50 }, { distanceM: 100, receivedPowerDbm: -80 }, { distanceM: 50, receivedPowerDbm: -71 }], refDistanceM: 1, freqHz: FREQ_HZ })
     expect(Math.abs(r.value.refLossDb - L0_2400_1M)).toBeLessThanOrEqual(0.01)
   })
 
-  it('recovers EIRP and n exactly from noise-free readings built on CHECKS 6-2 (50 m, n = 3 → 91.02 dB)', () => {
-    // CHECKS 6-2 [D]: at 2400 MHz, d0 = 1 m, the loss at 50 m is 91.02 dB for n = 3; 20 dBm EIRP → −71.02 dBm.
+  it('recovers EIRP and n exactly from noise-free readings built on the log-distance model (Rappaport §4.9.1), register 6-2 (50 m, n = 3 → 91.02 dB)', () => {
+    // log-distance model (Rappaport §4.9.1), register 6-2 [D]: at 2400 MHz, d0 = 1 m, the loss at 50 m is 91.02 dB for n = 3; 20 dBm EIRP → −71.02 dBm.
     const readings = [10, 50, 200, 1000].map((d) => ({ distanceM: d, receivedPowerDbm: 20 - L0_2400_1M - 30 * Math.log10(d) }))
     expect(Math.abs(readings[1].receivedPowerDbm - (20 - 91.02))).toBeLessThanOrEqual(0.01)
     const r = fitEirpAndExponent({ readings, refDistanceM: 1, refLossDb: L0_2400_1M })
@@ -35,7 +35,7 @@ describe('fitEirpAndExponent', () => {
     expect(Math.max(...r.value.residualsDb.map(Math.abs))).toBeLessThan(1e-9)
   })
 
-  it('accepts field-strength readings: 60 dBµV/m at 100 MHz is −57.22 dBm (CHECKS 1-9 [D])', () => {
+  it('accepts field-strength readings: 60 dBµV/m at 100 MHz is −57.22 dBm (ITU-R P.525-4, register 1-9 [D])', () => {
     const asField = fitEirpAndExponent({ readings: [{ distanceM: 100, fieldStrengthDbuvPerM: 60 }, { distanceM: 1000, fieldStrengthDbuvPerM: 35 }, { distanceM: 300, fieldStrengthDbuvPerM: 47 }], refDistanceM: 1, freqHz: 100e6 })
     const asPower = fitEirpAndExponent({ readings: [{ distanceM: 100, receivedPowerDbm: -57.22 }, { distanceM: 1000, receivedPowerDbm: -82.22 }, { distanceM: 300, receivedPowerDbm: -70.22 }], refDistanceM: 1, freqHz: 100e6 })
     expect(Math.abs(asField.value.eirpDbm - asPower.value.eirpDbm)).toBeLessThan(0.01)
@@ -124,7 +124,7 @@ describe('fitEirpFixedExponent', () => {
     expect(Math.abs(ses.reduce((a, b) => a + b, 0) / ses.length / sd - 1)).toBeLessThan(0.2)
   })
 
-  it('gives one reading an EIRP without standard error, with a warning; 20 dBm at 50 m with n = 3 reads −71.02 dBm (CHECKS 6-2 [D])', () => {
+  it('gives one reading an EIRP without standard error, with a warning; 20 dBm at 50 m with n = 3 reads −71.02 dBm (log-distance model (Rappaport §4.9.1), register 6-2 [D])', () => {
     const r = fitEirpFixedExponent({ readings: [{ distanceM: 50, receivedPowerDbm: 20 - 91.02 }], refDistanceM: 1, freqHz: FREQ_HZ, exponent: 3 })
     expect(Math.abs(r.value.eirpDbm - 20)).toBeLessThanOrEqual(0.01)
     expect(r.value.eirpStandardErrorDb).toBeNull()

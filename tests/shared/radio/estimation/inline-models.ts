@@ -1,7 +1,7 @@
 /**
  * Small propagation models written out in the tests themselves, so that estimation tests do
  * not depend on the propagation module's internals. Free space: L = 20·log10(4π d f / c)
- * (ITU-R P.525 exact form, CHECKS §1 [D]); power law: L = L(d0) + 10 n log10(d/d0) (CHECKS §6).
+ * (ITU-R P.525-4 §2.2 exact form, register §1 [D]); power law: L = L(d0) + 10 n log10(d/d0) (log-distance model (Rappaport §4.9.1), register §6).
  */
 import type { PropagationModel } from '../../../../shared/radio/propagation/model'
 

@@ -7,7 +7,7 @@ import { createUniformSource } from '../../../../shared/radio/uncertainty'
 // NIST Statistical Reference Datasets, nonlinear regression "Misra1a" (lower difficulty):
 // y = b1·(1 − exp(−b2·x)), 14 observations; certified b1 = 2.3894212918E+02 (SE 2.7070075241E+00),
 // b2 = 5.5015643181E-04 (SE 7.2668688436E-06), residual sum of squares 1.2455138894E-01;
-// starts (500, 1e-4) and (250, 5e-4). [V-S] NIST StRD, copies of Misra1a.dat in public test suites.
+// starts (500, 1e-4) and (250, 5e-4). [V-S] NIST StRD, copies of Misra1a.dat in public test suites; register ES-M.
 const MISRA_Y = [10.07, 14.73, 17.94, 23.93, 29.61, 35.18, 40.02, 44.82, 50.76, 55.05, 61.01, 66.4, 75.47, 81.78]
 const MISRA_X = [77.6, 114.9, 141.1, 190.8, 239.9, 289.0, 332.8, 378.4, 434.8, 477.3, 536.8, 593.1, 689.1, 760.0]
 const CERTIFIED = { b1: 2.3894212918e2, b2: 5.5015643181e-4, se1: 2.7070075241, se2: 7.2668688436e-6, rss: 1.2455138894e-1 }

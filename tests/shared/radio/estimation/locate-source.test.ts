@@ -8,7 +8,7 @@ import { createNormalSource, createUniformSource } from '../../../../shared/radi
 // not with the locator's own tangent plane, so the plane approximation is tested too.
 const WGS84 = geographiclib.Geodesic.WGS84
 const FREQ_HZ = 900e6
-const L0 = 20 * Math.log10((4 * Math.PI * 1 * FREQ_HZ) / 299_792_458) // CHECKS §1 exact free space at d0 = 1 m [D]
+const L0 = 20 * Math.log10((4 * Math.PI * 1 * FREQ_HZ) / 299_792_458) // ITU-R P.525-4, register §1 exact free space at d0 = 1 m [D]
 
 interface Scenario { source: { latDeg: number; lonDeg: number }; eirpDbm: number; exponent: number }
 

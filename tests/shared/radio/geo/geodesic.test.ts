@@ -3,21 +3,21 @@ import geographiclib from 'geographiclib-geodesic'
 import { createLocalTangentPlane, centroidOf, geodesicDirect, geodesicInverse, nearestOffice } from '../../../../shared/radio/geo'
 
 // Check values: the team's check-value register, section 13 (geodesics) (tolerances: distance 1 mm, azimuth 1e-6°).
-const INVERSE_CHECKS = [
+const INVERSE_ROWS = [
   { id: '13-1', from: { latDeg: -41.32, lonDeg: 174.81 }, to: { latDeg: 40.96, lonDeg: -5.5 }, s12: 19959679.26735382, tolM: 0.001, azi1: 161.06766998616, azi2: 18.82519512325, tolDeg: 1e-6,
-    source: 'CHECKS 13-1 [V-S] GeographicLib JS README/tutorial and geodesic.py docstring (Wellington → Salamanca)' },
+    source: 'GeographicLib (Karney 2013), register 13-1 [V-S] GeographicLib JS README/tutorial and geodesic.py docstring (Wellington → Salamanca)' },
   { id: '13-2', from: { latDeg: 40.6, lonDeg: -73.8 }, to: { latDeg: 49.01666667, lonDeg: 2.55 }, s12: 5853226, tolM: 0.5, azi1: 53.47022, azi2: 111.59367, tolDeg: 1e-5,
-    source: 'CHECKS 13-2 [V-S] geographiclib-js test/geodesictest.js "GeodSolve0" (JFK → CDG, 5853226 ± 0.5 m)' },
+    source: 'GeographicLib (Karney 2013), register 13-2 [V-S] geographiclib-js test/geodesictest.js "GeodSolve0" (JFK → CDG, 5853226 ± 0.5 m)' },
   { id: '13-4', from: { latDeg: 0, lonDeg: 0 }, to: { latDeg: 0, lonDeg: 0.01 }, s12: 1113.194908, tolM: 0.001, azi1: 90, azi2: 90, tolDeg: 1e-6,
-    source: 'CHECKS 13-4 [D] analytic: along the equator s = a·Δλ' },
+    source: 'WGS84 equator s = a·Δλ, register 13-4 [D] analytic: along the equator s = a·Δλ' },
   { id: '13-5', from: { latDeg: 51.5, lonDeg: -0.12 }, to: { latDeg: 51.505, lonDeg: -0.11 }, s12: 889.721, tolM: 0.001, azi1: 51.29627, azi2: 51.30409, tolDeg: 1e-5,
-    source: 'CHECKS 13-5: computed with npm 2.2.0, not published (field scale)' },
+    source: 'GeographicLib npm 2.2.0, register 13-5: computed with npm 2.2.0, not published (field scale)' },
   { id: '13-6', from: { latDeg: -33.8688, lonDeg: 151.2093 }, to: { latDeg: -33.86, lonDeg: 151.22 }, s12: 1390.335, tolM: 0.001, azi1: 45.41064, azi2: 45.40468, tolDeg: 1e-5,
-    source: 'CHECKS 13-6: computed with npm 2.2.0, not published (field scale)' },
+    source: 'GeographicLib npm 2.2.0, register 13-6: computed with npm 2.2.0, not published (field scale)' },
 ]
 
 describe('geodesicInverse', () => {
-  for (const c of INVERSE_CHECKS) {
+  for (const c of INVERSE_ROWS) {
     it(`matches ${c.source} within ${c.tolM} m and ${c.tolDeg}°`, () => {
       const r = geodesicInverse({ from: c.from, to: c.to })
       expect(Math.abs(r.distanceM - c.s12)).toBeLessThanOrEqual(c.tolM)
@@ -36,14 +36,14 @@ describe('geodesicInverse', () => {
 })
 
 describe('geodesicDirect', () => {
-  it('reaches Salamanca from Wellington with the published azimuth and distance (CHECKS 13-1 [V-S]) within 1e-8°', () => {
+  it('reaches Salamanca from Wellington with the published azimuth and distance (GeographicLib (Karney 2013), register 13-1 [V-S]) within 1e-8°', () => {
     const r = geodesicDirect({ from: { latDeg: -41.32, lonDeg: 174.81 }, bearingDeg: 161.06766998615987, distanceM: 19959679.26735382 })
     expect(Math.abs(r.latDeg - 40.96)).toBeLessThan(1e-8)
     expect(Math.abs(r.lonDeg - -5.5)).toBeLessThan(1e-8)
     expect(Math.abs(r.finalBearingDeg - 18.82519512325)).toBeLessThan(1e-6)
   })
 
-  it('walks 1113.194908 m east along the equator to 0.01° (CHECKS 13-4 [D])', () => {
+  it('walks 1113.194908 m east along the equator to 0.01° (WGS84 equator s = a·Δλ, register 13-4 [D])', () => {
     const r = geodesicDirect({ from: { latDeg: 0, lonDeg: 0 }, bearingDeg: 90, distanceM: 1113.194908 })
     expect(Math.abs(r.lonDeg - 0.01)).toBeLessThan(1e-9)
     expect(Math.abs(r.latDeg)).toBeLessThan(1e-12)
@@ -60,13 +60,13 @@ describe('nearestOffice', () => {
     { id: 'southern-office', latDeg: -41.32, lonDeg: 174.81 },
   ]
 
-  it('routes a point to the nearer office with the published geodesic distance (CHECKS 13-2 [V-S], 0.5 m)', () => {
+  it('routes a point to the nearer office with the published geodesic distance (GeographicLib (Karney 2013), register 13-2 [V-S], 0.5 m)', () => {
     const r = nearestOffice({ point: { latDeg: 40.6, lonDeg: -73.8 }, offices })
     expect(r.id).toBe('harbour-office')
     expect(Math.abs(r.distanceM - 5853226)).toBeLessThanOrEqual(0.5)
   })
 
-  it('finds the field-scale neighbour at 889.721 m (CHECKS 13-5, computed with npm 2.2.0, not published)', () => {
+  it('finds the field-scale neighbour at 889.721 m (GeographicLib npm 2.2.0, register 13-5, computed with npm 2.2.0, not published)', () => {
     const r = nearestOffice({
       point: { latDeg: 51.5, lonDeg: -0.12 },
       offices: [{ id: 'far', latDeg: -33.86, lonDeg: 151.22 }, { id: 'near', latDeg: 51.505, lonDeg: -0.11 }],
@@ -78,7 +78,7 @@ describe('nearestOffice', () => {
   it('gives a tie to the office listed first', () => {
     const r = nearestOffice({ point: { latDeg: 0, lonDeg: 0 }, offices: [{ id: 'west', latDeg: 0, lonDeg: -0.01 }, { id: 'east', latDeg: 0, lonDeg: 0.01 }] })
     expect(r.id).toBe('west')
-    expect(Math.abs(r.distanceM - 1113.194908)).toBeLessThanOrEqual(0.001) // CHECKS 13-4 [D]
+    expect(Math.abs(r.distanceM - 1113.194908)).toBeLessThanOrEqual(0.001) // WGS84 equator s = a·Δλ, register 13-4 [D]
   })
 
   it('rejects an empty office list, a bad office position and a bad point with a RangeError', () => {
@@ -89,14 +89,14 @@ describe('nearestOffice', () => {
 })
 
 describe('local tangent plane (azimuthal equidistant about an origin)', () => {
-  it('puts a field-scale point at the geodesic distance and azimuth from the origin (CHECKS 13-5, computed with npm 2.2.0, not published)', () => {
+  it('puts a field-scale point at the geodesic distance and azimuth from the origin (GeographicLib npm 2.2.0, register 13-5, computed with npm 2.2.0, not published)', () => {
     const plane = createLocalTangentPlane({ origin: { latDeg: 51.5, lonDeg: -0.12 } })
     const p = plane.toEnu({ latDeg: 51.505, lonDeg: -0.11 })
     expect(Math.abs(Math.hypot(p.eastM, p.northM) - 889.721)).toBeLessThan(0.001)
     expect(Math.abs((Math.atan2(p.eastM, p.northM) * 180) / Math.PI - 51.29627)).toBeLessThan(1e-5)
   })
 
-  it('maps 0.01° of equator to 1113.194908 m east (CHECKS 13-4 [D])', () => {
+  it('maps 0.01° of equator to 1113.194908 m east (WGS84 equator s = a·Δλ, register 13-4 [D])', () => {
     const p = createLocalTangentPlane({ origin: { latDeg: 0, lonDeg: 0 } }).toEnu({ latDeg: 0, lonDeg: 0.01 })
     expect(Math.abs(p.eastM - 1113.194908)).toBeLessThan(0.001)
     expect(Math.abs(p.northM)).toBeLessThan(1e-6)

@@ -39,7 +39,7 @@ describe('absorptionLossDb', () => {
 })
 
 describe('resolveAbsorptionDbPerKm', () => {
-  it('warns that a field coefficient doubles to a power coefficient (CHECKS §4 discrepancy)', () => {
+  it('warns that a field coefficient doubles to a power coefficient (ITU-R P.676-13, register §4 discrepancy)', () => {
     const r = resolveAbsorptionDbPerKm({ fieldAttenuationPerKm: 1.3 })
     expect(Math.abs(r.absorptionDbPerKm - 11.29)).toBeLessThanOrEqual(0.01)
     expect(r.warnings.join(' ')).toMatch(/power coefficient/)
@@ -60,7 +60,7 @@ describe('absorbing model (base plus γ·d)', () => {
   const base = createPropagationModel({ kind: 'free-space', freqHz: 60e9 })
   const gamma60 = gaseousSpecificAttenuation({ freqHz: 60e9, ...P676_VALIDATION_ATMOSPHERE }).value.totalDbPerKm
 
-  it('adds 1.48 dB to free space over 100 m at 60 GHz (CHECKS 4-1 [D] from [V-P] γ)', () => {
+  it('adds 1.48 dB to free space over 100 m at 60 GHz (ITU-R P.676-13, register 4-1 [D] from [V-P] γ)', () => {
     const total = absorbingLossDb({ base, absorptionDbPerKm: gamma60, distanceM: 100 }).lossDb
     expect(Math.abs(total - base.lossDb(100).lossDb - 1.48)).toBeLessThanOrEqual(0.01)
   })

@@ -18,7 +18,7 @@ describe('freeSpaceLossDb', () => {
     })
   }
 
-  it('uses the exact constant 32.4478 dB (CHECKS §1.1 [D]), 0.048 dB above the P.525 rounding', () => {
+  it('uses the exact constant 32.4478 dB (ITU-R P.525-4, register §1 [D]), 0.048 dB above the P.525 rounding', () => {
     expect(FREE_SPACE_EXACT_CONSTANT_DB).toBeCloseTo(32.4478, 4)
     const exact = freeSpaceLossDb({ freqHz: 1e9, distanceM: 1e3 }).lossDb
     const rounded = freeSpaceLossDb({ freqHz: 1e9, distanceM: 1e3, form: 'p525-rounded' }).lossDb
@@ -109,7 +109,7 @@ describe('freeSpaceFieldStrengthDbuvPerM', () => {
       }),
     )
   })
-  it('gives back 0 dBW from 74.77 dBµV/m at 1 km (CHECKS.md 1-5 inverse, [D]) within 0.01 dB', () => {
+  it('gives back 0 dBW from 74.77 dBµV/m at 1 km (ITU-R P.525-4, register 1-5 inverse, [D]) within 0.01 dB', () => {
     expect(Math.abs(freeSpaceEirpFromFieldDbw({ fieldStrengthDbuvPerM: 74.77, distanceM: 1000 }) - 0)).toBeLessThanOrEqual(0.01)
   })
 })

@@ -4,7 +4,7 @@ import { OXYGEN_LINES, WATER_VAPOUR_LINES } from '../../../../shared/radio/propa
 import { P676_GAMMA_ROWS } from '../../../fixtures/radio/propagation-p676'
 
 describe('gaseousSpecificAttenuation', () => {
-  it('reads the validation atmosphere as 1013.25 hPa, 288.15 K and 7.5 g/m³ (CHECKS §4)', () => {
+  it('reads the validation atmosphere as 1013.25 hPa, 288.15 K and 7.5 g/m³ (ITU-R P.676-13, register §4)', () => {
     expect(P676_VALIDATION_ATMOSPHERE).toEqual({ dryPressureHpa: 1013.25, temperatureK: 288.15, waterVapourDensityGPerM3: 7.5 })
   })
 
@@ -19,7 +19,7 @@ describe('gaseousSpecificAttenuation', () => {
     })
   }
 
-  it('peaks at 61 GHz on the 1-GHz grid from 57 to 64 GHz (CHECKS §4)', () => {
+  it('peaks at 61 GHz on the 1-GHz grid from 57 to 64 GHz (ITU-R P.676-13, register §4)', () => {
     const totals = [57, 58, 59, 60, 61, 62, 63, 64].map(
       (g) => gaseousSpecificAttenuation({ freqHz: g * 1e9, ...P676_VALIDATION_ATMOSPHERE }).value.totalDbPerKm,
     )

@@ -9,9 +9,9 @@ const GAMMA_60_GHZ = gaseousSpecificAttenuation({ freqHz: 60e9, ...P676_VALIDATI
 
 /** One spec per kind, with a published check value at a distance (source in the name). */
 const CASES: { name: string; spec: PropagationModelSpec; id: string; distanceM: number; expectedDb: number; tolDb: number }[] = [
-  { name: 'free space, CHECKS 1-2 [D]', spec: { kind: 'free-space', freqHz: 900e6 }, id: 'free-space-p525', distanceM: 10_000, expectedDb: 111.53, tolDb: 0.01 },
+  { name: 'free space, ITU-R P.525-4, register 1-2 [D]', spec: { kind: 'free-space', freqHz: 900e6 }, id: 'free-space-p525', distanceM: 10_000, expectedDb: 111.53, tolDb: 0.01 },
   {
-    name: 'free space P.525 form, CHECKS 1-2 [D]',
+    name: 'free space P.525 form, ITU-R P.525-4, register 1-2 [D]',
     spec: { kind: 'free-space', freqHz: 900e6, form: 'p525-rounded' },
     id: 'free-space-p525-rounded',
     distanceM: 10_000,
@@ -19,7 +19,7 @@ const CASES: { name: string; spec: PropagationModelSpec; id: string; distanceM: 
     tolDb: 0.01,
   },
   {
-    name: 'log-distance n = 3.5, CHECKS 6-2 [D]',
+    name: 'log-distance n = 3.5, log-distance model (Rappaport §4.9.1), register 6-2 [D]',
     spec: { kind: 'log-distance', freqHz: 2.4e9, refDistanceM: 1, segments: [{ startM: 1, exponent: 3.5 }] },
     id: 'log-distance',
     distanceM: 50,
@@ -27,7 +27,7 @@ const CASES: { name: string; spec: PropagationModelSpec; id: string; distanceM: 
     tolDb: 0.01,
   },
   {
-    name: 'two-ray exact, CHECKS 5-2 [D]',
+    name: 'two-ray exact, flat-earth two-ray (Goldsmith eq. 2.12, Rappaport eq. 4.52), register 5-2 [D]',
     spec: { kind: 'two-ray', freqHz: 900e6, txHeightM: 30, rxHeightM: 1.5 },
     id: 'two-ray-exact',
     distanceM: 5000,
@@ -35,7 +35,7 @@ const CASES: { name: string; spec: PropagationModelSpec; id: string; distanceM: 
     tolDb: 0.01,
   },
   {
-    name: 'two-ray asymptote, CHECKS 5-2 [D]',
+    name: 'two-ray asymptote, flat-earth two-ray (Goldsmith eq. 2.12, Rappaport eq. 4.52), register 5-2 [D]',
     spec: { kind: 'two-ray', freqHz: 900e6, txHeightM: 30, rxHeightM: 1.5, form: 'asymptote' },
     id: 'two-ray-asymptote',
     distanceM: 5000,
@@ -43,7 +43,7 @@ const CASES: { name: string; spec: PropagationModelSpec; id: string; distanceM: 
     tolDb: 0.01,
   },
   {
-    name: 'Hata urban small/medium, CHECKS 7-3 [D]',
+    name: 'Hata urban small/medium, Hata (1980), COST 231, register 7-3 [D]',
     spec: { kind: 'hata', freqHz: 900e6, baseHeightM: 30, mobileHeightM: 1.5, environment: 'urban-small-medium' },
     id: 'okumura-hata',
     distanceM: 5000,
@@ -51,7 +51,7 @@ const CASES: { name: string; spec: PropagationModelSpec; id: string; distanceM: 
     tolDb: 0.01,
   },
   {
-    name: 'COST-231 Hata metropolitan, CHECKS 7-4 [D]',
+    name: 'COST-231 Hata metropolitan, Hata (1980), COST 231, register 7-4 [D]',
     spec: { kind: 'cost231-hata', freqHz: 1800e6, baseHeightM: 30, mobileHeightM: 1.5, environment: 'metropolitan' },
     id: 'cost231-hata',
     distanceM: 1000,
@@ -75,7 +75,7 @@ const CASES: { name: string; spec: PropagationModelSpec; id: string; distanceM: 
     tolDb: 0.005,
   },
   {
-    name: 'free space + P.676 oxygen at 60 GHz, 100 m: FSPL + 1.48 dB, CHECKS 4-1 [D from V-P]',
+    name: 'free space + P.676 oxygen at 60 GHz, 100 m: FSPL + 1.48 dB, ITU-R P.676-13, register 4-1 [D from V-P]',
     spec: { kind: 'absorbing', base: { kind: 'free-space', freqHz: 60e9 }, absorptionDbPerKm: GAMMA_60_GHZ },
     id: 'free-space-p525+absorption',
     distanceM: 100,

@@ -31,7 +31,7 @@ describe('twoRayLossDb', () => {
     })
   }
 
-  it('matches the CHECKS §5 free-space references it is compared with (5-2, 5-3 FSPL)', () => {
+  it('matches the free-space references it is compared with (ITU-R P.525-4, register 5-2 and 5-3 FSPL)', () => {
     for (const row of TWO_RAY_FREE_SPACE_ROWS) {
       expect(Math.abs(freeSpaceLossDb(row.inputs).lossDb - row.expected)).toBeLessThanOrEqual(row.tolerance)
     }
@@ -204,7 +204,7 @@ describe('two-ray breakpoint form (free space up to d_x, then the d⁻⁴ asympt
     const model = createPropagationModel({ kind: 'two-ray', ...GEOMETRY, form: 'breakpoint' })
     expect(model.method.id).toBe('two-ray-breakpoint')
     expect(model.slopeDbPerDecade(dx * 2)).toBe(40)
-    expect(Math.abs(model.lossDb(5000).lossDb - 114.89)).toBeLessThanOrEqual(0.01) // CHECKS §5 5-2 [D]
+    expect(Math.abs(model.lossDb(5000).lossDb - 114.89)).toBeLessThanOrEqual(0.01) // flat-earth two-ray asymptote (Rappaport eq. 4.52), register 5-2 [D]
   })
 
   it('warns inside the critical distance d_c, where the real two-ray loss swings around this trend', () => {

@@ -15,7 +15,7 @@ function flatTrace(opts: { startHz: number; spacingHz: number; count: number; le
 }
 
 describe('channelPower from a trace read in an RBW, with the ENBW correction', () => {
-  it('matches CHECKS.md 14-1: PSD −100 dBm/Hz over 20 MHz is −26.99 dBm within 0.01 dB [D]', () => {
+  it('matches Keysight AN 150 ch. 5, register 14-1: PSD −100 dBm/Hz over 20 MHz is −26.99 dBm within 0.01 dB [D]', () => {
     // Read in ENBW = spacing = 100 kHz: each point is −100 + 50 = −50 dBm.
     const trace = flatTrace({ startHz: 2390e6, spacingHz: 100e3, count: 401, levelDbm: -50 })
     const r = channelPower({ ...trace, startHz: 2400e6, stopHz: 2420e6, enbwHz: 100e3 })
@@ -25,21 +25,21 @@ describe('channelPower from a trace read in an RBW, with the ENBW correction', (
     expect(r.warnings).toEqual([])
   })
 
-  it('matches CHECKS.md 14-1 from a density trace in dBm/Hz (level + 10·log Δf, ENBW = Δf) within 0.01 dB [D]', () => {
+  it('matches Keysight AN 150 ch. 5, register 14-1 from a density trace in dBm/Hz (level + 10·log Δf, ENBW = Δf) within 0.01 dB [D]', () => {
     const spacingHz = 250e3
     const trace = flatTrace({ startHz: 2390e6 + spacingHz / 2, spacingHz, count: 160, levelDbm: -100 + 10 * Math.log10(spacingHz) })
     const r = channelPower({ ...trace, startHz: 2400e6, stopHz: 2420e6, enbwHz: spacingHz })
     expect(Math.abs(r.value.channelPowerDbm - -26.99)).toBeLessThan(0.01)
   })
 
-  it('matches CHECKS.md 14-3: −60 dBm in RBW 100 kHz over a 1 MHz channel is −50.00 dBm (trace at 10 kHz spacing) [D]', () => {
+  it('matches Keysight AN 150 ch. 5, register 14-3: −60 dBm in RBW 100 kHz over a 1 MHz channel is −50.00 dBm (trace at 10 kHz spacing) [D]', () => {
     const trace = flatTrace({ startHz: 99e6, spacingHz: 10e3, count: 201, levelDbm: -60 })
     const r = channelPower({ ...trace, startHz: 99.5e6, stopHz: 100.5e6, enbwHz: 100e3 })
     expect(Math.abs(r.value.channelPowerDbm - -50)).toBeLessThan(1e-9)
     expect(r.value.enbwCorrectionDb).toBeCloseTo(-10, 9)
   })
 
-  it('matches CHECKS.md 14-3 with the flat-channel formula and round-trips through its inverse [D]', () => {
+  it('matches Keysight AN 150 ch. 5, register 14-3 with the flat-channel formula and round-trips through its inverse [D]', () => {
     expect(flatChannelPowerDbm({ levelDbm: -60, enbwHz: 100e3, channelBandwidthHz: 1e6 })).toBeCloseTo(-50, 12)
     expect(flatChannelLevelDbm({ channelPowerDbm: -50, enbwHz: 100e3, channelBandwidthHz: 1e6 })).toBeCloseTo(-60, 12)
     for (const levelDbm of [-120, -73.4, 5]) {

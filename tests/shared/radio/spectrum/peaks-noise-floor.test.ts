@@ -1,16 +1,12 @@
-import { readFileSync } from 'node:fs'
 import { describe, expect, it } from 'vitest'
 import { findPeaks, localMaximaWithProminence, noiseFloor, percentile } from '../../../../shared/radio/spectrum'
+import { PEAKS_SCIPY_ROW, PERCENTILE_ROWS, SCIPY_VERSIONS } from '../../../fixtures/radio/spectrum-scipy'
 
-const fx = JSON.parse(readFileSync(new URL('../../../fixtures/radio/spectrum-trace-scipy.json', import.meta.url), 'utf8')) as {
-  provenance: { scipy: string; numpy: string }
-  freqHz: number[]
-  levelDbm: number[]
-  peakIndices: number[]
-  prominencesDb: number[]
-  leftBases: number[]
-  rightBases: number[]
-  percentiles: Record<string, number>
+const fx = {
+  provenance: { scipy: SCIPY_VERSIONS.traceScipy, numpy: SCIPY_VERSIONS.traceNumpy },
+  ...PEAKS_SCIPY_ROW.inputs,
+  ...PEAKS_SCIPY_ROW.expected,
+  percentiles: Object.fromEntries(PERCENTILE_ROWS.map((r) => [String(r.inputs.percentile), r.expected])),
 }
 const trace = { freqHz: fx.freqHz, levelDbm: fx.levelDbm }
 
@@ -20,9 +16,9 @@ describe('localMaximaWithProminence against scipy.signal.find_peaks and peak_pro
     expect(maxima.map((m) => m.index)).toEqual(fx.peakIndices)
     expect(fx.peakIndices).toContain(701) // middle of the 700–702 plateau
   })
-  it(`gives the same prominences within 1e-9 dB and the same bases (scipy ${fx.provenance.scipy})`, () => {
+  it(`gives the same prominences within ${PEAKS_SCIPY_ROW.tolerance} dB and the same bases (${PEAKS_SCIPY_ROW.source})`, () => {
     maxima.forEach((m, k) => {
-      expect(Math.abs(m.prominenceDb - fx.prominencesDb[k])).toBeLessThan(1e-9)
+      expect(Math.abs(m.prominenceDb - fx.prominencesDb[k])).toBeLessThanOrEqual(PEAKS_SCIPY_ROW.tolerance)
       expect(m.leftBaseIndex).toBe(fx.leftBases[k])
       expect(m.rightBaseIndex).toBe(fx.rightBases[k])
     })
@@ -35,9 +31,9 @@ describe('localMaximaWithProminence against scipy.signal.find_peaks and peak_pro
 })
 
 describe('noiseFloor as a percentile of trace levels', () => {
-  for (const p of [10, 50, 90]) {
-    it(`matches numpy.percentile(levels, ${p}) within 1e-9 dB (numpy ${fx.provenance.numpy})`, () => {
-      expect(Math.abs(percentile({ values: fx.levelDbm, percentile: p }) - fx.percentiles[String(p)])).toBeLessThan(1e-9)
+  for (const row of PERCENTILE_ROWS) {
+    it(`${row.id}: matches numpy.percentile(levels, ${row.inputs.percentile}) within ${row.tolerance} dB (${row.source})`, () => {
+      expect(Math.abs(percentile({ values: row.inputs.levelDbm, percentile: row.inputs.percentile }) - row.expected)).toBeLessThanOrEqual(row.tolerance)
     })
   }
   it('defaults to the median and states the percentile used', () => {

@@ -31,7 +31,7 @@ describe('parseTraceCsv with good files', () => {
     expect(r.warnings).toEqual([])
   })
 
-  it('reads kHz and dBµV from a semicolon file with BOM and CRLF, converting at 50 Ω (CHECKS.md 2-6, 2-7: 56.99 dBµV = −50.00 dBm, 0 dBµV = −106.99 dBm, within 0.01 dB)', () => {
+  it('reads kHz and dBµV from a semicolon file with BOM and CRLF, converting at 50 Ω (50 Ω dBµV identity, register 2-6, 2-7: 56.99 dBµV = −50.00 dBm, 0 dBµV = −106.99 dBm, within 0.01 dB)', () => {
     const r = parseTraceCsv({ csvText: fixture('spectrum-trace-khz-dbuv-semicolon.csv') })
     expect(r.separator).toBe(';')
     expect(r.freqUnit).toBe('kHz')
@@ -42,7 +42,7 @@ describe('parseTraceCsv with good files', () => {
     expect(Math.abs(r.levelDbm[2] - 0)).toBeLessThan(0.01)
   })
 
-  it('reads GHz and dBuV from snake-case headers and tolerates a trailing separator (CHECKS.md §2: dBm = dBµV − 106.99)', () => {
+  it('reads GHz and dBuV from snake-case headers and tolerates a trailing separator (50 Ω dBµV identity, register §2: dBm = dBµV − 106.99)', () => {
     const r = parseTraceCsv({ csvText: fixture('spectrum-trace-ghz-dbuv.csv') })
     expect(r.freqUnit).toBe('GHz')
     expect(r.freqHz).toEqual([5.785e9, 5.786e9])

@@ -1,6 +1,6 @@
-import { readFileSync } from 'node:fs'
 import { describe, expect, it } from 'vitest'
-import { welchPsd, type PsdScaling, type WindowKind } from '../../../../shared/radio/spectrum'
+import { welchPsd, type WindowKind } from '../../../../shared/radio/spectrum'
+import { WELCH_SCIPY_ROWS } from '../../../fixtures/radio/spectrum-scipy'
 import { complexNoise, complexTone } from './seeded-random'
 
 const log10 = Math.log10
@@ -111,33 +111,17 @@ describe('welchPsd with white complex Gaussian noise (seeded)', () => {
   })
 })
 
-interface ScipyCase {
-  window: WindowKind
-  segmentLength: number
-  overlapFraction: number
-  scaling: PsdScaling
-  detrend: 'none' | 'mean'
-  call: string
-  freqHzShifted: number[]
-  psdLinearShifted: number[]
-}
-const scipy = JSON.parse(readFileSync(new URL('../../../fixtures/radio/spectrum-welch-scipy.json', import.meta.url), 'utf8')) as {
-  provenance: { scipy: string; numpy: string }
-  sampleRateHz: number
-  iqInterleaved: number[]
-  cases: ScipyCase[]
-}
-
 describe('welchPsd against scipy.signal.welch (stored fixture)', () => {
-  const iq = Float64Array.from(scipy.iqInterleaved)
   const centerFreqHz = 162.025e6
-  for (const c of scipy.cases) {
+  for (const row of WELCH_SCIPY_ROWS) {
+    const c = { ...row.inputs, ...row.expected }
+    const tol = row.tolerance
     // Bins more than 120 dB below the peak are numerical zeros (e.g. DC after mean removal with a
     // rectangular window); they are compared in linear power against the peak instead of in dB.
-    it(`matches ${c.call} within 1e-6 dB and 1e-6 Hz (scipy ${scipy.provenance.scipy})`, () => {
+    it(`${row.id}: matches ${c.call} within ${tol} dB and ${tol} Hz (${row.source})`, () => {
       const r = welchPsd({
-        iq,
-        sampleRateHz: scipy.sampleRateHz,
+        iq: Float64Array.from(c.iqInterleaved),
+        sampleRateHz: c.sampleRateHz,
         centerFreqHz,
         segmentLength: c.segmentLength,
         overlapFraction: c.overlapFraction,
@@ -149,9 +133,9 @@ describe('welchPsd against scipy.signal.welch (stored fixture)', () => {
       const peak = Math.max(...c.psdLinearShifted)
       let comparedInDb = 0
       for (let j = 0; j < c.psdLinearShifted.length; j++) {
-        expect(Math.abs(r.value.freqHz[j] - centerFreqHz - c.freqHzShifted[j])).toBeLessThan(1e-6)
+        expect(Math.abs(r.value.freqHz[j] - centerFreqHz - c.freqHzShifted[j])).toBeLessThan(tol)
         if (c.psdLinearShifted[j] > peak * 1e-12) {
-          expect(Math.abs(r.value.levelDb[j] - 10 * log10(c.psdLinearShifted[j]))).toBeLessThan(1e-6)
+          expect(Math.abs(r.value.levelDb[j] - 10 * log10(c.psdLinearShifted[j]))).toBeLessThan(tol)
           comparedInDb++
         } else {
           expect(Math.abs(10 ** (r.value.levelDb[j] / 10) - c.psdLinearShifted[j])).toBeLessThan(peak * 1e-12)

@@ -1,17 +1,7 @@
-import { readFileSync } from 'node:fs'
 import { describe, expect, it } from 'vitest'
 import { WINDOW_KINDS, windowEnbwBins, windowEnbwBinsClosedForm, windowSamples, type WindowKind } from '../../../../shared/radio/spectrum'
 
-interface ScipyWindow {
-  window: WindowKind
-  call: string
-  samples16: number[]
-  enbwBins4096: number
-}
-const fixture = JSON.parse(readFileSync(new URL('../../../fixtures/radio/spectrum-welch-scipy.json', import.meta.url), 'utf8')) as {
-  provenance: { scipy: string }
-  windows: ScipyWindow[]
-}
+import { WINDOW_SCIPY_ROWS } from '../../../fixtures/radio/spectrum-scipy'
 
 describe('window ENBW computed from the window samples', () => {
   // Values stated in the brief and in Harris (1978) Table I; 2.0044 is the closed form of the
@@ -39,14 +29,15 @@ describe('window ENBW computed from the window samples', () => {
 })
 
 describe('window samples against scipy.signal.get_window (periodic)', () => {
-  for (const w of fixture.windows) {
-    it(`matches ${w.call} for ${w.window}, N = 16, within 1e-12 (scipy ${fixture.provenance.scipy})`, () => {
-      const ours = windowSamples({ kind: w.window, length: 16 })
+  for (const row of WINDOW_SCIPY_ROWS) {
+    const { window } = row.inputs
+    it(`${row.id}: matches ${row.inputs.call}, N = 16, within ${row.tolerance} (${row.source})`, () => {
+      const ours = windowSamples({ kind: window, length: 16 })
       expect(ours.length).toBe(16)
-      for (let i = 0; i < 16; i++) expect(Math.abs(ours[i] - w.samples16[i])).toBeLessThan(1e-12)
+      for (let i = 0; i < 16; i++) expect(Math.abs(ours[i] - row.expected.samples16[i])).toBeLessThan(row.tolerance)
     })
-    it(`matches the ENBW of scipy's ${w.window} window at N = 4096 within 1e-12 (scipy ${fixture.provenance.scipy})`, () => {
-      expect(Math.abs(windowEnbwBins(windowSamples({ kind: w.window, length: 4096 })) - w.enbwBins4096)).toBeLessThan(1e-12)
+    it(`${row.id}: matches the ENBW of scipy's ${window} window at N = 4096 within ${row.tolerance} (${row.source})`, () => {
+      expect(Math.abs(windowEnbwBins(windowSamples({ kind: window, length: 4096 })) - row.expected.enbwBins4096)).toBeLessThan(row.tolerance)
     })
   }
 })

@@ -4,7 +4,7 @@ import { combineUncertainty, expandedFromStandard, standardUncertainty } from '.
 describe('standardUncertainty', () => {
   // A published RF power-meter user manual, §5.7.1 "Uncertainty Contributions", lists the
   // multipliers that turn a stated figure into a standard uncertainty: normal 0.500 (k = 2),
-  // rectangular 0.577, U-shaped 0.707 [V-S]. The identities a/√3, a/√2, U/k are [D].
+  // rectangular 0.577, U-shaped 0.707 [V-S] (register 12-P). The identities a/√3, a/√2, U/k are [D].
   it('turns a k = 2 figure into u with multiplier 0.500 (power-meter manual §5.7.1 [V-S])', () => {
     expect(standardUncertainty({ kind: 'normal', expandedUncertainty: 1, coverageFactor: 2 })).toBeCloseTo(0.5, 3)
   })
@@ -14,7 +14,7 @@ describe('standardUncertainty', () => {
   it('divides a U-shaped half-width by √2 (multiplier 0.707, power-meter manual §5.7.1 [V-S]; arcsine variance a²/2 [D])', () => {
     expect(Math.abs(standardUncertainty({ kind: 'u-shaped', halfWidth: 1 }) - 0.707)).toBeLessThan(0.0005)
   })
-  it('matches the mismatch term of a power-reference uncertainty analysis: VSWR 1.05 both sides, ρ² = 0.0244² → u = 0.00042 (power-meter service guide, App. "Power Reference Level Test" [V-S])', () => {
+  it('matches the mismatch term of a power-reference uncertainty analysis: VSWR 1.05 both sides, ρ² = 0.0244² → u = 0.00042 (power-meter service guide, App. "Power Reference Level Test" [V-S], register 12-V)', () => {
     const rho = (1.05 - 1) / (1.05 + 1)
     expect(Math.abs(standardUncertainty({ kind: 'u-shaped', halfWidth: rho * rho }) - 0.00042)).toBeLessThan(0.000005)
   })
@@ -34,7 +34,7 @@ describe('combineUncertainty', () => {
   // its inputs in a published reproduction (metrodata.de/examples/s02_en.html) [V-S]:
   // standard: U = 45 mg (k = 2) → 22.5 mg; drift ±15 mg rectangular → 8.66 mg; comparator
   // (type A) 14.2 mg; eccentricity ±10 mg rectangular → 5.77 mg; buoyancy ±10 mg rectangular → 5.77 mg;
-  // u(m_X) = 0.0291 g (29.1465 mg in the published file), U = 0.058 g at k = 2.
+  // u(m_X) = 0.0291 g (29.1465 mg in the published file), U = 0.058 g at k = 2. Register 12-E.
   const s2 = combineUncertainty({
     contributions: [
       { name: 'reference standard m_S', value: 10000.005, unit: 'g', distribution: { kind: 'normal', expandedUncertainty: 0.045, coverageFactor: 2 } },

@@ -8,7 +8,7 @@ import {
   type UncertaintyContribution,
 } from '../../../../shared/radio/uncertainty'
 
-// Normal 97.5 % quantile 1.960: NIST/SEMATECH e-Handbook §1.3.6.7.2, t table row ∞ [V-S].
+// Normal 97.5 % quantile 1.960: NIST/SEMATECH e-Handbook §1.3.6.7.2, t table row ∞ [V-S]; register 12-Z.
 const Z975 = 1.96
 
 describe('seeded random sources', () => {
@@ -95,7 +95,7 @@ describe('propagateMonteCarlo', () => {
     expect(Math.abs(arc.standardDeviation - 1 / Math.SQRT2)).toBeLessThan(0.005)
   })
 
-  it('shows the asymmetry of the exact distance term: 20 log10(d/100 m), d ~ N(100, 5) m → interval [20 log10(1 − 1.96·0.05), 20 log10(1 + 1.96·0.05)] = [−0.896, +0.812] dB (monotone map of the NIST 1.96 quantile; sd ≈ 0.43 dB, CHECKS 12-2)', () => {
+  it('shows the asymmetry of the exact distance term: 20 log10(d/100 m), d ~ N(100, 5) m → interval [20 log10(1 − 1.96·0.05), 20 log10(1 + 1.96·0.05)] = [−0.896, +0.812] dB (monotone map of the NIST 1.96 quantile; sd ≈ 0.43 dB, JCGM 100:2008 §5.1, register 12-2)', () => {
     const mc = propagateMonteCarlo({
       inputs: [{ name: 'distance', value: 100, unit: 'm', distribution: { kind: 'standard', standardUncertainty: 5 } }],
       measurementFunction: ([d]) => 20 * Math.log10(d / 100),

@@ -1,12 +1,12 @@
-/** What a signed-in person sees on a page meant for another role. */
+/** What a signed-in person sees on a page their account cannot use. */
 import { Link } from 'react-router-dom'
 import { ROLE_LABELS } from '../../../../shared/domain/roles'
-import type { SessionUser } from '../../../../shared/schemas/auth'
+import type { AccountAbilities, SessionUser } from '../../../../shared/schemas/auth'
 import { PageHeader } from '../../components/ui/page-header'
 import { buttonClass } from '../../components/ui/button'
 import { landingPathFor } from '../../features/auth/lib/landing'
 
-export function NotAvailable({ user }: { user: SessionUser }) {
+export function NotAvailable({ user, abilities }: { user: SessionUser; abilities: AccountAbilities }) {
   return (
     <>
       <PageHeader
@@ -18,7 +18,7 @@ export function NotAvailable({ user }: { user: SessionUser }) {
           </p>
         }
       />
-      <Link to={landingPathFor(user.role)} className={buttonClass('primary')}>
+      <Link to={landingPathFor(abilities)} className={buttonClass('primary')}>
         Go to your start page
       </Link>
     </>

@@ -1,7 +1,7 @@
 /** The frame around every page: header with nav and account, the page, the caution footer. */
 import { Outlet, ScrollRestoration, useNavigation } from 'react-router-dom'
 import { EstimateCaution } from '../../components/cautions/estimate-caution'
-import { useMe } from '../../features/auth/api/get-me'
+import { useAbilities, useMe } from '../../features/auth/api/get-me'
 import { AccountArea } from './account-area'
 import { MainNav } from './main-nav'
 import { Wordmark } from './wordmark'
@@ -10,6 +10,7 @@ export function AppLayout() {
   const me = useMe()
   // If /api/me fails (server down), the site still works as for an anonymous visitor.
   const user = me.data ?? null
+  const abilities = useAbilities().data
   const navigating = useNavigation().state === 'loading'
   return (
     <>
@@ -21,7 +22,7 @@ export function AppLayout() {
         />
         <div className="mx-auto flex max-w-page flex-wrap items-center gap-x-6 gap-y-2 px-4 py-2">
           <Wordmark />
-          <MainNav role={user?.role ?? null} pending={me.isPending} />
+          <MainNav abilities={user && abilities ? abilities : null} pending={me.isPending} />
           {user && (
             <div className="ml-auto">
               <AccountArea user={user} />

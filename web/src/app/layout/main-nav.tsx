@@ -1,11 +1,11 @@
 /** The main navigation; its links depend on who is signed in (GET /api/me). */
 import { NavLink } from 'react-router-dom'
-import type { Role } from '../../../../shared/domain/roles'
+import type { AccountAbilities } from '../../../../shared/schemas/auth'
 import { navItemsFor } from './nav-items'
 
-export function MainNav({ role, pending }: { role: Role | null; pending: boolean }) {
+export function MainNav({ abilities, pending }: { abilities: AccountAbilities | null; pending: boolean }) {
   // While we do not yet know who this is, show no links rather than the wrong ones.
-  const items = pending ? [] : navItemsFor(role)
+  const items = pending ? [] : navItemsFor(abilities)
   return (
     <nav aria-label="Main" aria-busy={pending || undefined}>
       <ul className="flex flex-wrap gap-1">

@@ -1,5 +1,8 @@
-/** Which main-navigation links each kind of visitor sees. Pure, so it is tested on its own. */
-import type { Role } from '../../../../shared/domain/roles'
+/**
+ * Which main-navigation links a visitor sees, from what their account may do (/api/me's
+ * abilities; null for an anonymous visitor). Pure, so it is tested on its own.
+ */
+import type { AccountAbilities } from '../../../../shared/schemas/auth'
 
 export interface NavItem {
   /** Visible text, which is also the link's accessible name. */
@@ -13,23 +16,16 @@ const ANONYMOUS: NavItem[] = [
   { label: 'Sign in', to: '/sign-in' },
 ]
 
-const BY_ROLE: Record<Role, NavItem[]> = {
-  complainant: [
-    { label: 'My reports', to: '/my-reports' },
-    { label: 'Report interference', to: '/report' },
-  ],
-  investigator: [{ label: 'My cases', to: '/work' }],
-  supervisor: [
-    { label: 'Office queue', to: '/work' },
-    { label: 'Cases', to: '/cases' },
-  ],
-  admin: [
-    { label: 'Users', to: '/admin/users' },
-    { label: 'Offices', to: '/admin/offices' },
-    { label: 'Cases', to: '/cases' },
-  ],
-}
-
-export function navItemsFor(role: Role | null): NavItem[] {
-  return role ? BY_ROLE[role] : ANONYMOUS
+export function navItemsFor(abilities: AccountAbilities | null): NavItem[] {
+  if (!abilities) return ANONYMOUS
+  const items: NavItem[] = []
+  if (abilities.followOwnReports) items.push({ label: 'My reports', to: '/my-reports' })
+  if (abilities.reportAsAccount) items.push({ label: 'Report interference', to: '/report' })
+  if (abilities.runOfficeQueue) items.push({ label: 'Office queue', to: '/work' })
+  else if (abilities.workAssignedCases) items.push({ label: 'My cases', to: '/work' })
+  if (abilities.manageUsers) items.push({ label: 'Users', to: '/admin/users' })
+  if (abilities.manageOffices) items.push({ label: 'Offices', to: '/admin/offices' })
+  // an investigator reaches the full list from My cases; the main links stay their own work
+  if (abilities.readCases && !abilities.workAssignedCases) items.push({ label: 'Cases', to: '/cases' })
+  return items
 }

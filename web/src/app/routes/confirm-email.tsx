@@ -22,7 +22,7 @@ export function Component() {
       />
       {usable ? (
         <Panel>
-          <ConfirmEmailButton token={token} onDone={(user) => navigate(landingPathFor(user.role), { replace: true })} onInvalidToken={() => setTokenRejected(true)} />
+          <ConfirmEmailButton token={token} onDone={(session) => navigate(landingPathFor(session.abilities), { replace: true })} onInvalidToken={() => setTokenRejected(true)} />
         </Panel>
       ) : (
         <Notice tone="caution" title="This link cannot be used." live>

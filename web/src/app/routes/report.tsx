@@ -2,9 +2,8 @@
 import { useState } from 'react'
 import { Loading } from '../../components/ui/loading'
 import { PageHeader } from '../../components/ui/page-header'
-import { useMe } from '../../features/auth/api/get-me'
-import { RegionMap } from '../../features/map/components/region-map'
-import { useOfficesForMap } from '../../features/map/api/get-map-offices'
+import { useAbilities, useMe } from '../../features/auth/api/get-me'
+import { LocationPicker } from '../../features/map/components/location-picker'
 import type { SubmittedReport } from '../../features/reports/api/submit-report'
 import { ReportConfirmation } from '../../features/reports/components/report-confirmation'
 import { ReportForm } from '../../features/reports/components/report-form'
@@ -12,7 +11,7 @@ import { ReportForm } from '../../features/reports/components/report-form'
 export function Component() {
   const me = useMe()
   const user = me.data ?? null
-  const offices = useOfficesForMap(user?.role ?? null)
+  const abilities = useAbilities().data
   const [sent, setSent] = useState<{ result: SubmittedReport; email: string } | null>(null)
 
   if (sent) {
@@ -34,8 +33,8 @@ export function Component() {
         <Loading label="Loading the form…" />
       ) : (
         <ReportForm
-          contact={user?.role === 'complainant' ? { name: user.name, email: user.email } : undefined}
-          renderLocationPicker={({ value, onPick }) => <RegionMap value={value} onPick={onPick} offices={offices} label="Map of the Vellmark Coast: pick where it happens" />}
+          contact={user && abilities?.reportAsAccount ? { name: user.name, email: user.email } : undefined}
+          renderLocationPicker={({ value, onPick }) => <LocationPicker value={value} onPick={onPick} />}
           onSubmitted={(result, email) => {
             setSent({ result, email })
             window.scrollTo({ top: 0 })

@@ -21,7 +21,7 @@ export function Component() {
         <Panel>
           <SetPasswordForm
             token={token}
-            onDone={(user) => navigate(landingPathFor(user.role), { replace: true })}
+            onDone={(session) => navigate(landingPathFor(session.abilities), { replace: true })}
             onInvalidToken={() => setTokenRejected(true)}
           />
         </Panel>

@@ -3,7 +3,7 @@ import { Link, useNavigate, useSearchParams } from 'react-router-dom'
 import { Panel } from '../../components/ui/panel'
 import { PageHeader } from '../../components/ui/page-header'
 import { Notice } from '../../components/ui/notice'
-import { useMe } from '../../features/auth/api/get-me'
+import { useAbilities, useMe } from '../../features/auth/api/get-me'
 import { SignInForm } from '../../features/auth/components/sign-in-form'
 import { landingPathFor, safeNextPath } from '../../features/auth/lib/landing'
 
@@ -11,6 +11,7 @@ export function Component() {
   const [params] = useSearchParams()
   const navigate = useNavigate()
   const me = useMe()
+  const abilities = useAbilities().data
   const next = safeNextPath(params.get('next'))
 
   return (
@@ -20,13 +21,13 @@ export function Component() {
         <div className="mb-5">
           <Notice title={`You are already signed in as ${me.data.name}.`}>
             <p>
-              <Link to={landingPathFor(me.data.role)}>Go to your start page</Link>, or sign in below as someone else.
+              <Link to={abilities ? landingPathFor(abilities) : '/'}>Go to your start page</Link>, or sign in below as someone else.
             </p>
           </Notice>
         </div>
       )}
       <Panel>
-        <SignInForm onSignedIn={(user) => navigate(next ?? landingPathFor(user.role), { replace: true })} />
+        <SignInForm onSignedIn={(session) => navigate(next ?? landingPathFor(session.abilities), { replace: true })} />
       </Panel>
       <ul className="mt-5 flex flex-col gap-2">
         <li>

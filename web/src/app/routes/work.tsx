@@ -1,20 +1,19 @@
-/** /work — staff start page: "Office queue" for a supervisor, "My cases" for an investigator. */
+/** /work — staff start page: "Office queue" for whoever runs the office's queue, else "My cases". */
 import { Link } from 'react-router-dom'
 import { PageHeader } from '../../components/ui/page-header'
-import { PRIORITY_TEXT, PriorityBadge, type PriorityLevel } from '../../components/ui/priority-badge'
-import { useMe } from '../../features/auth/api/get-me'
+import { PRIORITIES, PRIORITY_LABELS } from '../../../../shared/domain/services'
+import { PriorityBadge } from '../../components/ui/priority-badge'
+import { useAbilities, useMe } from '../../features/auth/api/get-me'
 import { useNow } from '../../features/cases/components/use-now'
 import { AWAITING_REVIEW, MY_OPEN_CASES, NEW_REPORTS } from '../../features/cases/api/get-queue'
 import { QueueSection } from '../../features/cases/components/queue-section'
 import { useOffices } from '../../features/offices/api/get-offices'
 import { OfficeTargetsPanels } from '../../features/offices/components/office-targets-panels'
 
-const LEVELS: PriorityLevel[] = [1, 2, 3, 4]
-
 export function Component() {
   const user = useMe().data
   const now = useNow()
-  const supervisor = user?.role === 'supervisor'
+  const supervisor = useAbilities().data?.runOfficeQueue === true
   const offices = useOffices()
   return (
     <div className="flex flex-col gap-8">
@@ -63,10 +62,10 @@ export function Component() {
           Priority key
         </h2>
         <ul className="flex flex-col gap-3">
-          {LEVELS.map((level) => (
+          {PRIORITIES.map((level) => (
             <li key={level} className="flex flex-wrap items-center gap-3">
               <PriorityBadge level={level} />
-              <span className="text-ink-muted">{PRIORITY_TEXT[level].long}</span>
+              <span className="text-ink-muted">{PRIORITY_LABELS[level].long}</span>
             </li>
           ))}
         </ul>

@@ -3,23 +3,16 @@
  * and for colour-blind readers alike. The more urgent, the more points the shape has to it:
  * P1 a solid diamond, P2 a solid triangle, P3 an open square, P4 an open circle.
  */
-export type PriorityLevel = 1 | 2 | 3 | 4
+import { PRIORITY_LABELS, type Priority } from '../../../../shared/domain/services'
 
-export const PRIORITY_TEXT: Record<PriorityLevel, { short: string; long: string }> = {
-  1: { short: 'Safety of life', long: 'Safety-of-life service endangered (aeronautical, maritime distress and safety, radionavigation, public protection)' },
-  2: { short: 'Outage', long: 'Outage of a licensed service' },
-  3: { short: 'Degradation', long: 'Degradation of a licensed service' },
-  4: { short: 'Licence-exempt', long: 'Licence-exempt use and nuisance' },
-}
-
-const COLOUR: Record<PriorityLevel, string> = {
+const COLOUR: Record<Priority, string> = {
   1: 'text-priority-1 border-priority-1',
   2: 'text-priority-2 border-priority-2',
   3: 'text-priority-3 border-priority-3',
   4: 'text-priority-4 border-priority-4',
 }
 
-export function PriorityShape({ level, sizePx = 14 }: { level: PriorityLevel; sizePx?: number }) {
+export function PriorityShape({ level, sizePx = 14 }: { level: Priority; sizePx?: number }) {
   return (
     <svg aria-hidden="true" width={sizePx} height={sizePx} viewBox="0 0 16 16" className="shrink-0">
       {level === 1 && <path d="M8 0.5 15.5 8 8 15.5 0.5 8Z" fill="currentColor" />}
@@ -31,15 +24,15 @@ export function PriorityShape({ level, sizePx = 14 }: { level: PriorityLevel; si
 }
 
 /** Compact badge: shape, "P1" in figures type, and the short label. */
-export function PriorityBadge({ level }: { level: PriorityLevel }) {
+export function PriorityBadge({ level }: { level: Priority }) {
   return (
     <span
-      title={PRIORITY_TEXT[level].long}
+      title={PRIORITY_LABELS[level].long}
       className={`inline-flex items-center gap-1.5 rounded-sm border bg-surface px-2 py-0.5 text-sm font-semibold ${COLOUR[level]}`}
     >
       <PriorityShape level={level} />
       <span className="font-mono">P{level}</span>
-      <span className="text-ink">{PRIORITY_TEXT[level].short}</span>
+      <span className="text-ink">{PRIORITY_LABELS[level].short}</span>
     </span>
   )
 }

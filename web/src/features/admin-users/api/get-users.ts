@@ -1,19 +1,9 @@
 /** GET /api/admin/users — every account (administrators only). */
 import { queryOptions, useQuery } from '@tanstack/react-query'
-import type { Role } from '../../../../../shared/domain/roles'
+import type { UserRow } from '../../../../../shared/schemas/views'
 import { api } from '../../../lib/api-client'
 
-export interface AdminUser {
-  id: string
-  email: string
-  name: string
-  role: Role
-  officeId: string | null
-  officeName: string | null
-  active: boolean
-  /** ISO 8601 */
-  createdAt: string
-}
+export type AdminUser = UserRow
 
 export const usersQueryKey = ['admin', 'users'] as const
 

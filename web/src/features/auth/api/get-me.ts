@@ -1,15 +1,18 @@
-/** GET /api/me — who is signed in: the user, or null for an anonymous visitor (200 either way). */
+/**
+ * GET /api/me — who is signed in and what their account may do; `{ user: null }` for an
+ * anonymous visitor (200 either way). Pages, links and start pages follow the abilities.
+ */
 import { queryOptions, useQuery } from '@tanstack/react-query'
-import type { MeResponse, SessionUser } from '../../../../../shared/schemas/auth'
+import { meResponseSchema, NO_ACCOUNT_ABILITIES, type AccountAbilities, type MeResponse } from '../../../../../shared/schemas/auth'
 import { ApiError, api } from '../../../lib/api-client'
 import { ME_QUERY_KEY } from '../../../lib/query-client'
 
 export const meQueryKey = ME_QUERY_KEY
 
-export async function getMe(signal?: AbortSignal): Promise<SessionUser | null> {
-  const { user } = await api.get<MeResponse>('/api/me', signal)
-  return user
-}
+/** The answer for an anonymous visitor (also what the cache holds after signing out). */
+export const ANONYMOUS: MeResponse = { user: null }
+
+export const getMe = (signal?: AbortSignal): Promise<MeResponse> => api.read(meResponseSchema, '/api/me', signal)
 
 export const meQueryOptions = () =>
   queryOptions({
@@ -21,5 +24,11 @@ export const meQueryOptions = () =>
     retryDelay: 500,
   })
 
+/** What the account may do: nothing for an anonymous visitor. */
+export const abilitiesOf = (me: MeResponse | null | undefined): AccountAbilities => (me?.user ? me.abilities : NO_ACCOUNT_ABILITIES)
+
 /** The signed-in user: `data` is the user, null when anonymous, undefined while loading. */
-export const useMe = () => useQuery(meQueryOptions())
+export const useMe = () => useQuery({ ...meQueryOptions(), select: (me: MeResponse) => me.user })
+
+/** What the signed-in account may do: `data` is undefined while loading, all false when anonymous. */
+export const useAbilities = () => useQuery({ ...meQueryOptions(), select: abilitiesOf })

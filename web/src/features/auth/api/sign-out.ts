@@ -2,7 +2,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query'
 import { useNavigate } from 'react-router-dom'
 import { api } from '../../../lib/api-client'
-import { meQueryKey } from './get-me'
+import { ANONYMOUS, meQueryKey } from './get-me'
 
 export const signOut = () => api.post<void>('/api/auth/sign-out')
 
@@ -15,7 +15,7 @@ export function useSignOut() {
       // Leave the signed-in page first, so its guard does not bounce to sign-in mid-way.
       await navigate('/', { replace: true })
       queryClient.clear()
-      queryClient.setQueryData(meQueryKey, null)
+      queryClient.setQueryData(meQueryKey, ANONYMOUS)
     },
   })
 }

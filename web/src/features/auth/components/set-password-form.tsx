@@ -3,7 +3,7 @@ import { zodResolver } from '@hookform/resolvers/zod'
 import { useEffect, useState } from 'react'
 import { useForm } from 'react-hook-form'
 import { z } from 'zod'
-import { passwordSchema, type SessionUser } from '../../../../../shared/schemas/auth'
+import { passwordSchema, type SignedIn } from '../../../../../shared/schemas/auth'
 import { FormAlert } from '../../../components/ui/form-alert'
 import { SubmitButton } from '../../../components/ui/submit-button'
 import { TextField } from '../../../components/ui/text-field'
@@ -17,7 +17,7 @@ const formSchema = z
   .refine((v) => v.password === v.confirm, { message: 'The two passwords are not the same.', path: ['confirm'] })
 type FormValues = z.infer<typeof formSchema>
 
-export function SetPasswordForm({ token, onDone, onInvalidToken }: { token: string; onDone: (user: SessionUser) => void; onInvalidToken: () => void }) {
+export function SetPasswordForm({ token, onDone, onInvalidToken }: { token: string; onDone: (session: SignedIn) => void; onInvalidToken: () => void }) {
   const { register, handleSubmit, setError, setFocus, formState } = useForm<FormValues>({
     resolver: zodResolver(formSchema),
     defaultValues: { password: '', confirm: '' },
@@ -30,8 +30,7 @@ export function SetPasswordForm({ token, onDone, onInvalidToken }: { token: stri
   const onSubmit = handleSubmit(async ({ password }) => {
     setProblem(null)
     try {
-      const { user } = await setPassword.mutateAsync({ token, password })
-      onDone(user)
+      onDone(await setPassword.mutateAsync({ token, password }))
     } catch (error) {
       const badToken = isApiError(error) && (error.code === 'invalid_token' || error.details.some((d) => d.path === 'token'))
       if (badToken) return onInvalidToken()

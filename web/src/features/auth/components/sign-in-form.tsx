@@ -7,7 +7,7 @@ import { zodResolver } from '@hookform/resolvers/zod'
 import { useEffect, useState } from 'react'
 import { useForm } from 'react-hook-form'
 import { Link } from 'react-router-dom'
-import { signInSchema, type SessionUser, type SignInInput } from '../../../../../shared/schemas/auth'
+import { signInSchema, type SignedIn, type SignInInput } from '../../../../../shared/schemas/auth'
 import { FormAlert } from '../../../components/ui/form-alert'
 import { SubmitButton } from '../../../components/ui/submit-button'
 import { TextField } from '../../../components/ui/text-field'
@@ -33,7 +33,7 @@ function useTakingLong(pending: boolean, afterMs: number): boolean {
   return long
 }
 
-export function SignInForm({ onSignedIn }: { onSignedIn: (user: SessionUser) => void }) {
+export function SignInForm({ onSignedIn }: { onSignedIn: (session: SignedIn) => void }) {
   const { register, handleSubmit, setError, setFocus, formState } = useForm<SignInInput>({
     resolver: zodResolver(signInSchema),
     defaultValues: { email: '', password: '' },
@@ -49,8 +49,7 @@ export function SignInForm({ onSignedIn }: { onSignedIn: (user: SessionUser) => 
     setProblem(null)
     setOfferReset(false)
     try {
-      const { user } = await signIn.mutateAsync(values)
-      onSignedIn(user)
+      onSignedIn(await signIn.mutateAsync(values))
     } catch (error) {
       if (applyFieldErrors({ error, setError, fields: FIELDS })) return
       // The server's own words: the generic 401, the slow-down, the refusal, the unconfirmed address.

@@ -1,17 +1,13 @@
 /** Where people go after signing in. Pure: shared by the forms, the guard and the nav. */
-import type { Role } from '../../../../../shared/domain/roles'
+import type { AccountAbilities } from '../../../../../shared/schemas/auth'
 
-/** Each role's first page. */
-export function landingPathFor(role: Role): string {
-  switch (role) {
-    case 'admin':
-      return '/admin/users'
-    case 'complainant':
-      return '/my-reports'
-    case 'investigator':
-    case 'supervisor':
-      return '/work'
-  }
+/** An account's first page, from what it may do: its work, then administration, then its reports. */
+export function landingPathFor(abilities: AccountAbilities): string {
+  if (abilities.runOfficeQueue || abilities.workAssignedCases) return '/work'
+  if (abilities.manageUsers) return '/admin/users'
+  if (abilities.readCases) return '/cases'
+  if (abilities.followOwnReports) return '/my-reports'
+  return '/'
 }
 
 /**
@@ -21,6 +17,7 @@ export function landingPathFor(role: Role): string {
 export function safeNextPath(next: string | null | undefined): string | null {
   if (!next || next.length > 2000) return null
   if (!next.startsWith('/') || next.startsWith('//') || next.includes('\\')) return null
+  // eslint-disable-next-line no-control-regex -- finding control characters is the point
   if (/[\u0000-\u001f]/.test(next)) return null
   const pathname = next.split(/[?#]/)[0] ?? ''
   if (['/sign-in', '/register', '/forgot-password', '/set-password', '/confirm-email'].includes(pathname)) return null

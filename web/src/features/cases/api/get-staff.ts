@@ -1,14 +1,9 @@
 /** GET /api/staff — the office's staff (all offices for an administrator), for the investigator filter. */
 import { queryOptions, useQuery } from '@tanstack/react-query'
+import type { UserRow } from '../../../../../shared/schemas/views'
 import { api } from '../../../lib/api-client'
 
-export interface StaffMember {
-  id: string
-  name: string
-  role: string
-  officeName: string | null
-  active: boolean
-}
+export type StaffMember = UserRow
 
 export const getStaff = (signal?: AbortSignal) => api.get<{ staff: StaffMember[] }>('/api/staff', signal).then((r) => r.staff)
 

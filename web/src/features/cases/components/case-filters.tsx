@@ -6,9 +6,8 @@
 import type { FormEvent } from 'react'
 import { Link } from 'react-router-dom'
 import { CASE_STATES, CASE_STATE_LABELS, type CaseState } from '../../../../../shared/domain/case-lifecycle'
-import { AFFECTED_SERVICES, type AffectedService } from '../../../../../shared/domain/services'
+import { AFFECTED_SERVICES, PRIORITIES, PRIORITY_LABELS, type AffectedService } from '../../../../../shared/domain/services'
 import { Button } from '../../../components/ui/button'
-import { PRIORITY_TEXT, type PriorityLevel } from '../../../components/ui/priority-badge'
 import { SelectField } from '../../../components/ui/select-field'
 import { TextField } from '../../../components/ui/text-field'
 import { FREQUENCY_UNIT_OPTIONS, type FrequencyUnit } from '../../../lib/frequency'
@@ -25,7 +24,7 @@ export interface CaseFiltersProps {
 }
 
 const STATUS_OPTIONS = CASE_STATES.map((s) => ({ value: s, label: CASE_STATE_LABELS[s] }))
-const PRIORITY_OPTIONS = ([1, 2, 3, 4] as PriorityLevel[]).map((p) => ({ value: String(p), label: `P${p} ${PRIORITY_TEXT[p].short}` }))
+const PRIORITY_OPTIONS = PRIORITIES.map((p) => ({ value: String(p), label: `P${p} ${PRIORITY_LABELS[p].short}` }))
 const SERVICE_OPTIONS = [{ value: '', label: 'Any service' }, ...AFFECTED_SERVICES.map((s) => ({ value: s, label: serviceShortLabel(s) }))]
 const YES_NO_ANY = (yes: string, no: string) => [
   { value: '', label: 'Either' },

@@ -51,7 +51,7 @@ export function CaseHeader({ detail, now }: { detail: CaseDetail; now: Date }) {
         </Fact>
         <div className="md:col-span-2">
           <Fact term="Response">
-            <ResponseMeter receivedAt={detail.receivedAt} dueAt={detail.dueAt} closedAt={detail.closedAt} now={now} />
+            <ResponseMeter status={detail.status} receivedAt={detail.receivedAt} dueAt={detail.dueAt} closedAt={detail.closedAt} now={now} />
           </Fact>
         </div>
       </dl>

@@ -5,6 +5,7 @@
 import { useSearchParams } from 'react-router-dom'
 import { Loading } from '../../../components/ui/loading'
 import { QueryError } from '../../../components/ui/query-error'
+import { formatCaseTotal } from '../../../../../shared/domain/case-list'
 import { casesCsvHref, useCases } from '../api/get-cases'
 import { hasFilters, listStateToSearchParams, parseListState, type CaseListState } from '../lib/list-state'
 import { CaseFilters } from './case-filters'
@@ -22,7 +23,7 @@ export function CaseListView({ offices, investigators }: { offices: { id: string
       <CaseFilters key={params.toString()} state={state} onApply={go} offices={offices} investigators={investigators} />
       <div className="flex flex-wrap items-center gap-4">
         <p aria-live="polite" className="text-lg font-semibold">
-          {cases.data ? `${cases.data.total} ${cases.data.total === 1 ? 'case' : 'cases'}${hasFilters(state) ? ' match these filters' : ''}` : ''}
+          {cases.data ? `${formatCaseTotal(cases.data.total, cases.data.totalCapped)} ${cases.data.total === 1 && !cases.data.totalCapped ? 'case' : 'cases'}${hasFilters(state) ? ' match these filters' : ''}` : ''}
           {cases.isFetching && cases.data ? <span className="ml-2 text-sm font-normal text-ink-muted">Updating…</span> : null}
         </p>
         <a href={casesCsvHref(state)} download className="ml-auto font-semibold">
@@ -46,6 +47,8 @@ export function CaseListView({ offices, investigators }: { offices: { id: string
             page={state.page}
             pageSize={state.pageSize}
             total={cases.data.total}
+            totalCapped={cases.data.totalCapped}
+            shown={cases.data.items.length}
             onPage={(page) => go({ ...state, page })}
             onPageSize={(pageSize) => go({ ...state, pageSize, page: 1 })}
           />

@@ -1,5 +1,6 @@
 /** One titled work list on the staff start page, with its loading, error and empty states. */
 import type { ReactNode } from 'react'
+import { formatCaseTotal } from '../../../../../shared/domain/case-list'
 import { Loading } from '../../../components/ui/loading'
 import { QueryError } from '../../../components/ui/query-error'
 import type { CaseListState } from '../lib/list-state'
@@ -8,7 +9,7 @@ import { QueueTable } from './queue-table'
 
 export function QueueSection({ id, title, list, empty, now, footer, showInvestigator }: { id: string; title: string; list: CaseListState; empty: string; now: Date; footer?: ReactNode; showInvestigator?: boolean }) {
   const q = useQueue(list)
-  const total = q.data?.total
+  const total = q.data ? formatCaseTotal(q.data.total, q.data.totalCapped) : undefined
   return (
     <section aria-labelledby={id} className="flex flex-col gap-3">
       <h2 id={id} className="text-xl font-bold">
@@ -20,7 +21,7 @@ export function QueueSection({ id, title, list, empty, now, footer, showInvestig
       {q.isError && <QueryError error={q.error} what={`“${title}”`} onRetry={() => void q.refetch()} />}
       {q.data && q.data.items.length === 0 && <p className="rounded-panel border border-rule bg-surface p-4 text-ink-muted">{empty}</p>}
       {q.data && q.data.items.length > 0 && <QueueTable items={q.data.items} caption={title} now={now} showInvestigator={showInvestigator} />}
-      {q.data && q.data.total > q.data.items.length && <p className="text-sm">Showing the first {q.data.items.length} of {q.data.total}.</p>}
+      {q.data && q.data.total > q.data.items.length && <p className="text-sm">Showing the first {q.data.items.length} of {total}.</p>}
       {footer}
     </section>
   )

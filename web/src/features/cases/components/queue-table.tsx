@@ -33,7 +33,7 @@ export function QueueTable({ items, caption, now, showInvestigator = false }: { 
 }
 
 function QueueRow({ item: c, now, showInvestigator }: { item: CaseListItem; now: Date; showInvestigator: boolean }) {
-  const clock = responseClock({ receivedAt: c.receivedAt, dueAt: c.dueAt, closedAt: c.closedAt, now })
+  const clock = responseClock({ status: c.status, receivedAt: c.receivedAt, dueAt: c.dueAt, closedAt: c.closedAt, now })
   return (
     <tr className={`border-b border-rule align-top last:border-b-0 ${c.overdue ? 'border-l-4 border-l-danger bg-danger-soft' : ''}`}>
       <td className="px-3 py-2 whitespace-nowrap">

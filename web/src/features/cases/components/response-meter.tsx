@@ -1,9 +1,10 @@
 /** Age against the response target: a short bar (full = target reached) plus words. */
 import { format, parseISO } from 'date-fns'
+import type { CaseState } from '../../../../../shared/domain/case-lifecycle'
 import { formatTargetHours, responseClock } from '../lib/response-clock'
 
-export function ResponseMeter({ receivedAt, dueAt, closedAt, now }: { receivedAt: string; dueAt: string; closedAt: string | null; now: Date }) {
-  const clock = responseClock({ receivedAt, dueAt, closedAt, now })
+export function ResponseMeter({ status, receivedAt, dueAt, closedAt, now }: { status: CaseState; receivedAt: string; dueAt: string; closedAt: string | null; now: Date }) {
+  const clock = responseClock({ status, receivedAt, dueAt, closedAt, now })
   const widthPct = Math.min(100, Math.round(clock.usedFraction * 100))
   return (
     <div className="flex flex-col gap-1">

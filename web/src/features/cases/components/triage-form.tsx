@@ -3,7 +3,7 @@ import { zodResolver } from '@hookform/resolvers/zod'
 import { useForm } from 'react-hook-form'
 import type { z } from 'zod'
 import { triageSchema } from '../../../../../shared/schemas/cases'
-import { PRIORITY_TEXT, type PriorityLevel } from '../../../components/ui/priority-badge'
+import { PRIORITIES, PRIORITY_LABELS, type Priority } from '../../../../../shared/domain/services'
 import { SelectField } from '../../../components/ui/select-field'
 import { ActionForm } from './action-form'
 import { TextAreaField } from '../../../components/ui/text-area-field'
@@ -13,7 +13,6 @@ import { useTriageCase } from '../api/triage-case'
 const schema = triageSchema.omit({ version: true })
 type In = z.input<typeof schema>
 type Out = z.output<typeof schema>
-const LEVELS: PriorityLevel[] = [1, 2, 3, 4]
 
 export function TriageForm() {
   const action = useCaseActionForm()
@@ -21,15 +20,15 @@ export function TriageForm() {
   const initial = detail.status === 'received' ? detail.suggestedPriority : detail.priority
   const form = useForm<In, unknown, Out>({ resolver: zodResolver(schema), defaultValues: { priority: initial, note: '' } })
   const triage = useTriageCase(detail.id)
-  const options = LEVELS.map((p) => ({
+  const options = PRIORITIES.map((p) => ({
     value: String(p),
-    label: `P${p} ${PRIORITY_TEXT[p].short}${p === detail.suggestedPriority ? ' (suggested)' : ''}`,
+    label: `P${p} ${PRIORITY_LABELS[p].short}${p === detail.suggestedPriority ? ' (suggested)' : ''}`,
   }))
 
   const onSubmit = form.handleSubmit((v) =>
     action.run({
       send: (version) => triage.mutateAsync({ ...v, version }),
-      success: `Priority set to P${v.priority} ${PRIORITY_TEXT[v.priority as PriorityLevel].short}.`,
+      success: `Priority set to P${v.priority} ${PRIORITY_LABELS[v.priority as Priority].short}.`,
       setFieldError: form.setError,
       fields: ['priority', 'note'],
       after: () => form.reset({ priority: v.priority, note: '' }),
@@ -40,7 +39,7 @@ export function TriageForm() {
     <ActionForm
       id="triage"
       title={detail.status === 'received' ? 'Set the priority' : 'Change the priority'}
-      intro={<p>Suggested from the report: P{detail.suggestedPriority} {PRIORITY_TEXT[detail.suggestedPriority].short}. The response target follows the priority.</p>}
+      intro={<p>Suggested from the report: P{detail.suggestedPriority} {PRIORITY_LABELS[detail.suggestedPriority].short}. The response target follows the priority.</p>}
       submitLabel="Set priority"
       pendingLabel="Setting priority…"
       submitting={form.formState.isSubmitting}

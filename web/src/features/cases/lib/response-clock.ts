@@ -1,8 +1,11 @@
 /**
- * A case's age against its response target. The target is the span the office allows for
- * the case's priority (dueAt − receivedAt); a case is overdue while open past dueAt.
+ * A case's age against its response target, for display. The target is the span the office
+ * allowed for the case's priority (dueAt − receivedAt); whether it is overdue is the shared
+ * rule of shared/domain/case-clocks.ts, the same one the server's SQL is built from.
  */
 import { differenceInMinutes, formatDistance, parseISO } from 'date-fns'
+import { isOverdue } from '../../../../../shared/domain/case-clocks'
+import type { CaseState } from '../../../../../shared/domain/case-lifecycle'
 
 export interface ResponseClock {
   /** The office's response target for this case, in hours. */
@@ -18,14 +21,14 @@ export interface ResponseClock {
   standingText: string
 }
 
-export function responseClock(options: { receivedAt: string; dueAt: string; closedAt: string | null; now: Date }): ResponseClock {
+export function responseClock(options: { status: CaseState; receivedAt: string; dueAt: string; closedAt: string | null; now: Date }): ResponseClock {
   const received = parseISO(options.receivedAt)
   const due = parseISO(options.dueAt)
   const closed = options.closedAt ? parseISO(options.closedAt) : null
   const end = closed ?? options.now
   const targetHours = differenceInMinutes(due, received) / 60
   const elapsedHours = Math.max(0, differenceInMinutes(end, received) / 60)
-  const overdue = !closed && options.now.getTime() > due.getTime()
+  const overdue = isOverdue('resolution', { status: options.status, dueAt: due }, options.now)
   let standingText: string
   if (closed) standingText = closed.getTime() <= due.getTime() ? 'closed within the target' : `closed ${formatDistance(due, closed)} after the target`
   else if (overdue) standingText = `${formatDistance(due, options.now)} past the target`

@@ -1,42 +1,36 @@
 /**
- * An offline map of the demo region (no tile server, no map library): click or use the arrow
- * keys to set a position. Positions typed elsewhere may lie outside the box; the map then
- * says so and shows no marker, and the position still counts.
+ * An offline map of the configured region (no tile server): click or use the arrow keys to
+ * set a position. Its box comes from the region's outline. Positions typed elsewhere may lie
+ * outside the box; the map then says so and shows no marker, and the position still counts.
  */
-import { useId, useRef, type KeyboardEvent, type MouseEvent } from 'react'
+import { useId, useMemo, useRef, type KeyboardEvent, type MouseEvent } from 'react'
 import { formatLatLonDeg } from '../../../lib/coordinates'
-import { MAP_HEIGHT, MAP_WIDTH, REGION_CENTRE, isInsideRegion, mapToLatLon, nudge, projectToMap, round4, type Direction, type LatLonDeg } from '../lib/projection'
+import { createProjection, nudge, round4, type Direction, type LatLonDeg, type Projection } from '../lib/projection'
+import type { MapOffice, RegionMapData } from '../lib/region-data'
 import { MapBackdrop } from './map-backdrop'
 
-export interface MapOffice {
-  id: string
-  name: string
-  latDeg: number
-  lonDeg: number
-}
-
 export interface RegionMapProps {
+  data: RegionMapData
   /** The current position, or null when none is set (or the typed values are not numbers). */
   value: LatLonDeg | null
   onPick: (p: LatLonDeg) => void
-  /** Field offices to plot (only staff can load them). */
-  offices?: MapOffice[]
   label?: string
 }
 
 const KEY_DIRECTIONS: Record<string, Direction> = { ArrowUp: 'north', ArrowDown: 'south', ArrowLeft: 'west', ArrowRight: 'east' }
 
-export function RegionMap({ value, onPick, offices = [], label = 'Map of the Vellmark Coast' }: RegionMapProps) {
+export function RegionMap({ data, value, onPick, label = `Map of ${data.name}` }: RegionMapProps) {
   const svgRef = useRef<SVGSVGElement>(null)
   const helpId = useId()
-  const inside = value !== null && isInsideRegion(value)
+  const projection = useMemo(() => createProjection(data.box), [data.box])
+  const inside = value !== null && projection.contains(value)
 
   const onClick = (e: MouseEvent<SVGSVGElement>) => {
     const box = svgRef.current?.getBoundingClientRect()
     if (!box || box.width === 0) return
-    const x = ((e.clientX - box.left) / box.width) * MAP_WIDTH
-    const y = ((e.clientY - box.top) / box.height) * MAP_HEIGHT
-    const p = mapToLatLon({ x, y })
+    const x = ((e.clientX - box.left) / box.width) * projection.width
+    const y = ((e.clientY - box.top) / box.height) * projection.height
+    const p = projection.unproject({ x, y })
     onPick({ latDeg: round4(p.latDeg), lonDeg: round4(p.lonDeg) })
   }
 
@@ -44,12 +38,12 @@ export function RegionMap({ value, onPick, offices = [], label = 'Map of the Vel
     const direction = KEY_DIRECTIONS[e.key]
     if (!direction) return
     e.preventDefault()
-    const from = inside && value ? value : REGION_CENTRE
+    const from = inside && value ? value : projection.centre
     // The first key press puts the marker in the middle; later ones move it.
-    onPick(inside ? nudge({ from, direction, stepDeg: e.shiftKey ? 0.1 : 0.01 }) : { latDeg: round4(from.latDeg), lonDeg: round4(from.lonDeg) })
+    onPick(inside ? nudge({ projection, from, direction, stepDeg: e.shiftKey ? 0.1 : 0.01 }) : { latDeg: round4(from.latDeg), lonDeg: round4(from.lonDeg) })
   }
 
-  const marker = inside && value ? projectToMap(value) : null
+  const marker = inside && value ? projection.project(value) : null
 
   return (
     <div className="flex flex-col gap-2">
@@ -66,10 +60,10 @@ export function RegionMap({ value, onPick, offices = [], label = 'Map of the Vel
         onKeyDown={onKeyDown}
         className="overflow-hidden rounded-control border border-field bg-signal-soft"
       >
-        <svg ref={svgRef} viewBox={`0 0 ${MAP_WIDTH} ${MAP_HEIGHT}`} className="block h-auto w-full cursor-crosshair" onClick={onClick} aria-hidden="true">
-          <MapBackdrop />
-          {offices.map((o) => (
-            <OfficeMark key={o.id} office={o} />
+        <svg ref={svgRef} viewBox={`0 0 ${projection.width} ${projection.height.toFixed(1)}`} className="block h-auto w-full cursor-crosshair" onClick={onClick} aria-hidden="true">
+          <MapBackdrop data={data} projection={projection} />
+          {data.offices.map((o) => (
+            <OfficeMark key={o.name} office={o} projection={projection} />
           ))}
           {marker && (
             <g transform={`translate(${marker.x} ${marker.y})`} className="text-ink">
@@ -91,11 +85,11 @@ export function RegionMap({ value, onPick, offices = [], label = 'Map of the Vel
   )
 }
 
-function OfficeMark({ office }: { office: MapOffice }) {
-  if (!isInsideRegion(office)) return null
-  const { x, y } = projectToMap(office)
+function OfficeMark({ office, projection }: { office: MapOffice; projection: Projection }) {
+  if (!projection.contains(office.at)) return null
+  const { x, y } = projection.project(office.at)
   return (
-    <g transform={`translate(${x} ${y})`} >
+    <g transform={`translate(${x} ${y})`}>
       <rect x="-8" y="-8" width="16" height="16" className="fill-signal stroke-surface" strokeWidth="2" />
       <text x="14" y="6" fontSize="22" fontWeight="700" className="fill-signal-strong stroke-surface" paintOrder="stroke" strokeWidth="4">
         {office.name} office

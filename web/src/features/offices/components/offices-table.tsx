@@ -1,10 +1,10 @@
 /** Offices with their region, centre and response targets (hours per priority). */
-import { PriorityShape, type PriorityLevel } from '../../../components/ui/priority-badge'
+import { PriorityShape } from '../../../components/ui/priority-badge'
+import { PRIORITIES, type Priority } from '../../../../../shared/domain/services'
 import { TableFrame } from '../../../components/ui/table'
 import type { Office } from '../api/get-offices'
 
-const LEVELS: PriorityLevel[] = [1, 2, 3, 4]
-const SHAPE_COLOUR: Record<PriorityLevel, string> = { 1: 'text-priority-1', 2: 'text-priority-2', 3: 'text-priority-3', 4: 'text-priority-4' }
+const SHAPE_COLOUR: Record<Priority, string> = { 1: 'text-priority-1', 2: 'text-priority-2', 3: 'text-priority-3', 4: 'text-priority-4' }
 
 export function OfficesTable({ offices }: { offices: Office[] }) {
   if (offices.length === 0) return <p className="text-ink-muted">No offices yet.</p>
@@ -13,7 +13,7 @@ export function OfficesTable({ offices }: { offices: Office[] }) {
       <th scope="col" className="px-4 py-3">Office</th>
       <th scope="col" className="px-4 py-3">Region</th>
       <th scope="col" className="px-4 py-3">Centre (lat, lon)</th>
-      {LEVELS.map((level) => (
+      {PRIORITIES.map((level) => (
         <th key={level} scope="col" className="px-4 py-3 text-right">
           <span className="inline-flex items-center gap-1.5">
             <span className={SHAPE_COLOUR[level]}>
@@ -34,7 +34,7 @@ export function OfficesTable({ offices }: { offices: Office[] }) {
           <td className="px-4 py-3 font-mono text-sm">
             {o.centreLatDeg.toFixed(4)}°, {o.centreLonDeg.toFixed(4)}°
           </td>
-          {LEVELS.map((level) => (
+          {PRIORITIES.map((level) => (
             <td key={level} className="px-4 py-3 text-right font-mono text-sm">
               {o.responseTargetsHours[`p${level}`]} h
             </td>

@@ -6,7 +6,7 @@ import { useState } from 'react'
 import { useForm } from 'react-hook-form'
 import { zodResolver } from '@hookform/resolvers/zod'
 import { responseTargetsSchema } from '../../../../../shared/schemas/auth'
-import { PRIORITY_TEXT, type PriorityLevel } from '../../../components/ui/priority-badge'
+import { PRIORITIES, PRIORITY_LABELS, type Priority } from '../../../../../shared/domain/services'
 import { TextField } from '../../../components/ui/text-field'
 import { SubmitButton } from '../../../components/ui/submit-button'
 import { FormAlert } from '../../../components/ui/form-alert'
@@ -14,8 +14,7 @@ import { applyFieldErrors, formProblem, type FormProblem } from '../../../lib/fo
 import type { Office } from '../api/get-offices'
 import { useSetResponseTargets, type ResponseTargets } from '../api/set-response-targets'
 
-const LEVELS: PriorityLevel[] = [1, 2, 3, 4]
-const key = (p: PriorityLevel) => `p${p}` as const
+const key = (p: Priority) => `p${p}` as const
 
 export function ResponseTargetsForm({ office }: { office: Office }) {
   const save = useSetResponseTargets()
@@ -35,11 +34,11 @@ export function ResponseTargetsForm({ office }: { office: Office }) {
   return (
     <form noValidate onSubmit={onSubmit} aria-label={`Response targets of ${office.name}`} className="flex flex-col gap-4">
       <div className="grid gap-4 sm:grid-cols-4">
-        {LEVELS.map((p) => (
+        {PRIORITIES.map((p) => (
           <TextField
             key={p}
             id={`targets-${office.id}-${key(p)}`}
-            label={`P${p} ${PRIORITY_TEXT[p].short} (hours)`}
+            label={`P${p} ${PRIORITY_LABELS[p].short} (hours)`}
             type="number"
             min={1}
             step={1}

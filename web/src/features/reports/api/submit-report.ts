@@ -1,16 +1,11 @@
 /** POST /api/reports — anyone may report; a signed-in complainant's report joins their account. */
 import { useMutation, useQueryClient } from '@tanstack/react-query'
-import type { Report, ReportWarning } from '../../../../../shared/schemas/cases'
+import type { Report } from '../../../../../shared/schemas/cases'
+import type { SubmittedReportView } from '../../../../../shared/schemas/views'
 import { api } from '../../../lib/api-client'
 
-export interface SubmittedReport {
-  reference: string
-  officeName: string
-  /** The private tracking link, also e-mailed to the complainant. */
-  trackingUrl: string
-  /** Things to check about the report, which was filed all the same (a place far from every office). */
-  warnings: ReportWarning[]
-}
+/** Where the report went, its private tracking link (also e-mailed), and anything to check about it. */
+export type SubmittedReport = SubmittedReportView
 
 export const submitReport = (input: Report) => api.post<SubmittedReport>('/api/reports', input)
 

@@ -3,7 +3,8 @@ import type { ReactNode } from 'react'
 
 export function FormSection({ title, lead, children }: { title: string; lead?: ReactNode; children: ReactNode }) {
   return (
-    <fieldset className="flex flex-col gap-5 rounded-panel border border-rule bg-surface p-5">
+    // min-w-0: a fieldset does not shrink below its content by default, which widened the page on phones
+    <fieldset className="flex min-w-0 flex-col gap-5 rounded-panel border border-rule bg-surface p-5">
       <legend className="float-left mb-1 w-full">
         <h2 className="text-xl font-bold">{title}</h2>
       </legend>

@@ -1,6 +1,6 @@
 /** A field people never see and robots fill in; the server refuses reports that fill it. */
 import type { UseFormReturn } from 'react-hook-form'
-import type { ReportFormInput, ReportFormOutput } from './report-form'
+import type { ReportFormInput, ReportFormOutput } from './report-form-types'
 
 export function Honeypot({ form }: { form: UseFormReturn<ReportFormInput, unknown, ReportFormOutput> }) {
   return (

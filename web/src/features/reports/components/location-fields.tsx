@@ -5,7 +5,7 @@ import { readNumberWithUnit } from '../../../../../shared/schemas/number-with-un
 import type { UseFormReturn } from 'react-hook-form'
 import { TextField } from '../../../components/ui/text-field'
 import { FormSection, figureOrUndefined } from './form-section'
-import type { LocationPickerArgs, ReportFormInput, ReportFormOutput } from './report-form'
+import type { LocationPickerArgs, ReportFormInput, ReportFormOutput } from './report-form-types'
 
 export function LocationFields({
   form,
@@ -30,16 +30,16 @@ export function LocationFields({
           label="Latitude"
           inputMode="decimal"
           autoComplete="off"
-          hint="Decimal degrees, north positive (e.g. 48.1)."
+          hint="Decimal degrees: north positive, south negative."
           error={e.latDeg?.message}
           className="font-mono"
           {...register('latDeg', { setValueAs: figureOrUndefined })}
         />
-        {/* No decimal keypad here: on some phones it has no minus sign, and longitudes in the region are west (negative). */}
+        {/* No decimal keypad here: on some phones it has no minus sign, which west longitudes need. */}
         <TextField
           label="Longitude"
           autoComplete="off"
-          hint="Decimal degrees, west negative (e.g. −31.35)."
+          hint="Decimal degrees: east positive, west negative."
           error={e.lonDeg?.message}
           className="font-mono"
           {...register('lonDeg', { setValueAs: figureOrUndefined })}

@@ -6,7 +6,6 @@
 import { zodResolver } from '@hookform/resolvers/zod'
 import { useState, type ReactNode } from 'react'
 import { useForm, type DefaultValues } from 'react-hook-form'
-import type { z } from 'zod'
 import { SAFETY_SERVICES, type AffectedService } from '../../../../../shared/domain/services'
 import { reportSchema } from '../../../../../shared/schemas/cases'
 import { FormAlert } from '../../../components/ui/form-alert'
@@ -17,10 +16,8 @@ import { ContactFields } from './contact-fields'
 import { Honeypot } from './honeypot'
 import { LocationFields } from './location-fields'
 import { ServiceFields } from './service-fields'
+import type { LocationPickerArgs, ReportFormInput, ReportFormOutput } from './report-form-types'
 import { TimingFields } from './timing-fields'
-
-export type ReportFormInput = z.input<typeof reportSchema>
-export type ReportFormOutput = z.output<typeof reportSchema>
 
 /** Every field the server may name in details[].path. */
 const FIELDS = [
@@ -43,11 +40,6 @@ const FIELDS = [
   'description',
   'website',
 ] as const
-
-export interface LocationPickerArgs {
-  value: { latDeg: number; lonDeg: number } | null
-  onPick: (p: { latDeg: number; lonDeg: number }) => void
-}
 
 export interface ReportFormProps {
   /** A signed-in complainant's name and e-mail. */

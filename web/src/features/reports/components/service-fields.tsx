@@ -5,7 +5,7 @@ import { SelectField } from '../../../components/ui/select-field'
 import { TextField } from '../../../components/ui/text-field'
 import { FREQUENCY_UNIT_OPTIONS } from '../../../lib/frequency'
 import { FormSection, figureOrUndefined } from './form-section'
-import type { ReportFormInput, ReportFormOutput } from './report-form'
+import type { ReportFormInput, ReportFormOutput } from './report-form-types'
 import { SafetyNote } from './safety-note'
 
 const SERVICE_OPTIONS = [{ value: '', label: 'Choose the service' }, ...AFFECTED_SERVICES.map((s) => ({ value: s, label: SERVICE_LABELS[s] }))]

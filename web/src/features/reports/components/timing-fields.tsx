@@ -5,7 +5,7 @@ import { TextField } from '../../../components/ui/text-field'
 import { ChoiceGroup } from '../../../components/ui/choice-group'
 import { TextAreaField } from '../../../components/ui/text-area-field'
 import { FormSection } from './form-section'
-import type { ReportFormInput, ReportFormOutput } from './report-form'
+import type { ReportFormInput, ReportFormOutput } from './report-form-types'
 
 const PATTERN_OPTIONS = OCCURRENCE_PATTERNS.map((p) => ({ value: p, label: OCCURRENCE_LABELS[p] }))
 const EXPERIENCE_OPTIONS = EXPERIENCES.map((x) => ({ value: x, label: EXPERIENCE_LABELS[x] }))

@@ -1,0 +1,43 @@
+/** Every query of the offices module. No authorization here: the scope is an argument. */
+import { and, asc, eq, ne } from 'drizzle-orm'
+import type { TargetsHours } from '../../../shared/domain/case-clocks'
+import type { Db } from '../../db/client'
+import { cases, offices, type Office } from '../../db/schema'
+import { clockRunsSql, dueAtSql } from '../cases/due'
+
+export async function findOffice(db: Db, id: string): Promise<Office | undefined> {
+  const [o] = await db.select().from(offices).where(eq(offices.id, id))
+  return o
+}
+
+/** Offices by name: one (`{ officeId }`) or all. */
+export function listOffices(db: Db, scope: { officeId: string } | { all: true }): Promise<Office[]> {
+  return db
+    .select()
+    .from(offices)
+    .where('officeId' in scope ? eq(offices.id, scope.officeId) : undefined)
+    .orderBy(asc(offices.name))
+}
+
+/** Every office except one (where a case may be transferred). */
+export function otherOffices(db: Db, exceptOfficeId: string): Promise<Office[]> {
+  return db.select().from(offices).where(ne(offices.id, exceptOfficeId))
+}
+
+/**
+ * Sets an office's resolution targets and moves the due times of its open cases to match
+ * (received time plus the new target for each case's priority).
+ */
+export async function setOfficeTargets(db: Db, officeId: string, t: TargetsHours): Promise<Office | undefined> {
+  const [o] = await db.update(offices).set({ targetP1Hours: t[1], targetP2Hours: t[2], targetP3Hours: t[3], targetP4Hours: t[4] }).where(eq(offices.id, officeId)).returning()
+  await db
+    .update(cases)
+    .set({ dueAt: dueAtSql(t) })
+    .where(and(eq(cases.officeId, officeId), clockRunsSql('resolution')))
+  return o
+}
+
+/** Every office (report routing). */
+export function allOffices(db: Db): Promise<Office[]> {
+  return db.select().from(offices)
+}

@@ -1,0 +1,61 @@
+/**
+ * The region map: the region's outline, coast and place names, and each office's point and
+ * area, as one public GeoJSON FeatureCollection. Only what anyone may see leaves here: an
+ * office's name, point and area (never its staff, targets or id).
+ */
+import { asc, eq } from 'drizzle-orm'
+import type { Db } from '../../db/client'
+import type { ServiceContext } from '../../context'
+import { offices, region } from '../../db/schema'
+import { areaSchema, regionSchema, type AreaGeometry, type RegionFeature, type RegionInput, type RegionMap } from '../../../shared/schemas/region'
+
+export interface PublicOffice {
+  name: string
+  centreLatDeg: number
+  centreLonDeg: number
+  area: AreaGeometry | null
+}
+
+/** The FeatureCollection for a region (or none configured) and its offices. Pure. */
+export function presentRegionMap(r: RegionInput | null, officeRows: PublicOffice[]): RegionMap {
+  const features: RegionFeature[] = []
+  if (r) {
+    features.push({ type: 'Feature', geometry: r.outline, properties: { kind: 'region', name: r.name } })
+    features.push({ type: 'Feature', geometry: r.coast, properties: { kind: 'coast' } })
+    for (const p of r.places) features.push({ type: 'Feature', geometry: p.point, properties: { kind: 'place', name: p.name, placeKind: p.kind } })
+  }
+  for (const o of officeRows) {
+    if (o.area) features.push({ type: 'Feature', geometry: o.area, properties: { kind: 'office_area', name: o.name } })
+  }
+  for (const o of officeRows) {
+    features.push({ type: 'Feature', geometry: { type: 'Point', coordinates: [o.centreLonDeg, o.centreLatDeg] }, properties: { kind: 'office', name: o.name } })
+  }
+  return { type: 'FeatureCollection', features }
+}
+
+/** GET /api/region: public, the same for everyone. */
+export async function getRegionMap(ctx: ServiceContext): Promise<RegionMap> {
+  const [r] = await ctx.db.select({ name: region.name, outline: region.outline, coast: region.coast, places: region.places }).from(region).where(eq(region.id, 1))
+  const officeRows = await ctx.db
+    .select({ name: offices.name, centreLatDeg: offices.centreLatDeg, centreLonDeg: offices.centreLonDeg, area: offices.area })
+    .from(offices)
+    .orderBy(asc(offices.name))
+  return presentRegionMap(r ?? null, officeRows)
+}
+
+/** Sets the region (there is one); the input is checked with the shared schema first. */
+export async function saveRegion(db: Db, input: RegionInput): Promise<void> {
+  const r = regionSchema.parse(input)
+  await db
+    .insert(region)
+    .values({ id: 1, ...r })
+    .onConflictDoUpdate({ target: region.id, set: { name: r.name, outline: r.outline, coast: r.coast, places: r.places, updatedAt: new Date() } })
+}
+
+/** Sets one office's area (null: none); the geometry is checked with the shared schema first. */
+export async function saveOfficeArea(db: Db, officeId: string, area: AreaGeometry | null): Promise<void> {
+  await db
+    .update(offices)
+    .set({ area: area === null ? null : areaSchema.parse(area) })
+    .where(eq(offices.id, officeId))
+}

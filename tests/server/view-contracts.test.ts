@@ -1,0 +1,117 @@
+/**
+ * Every main answer of the API, as a browser receives it, fits its schema in
+ * shared/schemas/views.ts exactly: nothing missing or of another type (the parse fails), and
+ * nothing the schema does not declare (the parse drops it, and the result differs from the body).
+ * A presenter that drifts from its schema fails here.
+ */
+import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import request from 'supertest'
+import { z } from 'zod'
+import { meResponseSchema, signedInSchema } from '../../shared/schemas/auth'
+import {
+  casePageSchema,
+  caseResponseSchema,
+  complainantReportResponseSchema,
+  investigatorsResponseSchema,
+  mergeCandidatesResponseSchema,
+  myReportsResponseSchema,
+  officeResponseSchema,
+  officesResponseSchema,
+  staffListResponseSchema,
+  staffMemberResponseSchema,
+  submittedReportSchema,
+  transferOfficesResponseSchema,
+  usersResponseSchema,
+} from '../../shared/schemas/views'
+import { createTestContext, DEMO, DEMO_PASSWORD, signedInAgent, uniqueAddress, type TestContext } from '../support/harness'
+import { caseVersion, fileReport, userId, validReport } from '../support/cases'
+
+let t: TestContext
+let supervisor: Awaited<ReturnType<typeof signedInAgent>>
+let investigator: Awaited<ReturnType<typeof signedInAgent>>
+let admin: Awaited<ReturnType<typeof signedInAgent>>
+let complainant: Awaited<ReturnType<typeof signedInAgent>>
+
+beforeAll(async () => {
+  t = await createTestContext()
+  ;[supervisor, investigator, admin, complainant] = await Promise.all([
+    signedInAgent(t.app, DEMO.supervisor),
+    signedInAgent(t.app, DEMO.investigator),
+    signedInAgent(t.app, DEMO.admin),
+    signedInAgent(t.app, DEMO.complainant),
+  ])
+})
+afterAll(() => t.close())
+
+/** The body parses with the schema and the schema keeps all of it. */
+function expectFits(schema: z.ZodType, res: request.Response, status = 200): void {
+  expect(res.status, JSON.stringify(res.body)).toBe(status)
+  const parsed = schema.safeParse(res.body)
+  expect(parsed.success, parsed.success ? '' : z.prettifyError(parsed.error)).toBe(true)
+  expect(parsed.data, 'the answer holds only what its schema declares').toEqual(res.body)
+}
+
+describe('the answers of the API fit their view schemas', () => {
+  it('a filed report, and the complainant’s view of it through the tracking link', async () => {
+    const filed = await request(t.app).post('/api/reports').set('X-Forwarded-For', uniqueAddress()).send(validReport())
+    expectFits(submittedReportSchema, filed, 201)
+    const token = /\/track\/([A-Za-z0-9_-]+)$/.exec(filed.body.trackingUrl)![1]!
+    expectFits(complainantReportResponseSchema, await request(t.app).get(`/api/track/${token}`).set('X-Forwarded-For', uniqueAddress()))
+  })
+
+  it('the case list, a case with its timeline, and the choices a supervisor is offered', async () => {
+    const f = await fileReport(t)
+    const triaged = await supervisor.post(`/api/cases/${f.id}/triage`).send({ version: await caseVersion(t.pool, f.id), priority: 2, note: 'Outage at home, licensed network.' })
+    expectFits(caseResponseSchema, triaged)
+    expect(triaged.body.case.timeline.length, 'the case has a timeline to check').toBeGreaterThan(1)
+    expectFits(casePageSchema, await supervisor.get('/api/cases?pageSize=5'))
+    expectFits(mergeCandidatesResponseSchema, await supervisor.get(`/api/cases/${f.id}/merge-candidates`))
+    expectFits(investigatorsResponseSchema, await supervisor.get(`/api/cases/${f.id}/investigators`))
+    expectFits(transferOfficesResponseSchema, await supervisor.get(`/api/cases/${f.id}/transfer-offices`))
+  })
+
+  it('a closed case with its resolution, as the investigator sees it', async () => {
+    const f = await fileReport(t)
+    const investigatorId = await userId(t.pool, DEMO.investigator)
+    const step = async (agent: typeof supervisor, path: string, body: Record<string, unknown>) =>
+      agent.post(`/api/cases/${f.id}/${path}`).send({ version: await caseVersion(t.pool, f.id), ...body })
+    for (const [agent, path, body] of [
+      [supervisor, 'triage', { priority: 3 }],
+      [supervisor, 'assign', { investigatorId }],
+      [investigator, 'start-field-work', {}],
+      [investigator, 'propose-finding', { reason: 'A faulty amplifier two houses away.' }],
+      [supervisor, 'close', { resolution: 'source_corrected', reason: 'The owner replaced the amplifier.' }],
+    ] as const) {
+      expect((await step(agent, path, body)).status, path).toBe(200)
+    }
+    const detail = await investigator.get(`/api/cases/${f.id}`)
+    expectFits(caseResponseSchema, detail)
+    expect(detail.body.case.resolution).toBe('source_corrected')
+  })
+
+  it('offices, staff and users', async () => {
+    const offices = await supervisor.get('/api/offices')
+    expectFits(officesResponseSchema, offices)
+    expectFits(officeResponseSchema, await supervisor.get(`/api/offices/${offices.body.offices[0].id}`))
+    const staff = await supervisor.get('/api/staff')
+    expectFits(staffListResponseSchema, staff)
+    expectFits(staffMemberResponseSchema, await supervisor.get(`/api/staff/${staff.body.staff[0].id}`))
+    expectFits(usersResponseSchema, await admin.get('/api/admin/users'))
+  })
+
+  it('a complainant’s own reports', async () => {
+    const filed = await complainant.post('/api/reports').set('X-Forwarded-For', uniqueAddress()).send(validReport())
+    expectFits(submittedReportSchema, filed, 201)
+    const mine = await complainant.get('/api/my/reports')
+    expectFits(myReportsResponseSchema, mine)
+    expect(mine.body.reports.length).toBeGreaterThan(0)
+    expectFits(complainantReportResponseSchema, await complainant.get(`/api/my/reports/${mine.body.reports[0].id}`))
+  })
+
+  it('who is signed in, for an account and for an anonymous visitor', async () => {
+    expectFits(meResponseSchema, await investigator.get('/api/me'))
+    expectFits(meResponseSchema, await request(t.app).get('/api/me'))
+    const signIn = await request(t.app).post('/api/auth/sign-in').set('X-Forwarded-For', uniqueAddress()).send({ email: DEMO.supervisor, password: DEMO_PASSWORD })
+    expectFits(signedInSchema, signIn)
+  })
+})
