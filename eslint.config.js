@@ -29,6 +29,12 @@ const features = fs
 // Empty: a piece two features need lives in web/src/components or web/src/lib instead.
 const featureExceptions = []
 
+// "Services never import drizzle": in server/modules, only a repo (*.repo.ts) imports drizzle-orm
+// or the tables; the rest may import row types only (`import type`). Named exceptions: { file, reason }.
+const queryCodeOutsideRepos = [
+  { file: 'server/modules/cases/due.ts', reason: 'the due and overdue SQL built once from shared/domain/case-clocks, for every repo that needs it' },
+]
+
 const boundaryZones = [
   {
     target: './shared',
@@ -82,6 +88,8 @@ export default defineConfig(
       // Without these, import-x reads only .js modules and no-cycle sees no TypeScript import.
       'import-x/extensions': ['.ts', '.tsx', '.js', '.mjs'],
       'import-x/parsers': { '@typescript-eslint/parser': ['.ts', '.tsx'] },
+      // The resolver reads tsconfig.json's paths too, so an `@/…` or `@shared/…` import meets the
+      // same boundaries as a relative one (tests/ops/lint-boundaries.test.ts shows both).
       'import-x/resolver-next': [createTypeScriptImportResolver({ project: path.join(root, 'tsconfig.json') })],
     },
     rules: {
@@ -99,6 +107,28 @@ export default defineConfig(
       // noUnusedParameters, unused names (an underscore marks a parameter kept for its position).
       'no-undef': 'off',
       '@typescript-eslint/no-unused-vars': 'off',
+    },
+  },
+  {
+    files: ['server/modules/**/*.ts'],
+    ignores: ['server/modules/**/*.repo.ts', ...queryCodeOutsideRepos.map((e) => e.file)],
+    rules: {
+      '@typescript-eslint/no-restricted-imports': [
+        'error',
+        {
+          patterns: [
+            {
+              regex: '^drizzle-orm(/|$)',
+              message: 'Services never import drizzle: put the query in the module’s *.repo.ts and call it.',
+            },
+            {
+              regex: '(^|/)db/schema(/|$)',
+              allowTypeImports: true,
+              message: 'Only repos use the tables: outside *.repo.ts import row types only (`import type`).',
+            },
+          ],
+        },
+      ],
     },
   },
 )

@@ -6,6 +6,8 @@ import tailwindcss from '@tailwindcss/vite'
 export default defineConfig({
   root: 'web',
   plugins: [react(), tailwindcss()],
+  // `@/…` is web/src, `@shared/…` is shared/: the paths of tsconfig.json, the one place they are declared.
+  resolve: { tsconfigPaths: true },
   build: { outDir: '../dist/web', emptyOutDir: true, chunkSizeWarningLimit: 600 },
   server: {
     host: '127.0.0.1',

@@ -1,5 +1,9 @@
 import { defineConfig } from 'vitest/config'
 
+// The import aliases (`@/…` web/src, `@shared/…` shared/) come from tsconfig.json's paths, as in
+// vite.config.ts; every project reads them, since web code is imported by web, server and e2e tests.
+const resolve = { tsconfigPaths: true }
+
 // Kept apart from vite.config.ts: when this file exists vitest does not load that one.
 // Projects: the pure library and domain tests need nothing running; the web tests run in
 // jsdom with the API mocked; the API and browser tests share one throwaway PostgreSQL
@@ -10,6 +14,7 @@ export default defineConfig({
     hookTimeout: 60_000,
     projects: [
       {
+        resolve,
         test: {
           name: 'shared',
           environment: 'node',
@@ -19,6 +24,7 @@ export default defineConfig({
       {
         // The web app's components and helpers in a DOM (jsdom), with the API mocked at the
         // network layer (MSW) from the shared view schemas; nothing running needed.
+        resolve,
         test: {
           name: 'web',
           environment: 'jsdom',
@@ -29,6 +35,7 @@ export default defineConfig({
         },
       },
       {
+        resolve,
         test: {
           name: 'app',
           environment: 'node',

@@ -19,7 +19,7 @@ import type { Actor } from '../server/policy/policy'
 import { submitReport } from '../server/modules/cases/reports.service'
 import { assignCase, closeCase, dismissReport, proposeFinding, returnFinding, startFieldWork, triageCase } from '../server/modules/cases/case-moves.service'
 import { addCaseNote } from '../server/modules/cases/case-notes.service'
-import { DEMO_REGION_BOX } from './seed-demo-region'
+import { DEMO_REGION_BOX } from './demo-data/region'
 
 /** The demo region's bounding box (every demo and generated location lies inside it). */
 export const DEMO_REGION = DEMO_REGION_BOX

@@ -8,7 +8,7 @@ import type { CaseState, Resolution } from '../../shared/domain/case-lifecycle'
 import { suggestPriority, type Priority } from '../../shared/domain/services'
 import { nearestOffice } from '../../shared/radio/geo'
 import type { caseEvents, cases } from '../../server/db/schema'
-import { DEMO_REGION } from '../seed-demo-cases'
+import { DEMO_REGION_BOX } from '../demo-data/region'
 import type { Draw } from './draw'
 import { walkTo } from './lifecycle-walk'
 import {
@@ -69,8 +69,8 @@ function closedShare(ageDays: number): number {
 export function makeCase(d: Draw, offices: Office[], receivedAt: Date, now: Date, serial: number, recentByOffice: Map<string, string[]>): GeneratedCase {
   const place = d.pick(PLACES)
   const clamp = (v: number, lo: number, hi: number) => Math.min(hi, Math.max(lo, v))
-  const latDeg = clamp(place.latDeg + d.between(-0.06, 0.06), DEMO_REGION.latMinDeg, DEMO_REGION.latMaxDeg)
-  const lonDeg = clamp(place.lonDeg + d.between(-0.09, 0.09), DEMO_REGION.lonMinDeg, DEMO_REGION.lonMaxDeg)
+  const latDeg = clamp(place.latDeg + d.between(-0.06, 0.06), DEMO_REGION_BOX.latMinDeg, DEMO_REGION_BOX.latMaxDeg)
+  const lonDeg = clamp(place.lonDeg + d.between(-0.09, 0.09), DEMO_REGION_BOX.lonMinDeg, DEMO_REGION_BOX.lonMaxDeg)
   const nearest = nearestOffice({ point: { latDeg, lonDeg }, offices: offices.map((o) => ({ id: o.id, latDeg: o.centreLatDeg, lonDeg: o.centreLonDeg })) })
   const office = offices.find((o) => o.id === nearest.id)!
 

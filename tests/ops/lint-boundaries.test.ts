@@ -48,17 +48,41 @@ describe('the import boundaries', () => {
 
   it('refuse a web feature that imports another feature, and let it import itself, web/src/lib and shared/', async () => {
     const found = await problems(
-      'web/src/features/cases/lint-probe.ts',
+      'web/src/features/case-list/lint-probe.ts',
       [
-        `import * as own from './${aModuleOf('cases')}'`,
+        `import * as own from './${aModuleOf('case-list')}'`,
         "import * as apiClient from '../../lib/api-client'",
         "import * as roles from '../../../../shared/domain/roles'",
-        `import * as other from '../auth/${aModuleOf('auth')}'`,
+        `import * as other from '../case-page/${aModuleOf('case-page')}'`,
         'export const probe = [own, apiClient, roles, other]',
         '',
       ].join('\n'),
     )
     expect(found).toEqual([boundary('Web features do not import each other')])
+  })
+
+  it('hold for imports through the @/ (web/src) and @shared/ aliases as for relative ones', async () => {
+    const feature = await problems(
+      'web/src/features/case-list/lint-probe.ts',
+      [
+        `import * as own from '@/features/case-list/${aModuleOf('case-list')}'`,
+        "import * as apiClient from '@/lib/api-client'",
+        "import * as roles from '@shared/domain/roles'",
+        `import * as other from '@/features/case-page/${aModuleOf('case-page')}'`,
+        'export const probe = [own, apiClient, roles, other]',
+        '',
+      ].join('\n'),
+    )
+    expect(feature).toEqual([boundary('Web features do not import each other')])
+    expect(await problems('shared/domain/lint-probe.ts', "import { ApiError } from '@/lib/api-client'\nexport const probe = ApiError\n")).toEqual([
+      boundary('shared/ is isomorphic'),
+    ])
+    expect(await problems('shared/radio/lint-probe.ts', "import * as roles from '@shared/domain/roles'\nexport const probe = roles\n")).toEqual([
+      boundary('shared/radio/ is a self-contained library'),
+    ])
+    expect(await problems('server/lint-probe.ts', "import * as apiClient from '@/lib/api-client'\nexport const probe = apiClient\n")).toEqual([
+      boundary('The server imports nothing from the web app'),
+    ])
   })
 
   it('refuse server/ importing the web app, and the web app importing server/', async () => {
@@ -68,6 +92,31 @@ describe('the import boundaries', () => {
     expect(await problems('web/src/lib/lint-probe.ts', "import * as app from '../../../server/app'\nexport const probe = app\n")).toEqual([
       boundary('The web app talks to the server over HTTP only'),
     ])
+  })
+})
+
+describe('the repository rule', () => {
+  const restricted = (why: string) => ({ rule: '@typescript-eslint/no-restricted-imports', message: expect.stringContaining(why) })
+  const queryImports = [
+    "import { eq } from 'drizzle-orm'",
+    "import { pgTable } from 'drizzle-orm/pg-core'",
+    "import { users } from '../../db/schema'",
+    "import type { User } from '../../db/schema'",
+    'export const probe = [eq, pgTable, users]',
+    'export type Probe = User',
+    '',
+  ].join('\n')
+
+  it('refuses a service that imports drizzle or a table, and lets it import a row type', async () => {
+    expect(await problems('server/modules/auth/lint-probe.service.ts', queryImports)).toEqual([
+      restricted('Services never import drizzle'),
+      restricted('Services never import drizzle'),
+      restricted('Only repos use the tables'),
+    ])
+  })
+
+  it('lets a repo import drizzle and the tables', async () => {
+    expect(await problems('server/modules/auth/lint-probe.repo.ts', queryImports)).toEqual([])
   })
 })
 

@@ -7,14 +7,18 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import request from 'supertest'
-import { createTestContext, DEMO, DEMO_PASSWORD, signedInAgent, uniqueAddress, type TestContext } from '../support/harness'
+import { createTestContext, uniqueAddress, type TestContext } from '../support/harness'
 import { queuedMails, queuedTokens, registerConfirmed } from '../support/accounts'
-import { fileReport } from '../support/cases'
+import { fileReport, validReport } from '../support/cases'
+import { makeOffice, makeUser, reportNear, signIn } from '../support/factories'
+import type { Office } from '../../server/db/schema'
 import { MAX_ACCOUNT_MAILS_PER_HOUR } from '../../server/modules/auth/auth.service'
 
 let t: TestContext
+let office: Office // where this file's reports go, away from every other file's
 beforeAll(async () => {
   t = await createTestContext()
+  office = await makeOffice(t)
 })
 afterAll(() => t.close())
 
@@ -26,7 +30,7 @@ const register = (email: string, password = 'a-long-enough-pass', name = 'Ada Pe
 describe('registration', () => {
   it('answers a new address and an address with an account the same way', async () => {
     const fresh = await register(freshEmail('new'))
-    const taken = await register(DEMO.complainant)
+    const taken = await register((await makeUser(t, { role: 'complainant' })).email)
     expect([fresh.status, taken.status]).toEqual([202, 202])
     expect(taken.body).toEqual(fresh.body)
     expect(taken.body).toEqual({ ok: true })
@@ -116,10 +120,10 @@ describe('a password set from a reset link', () => {
 describe('"My reports" of a confirmed account', () => {
   it('lists the reports filed with its address without signing in, before and after the account was made', async () => {
     const email = freshEmail('reporter')
-    const before = await fileReport(t, { email })
-    const other = await fileReport(t) // someone else's address
+    const before = await fileReport(t, { email, ...reportNear(office) })
+    const other = await fileReport(t, reportNear(office)) // someone else's address
     const { agent } = await registerConfirmed(t, email)
-    const after = await fileReport(t, { email })
+    const after = await fileReport(t, { email, ...reportNear(office) })
     const res = await agent.get('/api/my/reports').expect(200)
     const refs = res.body.reports.map((r: { reference: string }) => r.reference)
     expect(refs.sort()).toEqual([before.reference, after.reference].sort())
@@ -130,15 +134,18 @@ describe('"My reports" of a confirmed account', () => {
 
   it('does not take reports of an address whose account is not confirmed', async () => {
     const email = freshEmail('unconfirmed-reporter')
-    const filed = await fileReport(t, { email })
+    const filed = await fileReport(t, { email, ...reportNear(office) })
     await register(email).expect(202)
     const { rows } = await t.pool.query(`SELECT complainant_user_id FROM cases WHERE id = $1`, [filed.id])
     expect(rows[0].complainant_user_id).toBeNull()
   })
 
-  it('leaves the demo complainant’s own list as it was', async () => {
-    const agent = await signedInAgent(t.app, DEMO.complainant, DEMO_PASSWORD)
+  it('leaves another account’s own list as it was', async () => {
+    const owner = await makeUser(t, { role: 'complainant' })
+    const agent = await signIn(t, owner)
+    const filed = await agent.post('/api/reports').send(validReport({ email: owner.email, ...reportNear(office) })).expect(201)
+    await registerConfirmed(t, freshEmail('newcomer'))
     const res = await agent.get('/api/my/reports').expect(200)
-    expect(res.body.reports.length).toBeGreaterThan(0)
+    expect(res.body.reports.map((r: { reference: string }) => r.reference)).toEqual([filed.body.reference])
   })
 })

@@ -6,13 +6,19 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import request from 'supertest'
-import { createTestContext, DEMO, DEMO_PASSWORD, signedInAgent, uniqueAddress, type TestContext } from '../support/harness'
+import { createTestContext, signedInAgent, uniqueAddress, type TestContext } from '../support/harness'
 import { queuedTokens as queuedLinkTokens, registerConfirmed } from '../support/accounts'
+import { makeOffice, makeUser, signIn, type TestUser } from '../support/factories'
 import { MAX_FAILURES_PER_ACCOUNT, MAX_RESET_MAILS_PER_HOUR } from '../../server/modules/auth/auth.service'
+import type { Office } from '../../server/db/schema'
 
 let t: TestContext
+let office: Office
+let adminUser: TestUser
 beforeAll(async () => {
   t = await createTestContext()
+  office = await makeOffice(t)
+  adminUser = await makeUser(t, { role: 'admin' })
 })
 afterAll(() => t.close())
 
@@ -103,10 +109,9 @@ describe('setting a password from a link', () => {
   })
 
   it('refuses an invitation link once the account has been deactivated', async () => {
-    const admin = await signedInAgent(t.app, DEMO.admin)
-    const { rows } = await t.pool.query(`SELECT id FROM offices WHERE name = 'Harrowmere'`)
+    const admin = await signIn(t, adminUser)
     const email = `invited-${process.pid}-${Date.now()}@quietband.test`
-    const created = await admin.post('/api/admin/users').send({ name: 'Nia Pending', email, role: 'investigator', officeId: rows[0].id }).expect(201)
+    const created = await admin.post('/api/admin/users').send({ name: 'Nia Pending', email, role: 'investigator', officeId: office.id }).expect(201)
     await admin.patch(`/api/admin/users/${created.body.user.id}`).send({ active: false }).expect(200)
     const [token] = await queuedTokens(email)
     const res = await anon().post('/api/auth/set-password').send({ token, password: 'my-own-password' }).expect(400)
@@ -135,7 +140,7 @@ describe('reset e-mails', () => {
 
 describe('a deactivated account', () => {
   it('loses its open sessions at once, and gets them back only by signing in after reactivation', async () => {
-    const admin = await signedInAgent(t.app, DEMO.admin)
+    const admin = await signIn(t, adminUser)
     const email = freshEmail('leaver')
     const { id, agent } = await register(email, 'leaver-password')
     expect((await agent.get('/api/me').expect(200)).body.user.id).toBe(id)
@@ -156,7 +161,7 @@ describe('the origin check', () => {
     ['DELETE', '/api/admin/users/00000000-0000-4000-8000-000000000000', {}],
     ['POST', '/api/cases/00000000-0000-4000-8000-000000000000/close', { version: 1 }],
   ] as const)('refuses %s from another site before anything else runs, even for a signed-in administrator', async (method, path, body) => {
-    const admin = await signedInAgent(t.app, DEMO.admin)
+    const admin = await signIn(t, adminUser)
     const call = admin[method.toLowerCase() as 'put' | 'patch' | 'delete' | 'post'](path)
     const res = await call.set('Origin', 'https://evil.example').send(body)
     expect(res.status).toBe(403)
@@ -164,9 +169,9 @@ describe('the origin check', () => {
   })
 
   it('refuses an opaque origin ("null") and a same-site but not same-origin request', async () => {
-    const a = await anon().post('/api/auth/sign-in').set('Origin', 'null').send({ email: DEMO.admin, password: DEMO_PASSWORD })
+    const a = await anon().post('/api/auth/sign-in').set('Origin', 'null').send({ email: adminUser.email, password: adminUser.password })
     expect(a.status).toBe(403)
-    const b = await anon().post('/api/auth/sign-in').set('Sec-Fetch-Site', 'same-site').send({ email: DEMO.admin, password: DEMO_PASSWORD })
+    const b = await anon().post('/api/auth/sign-in').set('Sec-Fetch-Site', 'same-site').send({ email: adminUser.email, password: adminUser.password })
     expect(b.status).toBe(403)
   })
 

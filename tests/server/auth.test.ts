@@ -1,14 +1,28 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import request from 'supertest'
-import { createTestContext, DEMO, DEMO_PASSWORD, signedInAgent, uniqueAddress, type TestContext } from '../support/harness'
+import { createTestContext, signedInAgent, uniqueAddress, type TestContext } from '../support/harness'
 import { queuedMails, registerConfirmed } from '../support/accounts'
+import { makeOffice, makeUser, signIn, type TestUser } from '../support/factories'
 import { MAX_FAILURES_PER_ACCOUNT } from '../../server/modules/auth/auth.service'
 import { NO_ACCOUNT_ABILITIES } from '../../shared/schemas/auth'
+import type { Role } from '../../shared/domain/roles'
+import type { Office } from '../../server/db/schema'
 
 let t: TestContext
+let office: Office
+/** One account of each role, this file's own (staff of `office`). */
+let user: Record<Role, TestUser>
 beforeAll(async () => {
   t = await createTestContext()
+  office = await makeOffice(t)
+  user = {
+    admin: await makeUser(t, { role: 'admin' }),
+    supervisor: await makeUser(t, { role: 'supervisor', office }),
+    investigator: await makeUser(t, { role: 'investigator', office }),
+    complainant: await makeUser(t, { role: 'complainant' }),
+  }
 })
+const credentials = (role: Role) => ({ email: user[role].email, password: user[role].password })
 afterAll(() => t.close())
 
 const anon = () => request.agent(t.app).set('X-Forwarded-For', uniqueAddress())
@@ -26,32 +40,27 @@ async function linkFromQueuedMail(to: string): Promise<string> {
 }
 
 describe('sign-in', () => {
-  it.each([
-    ['admin', DEMO.admin],
-    ['supervisor', DEMO.supervisor],
-    ['investigator', DEMO.investigator],
-    ['complainant', DEMO.complainant],
-  ])('signs in the demo %s and /api/me returns them with their role', async (role, email) => {
-    const agent = await signedInAgent(t.app, email)
+  it.each(['admin', 'supervisor', 'investigator', 'complainant'] as const)('signs in a %s and /api/me returns them with their role', async (role) => {
+    const agent = await signIn(t, user[role])
     const me = await agent.get('/api/me').expect(200)
-    expect(me.body.user).toMatchObject({ email, role })
-    if (role === 'supervisor' || role === 'investigator') expect(me.body.user.officeName).toBe('Harrowmere')
+    expect(me.body.user).toMatchObject({ email: user[role].email, role })
+    if (role === 'supervisor' || role === 'investigator') expect(me.body.user.officeName).toBe(office.name)
   })
 
   it.each([
-    ['admin', DEMO.admin, { readCases: true, manageUsers: true, manageOffices: true }],
-    ['supervisor', DEMO.supervisor, { runOfficeQueue: true, readCases: true }],
-    ['investigator', DEMO.investigator, { workAssignedCases: true, readCases: true }],
-    ['complainant', DEMO.complainant, { reportAsAccount: true, followOwnReports: true }],
-  ])('tells the signed-in %s what their account may do, and nothing more', async (_role, email, allowed) => {
-    const agent = await signedInAgent(t.app, email)
+    ['admin', { readCases: true, manageUsers: true, manageOffices: true }],
+    ['supervisor', { runOfficeQueue: true, readCases: true }],
+    ['investigator', { workAssignedCases: true, readCases: true }],
+    ['complainant', { reportAsAccount: true, followOwnReports: true }],
+  ] as const)('tells the signed-in %s what their account may do, and nothing more', async (role, allowed) => {
+    const agent = await signIn(t, user[role])
     const me = await agent.get('/api/me').expect(200)
     expect(me.body.abilities).toEqual({ ...NO_ACCOUNT_ABILITIES, ...allowed })
   })
 
   it('gives the same abilities with the sign-in answer as /api/me does afterwards', async () => {
     const agent = anon()
-    const signIn = await agent.post('/api/auth/sign-in').send({ email: DEMO.supervisor, password: DEMO_PASSWORD }).expect(200)
+    const signIn = await agent.post('/api/auth/sign-in').send(credentials('supervisor')).expect(200)
     const me = await agent.get('/api/me').expect(200)
     expect(signIn.body).toEqual(me.body)
     expect(signIn.body.abilities.runOfficeQueue).toBe(true)
@@ -64,18 +73,18 @@ describe('sign-in', () => {
   it('sets an HttpOnly, SameSite=Lax session cookie and a new session id at sign-in', async () => {
     const agent = anon()
     await agent.post('/api/auth/password-reset').send({ email: 'nobody-cookie@example.test' }) // no session created
-    const res = await agent.post('/api/auth/sign-in').send({ email: DEMO.admin, password: DEMO_PASSWORD }).expect(200)
+    const res = await agent.post('/api/auth/sign-in').send(credentials('admin')).expect(200)
     const cookie = res.headers['set-cookie']![0]!
     expect(cookie).toMatch(/^qb\.sid=/)
     expect(cookie).toMatch(/HttpOnly/i)
     expect(cookie).toMatch(/SameSite=Lax/i)
     const first = cookie.split(';')[0]
-    const again = await agent.post('/api/auth/sign-in').send({ email: DEMO.admin, password: DEMO_PASSWORD }).expect(200)
+    const again = await agent.post('/api/auth/sign-in').send(credentials('admin')).expect(200)
     expect(again.headers['set-cookie']![0]!.split(';')[0]).not.toBe(first)
   })
 
   it('answers a wrong password and an unknown account with the same generic 401', async () => {
-    const wrong = await anon().post('/api/auth/sign-in').send({ email: DEMO.investigator, password: 'not-the-password' }).expect(401)
+    const wrong = await anon().post('/api/auth/sign-in').send({ email: user.investigator.email, password: 'not-the-password' }).expect(401)
     const unknown = await anon().post('/api/auth/sign-in').send({ email: 'nobody-at-all@example.test', password: 'not-the-password' }).expect(401)
     expect(wrong.body.error.code).toBe('invalid_credentials')
     expect(wrong.body.error.message).toBe('E-mail or password is not correct.')
@@ -99,7 +108,7 @@ describe('sign-in', () => {
     for (let i = 0; i < 20; i++) {
       await agent.post('/api/auth/sign-in').send({ email: `spray-${i}@example.test`, password: 'guess-guess' }).expect(401)
     }
-    await agent.post('/api/auth/sign-in').send({ email: DEMO.admin, password: DEMO_PASSWORD }).expect(429)
+    await agent.post('/api/auth/sign-in').send(credentials('admin')).expect(429)
   })
 
   it('limits registrations, reset requests and password settings per address (429 after 30 an hour)', async () => {
@@ -110,7 +119,7 @@ describe('sign-in', () => {
   })
 
   it('signs out: /api/me then answers that nobody is signed in', async () => {
-    const agent = await signedInAgent(t.app, DEMO.supervisor)
+    const agent = await signIn(t, user.supervisor)
     await agent.post('/api/auth/sign-out').expect(204)
     expect((await agent.get('/api/me').expect(200)).body).toEqual({ user: null })
   })
@@ -179,11 +188,10 @@ describe('password reset', () => {
 
 describe('staff accounts', () => {
   it('lets an administrator create an investigator, who sets a password from the e-mailed link and signs in', async () => {
-    const admin = await signedInAgent(t.app, DEMO.admin)
-    const { rows } = await t.pool.query(`SELECT id FROM offices WHERE name = 'Kestrel Bay'`)
-    const email = `new.staff.${Date.now()}@quietband.test`
-    const created = await admin.post('/api/admin/users').send({ name: 'Pia Hollow', email, role: 'investigator', officeId: rows[0].id }).expect(201)
-    expect(created.body.user).toMatchObject({ email, role: 'investigator', officeName: 'Kestrel Bay' })
+    const admin = await signIn(t, user.admin)
+    const email = `new.staff.${process.pid}.${Date.now()}@quietband.test`
+    const created = await admin.post('/api/admin/users').send({ name: 'Pia Hollow', email, role: 'investigator', officeId: office.id }).expect(201)
+    expect(created.body.user).toMatchObject({ email, role: 'investigator', officeName: office.name })
     await anon().post('/api/auth/sign-in').send({ email, password: 'anything-at-all' }).expect(401)
     const token = await linkFromQueuedMail(email)
     await anon().post('/api/auth/set-password').send({ token, password: 'my-own-password' }).expect(200)
@@ -192,13 +200,13 @@ describe('staff accounts', () => {
   })
 
   it('refuses an investigator or supervisor without an office', async () => {
-    const admin = await signedInAgent(t.app, DEMO.admin)
+    const admin = await signIn(t, user.admin)
     const res = await admin.post('/api/admin/users').send({ name: 'No Office', email: `no-office-${Date.now()}@quietband.test`, role: 'supervisor', officeId: null }).expect(400)
     expect(res.body.error.details).toEqual([{ path: 'officeId', message: 'Investigators and supervisors belong to an office.' }])
   })
 
   it('deactivated accounts cannot sign in', async () => {
-    const admin = await signedInAgent(t.app, DEMO.admin)
+    const admin = await signIn(t, user.admin)
     const email = `leaver-${Date.now()}@example.test`
     const reg = await registerConfirmed(t, email, 'leaver-password', 'Leaver')
     await anon().post('/api/auth/sign-in').send({ email, password: 'leaver-password' }).expect(200)
@@ -209,16 +217,16 @@ describe('staff accounts', () => {
 
 describe('cross-site protection', () => {
   it('refuses a state-changing request whose Origin is another site', async () => {
-    const res = await anon().post('/api/auth/sign-in').set('Origin', 'https://evil.example').send({ email: DEMO.admin, password: DEMO_PASSWORD }).expect(403)
+    const res = await anon().post('/api/auth/sign-in').set('Origin', 'https://evil.example').send(credentials('admin')).expect(403)
     expect(res.body.error.code).toBe('cross_site_request')
   })
 
   it('accepts the same request from the app’s own origin', async () => {
-    await anon().post('/api/auth/sign-in').set('Origin', 'http://127.0.0.1:3999').send({ email: DEMO.admin, password: DEMO_PASSWORD }).expect(200)
+    await anon().post('/api/auth/sign-in').set('Origin', 'http://127.0.0.1:3999').send(credentials('admin')).expect(200)
   })
 
   it('refuses another site even when the request names that site in its Host header', async () => {
-    const res = await anon().post('/api/auth/sign-in').set('Host', 'evil.example').set('Origin', 'http://evil.example').send({ email: DEMO.admin, password: DEMO_PASSWORD }).expect(403)
+    const res = await anon().post('/api/auth/sign-in').set('Host', 'evil.example').set('Origin', 'http://evil.example').send(credentials('admin')).expect(403)
     expect(res.body.error.code).toBe('cross_site_request')
   })
 

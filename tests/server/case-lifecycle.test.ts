@@ -6,11 +6,19 @@
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
 import pg from 'pg'
 import type request from 'supertest'
-import { createTestContext, DEMO, signedInAgent, type TestContext } from '../support/harness'
-import { caseVersion, createStaff, fileReport, NEAR_HARROWMERE, NEAR_KESTREL_BAY, queuedMails, userId } from '../support/cases'
+import type { Office } from '../../server/db/schema'
+import type { ReportInput } from '../../shared/schemas/cases'
+import { createTestContext, type TestContext } from '../support/harness'
+import { caseVersion, fileReport, queuedMails } from '../support/cases'
+import { makeOffice, makeUser, reportNear, signIn, type Agent, type TestUser } from '../support/factories'
 
 let t: TestContext
-type Agent = Awaited<ReturnType<typeof signedInAgent>>
+let office: Office // this file's own office
+let otherOffice: Office // a neighbour about 5.5 km north, the nearest to transfer to
+let supervisorUser: TestUser
+let investigatorUser: TestUser
+let otherInvestigatorUser: TestUser
+let otherOfficeInvestigatorUser: TestUser
 let supervisor: Agent
 let investigator: Agent
 let otherInvestigator: Agent // same office, not assigned
@@ -20,13 +28,24 @@ let investigatorId: string
 
 beforeAll(async () => {
   t = await createTestContext()
-  supervisor = await signedInAgent(t.app, DEMO.supervisor)
-  investigator = await signedInAgent(t.app, DEMO.investigator)
-  otherInvestigator = await signedInAgent(t.app, 't.nakamura@quietband.test')
-  otherOfficeSupervisor = await signedInAgent(t.app, DEMO.otherSupervisor)
-  admin = await signedInAgent(t.app, DEMO.admin)
-  investigatorId = await userId(t.pool, DEMO.investigator)
+  office = await makeOffice(t)
+  otherOffice = await makeOffice(t, { centreLatDeg: office.centreLatDeg + 0.05, centreLonDeg: office.centreLonDeg })
+  supervisorUser = await makeUser(t, { role: 'supervisor', office })
+  investigatorUser = await makeUser(t, { role: 'investigator', office })
+  otherInvestigatorUser = await makeUser(t, { role: 'investigator', office })
+  otherOfficeInvestigatorUser = await makeUser(t, { role: 'investigator', office: otherOffice })
+  supervisor = await signIn(t, supervisorUser)
+  investigator = await signIn(t, investigatorUser)
+  otherInvestigator = await signIn(t, otherInvestigatorUser)
+  otherOfficeSupervisor = await signIn(t, await makeUser(t, { role: 'supervisor', office: otherOffice }))
+  admin = await signIn(t, await makeUser(t, { role: 'admin' }))
+  investigatorId = investigatorUser.id
 })
+
+/** A report filed beside this file's office (so routed to it), unless a place is given. */
+const fileHere = (over: Partial<ReportInput> = {}) => fileReport(t, { ...reportNear(office), ...over })
+/** A place `northM` metres north of this file's office (1° of latitude is about 111 km). */
+const northOfOffice = (northM: number) => ({ latDeg: office.centreLatDeg + northM / 111_000, lonDeg: office.centreLonDeg })
 afterAll(() => t.close())
 
 const events = async (caseId: string) =>
@@ -37,9 +56,9 @@ async function act(agent: Agent, caseId: string, path: string, body: Record<stri
   return agent.post(`/api/cases/${caseId}/${path}`).send({ version: await caseVersion(t.pool, caseId), ...body })
 }
 
-/** A Harrowmere case moved to a given state along the usual path. */
-async function caseIn(target: 'received' | 'triaged' | 'assigned' | 'field_work' | 'finding_proposed' | 'returned' | 'closed', where: { latDeg: number; lonDeg: number } = NEAR_HARROWMERE) {
-  const f = await fileReport(t, where)
+/** A case of this file's office moved to a given state along the usual path, through the API. */
+async function caseIn(target: 'received' | 'triaged' | 'assigned' | 'field_work' | 'finding_proposed' | 'returned' | 'closed', where: { latDeg: number; lonDeg: number } = reportNear(office)) {
+  const f = await fileHere(where)
   const path: [Agent, string, Record<string, unknown>][] = [
     [supervisor, 'triage', { priority: 2 }],
     [supervisor, 'assign', { investigatorId }],
@@ -82,17 +101,17 @@ describe('the whole path of a case', () => {
       expect.stringContaining('An engineer is looking into your report'),
       expect.stringContaining('Your report is closed'),
     ])
-    const toInvestigator = (await queuedMails(t.pool, DEMO.investigator)).map((m) => m.subject)
+    const toInvestigator = (await queuedMails(t.pool, investigatorUser.email)).map((m) => m.subject)
     expect(toInvestigator).toContainEqual(`[${f.reference}] Assigned to you — priority 2`)
-    const toSupervisor = (await queuedMails(t.pool, DEMO.supervisor)).map((m) => m.subject)
+    const toSupervisor = (await queuedMails(t.pool, supervisorUser.email)).map((m) => m.subject)
     expect(toSupervisor).toContainEqual(`[${f.reference}] Finding ready for your review`)
   })
 
   it('e-mails the investigator when their finding is sent back, with the supervisor’s reason', async () => {
     const f = await caseIn('finding_proposed')
-    const before = (await queuedMails(t.pool, DEMO.investigator)).length
+    const before = (await queuedMails(t.pool, investigatorUser.email)).length
     expect((await act(supervisor, f.id, 'return-finding', { reason: 'Measure at the second site too.' })).status).toBe(200)
-    const mails = await queuedMails(t.pool, DEMO.investigator)
+    const mails = await queuedMails(t.pool, investigatorUser.email)
     expect(mails).toHaveLength(before + 1)
     expect(mails.at(-1)!.subject).toBe(`[${f.reference}] Finding sent back for more work`)
     expect(mails.at(-1)!.text).toContain('Measure at the second site too.')
@@ -117,7 +136,7 @@ describe('the whole path of a case', () => {
 
 describe('reopening a report closed at triage', () => {
   it('returns it to triage, since no investigator had it', async () => {
-    const f = await fileReport(t)
+    const f = await fileHere()
     expect((await act(supervisor, f.id, 'dismiss', { resolution: 'no_interference_found', reason: 'The set-top box was faulty, not the signal.' })).status).toBe(200)
     const res = await act(supervisor, f.id, 'reopen', { reason: 'A second household nearby reports the same.' })
     expect(res.status).toBe(200)
@@ -127,10 +146,10 @@ describe('reopening a report closed at triage', () => {
 
 describe('reopening after the investigator has left', () => {
   it('returns the case to triage without them', async () => {
-    const email = `leaving.investigator.${Date.now()}@quietband.test`
-    const leaverId = await createStaff(t.pool, { email, name: 'Noor Atherley', role: 'investigator', officeName: 'Harrowmere' })
-    const leaver = await signedInAgent(t.app, email)
-    const f = await fileReport(t)
+    const leaverUser = await makeUser(t, { role: 'investigator', office, name: 'Noor Atherley' })
+    const leaverId = leaverUser.id
+    const leaver = await signIn(t, leaverUser)
+    const f = await fileHere()
     expect((await act(supervisor, f.id, 'assign', { investigatorId: leaverId })).status).toBe(200)
     expect((await act(leaver, f.id, 'propose-finding', { reason: 'Nothing found on three visits.' })).status).toBe(200)
     expect((await act(supervisor, f.id, 'close', { resolution: 'no_interference_found', reason: 'We measured three times and found nothing.' })).status).toBe(200)
@@ -147,7 +166,7 @@ describe('moves refused', () => {
     ['assign', { investigatorId: '00000000-0000-4000-8000-000000000000' }],
     ['dismiss', { resolution: 'referred', reason: 'Not ours' }],
   ])('%s by an investigator is 403 and writes nothing', async (path, body) => {
-    const f = await fileReport(t)
+    const f = await fileHere()
     const before = await events(f.id)
     const res = await act(investigator, f.id, path, body)
     expect(res.status).toBe(403)
@@ -157,7 +176,7 @@ describe('moves refused', () => {
   })
 
   it('a move on another office’s case is 404 for its staff, even for a supervisor', async () => {
-    const f = await fileReport(t, NEAR_KESTREL_BAY)
+    const f = await fileReport(t, reportNear(otherOffice))
     const res = await act(supervisor, f.id, 'triage', { priority: 3 })
     expect(res.status).toBe(404)
     expect(res.body.error.code).toBe('case_not_found')
@@ -166,7 +185,7 @@ describe('moves refused', () => {
   })
 
   it('an administrator can read every office’s case but makes no moves', async () => {
-    const f = await fileReport(t)
+    const f = await fileHere()
     await admin.get(`/api/cases/${f.id}`).expect(200)
     expect((await act(admin, f.id, 'triage', { priority: 3 })).status).toBe(403)
   })
@@ -196,7 +215,7 @@ describe('moves refused', () => {
   })
 
   it('a stale version is 409 stale_version', async () => {
-    const f = await fileReport(t)
+    const f = await fileHere()
     await act(supervisor, f.id, 'triage', { priority: 3 })
     const res = await supervisor.post(`/api/cases/${f.id}/triage`).send({ version: 1, priority: 1 })
     expect(res.status).toBe(409)
@@ -205,14 +224,14 @@ describe('moves refused', () => {
   })
 
   it('assigning an investigator of another office is 400 on the field', async () => {
-    const f = await fileReport(t)
-    const res = await act(supervisor, f.id, 'assign', { investigatorId: await userId(t.pool, DEMO.otherInvestigator) })
+    const f = await fileHere()
+    const res = await act(supervisor, f.id, 'assign', { investigatorId: otherOfficeInvestigatorUser.id })
     expect(res.status).toBe(400)
     expect(res.body.error.details[0].path).toBe('investigatorId')
   })
 
   it('a move with missing fields lists them and changes nothing', async () => {
-    const f = await fileReport(t)
+    const f = await fileHere()
     const res = await supervisor.post(`/api/cases/${f.id}/close`).send({})
     expect(res.status).toBe(400)
     expect(res.body.error.details.map((d: { path: string }) => d.path).sort()).toEqual(['reason', 'resolution', 'version'])
@@ -221,22 +240,29 @@ describe('moves refused', () => {
 
 describe('triage work', () => {
   it('transfers a new report to another office, which sees it as new', async () => {
-    const f = await fileReport(t)
-    const { rows } = await t.pool.query(`SELECT id FROM offices WHERE name = 'Kestrel Bay'`)
+    const f = await fileHere()
     const targets = await supervisor.get(`/api/cases/${f.id}/transfer-offices`).expect(200)
-    expect(targets.body.offices).toEqual([{ id: rows[0].id, name: 'Kestrel Bay', distanceM: expect.any(Number) }])
-    expect((await act(supervisor, f.id, 'transfer', { officeId: rows[0].id, reason: 'The site is on the Kestrel Bay side of the ridge.' })).status).toBe(200)
+    // every other office, nearest first: the neighbour 5.5 km away leads, the case's own office is not offered
+    const offered: { id: string; distanceM: number }[] = targets.body.offices
+    expect(offered[0]).toEqual({ id: otherOffice.id, name: otherOffice.name, distanceM: expect.any(Number) })
+    expect(offered[0]!.distanceM).toBeGreaterThan(5_000)
+    expect(offered[0]!.distanceM).toBeLessThan(6_000)
+    expect(offered.map((o) => o.id)).not.toContain(office.id)
+    expect(offered.map((o) => o.distanceM)).toEqual([...offered.map((o) => o.distanceM)].sort((a, b) => a - b))
+    expect((await act(supervisor, f.id, 'transfer', { officeId: otherOffice.id, reason: 'The site is on the other office’s side of the ridge.' })).status).toBe(200)
     await supervisor.get(`/api/cases/${f.id}`).expect(404)
     const seen = await otherOfficeSupervisor.get(`/api/cases/${f.id}`).expect(200)
-    expect(seen.body.case).toMatchObject({ status: 'received', officeName: 'Kestrel Bay', investigatorId: null })
+    expect(seen.body.case).toMatchObject({ status: 'received', officeName: otherOffice.name, investigatorId: null })
   })
 
   it('suggests open cases nearby with an overlapping frequency for merging, and merges', async () => {
-    // a quiet corner of the demo region, away from the other tests' reports
-    const open = await caseIn('assigned', { latDeg: 47.95, lonDeg: -31.72 })
-    const dup = await fileReport(t, { frequencyFrom: 1750, frequencyTo: 1760, latDeg: 47.951, lonDeg: -31.721 })
-    const otherBand = await fileReport(t, { frequencyFrom: 450, frequencyTo: 470, latDeg: 47.9505, lonDeg: -31.7205 })
-    const far = await fileReport(t, { latDeg: 48.05, lonDeg: -31.72 })
+    // a spot of this test's own, 3 km south of the file's office (the other tests file beside it);
+    // the far one 11 km further south, still nearest to this office
+    const spot = (northM: number) => northOfOffice(-3_000 + northM)
+    const open = await caseIn('assigned', spot(0))
+    const dup = await fileHere({ frequencyFrom: 1750, frequencyTo: 1760, ...spot(120) })
+    const otherBand = await fileHere({ frequencyFrom: 450, frequencyTo: 470, ...spot(60) })
+    const far = await fileHere(spot(-11_000))
     const cands = await supervisor.get(`/api/cases/${dup.id}/merge-candidates`).expect(200)
     const refs = cands.body.candidates.map((c: { reference: string }) => c.reference)
     expect(refs).toContain(open.reference)
@@ -249,19 +275,19 @@ describe('triage work', () => {
   })
 
   it('shows each investigator’s open workload for assignment', async () => {
-    const f = await fileReport(t)
+    const f = await fileHere()
     const res = await supervisor.get(`/api/cases/${f.id}/investigators`).expect(200)
     const names = res.body.investigators.map((i: { name: string }) => i.name)
-    expect(names).toEqual(expect.arrayContaining(['Marta Ferreira', 'Tomas Nakamura']))
+    expect(names).toEqual(expect.arrayContaining([investigatorUser.name, otherInvestigatorUser.name]))
     for (const i of res.body.investigators) expect(i.openCases).toEqual(expect.any(Number))
-    // a new investigator of this test's own, so other test files' assignments do not count
-    const email = `workload.${Date.now()}@quietband.test`
-    const newcomerId = await createStaff(t.pool, { email, name: 'Ivo Penhallow', role: 'investigator', officeName: 'Harrowmere' })
-    const open1 = await fileReport(t)
-    const open2 = await fileReport(t)
-    const closed = await fileReport(t)
+    // a new investigator of this test's own, so the file's other assignments do not count
+    const newcomerUser = await makeUser(t, { role: 'investigator', office, name: 'Ivo Penhallow' })
+    const newcomerId = newcomerUser.id
+    const open1 = await fileHere()
+    const open2 = await fileHere()
+    const closed = await fileHere()
     for (const c of [open1, open2, closed]) expect((await act(supervisor, c.id, 'assign', { investigatorId: newcomerId })).status).toBe(200)
-    const newcomer = await signedInAgent(t.app, email)
+    const newcomer = await signIn(t, newcomerUser)
     expect((await act(newcomer, closed.id, 'propose-finding', { reason: 'Nothing there.' })).status).toBe(200)
     expect((await act(supervisor, closed.id, 'close', { resolution: 'no_interference_found', reason: 'Nothing found.' })).status).toBe(200)
     const after = await supervisor.get(`/api/cases/${f.id}/investigators`).expect(200)
@@ -269,7 +295,7 @@ describe('triage work', () => {
   })
 
   it('sends abilities that match the person and the state', async () => {
-    const f = await fileReport(t)
+    const f = await fileHere()
     const sup = (await supervisor.get(`/api/cases/${f.id}`)).body.case.abilities
     const inv = (await investigator.get(`/api/cases/${f.id}`)).body.case.abilities
     expect(sup).toMatchObject({ triage: true, assign: true, dismiss: true, close: false, startFieldWork: false })
@@ -279,11 +305,9 @@ describe('triage work', () => {
 
 describe('two supervisors at once', () => {
   it('exactly one succeeds, the other gets 409, and nothing is half-written', async () => {
-    const secondEmail = `second.supervisor.${Date.now()}@quietband.test`
-    await createStaff(t.pool, { email: secondEmail, name: 'Ruth Calder', role: 'supervisor', officeName: 'Harrowmere' })
-    const second = await signedInAgent(t.app, secondEmail)
+    const second = await signIn(t, await makeUser(t, { role: 'supervisor', office, name: 'Ruth Calder' }))
     for (let round = 0; round < 5; round++) {
-      const f = await fileReport(t)
+      const f = await fileHere()
       const [a, b] = await Promise.all([
         supervisor.post(`/api/cases/${f.id}/triage`).send({ version: 1, priority: 2 }),
         second.post(`/api/cases/${f.id}/assign`).send({ version: 1, investigatorId }),
@@ -301,12 +325,10 @@ describe('two supervisors at once', () => {
 
 describe('two supervisors merge a pair of reports into each other at once', () => {
   it('one merge wins and the other is refused on the field: never both closed as duplicates of each other', async () => {
-    const secondEmail = `merging.supervisor.${Date.now()}@quietband.test`
-    await createStaff(t.pool, { email: secondEmail, name: 'Owen Tarrant', role: 'supervisor', officeName: 'Harrowmere' })
-    const second = await signedInAgent(t.app, secondEmail)
+    const second = await signIn(t, await makeUser(t, { role: 'supervisor', office, name: 'Owen Tarrant' }))
     for (let round = 0; round < 5; round++) {
-      const a = await fileReport(t, { latDeg: 47.93, lonDeg: -31.7 })
-      const b = await fileReport(t, { latDeg: 47.93, lonDeg: -31.7 })
+      const a = await fileHere()
+      const b = await fileHere()
       const [ra, rb] = await Promise.all([
         supervisor.post(`/api/cases/${a.id}/merge`).send({ version: 1, intoCaseId: b.id }),
         second.post(`/api/cases/${b.id}/merge`).send({ version: 1, intoCaseId: a.id }),
@@ -331,20 +353,17 @@ describe('two supervisors merge a pair of reports into each other at once', () =
  * a finding, whatever order concurrent moves take.
  */
 describe('merged reports', () => {
-  const QUIET = { latDeg: 47.97, lonDeg: -31.76 } // a corner of the demo region of these tests' own
   const mergedInto = async (id: string) => (await t.pool.query(`SELECT status, resolution, merged_into_case_id FROM cases WHERE id = $1`, [id])).rows[0]
   const merge = (agent: Agent, from: string, into: string) => agent.post(`/api/cases/${from}/merge`).send({ version: 1, intoCaseId: into })
   const dismiss = (agent: Agent, id: string) => agent.post(`/api/cases/${id}/dismiss`).send({ version: 1, resolution: 'referred', reason: 'A matter for the aviation authority.' })
   let second: Agent
   beforeAll(async () => {
-    const email = `merge.rule.supervisor.${Date.now()}@quietband.test`
-    await createStaff(t.pool, { email, name: 'Petra Hollis', role: 'supervisor', officeName: 'Harrowmere' })
-    second = await signedInAgent(t.app, email)
+    second = await signIn(t, await makeUser(t, { role: 'supervisor', office, name: 'Petra Hollis' }))
   })
 
   it('refuse closing at triage a case that holds merged reports (409), say why, and show no such action', async () => {
-    const a = await fileReport(t, QUIET)
-    const b = await fileReport(t, QUIET)
+    const a = await fileHere()
+    const b = await fileHere()
     expect((await merge(supervisor, a.id, b.id)).status).toBe(200)
     const res = await dismiss(supervisor, b.id)
     expect(res.status).toBe(409)
@@ -356,9 +375,9 @@ describe('merged reports', () => {
   })
 
   it('carry the reports merged into a case along when it is merged in turn', async () => {
-    const a = await fileReport(t, QUIET)
-    const b = await fileReport(t, QUIET)
-    const c = await fileReport(t, QUIET)
+    const a = await fileHere()
+    const b = await fileHere()
+    const c = await fileHere()
     expect((await merge(supervisor, a.id, b.id)).status).toBe(200)
     expect((await merge(supervisor, b.id, c.id)).status).toBe(200)
     expect(await mergedInto(a.id)).toMatchObject({ status: 'closed', resolution: 'duplicate', merged_into_case_id: c.id })
@@ -368,9 +387,9 @@ describe('merged reports', () => {
   })
 
   it('follow the chain: merging into a case merged meanwhile lands on the open case it went to', async () => {
-    const a = await fileReport(t, QUIET)
-    const b = await fileReport(t, QUIET)
-    const c = await fileReport(t, QUIET)
+    const a = await fileHere()
+    const b = await fileHere()
+    const c = await fileHere()
     expect((await merge(supervisor, b.id, c.id)).status).toBe(200)
     const res = await merge(supervisor, a.id, b.id)
     expect(res.status).toBe(200)
@@ -379,8 +398,8 @@ describe('merged reports', () => {
   })
 
   it('refuse a merge into a case closed in any other way (400 on the field)', async () => {
-    const a = await fileReport(t, QUIET)
-    const b = await fileReport(t, QUIET)
+    const a = await fileHere()
+    const b = await fileHere()
     expect((await dismiss(supervisor, b.id)).status).toBe(200)
     const res = await merge(supervisor, a.id, b.id)
     expect(res.status).toBe(400)
@@ -390,8 +409,8 @@ describe('merged reports', () => {
 
   it('under a merge and a dismissal of its target at once: exactly one wins, never a report merged into a dismissed case', async () => {
     for (let round = 0; round < 6; round++) {
-      const a = await fileReport(t, QUIET)
-      const b = await fileReport(t, QUIET)
+      const a = await fileHere()
+      const b = await fileHere()
       const [m, d] = await Promise.all([merge(supervisor, a.id, b.id), dismiss(second, b.id)])
       expect([m.status, d.status].filter((s) => s === 200), JSON.stringify([m.body.error, d.body.error])).toHaveLength(1)
       if (m.status === 200) {
@@ -409,9 +428,9 @@ describe('merged reports', () => {
 
   it('under two merges racing along a chain (A into B, B into C): both succeed and both reports end in C, which stays open', async () => {
     for (let round = 0; round < 6; round++) {
-      const a = await fileReport(t, QUIET)
-      const b = await fileReport(t, QUIET)
-      const c = await fileReport(t, QUIET)
+      const a = await fileHere()
+      const b = await fileHere()
+      const c = await fileHere()
       const [ab, bc] = await Promise.all([merge(supervisor, a.id, b.id), merge(second, b.id, c.id)])
       expect([ab.status, bc.status], JSON.stringify([ab.body.error, bc.body.error])).toEqual([200, 200])
       expect(await mergedInto(a.id)).toMatchObject({ status: 'closed', resolution: 'duplicate', merged_into_case_id: c.id })
@@ -423,7 +442,7 @@ describe('merged reports', () => {
 
 describe('the timeline', () => {
   it('refuses UPDATE and DELETE in the database (the app role has no such right; the trigger stops even the owner)', async () => {
-    const f = await fileReport(t)
+    const f = await fileHere()
     await expect(t.pool.query(`UPDATE case_events SET body = 'changed' WHERE case_id = $1`, [f.id])).rejects.toThrow(/permission denied|append-only/)
     await expect(t.pool.query(`DELETE FROM case_events WHERE case_id = $1`, [f.id])).rejects.toThrow(/permission denied|append-only/)
     const owner = new pg.Client({ connectionString: inject('migrationDatabaseUrl') })

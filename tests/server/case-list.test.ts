@@ -8,33 +8,44 @@ import { caseListQuerySchema } from '../../shared/schemas/cases'
 import { createDb } from '../../server/db/client'
 import { findCasePage } from '../../server/modules/cases/case-list.repo'
 import { notOverdueSql, overdueSql } from '../../server/modules/cases/due'
-import { createTestContext, DEMO, signedInAgent, type TestContext } from '../support/harness'
-import { caseVersion, fileReport, NEAR_KESTREL_BAY, userId } from '../support/cases'
+import type { Office } from '../../server/db/schema'
+import { createTestContext, type TestContext } from '../support/harness'
+import { makeCase, makeOffice, makeUser, signIn, uniqueWord, type Agent, type TestUser } from '../support/factories'
+import type { ReportInput } from '../../shared/schemas/cases'
 
 let t: TestContext
-type Agent = Awaited<ReturnType<typeof signedInAgent>>
+let office: Office
+let adminUser: TestUser
 let supervisor: Agent
 let investigator: Agent
 let admin: Agent
-const tag = `zq${Date.now().toString(36)}` // a word only this file's reports contain
+const tag = uniqueWord('zq') // a word only this file's reports contain
 const made: { id: string; reference: string }[] = []
+/** A report filed in this file's office (routed there, checked). */
+const fileHere = (report: Partial<ReportInput>) => makeCase(t, { office, report })
 
 beforeAll(async () => {
   t = await createTestContext()
-  supervisor = await signedInAgent(t.app, DEMO.supervisor)
-  investigator = await signedInAgent(t.app, DEMO.investigator)
-  admin = await signedInAgent(t.app, DEMO.admin)
+  office = await makeOffice(t)
+  const otherOffice = await makeOffice(t)
+  const supervisorUser = await makeUser(t, { role: 'supervisor', office })
+  const investigatorUser = await makeUser(t, { role: 'investigator', office })
+  adminUser = await makeUser(t, { role: 'admin' })
+  supervisor = await signIn(t, supervisorUser)
+  investigator = await signIn(t, investigatorUser)
+  admin = await signIn(t, adminUser)
   const specs = [
     { service: 'maritime', experience: 'outage', frequencyFrom: 156.8, frequencyTo: undefined },
     { service: 'broadcasting', experience: 'degradation', frequencyFrom: 98.4, frequencyTo: undefined },
     { service: 'licence_exempt', experience: 'nuisance', frequencyFrom: 2.4, frequencyTo: 2.4835, frequencyUnit: 'GHz' },
     { service: 'mobile_network', experience: 'outage', frequencyFrom: 1710, frequencyTo: 1785 },
   ] as const
-  for (const s of specs) made.push(await fileReport(t, { ...s, description: `Case list test ${tag}: ${s.service} trouble every evening.` }))
-  made.push(await fileReport(t, { ...NEAR_KESTREL_BAY, service: 'amateur', experience: 'degradation', description: `Case list test ${tag} at Kestrel Bay.` }))
-  // assign the broadcasting one to the investigator
-  const bc = made[1]!
-  await supervisor.post(`/api/cases/${bc.id}/assign`).send({ version: await caseVersion(t.pool, bc.id), investigatorId: await userId(t.pool, DEMO.investigator) }).expect(200)
+  for (const s of specs) {
+    const report = { ...s, description: `Case list test ${tag}: ${s.service} trouble every evening.` }
+    // the broadcasting one is assigned to the investigator
+    made.push(await makeCase(t, { office, report, ...(s.service === 'broadcasting' ? { state: 'assigned', supervisor: supervisorUser, investigator: investigatorUser } : {}) }))
+  }
+  made.push(await makeCase(t, { office: otherOffice, report: { service: 'amateur', experience: 'degradation', description: `Case list test ${tag} at another office.` } }))
 })
 afterAll(() => t.close())
 
@@ -48,7 +59,7 @@ describe('the case list', () => {
   it('shows staff their own office only, and an administrator every office', async () => {
     const sup = await list(supervisor, '').expect(200)
     expect(sup.body.total).toBe(4)
-    expect(new Set(sup.body.items.map((i: { officeName: string }) => i.officeName))).toEqual(new Set(['Harrowmere']))
+    expect(new Set(sup.body.items.map((i: { officeName: string }) => i.officeName))).toEqual(new Set([office.name]))
     const all = await list(admin, '').expect(200)
     expect(all.body.total).toBe(5)
   })
@@ -95,12 +106,12 @@ describe('the case list', () => {
     expect(res.headers['content-type']).toMatch(/text\/csv/)
     const lines = res.text.trim().split('\r\n')
     expect(lines[0]).toMatch(/^reference,status,priority,service/)
-    expect(lines).toHaveLength(5) // header + the 4 Harrowmere cases, though pageSize was 1
+    expect(lines).toHaveLength(5) // header + the office's 4 cases, though pageSize was 1
     expect(lines[1]).toContain(`"${made[0]!.reference}"`)
   })
 
   it('neutralises spreadsheet formulas in exported free text', async () => {
-    const f = await fileReport(t, { address: '=HYPERLINK("http://evil.example")', description: `Formula test ${tag}x` })
+    const f = await fileHere({ address: '=HYPERLINK("http://evil.example")', description: `Formula test ${tag}x` })
     const res = await supervisor.get(`/api/cases/export.csv?q=${tag}x`).expect(200)
     expect(res.text).toContain(`"'=HYPERLINK(""http://evil.example"")"`)
     expect(res.text).toContain(f.reference)
@@ -110,7 +121,7 @@ describe('the case list', () => {
 describe('the CSV export’s cells', () => {
   it('neutralise spreadsheet formula triggers (@, +) at the start of a cell, and keep quotes and line breaks inside it', async () => {
     const mark = `${tag}csv`
-    const f = await fileReport(t, { name: '@SUM(A1:A9)', address: '+1+cmd|" /C calc"!A0\nback entrance', description: `CSV cell test ${mark}` })
+    const f = await fileHere({ name: '@SUM(A1:A9)', address: '+1+cmd|" /C calc"!A0\nback entrance', description: `CSV cell test ${mark}` })
     const res = await supervisor.get(`/api/cases/export.csv?q=${mark}`).expect(200)
     const [header, line, ...rest] = res.text.split('\r\n')
     expect(header).toMatch(/^reference,/)
@@ -134,9 +145,8 @@ describe('response targets', () => {
   })
 
   it('lets the office’s supervisor change them, and open cases’ due times follow', async () => {
-    const { rows } = await t.pool.query(`SELECT id FROM offices WHERE name = 'Harrowmere'`)
-    const officeId = rows[0].id
-    const f = await fileReport(t, { service: 'broadcasting', experience: 'degradation' }) // priority 3
+    const officeId = office.id
+    const f = await fileHere({ service: 'broadcasting', experience: 'degradation' }) // priority 3
     const res = await supervisor.put(`/api/offices/${officeId}/response-targets`).send({ p1: 2, p2: 12, p3: 48, p4: 200 }).expect(200)
     expect(res.body.office.responseTargetsHours).toEqual({ p1: 2, p2: 12, p3: 48, p4: 200 })
     const { rows: c } = await t.pool.query(`SELECT extract(epoch from (due_at - received_at))::int / 3600 AS h FROM cases WHERE id = $1`, [f.id])
@@ -161,7 +171,7 @@ describe('the list’s total', () => {
     const db = createDb(t.pool)
     const n = await matching()
     const q = caseListQuerySchema.parse({ q: tag, pageSize: '2' })
-    const me = await userId(t.pool, DEMO.admin)
+    const me = adminUser.id
     expect(await findCasePage(db, { all: true }, q, me, new Date(), n)).toMatchObject({ total: n, capped: false })
     const capped = await findCasePage(db, { all: true }, q, me, new Date(), n - 1)
     expect(capped).toMatchObject({ total: n - 1, capped: true })
@@ -194,7 +204,7 @@ describe('overdue, in SQL and in the shared rule', () => {
     const db = createDb(t.pool)
     const open = made[3]!
     await t.pool.query(`UPDATE cases SET due_at = $2 WHERE id = $1`, [open.id, due])
-    const me = await userId(t.pool, DEMO.admin)
+    const me = adminUser.id
     for (const now of instants) {
       const expected = isOverdue('resolution', { status: 'received', dueAt: due }, now)
       const overdue = await findCasePage(db, { all: true }, caseListQuerySchema.parse({ q: tag, overdue: 'true', pageSize: '50' }), me, now)
@@ -207,8 +217,7 @@ describe('overdue, in SQL and in the shared rule', () => {
   })
 
   it('due times recomputed in SQL for new targets equal the shared rule’s', async () => {
-    const { rows } = await t.pool.query(`SELECT id FROM offices WHERE name = 'Harrowmere'`)
-    const officeId = rows[0].id
+    const officeId = office.id
     const targets = { 1: 3, 2: 13, 3: 50, 4: 201 } as const
     await supervisor.put(`/api/offices/${officeId}/response-targets`).send({ p1: 3, p2: 13, p3: 50, p4: 201 }).expect(200)
     try {

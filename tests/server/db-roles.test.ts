@@ -8,8 +8,8 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { inject } from 'vitest'
 import pg from 'pg'
 import PgBoss from 'pg-boss'
-import { createTestContext, DEMO, signedInAgent, type TestContext } from '../support/harness'
-import { fileReport } from '../support/cases'
+import { createTestContext, type TestContext } from '../support/harness'
+import { makeCase, makeOffice, makeUser, signIn, type TestUser } from '../support/factories'
 
 const appUrl = inject('databaseUrl')
 const ownerUrl = inject('migrationDatabaseUrl')
@@ -19,6 +19,8 @@ let app: pg.Pool
 let owner: pg.Pool
 let t: TestContext
 let caseId: string
+/** The supervisor of the case's office (this file's own). */
+let supervisorUser: TestUser
 
 /** Runs `work` as the given pool in a transaction that is always rolled back. */
 async function inRolledBack<T>(pool: pg.Pool, work: (c: pg.PoolClient) => Promise<T>): Promise<T> {
@@ -37,7 +39,9 @@ describe.skipIf(sameRole)('the application database role', () => {
     app = new pg.Pool({ connectionString: appUrl, max: 3 })
     owner = new pg.Pool({ connectionString: ownerUrl, max: 2 })
     t = await createTestContext()
-    caseId = (await fileReport(t)).id
+    const office = await makeOffice(t)
+    supervisorUser = await makeUser(t, { role: 'supervisor', office })
+    caseId = (await makeCase(t, { office })).id
   })
   afterAll(async () => {
     await t?.close()
@@ -106,18 +110,18 @@ describe.skipIf(sameRole)('the application database role', () => {
     })
 
     it('writes the signed-in user as the author of a note, whatever the request body claims', async () => {
-      const supervisor = await signedInAgent(t.app, DEMO.supervisor)
-      const { rows: others } = await owner.query(`SELECT id FROM users WHERE email = $1`, [DEMO.admin])
+      const supervisor = await signIn(t, supervisorUser)
+      const someoneElse = await makeUser(t, { role: 'admin' })
       const body = `Author check ${Date.now()}`
       await supervisor
         .post(`/api/cases/${caseId}/notes`)
-        .send({ body, visibility: 'internal', actorUserId: others[0].id, actorLabel: 'Someone Else', at: '2001-02-03T04:05:06Z' })
+        .send({ body, visibility: 'internal', actorUserId: someoneElse.id, actorLabel: 'Someone Else', at: '2001-02-03T04:05:06Z' })
         .expect(201)
       const { rows } = await owner.query(
         `SELECT e.actor_label = u.name AS labelled_as_author, u.email, e.at > now() - interval '1 minute' AS recent FROM case_events e JOIN users u ON u.id = e.actor_user_id WHERE e.case_id = $1 AND e.body = $2`,
         [caseId, body],
       )
-      expect(rows).toEqual([{ labelled_as_author: true, email: DEMO.supervisor, recent: true }])
+      expect(rows).toEqual([{ labelled_as_author: true, email: supervisorUser.email, recent: true }])
     })
   })
 

@@ -6,6 +6,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { CASE_STATES } from '../../shared/domain/case-lifecycle'
 import { DEMO_CASES, DEMO_REGION } from '../../ops/seed-demo-cases'
+import { DEMO_USERS } from '../../ops/seed-demo'
 import { createTestContext, DEMO, signedInAgent, type TestContext } from '../support/harness'
 
 interface DemoRow {
@@ -113,5 +114,13 @@ describe('the demo cases', () => {
       expect(d.lon_deg, d.reference).toBeGreaterThanOrEqual(DEMO_REGION.lonMinDeg)
       expect(d.lon_deg, d.reference).toBeLessThanOrEqual(DEMO_REGION.lonMaxDeg)
     }
+  })
+})
+
+describe('the demo accounts', () => {
+  it.each(DEMO_USERS.map((u) => [u.email, u.role, u.office] as const))('%s signs in with the demo password as %s of %s', async (email, role, office) => {
+    const agent = await signedInAgent(t.app, email)
+    const me = await agent.get('/api/me').expect(200)
+    expect(me.body.user).toMatchObject({ email, role, officeName: office })
   })
 })

@@ -1,6 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import request from 'supertest'
 import { createTestContext, type TestContext } from '../support/harness'
+import { makeUser, signIn } from '../support/factories'
 
 let t: TestContext
 beforeAll(async () => {
@@ -33,8 +34,7 @@ describe('the one error shape', () => {
   })
 
   it('answers a malformed id with 400 and the field named', async () => {
-    const { signedInAgent, DEMO } = await import('../support/harness')
-    const admin = await signedInAgent(t.app, DEMO.admin)
+    const admin = await signIn(t, await makeUser(t, { role: 'admin' }))
     const res = await admin.get('/api/offices/not-a-uuid').expect(400)
     expect(res.body.error.details[0].path).toBe('id')
   })

@@ -7,18 +7,17 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import request from 'supertest'
-import { createTestContext, DEMO, signedInAgent, uniqueAddress, type TestContext } from '../support/harness'
+import { createTestContext, uniqueAddress, type TestContext } from '../support/harness'
 import { listRoutes } from '../support/routes'
-import { caseVersion, fileReport, userId, validReport } from '../support/cases'
+import { caseVersion, fileReport, validReport } from '../support/cases'
+import { makeOffice, makeUser, reportNear, signIn, type TestUser } from '../support/factories'
+import type { Office } from '../../server/db/schema'
 
 type Who = 'anonymous' | 'complainant' | 'investigator' | 'supervisor' | 'admin'
 const WHO: Who[] = ['anonymous', 'complainant', 'investigator', 'supervisor', 'admin']
-const ACCOUNT: Record<Exclude<Who, 'anonymous'>, string> = {
-  complainant: DEMO.complainant,
-  investigator: DEMO.investigator,
-  supervisor: DEMO.supervisor,
-  admin: DEMO.admin,
-}
+/** This file's own accounts (made in beforeAll); the staff belong to its own office. */
+let ACCOUNT: Record<Exclude<Who, 'anonymous'>, TestUser>
+let ownOffice: Office
 type Agent = ReturnType<typeof request.agent>
 
 /** Values put in place of one field at a time. */
@@ -75,7 +74,7 @@ interface Ids {
   otherOfficeId: string
   investigatorId: string
   throwawayUserId: string
-  /** An open Harrowmere case that merges are pointed at. */
+  /** An open case of the own office that merges are pointed at. */
   mergeTargetId: string
 }
 
@@ -98,29 +97,39 @@ let complainant: Agent
 
 beforeAll(async () => {
   t = await createTestContext()
-  const { rows: offices } = await t.pool.query(`SELECT id, name FROM offices`)
+  ownOffice = await makeOffice(t)
+  const otherOffice = await makeOffice(t)
+  ACCOUNT = {
+    complainant: await makeUser(t, { role: 'complainant' }),
+    investigator: await makeUser(t, { role: 'investigator', office: ownOffice }),
+    supervisor: await makeUser(t, { role: 'supervisor', office: ownOffice }),
+    admin: await makeUser(t, { role: 'admin' }),
+  }
   const throwawayEmail = `fuzz-throwaway-${process.pid}-${Date.now()}@example.test`
   await request(t.app)
     .post('/api/auth/register')
     .set('X-Forwarded-For', uniqueAddress())
     .send({ name: 'Fuzz Throwaway', email: throwawayEmail, password: 'a-long-enough-pass' })
     .expect(202)
-  supervisor = await signedInAgent(t.app, DEMO.supervisor)
-  investigator = await signedInAgent(t.app, DEMO.investigator)
-  complainant = await signedInAgent(t.app, DEMO.complainant)
+  supervisor = await signIn(t, ACCOUNT.supervisor)
+  investigator = await signIn(t, ACCOUNT.investigator)
+  complainant = await signIn(t, ACCOUNT.complainant)
   ids = {
-    ownOfficeId: offices.find((o) => o.name === 'Harrowmere').id,
-    otherOfficeId: offices.find((o) => o.name === 'Kestrel Bay').id,
-    investigatorId: await userId(t.pool, DEMO.investigator),
+    ownOfficeId: ownOffice.id,
+    otherOfficeId: otherOffice.id,
+    investigatorId: ACCOUNT.investigator.id,
     throwawayUserId: (await t.pool.query(`SELECT id FROM users WHERE email = $1`, [throwawayEmail])).rows[0].id,
-    mergeTargetId: (await fileReport(t)).id,
+    mergeTargetId: (await fileHere()).id,
   }
 })
 afterAll(() => t.close())
 
-/** A fresh Harrowmere case moved to `state` along the usual path. */
+/** A report filed beside this file's own office. */
+const fileHere = () => fileReport(t, reportNear(ownOffice))
+
+/** A fresh case of the own office moved to `state` along the usual path. */
 async function caseIn(state: CaseState): Promise<string> {
-  const f = await fileReport(t)
+  const f = await fileHere()
   const move = async (agent: Agent, path: string, body: Record<string, unknown>) =>
     agent.post(`/api/cases/${f.id}/${path}`).send({ version: await caseVersion(t.pool, f.id), ...body }).expect(200)
   if (state === 'received') return f.id
@@ -147,7 +156,7 @@ function caseRow(sub: string, state: CaseState, body: () => Record<string, unkno
   }
 }
 
-/** A complainant route: through a tracking link, or as the signed-in demo complainant. */
+/** A complainant route: through a tracking link, or as this file's signed-in complainant. */
 function complainantRow(route: string, body: Record<string, unknown>): FuzzRow {
   let target: string | undefined
   const viaLink = route.includes(':token')
@@ -155,9 +164,9 @@ function complainantRow(route: string, body: Record<string, unknown>): FuzzRow {
     route,
     async path(renew) {
       if (!target || renew) {
-        if (viaLink) target = (await fileReport(t)).trackingToken
+        if (viaLink) target = (await fileHere()).trackingToken
         else {
-          const res = await complainant.post('/api/reports').set('X-Forwarded-For', uniqueAddress()).send(validReport({ email: DEMO.complainant })).expect(201)
+          const res = await complainant.post('/api/reports').set('X-Forwarded-For', uniqueAddress()).send(validReport({ email: ACCOUNT.complainant.email, ...reportNear(ownOffice) })).expect(201)
           target = (await t.pool.query(`SELECT id FROM cases WHERE reference = $1`, [res.body.reference])).rows[0].id
         }
       }
@@ -184,7 +193,7 @@ const FUZZ: FuzzRow[] = [
   fixed('PATCH /api/admin/users/:id', () => `/api/admin/users/${ids.throwawayUserId}`, () => ({ active: true })),
   // the office's own targets: no single odd field below makes a valid set, so nothing changes
   fixed('PUT /api/offices/:id/response-targets', () => `/api/offices/${ids.ownOfficeId}/response-targets`, () => ({ p1: 4, p2: 24, p3: 72, p4: 240 })),
-  fixed('POST /api/reports', () => '/api/reports', () => validReport() as unknown as Record<string, unknown>),
+  fixed('POST /api/reports', () => '/api/reports', () => validReport(reportNear(ownOffice)) as unknown as Record<string, unknown>),
   complainantRow('POST /api/track/:token/information', { body: 'Still there at night.' }),
   complainantRow('POST /api/track/:token/withdraw', { reason: 'It stopped.' }),
   complainantRow('POST /api/my/reports/:id/information', { body: 'Also in the mornings.' }),
@@ -203,7 +212,7 @@ const FUZZ: FuzzRow[] = [
 ]
 
 async function agentFor(who: Who): Promise<Agent> {
-  return who === 'anonymous' ? request.agent(t.app) : signedInAgent(t.app, ACCOUNT[who])
+  return who === 'anonymous' ? request.agent(t.app) : signIn(t, ACCOUNT[who])
 }
 
 /** Sends one request and checks it: a known status below 500, and the one error body. */
@@ -291,13 +300,13 @@ describe('odd ids in paths', () => {
   })
 
   it('a 36-character id that is not a uuid is no case (404 case_not_found), not a database error', async () => {
-    const supervisor = await signedInAgent(t.app, DEMO.supervisor)
+    const supervisor = await signIn(t, ACCOUNT.supervisor)
     for (const id of ['a'.repeat(36), '-'.repeat(36), 'abcdef01-2345-6789-abcd-ef01234567-x']) {
       const res = await supervisor.get(`/api/cases/${id}`)
       expect(res.status, id).toBe(404)
       expect(res.body.error.code).toBe('case_not_found')
     }
-    const complainant = await signedInAgent(t.app, DEMO.complainant)
+    const complainant = await signIn(t, ACCOUNT.complainant)
     const mine = await complainant.get(`/api/my/reports/${'b'.repeat(36)}`)
     expect(mine.status).toBe(404)
     expect(mine.body.error.code).toBe('case_not_found')
@@ -345,7 +354,7 @@ describe('odd query strings on the case list and its export', () => {
   })
 
   it('answers a repeated scalar parameter with 400 validation_failed', async () => {
-    const supervisor = await signedInAgent(t.app, DEMO.supervisor)
+    const supervisor = await signIn(t, ACCOUNT.supervisor)
     for (const q of ['page=1&page=2', 'q=a&q=b', 'sort=priority&sort=status']) {
       const res = await supervisor.get(`/api/cases?${q}`)
       expect(res.status, q).toBe(400)
@@ -361,8 +370,8 @@ describe('text that cannot be stored', () => {
     expect(report.body.error.details).toEqual([{ path: 'description', message: expect.stringContaining('U+0000') }])
     expect((await t.pool.query(`SELECT count(*)::int AS n FROM cases WHERE description LIKE 'Hum on the line%'`)).rows[0].n).toBe(0)
 
-    const f = await fileReport(t)
-    const supervisor = await signedInAgent(t.app, DEMO.supervisor)
+    const f = await fileHere()
+    const supervisor = await signIn(t, ACCOUNT.supervisor)
     const note = await supervisor.post(`/api/cases/${f.id}/notes`).send({ body: 'a\u0000b', visibility: 'internal' })
     expect(note.status).toBe(400)
     expect(note.body.error.details[0].path).toBe('body')
@@ -377,12 +386,12 @@ describe('text that cannot be stored', () => {
   })
 
   it('refuses a lone UTF-16 surrogate in text that is e-mailed (a withdrawal, a message) with 400 on the field, and changes nothing', async () => {
-    const f = await fileReport(t)
+    const f = await fileHere()
     const withdraw = await request(t.app).post(`/api/track/${f.trackingToken}/withdraw`).send({ reason: 'It stopped \ud83d' })
     expect(withdraw.status).toBe(400)
     expect(withdraw.body.error.details).toEqual([{ path: 'reason', message: expect.stringContaining('broken character') }])
     expect((await t.pool.query(`SELECT status FROM cases WHERE id = $1`, [f.id])).rows[0].status).toBe('received')
-    const supervisor = await signedInAgent(t.app, DEMO.supervisor)
+    const supervisor = await signIn(t, ACCOUNT.supervisor)
     const message = await supervisor.post(`/api/cases/${f.id}/notes`).send({ body: '\udc00 When can we visit?', visibility: 'complainant' })
     expect(message.status).toBe(400)
     expect(message.body.error.details[0].path).toBe('body')

@@ -1,15 +1,22 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import request from 'supertest'
-import { createTestContext, DEMO, signedInAgent, uniqueAddress, type TestContext } from '../support/harness'
-import { fileReport, NEAR_KESTREL_BAY, queuedMails, validReport } from '../support/cases'
+import { createTestContext, uniqueAddress, type TestContext } from '../support/harness'
+import { fileReport, queuedMails, validReport } from '../support/cases'
+import { FAR_FROM_EVERY_TEST_OFFICE, makeOffice, makeUser, reportNear, signIn } from '../support/factories'
+import type { Office } from '../../server/db/schema'
 import { ADDITIONS_PER_HOUR_PER_CASE } from '../../server/modules/cases/case-notes.service'
 import { TRACKING_GUESSES_PER_HOUR_PER_ADDRESS } from '../../server/modules/cases/public.routes'
 import { FAR_FROM_EVERY_OFFICE_M } from '../../server/modules/cases/reports.service'
 
 let t: TestContext
+let office: Office // this file's own office: only its reports arrive there
 beforeAll(async () => {
   t = await createTestContext()
+  office = await makeOffice(t)
 })
+/** A report filed beside this file's office. */
+const fileHere = (over: Parameters<typeof validReport>[0] = {}) => fileReport(t, { ...reportNear(office), ...over })
+const officeOf = async (caseId: string) => (await t.pool.query(`SELECT office_id FROM cases WHERE id = $1`, [caseId])).rows[0].office_id as string
 afterAll(() => t.close())
 
 const post = (body: unknown) => request(t.app).post('/api/reports').set('X-Forwarded-For', uniqueAddress()).send(body as object)
@@ -18,7 +25,7 @@ const casesFrom = async (email: string) => (await t.pool.query(`SELECT count(*):
 
 describe('filing a report', () => {
   it('gives a reference of Quietband’s format and e-mails a private tracking link', async () => {
-    const f = await fileReport(t)
+    const f = await fileHere()
     expect(f.reference).toMatch(/^QB-\d{2}-\d{6}$/)
     const mails = await queuedMails(t.pool, f.email)
     expect(mails).toHaveLength(1)
@@ -29,12 +36,15 @@ describe('filing a report', () => {
   })
 
   it('routes to the nearest office by geodesic distance', async () => {
-    const near = await fileReport(t, NEAR_KESTREL_BAY)
-    const { rows } = await t.pool.query(`SELECT o.name FROM cases c JOIN offices o ON o.id = c.office_id WHERE c.id = $1`, [near.id])
-    expect(rows[0].name).toBe('Kestrel Bay')
-    const far = await fileReport(t)
-    const r2 = await t.pool.query(`SELECT o.name FROM cases c JOIN offices o ON o.id = c.office_id WHERE c.id = $1`, [far.id])
-    expect(r2.rows[0].name).toBe('Harrowmere')
+    // two offices 0.5° of latitude apart (about 55 km); a place 0.1° from one is nearer to it
+    const south = await makeOffice(t)
+    const north = await makeOffice(t, { centreLatDeg: south.centreLatDeg + 0.5, centreLonDeg: south.centreLonDeg })
+    const at = (latDeg: number) => ({ latDeg, lonDeg: south.centreLonDeg + 0.05 })
+    expect(await officeOf((await fileReport(t, at(south.centreLatDeg + 0.1))).id)).toBe(south.id)
+    expect(await officeOf((await fileReport(t, at(south.centreLatDeg + 0.4))).id)).toBe(north.id)
+    // just either side of the midway line
+    expect(await officeOf((await fileReport(t, at(south.centreLatDeg + 0.249))).id)).toBe(south.id)
+    expect(await officeOf((await fileReport(t, at(south.centreLatDeg + 0.251))).id)).toBe(north.id)
   })
 
   it.each([
@@ -44,22 +54,25 @@ describe('filing a report', () => {
     ['broadcasting', 'degradation', 3],
     ['licence_exempt', 'outage', 4],
   ] as const)('suggests priority for %s with %s as %i', async (service, experience, priority) => {
-    const f = await fileReport(t, { service, experience })
+    const f = await fileHere({ service, experience })
     const { rows } = await t.pool.query(`SELECT priority, suggested_priority FROM cases WHERE id = $1`, [f.id])
     expect(rows[0]).toEqual({ priority, suggested_priority: priority })
   })
 
   it('e-mails the office’s supervisors at once about a safety-of-life report', async () => {
-    const before = (await queuedMails(t.pool, DEMO.supervisor)).length
-    await fileReport(t, { service: 'aeronautical', experience: 'degradation' })
-    const after = await queuedMails(t.pool, DEMO.supervisor)
+    const supervisor = await makeUser(t, { role: 'supervisor', office })
+    const before = (await queuedMails(t.pool, supervisor.email)).length
+    const f = await fileHere({ service: 'aeronautical', experience: 'degradation' })
+    const after = await queuedMails(t.pool, supervisor.email)
     expect(after.length).toBe(before + 1)
     expect(after.at(-1)!.subject).toMatch(/Priority 1/)
+    expect(after.at(-1)!.subject).toContain(f.reference)
   })
 
   it('links the report to a signed-in complainant, who sees it in their reports', async () => {
-    const agent = await signedInAgent(t.app, DEMO.complainant)
-    const res = await agent.post('/api/reports').send(validReport({ email: DEMO.complainant })).expect(201)
+    const complainant = await makeUser(t, { role: 'complainant' })
+    const agent = await signIn(t, complainant)
+    const res = await agent.post('/api/reports').send(validReport({ email: complainant.email, ...reportNear(office) })).expect(201)
     const mine = await agent.get('/api/my/reports').expect(200)
     expect(mine.body.reports.map((r: { reference: string }) => r.reference)).toContain(res.body.reference)
   })
@@ -149,7 +162,7 @@ describe('numbers, dates and places in a report', () => {
   })
 
   it(`files a report far from every office (over ${FAR_FROM_EVERY_OFFICE_M / 1000} km) but warns the reporter and flags the case`, async () => {
-    const report = validReport({ latDeg: -33.86, lonDeg: 151.21 }) // the other side of the world
+    const report = validReport(FAR_FROM_EVERY_TEST_OFFICE) // far in the north, away from the demo region and every test office
     const res = await post(report).expect(201)
     expect(res.body.warnings).toEqual([{ code: 'far_from_offices', path: 'latDeg', message: expect.stringMatching(/^The place you gave is \d+ km from our nearest field office/) }])
     const { rows } = await t.pool.query(`SELECT e.kind, e.visibility, e.body FROM case_events e JOIN cases c ON c.id = e.case_id WHERE c.reference = $1 AND e.kind = 'far_from_offices'`, [res.body.reference])
@@ -157,15 +170,15 @@ describe('numbers, dates and places in a report', () => {
   })
 
   it('gives no warning for a report near an office', async () => {
-    const res = await post(validReport()).expect(201)
+    const res = await post(validReport(reportNear(office))).expect(201)
     expect(res.body.warnings).toEqual([])
   })
 })
 
 describe('tracking links', () => {
   it('open the complainant’s own report and never another one', async () => {
-    const a = await fileReport(t)
-    const b = await fileReport(t)
+    const a = await fileHere()
+    const b = await fileHere()
     const ra = await request(t.app).get(`/api/track/${a.trackingToken}`).expect(200)
     const rb = await request(t.app).get(`/api/track/${b.trackingToken}`).expect(200)
     expect(ra.body.report.reference).toBe(a.reference)
@@ -179,33 +192,34 @@ describe('tracking links', () => {
   it('answer 404 for an unknown or revoked token', async () => {
     const res = await request(t.app).get(`/api/track/${'A'.repeat(43)}`).expect(404)
     expect(res.body.error.code).toBe('tracking_not_found')
-    const f = await fileReport(t)
+    const f = await fileHere()
     await t.pool.query(`UPDATE case_tracking_tokens SET revoked_at = now() WHERE case_id = $1`, [f.id])
     await request(t.app).get(`/api/track/${f.trackingToken}`).expect(404)
   })
 
   it('show the complainant no internal notes and no staff names', async () => {
-    const f = await fileReport(t)
-    const sup = await signedInAgent(t.app, DEMO.supervisor)
+    const f = await fileHere()
+    const supervisor = await makeUser(t, { role: 'supervisor', office, name: 'Sade Okafor' })
+    const sup = await signIn(t, supervisor)
     await sup.post(`/api/cases/${f.id}/notes`).send({ body: 'Internal: likely the marina amplifier', visibility: 'internal' }).expect(201)
     const view = await request(t.app).get(`/api/track/${f.trackingToken}`).expect(200)
     const text = JSON.stringify(view.body)
     expect(text).not.toContain('marina amplifier')
-    expect(text).not.toContain('Sade Okafor')
+    expect(text).not.toContain(supervisor.name)
   })
 
   it('and the staff case page are never stored by a browser or a proxy (Cache-Control: no-store)', async () => {
-    const f = await fileReport(t)
+    const f = await fileHere()
     const view = await request(t.app).get(`/api/track/${f.trackingToken}`).expect(200)
     expect(view.headers['cache-control']).toBe('no-store')
-    const sup = await signedInAgent(t.app, DEMO.supervisor)
+    const sup = await signIn(t, await makeUser(t, { role: 'supervisor', office }))
     expect((await sup.get(`/api/cases/${f.id}`).expect(200)).headers['cache-control']).toBe('no-store')
     expect((await sup.get('/api/cases/export.csv').expect(200)).headers['cache-control']).toBe('no-store')
     expect((await request(t.app).get(`/api/track/${'A'.repeat(43)}`).expect(404)).headers['cache-control']).toBe('no-store')
   })
 
   it('let the complainant withdraw once; a second withdrawal is 409 invalid_transition', async () => {
-    const f = await fileReport(t)
+    const f = await fileHere()
     const res = await request(t.app).post(`/api/track/${f.trackingToken}/withdraw`).send({ reason: 'It stopped' }).expect(200)
     expect(res.body.report).toMatchObject({ step: 'closed', resolution: 'withdrawn' })
     const again = await request(t.app).post(`/api/track/${f.trackingToken}/withdraw`).send({}).expect(409)
@@ -215,7 +229,7 @@ describe('tracking links', () => {
 
 describe('tracking links under abuse', () => {
   it(`refuse an address with 429 after ${TRACKING_GUESSES_PER_HOUR_PER_ADDRESS} links that do not open, while other addresses are served`, async () => {
-    const f = await fileReport(t)
+    const f = await fileHere()
     const address = uniqueAddress()
     const guess = (token: string) => request(t.app).get(`/api/track/${token}`).set('X-Forwarded-For', address)
     // opening a good link does not count
@@ -229,7 +243,7 @@ describe('tracking links under abuse', () => {
   })
 
   it(`take ${ADDITIONS_PER_HOUR_PER_CASE} additions per case per hour, then answer 429 and store nothing more`, async () => {
-    const f = await fileReport(t)
+    const f = await fileHere()
     const add = (i: number) => request(t.app).post(`/api/track/${f.trackingToken}/information`).set('X-Forwarded-For', uniqueAddress()).send({ body: `Addition ${i}: ${'x'.repeat(4000 - 20)}` })
     for (let i = 0; i < ADDITIONS_PER_HOUR_PER_CASE; i++) await add(i).expect(201)
     const refused = await add(99).expect(429)
@@ -239,7 +253,7 @@ describe('tracking links under abuse', () => {
   })
 
   it('hold the additions limit when many arrive at once', async () => {
-    const f = await fileReport(t)
+    const f = await fileHere()
     const results = await Promise.all(
       Array.from({ length: ADDITIONS_PER_HOUR_PER_CASE + 8 }, (_, i) => request(t.app).post(`/api/track/${f.trackingToken}/information`).set('X-Forwarded-For', uniqueAddress()).send({ body: `Parallel ${i}` })),
     )
@@ -252,14 +266,17 @@ describe('tracking links under abuse', () => {
 
 describe('the complainant’s view through a whole case', () => {
   it('carries only the report, plain steps, messages meant for them and the closing summary — no internal text, staff names or staff addresses', async () => {
-    const sup = await signedInAgent(t.app, DEMO.supervisor)
-    const inv = await signedInAgent(t.app, DEMO.investigator)
-    const complainant = await signedInAgent(t.app, DEMO.complainant)
-    const filed = await complainant.post('/api/reports').set('X-Forwarded-For', uniqueAddress()).send(validReport({ email: DEMO.complainant, phone: '+99 555 0101' })).expect(201)
+    const supervisorUser = await makeUser(t, { role: 'supervisor', office, name: 'Sade Okafor' })
+    const investigatorUser = await makeUser(t, { role: 'investigator', office, name: 'Marta Ferreira' })
+    const complainantUser = await makeUser(t, { role: 'complainant' })
+    const sup = await signIn(t, supervisorUser)
+    const inv = await signIn(t, investigatorUser)
+    const complainant = await signIn(t, complainantUser)
+    const filed = await complainant.post('/api/reports').set('X-Forwarded-For', uniqueAddress()).send(validReport({ email: complainantUser.email, phone: '+99 555 0101', ...reportNear(office) })).expect(201)
     const { rows } = await t.pool.query(`SELECT id FROM cases WHERE reference = $1`, [filed.body.reference])
     const id: string = rows[0].id
     const token = /\/track\/([A-Za-z0-9_-]+)$/.exec(filed.body.trackingUrl)![1]!
-    const investigatorId = (await t.pool.query(`SELECT id FROM users WHERE email = $1`, [DEMO.investigator])).rows[0].id
+    const investigatorId = investigatorUser.id
     const version = async () => (await t.pool.query(`SELECT version FROM cases WHERE id = $1`, [id])).rows[0].version
     const move = async (agent: typeof sup, path: string, body: object) => agent.post(`/api/cases/${id}/${path}`).send({ version: await version(), ...body }).expect(200)
 
@@ -282,7 +299,7 @@ describe('the complainant’s view through a whole case', () => {
     )
     const text = JSON.stringify(byLink)
     expect(text).not.toMatch(/INTERNAL-/)
-    for (const staff of ['Sade Okafor', 'Marta Ferreira', DEMO.supervisor, DEMO.investigator]) expect(text).not.toContain(staff)
+    for (const staff of [supervisorUser.name, investigatorUser.name, supervisorUser.email, investigatorUser.email]) expect(text).not.toContain(staff)
     expect(text).not.toContain(investigatorId)
     expect(text).toContain('Can we visit on Tuesday?')
     expect(text).toContain('The faulty amplifier was replaced.')

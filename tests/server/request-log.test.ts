@@ -1,8 +1,8 @@
 import { PassThrough } from 'node:stream'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import request from 'supertest'
-import { createTestContext, DEMO, DEMO_PASSWORD, signedInAgent, uniqueAddress, type TestContext } from '../support/harness'
-import { fileReport } from '../support/cases'
+import { createTestContext, uniqueAddress, type TestContext } from '../support/harness'
+import { makeCase, makeOffice, makeUser, signIn } from '../support/factories'
 import { createLogger } from '../../server/log/logger'
 import { loggablePath, REDACTED, requestLog } from '../../server/http/request-log'
 import express from 'express'
@@ -31,12 +31,12 @@ describe('the request log', () => {
   })
 
   it('names the signed-in user by id, never by e-mail', async () => {
-    const agent = await signedInAgent(t.app, DEMO.supervisor)
+    const supervisor = await makeUser(t, { role: 'supervisor', office: await makeOffice(t) })
+    const agent = await signIn(t, supervisor)
     const res = await agent.get('/api/cases?pageSize=1').expect(200)
     const line = lineFor(res.headers['x-request-id'] as string)!
-    const { rows } = await t.pool.query(`SELECT id FROM users WHERE email = $1`, [DEMO.supervisor])
-    expect(line.userId).toBe(rows[0].id)
-    expect(JSON.stringify(line)).not.toContain(DEMO.supervisor)
+    expect(line.userId).toBe(supervisor.id)
+    expect(JSON.stringify(line)).not.toContain(supervisor.email)
   })
 
   it('logs client errors as warnings', async () => {
@@ -46,14 +46,16 @@ describe('the request log', () => {
 
   it('never writes a password, a session cookie or a tracking link', async () => {
     const agent = request.agent(t.app).set('X-Forwarded-For', uniqueAddress())
-    const signIn = await agent.post('/api/auth/sign-in').send({ email: DEMO.investigator, password: DEMO_PASSWORD }).expect(200)
-    const cookie = String(signIn.headers['set-cookie']).split(';')[0]!.split('=')[1]!
-    const report = await fileReport(t)
+    const office = await makeOffice(t)
+    const investigator = await makeUser(t, { role: 'investigator', office })
+    const signedIn = await agent.post('/api/auth/sign-in').send({ email: investigator.email, password: investigator.password }).expect(200)
+    const cookie = String(signedIn.headers['set-cookie']).split(';')[0]!.split('=')[1]!
+    const report = await makeCase(t, { office })
     const tracked = await request(t.app).get(`/api/track/${report.trackingToken}?token=${report.trackingToken}`).set('X-Forwarded-For', uniqueAddress())
     expect(tracked.status).toBe(200)
     const line = lineFor(tracked.headers['x-request-id'] as string)!
     expect((line.req as { path: string }).path).toBe(`/api/track/${REDACTED}?token=${REDACTED}`)
-    expect(raw).not.toContain(DEMO_PASSWORD)
+    expect(raw).not.toContain(investigator.password)
     expect(raw).not.toContain(decodeURIComponent(cookie))
     expect(raw).not.toContain(report.trackingToken)
   })

@@ -8,18 +8,14 @@ import request from 'supertest'
 import fs from 'node:fs'
 import os from 'node:os'
 import path from 'node:path'
-import { createTestContext, DEMO, signedInAgent, uniqueAddress, type TestContext } from '../support/harness'
+import { createTestContext, uniqueAddress, type TestContext } from '../support/harness'
 import { listRoutes } from '../support/routes'
-import { fileReport, NEAR_HARROWMERE, NEAR_KESTREL_BAY } from '../support/cases'
+import { makeCase, makeOffice, makeUser, signIn, type TestUser } from '../support/factories'
 
 type Who = 'anonymous' | 'complainant' | 'investigator' | 'supervisor' | 'admin'
 const WHO: Who[] = ['anonymous', 'complainant', 'investigator', 'supervisor', 'admin']
-const ACCOUNT: Record<Exclude<Who, 'anonymous'>, string> = {
-  complainant: DEMO.complainant,
-  investigator: DEMO.investigator, // Harrowmere
-  supervisor: DEMO.supervisor, // Harrowmere
-  admin: DEMO.admin,
-}
+/** This file's own accounts (made in beforeAll); the investigator and supervisor are of the own office. */
+let ACCOUNT: Record<Exclude<Who, 'anonymous'>, TestUser>
 
 interface Row {
   route: string
@@ -32,9 +28,9 @@ interface Ids {
   otherOfficeId: string
   otherOfficeStaffId: string
   ownOfficeId: string
-  /** A case of the Harrowmere office (the staff actors' own office). */
+  /** A case of the own office (the staff actors' office). */
   ownCaseId: string
-  /** A case of the Kestrel Bay office. */
+  /** A case of the other office. */
   otherCaseId: string
   trackingToken: string
 }
@@ -71,7 +67,7 @@ const MATRIX: Row[] = [
   { route: 'GET /api/track/:token', path: (ids) => `/api/track/${ids.trackingToken}`, expect: [200, 200, 200, 200, 200] },
   { route: 'POST /api/track/:token/information', path: (ids) => `/api/track/${ids.trackingToken}/information`, body: { body: 'Still there at night.' }, expect: [201, 201, 201, 201, 201] },
   { route: 'POST /api/track/:token/withdraw', path: () => `/api/track/${'Z'.repeat(43)}/withdraw`, body: {}, expect: [404, 404, 404, 404, 404] },
-  // a signed-in complainant's reports; the Kestrel Bay case is not theirs
+  // a signed-in complainant's reports; the other office's case is not theirs
   { route: 'GET /api/my/reports', expect: [401, 200, 403, 403, 403] },
   { route: 'GET /api/my/reports/:id', path: (ids) => `/api/my/reports/${ids.otherCaseId}`, expect: [401, 404, 403, 403, 403] },
   { route: 'POST /api/my/reports/:id/information', path: (ids) => `/api/my/reports/${ids.otherCaseId}/information`, body: { body: 'x' }, expect: [401, 404, 403, 403, 403] },
@@ -103,15 +99,21 @@ const mailboxDir = fs.mkdtempSync(path.join(os.tmpdir(), 'qb-matrix-mail-'))
 
 beforeAll(async () => {
   t = await createTestContext({ mailboxDir })
-  const { rows: offices } = await t.pool.query(`SELECT id, name FROM offices`)
-  const { rows: staff } = await t.pool.query(`SELECT id FROM users WHERE email = $1`, [DEMO.otherInvestigator])
+  const ownOffice = await makeOffice(t)
+  const otherOffice = await makeOffice(t)
+  ACCOUNT = {
+    complainant: await makeUser(t, { role: 'complainant' }),
+    investigator: await makeUser(t, { role: 'investigator', office: ownOffice }),
+    supervisor: await makeUser(t, { role: 'supervisor', office: ownOffice }),
+    admin: await makeUser(t, { role: 'admin' }),
+  }
   ids = {
-    ownOfficeId: offices.find((o) => o.name === 'Harrowmere').id,
-    otherOfficeId: offices.find((o) => o.name === 'Kestrel Bay').id,
-    otherOfficeStaffId: staff[0].id,
-    ownCaseId: (await fileReport(t, NEAR_HARROWMERE)).id,
-    otherCaseId: (await fileReport(t, NEAR_KESTREL_BAY)).id,
-    trackingToken: (await fileReport(t, NEAR_KESTREL_BAY)).trackingToken,
+    ownOfficeId: ownOffice.id,
+    otherOfficeId: otherOffice.id,
+    otherOfficeStaffId: (await makeUser(t, { role: 'investigator', office: otherOffice })).id,
+    ownCaseId: (await makeCase(t, { office: ownOffice })).id,
+    otherCaseId: (await makeCase(t, { office: otherOffice })).id,
+    trackingToken: (await makeCase(t, { office: otherOffice })).trackingToken,
   }
 })
 afterAll(async () => {
@@ -131,7 +133,7 @@ describe('route × role matrix', () => {
       const got: number[] = []
       for (const who of WHO) {
         // a fresh agent per call: sign-out must not end the session other rows use
-        const agent = who === 'anonymous' ? request.agent(t.app).set('X-Forwarded-For', uniqueAddress()) : await signedInAgent(t.app, ACCOUNT[who])
+        const agent = who === 'anonymous' ? request.agent(t.app).set('X-Forwarded-For', uniqueAddress()) : await signIn(t, ACCOUNT[who])
         const call = agent[method.toLowerCase() as 'get' | 'post' | 'patch' | 'delete'](target)
         const res = row.body !== undefined ? await call.send(row.body as object) : await call
         got.push(res.status)

@@ -23,23 +23,32 @@ import {
   transferOfficesResponseSchema,
   usersResponseSchema,
 } from '../../shared/schemas/views'
-import { createTestContext, DEMO, DEMO_PASSWORD, signedInAgent, uniqueAddress, type TestContext } from '../support/harness'
-import { caseVersion, fileReport, userId, validReport } from '../support/cases'
+import { createTestContext, uniqueAddress, type TestContext } from '../support/harness'
+import { caseVersion, fileReport, validReport } from '../support/cases'
+import { makeOffice, makeUser, reportNear, signIn, type Agent, type TestUser } from '../support/factories'
+import type { Office } from '../../server/db/schema'
 
 let t: TestContext
-let supervisor: Awaited<ReturnType<typeof signedInAgent>>
-let investigator: Awaited<ReturnType<typeof signedInAgent>>
-let admin: Awaited<ReturnType<typeof signedInAgent>>
-let complainant: Awaited<ReturnType<typeof signedInAgent>>
+let office: Office
+let users: Record<'supervisor' | 'investigator' | 'admin' | 'complainant', TestUser>
+let supervisor: Agent
+let investigator: Agent
+let admin: Agent
+let complainant: Agent
+/** A report filed beside this file's own office. */
+const fileHere = () => fileReport(t, reportNear(office))
 
 beforeAll(async () => {
   t = await createTestContext()
-  ;[supervisor, investigator, admin, complainant] = await Promise.all([
-    signedInAgent(t.app, DEMO.supervisor),
-    signedInAgent(t.app, DEMO.investigator),
-    signedInAgent(t.app, DEMO.admin),
-    signedInAgent(t.app, DEMO.complainant),
-  ])
+  office = await makeOffice(t)
+  await makeOffice(t) // another office to be offered for a transfer
+  users = {
+    supervisor: await makeUser(t, { role: 'supervisor', office }),
+    investigator: await makeUser(t, { role: 'investigator', office }),
+    admin: await makeUser(t, { role: 'admin' }),
+    complainant: await makeUser(t, { role: 'complainant' }),
+  }
+  ;[supervisor, investigator, admin, complainant] = await Promise.all([signIn(t, users.supervisor), signIn(t, users.investigator), signIn(t, users.admin), signIn(t, users.complainant)])
 })
 afterAll(() => t.close())
 
@@ -53,14 +62,14 @@ function expectFits(schema: z.ZodType, res: request.Response, status = 200): voi
 
 describe('the answers of the API fit their view schemas', () => {
   it('a filed report, and the complainant’s view of it through the tracking link', async () => {
-    const filed = await request(t.app).post('/api/reports').set('X-Forwarded-For', uniqueAddress()).send(validReport())
+    const filed = await request(t.app).post('/api/reports').set('X-Forwarded-For', uniqueAddress()).send(validReport(reportNear(office)))
     expectFits(submittedReportSchema, filed, 201)
     const token = /\/track\/([A-Za-z0-9_-]+)$/.exec(filed.body.trackingUrl)![1]!
     expectFits(complainantReportResponseSchema, await request(t.app).get(`/api/track/${token}`).set('X-Forwarded-For', uniqueAddress()))
   })
 
   it('the case list, a case with its timeline, and the choices a supervisor is offered', async () => {
-    const f = await fileReport(t)
+    const f = await fileHere()
     const triaged = await supervisor.post(`/api/cases/${f.id}/triage`).send({ version: await caseVersion(t.pool, f.id), priority: 2, note: 'Outage at home, licensed network.' })
     expectFits(caseResponseSchema, triaged)
     expect(triaged.body.case.timeline.length, 'the case has a timeline to check').toBeGreaterThan(1)
@@ -71,8 +80,8 @@ describe('the answers of the API fit their view schemas', () => {
   })
 
   it('a closed case with its resolution, as the investigator sees it', async () => {
-    const f = await fileReport(t)
-    const investigatorId = await userId(t.pool, DEMO.investigator)
+    const f = await fileHere()
+    const investigatorId = users.investigator.id
     const step = async (agent: typeof supervisor, path: string, body: Record<string, unknown>) =>
       agent.post(`/api/cases/${f.id}/${path}`).send({ version: await caseVersion(t.pool, f.id), ...body })
     for (const [agent, path, body] of [
@@ -100,7 +109,7 @@ describe('the answers of the API fit their view schemas', () => {
   })
 
   it('a complainant’s own reports', async () => {
-    const filed = await complainant.post('/api/reports').set('X-Forwarded-For', uniqueAddress()).send(validReport())
+    const filed = await complainant.post('/api/reports').set('X-Forwarded-For', uniqueAddress()).send(validReport(reportNear(office)))
     expectFits(submittedReportSchema, filed, 201)
     const mine = await complainant.get('/api/my/reports')
     expectFits(myReportsResponseSchema, mine)
@@ -111,7 +120,7 @@ describe('the answers of the API fit their view schemas', () => {
   it('who is signed in, for an account and for an anonymous visitor', async () => {
     expectFits(meResponseSchema, await investigator.get('/api/me'))
     expectFits(meResponseSchema, await request(t.app).get('/api/me'))
-    const signIn = await request(t.app).post('/api/auth/sign-in').set('X-Forwarded-For', uniqueAddress()).send({ email: DEMO.supervisor, password: DEMO_PASSWORD })
-    expectFits(signedInSchema, signIn)
+    const signedIn = await request(t.app).post('/api/auth/sign-in').set('X-Forwarded-For', uniqueAddress()).send({ email: users.supervisor.email, password: users.supervisor.password })
+    expectFits(signedInSchema, signedIn)
   })
 })

@@ -1,10 +1,12 @@
-/** Helpers for case tests: a valid report, filing it, and reading queued e-mail. */
+/**
+ * Helpers for case tests: a valid report, filing it, and reading queued e-mail. The office,
+ * people and cases a test owns come from tests/support/factories.ts.
+ */
 import request from 'supertest'
 import type pg from 'pg'
 import { expect } from 'vitest'
 import type { TestContext } from './harness'
 import { uniqueAddress } from './harness'
-import { hashPassword } from '../../server/modules/auth/passwords'
 import type { ReportInput } from '../../shared/schemas/cases'
 
 /** Near the Harrowmere office of the demo region (48.12 N, 31.40 W). */
@@ -53,21 +55,6 @@ export async function fileReport(t: TestContext, over: Partial<ReportInput> = {}
 export async function queuedMails(pool: pg.Pool, to: string): Promise<{ subject: string; text: string }[]> {
   const { rows } = await pool.query(`SELECT data FROM pgboss.job WHERE name LIKE 'mail-send%' AND data->>'to' = $1 ORDER BY created_on, id`, [to])
   return rows.map((r) => r.data)
-}
-
-/** A staff user created directly (demo password), for tests that need a second supervisor. */
-export async function createStaff(pool: pg.Pool, opts: { email: string; name: string; role: 'investigator' | 'supervisor'; officeName: string }): Promise<string> {
-  const hash = await hashPassword('quietband-demo')
-  const { rows } = await pool.query(
-    `INSERT INTO users (email, name, role, office_id, password_hash) SELECT $1, $2, $3, id, $5 FROM offices WHERE name = $4 RETURNING id`,
-    [opts.email, opts.name, opts.role, opts.officeName, hash],
-  )
-  return rows[0].id
-}
-
-export async function userId(pool: pg.Pool, email: string): Promise<string> {
-  const { rows } = await pool.query(`SELECT id FROM users WHERE email = $1`, [email])
-  return rows[0].id
 }
 
 export async function caseVersion(pool: pg.Pool, id: string): Promise<number> {

@@ -4,10 +4,11 @@ import request from 'supertest'
 import type PgBoss from 'pg-boss'
 import type pg from 'pg'
 import { createApp, type AppHandle } from '../../server/app'
-import { createPool } from '../../server/db/client'
+import { createDb, createPool } from '../../server/db/client'
 import { startBoss } from '../../server/jobs/boss'
 import { DEMO_PASSWORD } from '../../ops/seed-demo'
 import type { Logger } from '../../server/log/logger'
+import type { ServiceContext } from '../../server/context'
 
 export const DEMO = {
   admin: 'admin@quietband.test',
@@ -27,6 +28,8 @@ export interface TestContext {
   databaseUrl: string
   /** This context's own mail queue (see testMailQueue). */
   mailQueueName: string
+  /** The services' context the app runs with (same pool, queue and address), for test factories. */
+  services: ServiceContext
   close(): Promise<void>
 }
 
@@ -38,13 +41,15 @@ export async function createTestContext(opts: { mailboxDir?: string; publicUrl?:
   const pool = createPool(databaseUrl, 5)
   const mailQueueName = testMailQueue()
   const boss = await startBoss(databaseUrl, { mailQueueName })
+  const publicUrl = opts.publicUrl ?? 'http://127.0.0.1:3999'
+  const mailQueue = { queueName: mailQueueName, retryDelaySeconds: 1, retryLimit: 10 }
   const handle = createApp({
     pool,
     boss,
     sessionSecret: 'test-session-secret-that-is-long-enough-0123',
-    publicUrl: opts.publicUrl ?? 'http://127.0.0.1:3999',
+    publicUrl,
     mailboxDir: opts.mailboxDir,
-    mailQueue: { queueName: mailQueueName, retryDelaySeconds: 1, retryLimit: 10 },
+    mailQueue,
     trustProxy: 1,
     logger: opts.logger,
     // failed sign-ins answer at once here; the growing delay has its own tests (auth-lockout.test.ts)
@@ -52,6 +57,7 @@ export async function createTestContext(opts: { mailboxDir?: string; publicUrl?:
   })
   return {
     mailQueueName,
+    services: { pool, db: createDb(pool), boss, publicUrl: publicUrl.replace(/\/$/, ''), mailQueue, now: () => new Date() },
     handle,
     app: handle.app,
     pool,

@@ -11,7 +11,7 @@ import userEvent from '@testing-library/user-event'
 import type { ComponentType } from 'react'
 import { createMemoryRouter, RouterProvider } from 'react-router-dom'
 import { expect } from 'vitest'
-import { createQueryClient } from '../../web/src/lib/query-client'
+import { createQueryClient } from '@/lib/query-client'
 
 export interface PageRoute {
   /** The route pattern, e.g. `/cases/:id`. */

@@ -1,7 +1,7 @@
 import { afterEach, describe, expect, it, vi } from 'vitest'
 import { meResponseSchema } from '../../shared/schemas/auth'
-import { ApiError, api, toApiError } from '../../web/src/lib/api-client'
-import { shouldRetry } from '../../web/src/lib/query-client'
+import { ApiError, api, toApiError } from '@/lib/api-client'
+import { shouldRetry } from '@/lib/query-client'
 
 describe('toApiError', () => {
   it('keeps the code, message, field details and request id of the one error body', () => {

@@ -1,7 +1,8 @@
 import { screen, waitFor, within } from '@testing-library/react'
 import { describe, expect, it } from 'vitest'
 import type { CaseAbilities, CaseDetail } from '../../shared/schemas/views'
-import { Component as CasePage } from '../../web/src/app/routes/case'
+import { Component as CasePage } from '@/app/routes/case'
+import { paths } from '@/lib/paths'
 import { answer, apiError } from '../support/msw-server'
 import { abilities, caseResponse, IDS, investigatorsResponse, mergeCandidatesResponse, transferOfficesResponse } from '../support/msw-views'
 import { renderPage } from '../support/web-render'
@@ -19,7 +20,7 @@ function serveTheCase(options: { abilities: CaseAbilities; changes?: Partial<Cas
 }
 
 async function openTheCasePage() {
-  const page = renderPage({ url: CASE_URL, routes: [{ path: '/cases/:id', Component: CasePage }] })
+  const page = renderPage({ url: CASE_URL, routes: [{ path: paths.case.path, Component: CasePage }] })
   const panel = await screen.findByRole('region', { name: 'Actions' })
   return { ...page, panel }
 }

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { bestUnitFor, formatFrequencyHz, formatFrequencyRangeHz, frequencyFromHz, frequencyToHz } from '../../web/src/lib/frequency'
+import { bestUnitFor, formatFrequencyHz, formatFrequencyRangeHz, frequencyFromHz, frequencyToHz } from '@/lib/frequency'
 
 // SI prefixes k = 10^3, M = 10^6, G = 10^9, T = 10^12: BIPM, The International System of Units
 // (SI Brochure), 9th edition 2019, Table 7.

@@ -2,7 +2,8 @@ import { act, screen, waitFor } from '@testing-library/react'
 import { describe, expect, it } from 'vitest'
 import { CASE_STATE_LABELS } from '../../shared/domain/case-lifecycle'
 import { caseListQuerySchema } from '../../shared/schemas/cases'
-import { Component as CasesPage } from '../../web/src/app/routes/cases'
+import { Component as CasesPage } from '@/app/routes/cases'
+import { paths } from '@/lib/paths'
 import { answer, type SeenRequest } from '../support/msw-server'
 import { caseListItem, casePage, IDS, officesResponse, staffResponse } from '../support/msw-views'
 import { renderPage } from '../support/web-render'
@@ -18,7 +19,7 @@ function serveTheList(options: { total?: number } = {}) {
 }
 
 async function openTheList(url: string) {
-  const page = renderPage({ url, routes: [{ path: '/cases', Component: CasesPage }] })
+  const page = renderPage({ url, routes: [{ path: paths.cases.path, Component: CasesPage }] })
   await screen.findByRole('table', { name: /^Cases\./ })
   return page
 }

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest'
-import { DEFAULT_LIST_STATE, apiQueryFromListState, hasFilters, listStateToSearchParams, parseListState, type CaseListState } from '../../web/src/features/cases/lib/list-state'
+import { apiQueryFromListState, parseListState } from '@/lib/case-list-query'
+import { DEFAULT_LIST_STATE, hasFilters, listStateToSearchParams, type CaseListState } from '@/lib/case-list-state'
 
 const UUID = '6f1c2a34-1b2c-4d5e-8f90-123456789abc'
 

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest'
 import { CASE_STATES, COMPLAINANT_STEP_OF_STATE } from '../../shared/domain/case-lifecycle'
-import { eventTitle, laneOf } from '../../web/src/features/cases/lib/timeline'
-import { COMPLAINANT_STEPS, stepIndexFor } from '../../web/src/features/tracking/lib/steps'
+import { eventTitle, laneOf } from '@/features/case-page/lib/timeline'
+import { COMPLAINANT_STEPS, stepIndexFor } from '@/features/tracking/lib/steps'
 
 const ev = (kind: string, visibility: 'internal' | 'complainant', data: Record<string, unknown> | null = null) => ({ kind, visibility, toState: null, data })
 

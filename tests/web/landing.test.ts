@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { landingPathFor, safeNextPath, signInPathFor } from '../../web/src/features/auth/lib/landing'
+import { landingPathFor, safeNextPath, signInPathFor } from '@/features/auth/lib/landing'
 import { accountAbilities } from '../../server/policy/account-policy'
 import { NO_ACCOUNT_ABILITIES } from '../../shared/schemas/auth'
 import type { Role } from '../../shared/domain/roles'

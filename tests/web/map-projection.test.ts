@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest'
 import type { RegionMap } from '../../shared/schemas/region'
-import { boxOfGeometries, positionsOf } from '../../web/src/features/map/lib/map-box'
-import { MAP_WIDTH, createProjection, graticule, nudge } from '../../web/src/features/map/lib/projection'
-import { regionMapData } from '../../web/src/features/map/lib/region-data'
+import { boxOfGeometries, positionsOf } from '@/features/map/lib/map-box'
+import { MAP_WIDTH, createProjection, graticule, nudge } from '@/features/map/lib/projection'
+import { regionMapData } from '@/features/map/lib/region-data'
 
 /** A region outline like the demo's: the parallels 47.2° and 48.6° N, the meridians 32.2° and 29.8° W. */
 const OUTLINE = { type: 'Polygon' as const, coordinates: [[[-32.2, 47.2], [-29.8, 47.2], [-29.8, 48.6], [-32.2, 48.6], [-32.2, 47.2]]] as [number, number][][] }

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { navItemsFor } from '../../web/src/app/layout/nav-items'
+import { navItemsFor } from '@/app/layout/nav-items'
 import { accountAbilities } from '../../server/policy/account-policy'
 import { NO_ACCOUNT_ABILITIES } from '../../shared/schemas/auth'
 import { ROLES, type Role } from '../../shared/domain/roles'

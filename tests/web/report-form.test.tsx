@@ -1,7 +1,8 @@
 import { screen, waitFor, within } from '@testing-library/react'
 import { describe, expect, it } from 'vitest'
 import { latestSinceDate, reportSchema } from '../../shared/schemas/cases'
-import { Component as ReportPage } from '../../web/src/app/routes/report'
+import { Component as ReportPage } from '@/app/routes/report'
+import { paths } from '@/lib/paths'
 import { answer, apiError } from '../support/msw-server'
 import { anonymousMe, regionMapResponse, submittedReport } from '../support/msw-views'
 import { renderPage } from '../support/web-render'
@@ -48,7 +49,7 @@ function sharedMessage(field: string, value: string): string {
 async function openTheReportPage() {
   answer('get', '/api/me', anonymousMe())
   answer('get', '/api/region', regionMapResponse())
-  const page = renderPage({ url: '/report', routes: [{ path: '/report', Component: ReportPage }] })
+  const page = renderPage({ url: paths.report.href(), routes: [{ path: paths.report.path, Component: ReportPage }] })
   await screen.findByRole('form', { name: 'Interference report' })
   return page
 }

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { formatTargetHours, responseClock } from '../../web/src/features/cases/lib/response-clock'
+import { formatTargetHours, responseClock } from '@/lib/response-clock'
 
 const received = '2026-11-20T10:00:00.000Z'
 const due = '2026-11-20T14:00:00.000Z' // a 4 h target

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { splitLinks } from '../../web/src/features/dev-mailbox/lib/split-links'
+import { splitLinks } from '@/features/dev-mailbox/lib/split-links'
 
 describe('splitLinks', () => {
   it('makes the set-password address in an e-mail a link and leaves the sentence around it', () => {

@@ -3,11 +3,10 @@
  * area, as one public GeoJSON FeatureCollection. Only what anyone may see leaves here: an
  * office's name, point and area (never its staff, targets or id).
  */
-import { asc, eq } from 'drizzle-orm'
 import type { Db } from '../../db/client'
 import type { ServiceContext } from '../../context'
-import { offices, region } from '../../db/schema'
 import { areaSchema, regionSchema, type AreaGeometry, type RegionFeature, type RegionInput, type RegionMap } from '../../../shared/schemas/region'
+import { findRegion, listOfficesForMap, setOfficeArea, upsertRegion } from './regions.repo'
 
 export interface PublicOffice {
   name: string
@@ -35,27 +34,18 @@ export function presentRegionMap(r: RegionInput | null, officeRows: PublicOffice
 
 /** GET /api/region: public, the same for everyone. */
 export async function getRegionMap(ctx: ServiceContext): Promise<RegionMap> {
-  const [r] = await ctx.db.select({ name: region.name, outline: region.outline, coast: region.coast, places: region.places }).from(region).where(eq(region.id, 1))
-  const officeRows = await ctx.db
-    .select({ name: offices.name, centreLatDeg: offices.centreLatDeg, centreLonDeg: offices.centreLonDeg, area: offices.area })
-    .from(offices)
-    .orderBy(asc(offices.name))
+  const r = await findRegion(ctx.db)
+  const officeRows = await listOfficesForMap(ctx.db)
   return presentRegionMap(r ?? null, officeRows)
 }
 
 /** Sets the region (there is one); the input is checked with the shared schema first. */
 export async function saveRegion(db: Db, input: RegionInput): Promise<void> {
   const r = regionSchema.parse(input)
-  await db
-    .insert(region)
-    .values({ id: 1, ...r })
-    .onConflictDoUpdate({ target: region.id, set: { name: r.name, outline: r.outline, coast: r.coast, places: r.places, updatedAt: new Date() } })
+  await upsertRegion(db, r)
 }
 
 /** Sets one office's area (null: none); the geometry is checked with the shared schema first. */
 export async function saveOfficeArea(db: Db, officeId: string, area: AreaGeometry | null): Promise<void> {
-  await db
-    .update(offices)
-    .set({ area: area === null ? null : areaSchema.parse(area) })
-    .where(eq(offices.id, officeId))
+  await setOfficeArea(db, officeId, area === null ? null : areaSchema.parse(area))
 }

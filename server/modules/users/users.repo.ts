@@ -3,7 +3,7 @@ import { and, eq, inArray, sql } from 'drizzle-orm'
 import type { Role } from '../../../shared/domain/roles'
 import { STAFF_ROLES } from '../../../shared/domain/roles'
 import type { Db } from '../../db/client'
-import { offices, passwordTokens, users } from '../../db/schema'
+import { offices, users, type User } from '../../db/schema'
 import type { UserRow } from '../../../shared/schemas/views'
 
 /** The columns of a user that are safe to send to a browser, with the office name. */
@@ -26,7 +26,8 @@ export async function findUserById(db: Db, id: string): Promise<PublicUser | und
   return u
 }
 
-export async function findUserForSignIn(db: Db, email: string) {
+/** The whole account row with this address (password hash included: for the auth module only). */
+export async function findUserForSignIn(db: Db, email: string): Promise<User | undefined> {
   const [u] = await db.select().from(users).where(eq(users.email, email))
   return u
 }
@@ -57,9 +58,40 @@ export async function insertUser(db: Db, values: { email: string; name: string; 
   return inserted[0]?.id
 }
 
-/** Stores the hash of a single-use token that expires after `hours`. */
-export async function insertPasswordToken(db: Db, t: { userId: string; tokenHash: string; purpose: 'reset' | 'invite' | 'confirm'; hours: number }): Promise<void> {
-  await db.insert(passwordTokens).values({ userId: t.userId, tokenHash: t.tokenHash, purpose: t.purpose, expiresAt: sql`now() + make_interval(hours => ${t.hours})` })
+/** A complainant account awaiting confirmation of its address; undefined when the address is taken. */
+export async function insertUnconfirmedComplainant(db: Db, values: { email: string; name: string; passwordHash: string }): Promise<string | undefined> {
+  const inserted = await db
+    .insert(users)
+    .values({ ...values, role: 'complainant', emailConfirmedAt: null })
+    .onConflictDoNothing({ target: users.email })
+    .returning({ id: users.id })
+  return inserted[0]?.id
+}
+
+/** The name on the account with this address, if there is one. */
+export async function findUserNameByEmail(db: Db, email: string): Promise<string | undefined> {
+  const [u] = await db.select({ name: users.name }).from(users).where(eq(users.email, email))
+  return u?.name
+}
+
+/** Confirms an active account's address (keeping an earlier confirmation time); undefined when there is no active account. */
+export async function confirmActiveUserEmail(db: Db, userId: string): Promise<string | undefined> {
+  const [u] = await db
+    .update(users)
+    .set({ emailConfirmedAt: sql`coalesce(${users.emailConfirmedAt}, now())` })
+    .where(and(eq(users.id, userId), eq(users.active, true)))
+    .returning({ id: users.id })
+  return u?.id
+}
+
+/** Sets an active account's password and confirms its address (as `confirmActiveUserEmail`); undefined when there is no active account. */
+export async function setActiveUserPassword(db: Db, userId: string, passwordHash: string): Promise<{ id: string; email: string } | undefined> {
+  const [u] = await db
+    .update(users)
+    .set({ passwordHash, emailConfirmedAt: sql`coalesce(${users.emailConfirmedAt}, now())` })
+    .where(and(eq(users.id, userId), eq(users.active, true)))
+    .returning({ id: users.id, email: users.email })
+  return u
 }
 
 /** Sets an account active or not; false when there is no such account. */

@@ -6,9 +6,10 @@ import { queueMail } from '../../jobs/boss'
 import { staffInvitationMail } from '../../mail/templates'
 import { can, officeScope, type Actor } from '../../policy/policy'
 import type { CreateStaffInput } from '../../../shared/schemas/auth'
+import { insertPasswordToken } from '../auth/auth.repo'
 import { newToken } from '../auth/passwords'
 import { findOffice } from '../offices/offices.repo'
-import { findUserById, insertPasswordToken, insertUser, listUsers, setActive, type PublicUser } from './users.repo'
+import { findUserById, insertUser, listUsers, setActive, type PublicUser } from './users.repo'
 
 export const INVITE_TOKEN_HOURS = 72
 

@@ -1,7 +1,7 @@
 /** App-wide providers: one QueryClient for the page's lifetime. */
 import { QueryClientProvider } from '@tanstack/react-query'
 import { useState, type ReactNode } from 'react'
-import { createQueryClient } from '../lib/query-client'
+import { createQueryClient } from '@/lib/query-client'
 
 export function AppProvider({ children }: { children: ReactNode }) {
   const [queryClient] = useState(createQueryClient)

@@ -3,7 +3,7 @@
  * failure turned into an ApiError carrying the server's stable code and request id.
  */
 import type { z } from 'zod'
-import type { ApiErrorBody } from '../../../shared/schemas/errors'
+import type { ApiErrorBody } from '@shared/schemas/errors'
 
 export interface FieldIssue {
   path: string

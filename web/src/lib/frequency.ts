@@ -3,7 +3,7 @@
  * band (3 GHz: mobile bands read "1710–1785 MHz", Wi-Fi "2400–2483.5 MHz"), GHz above,
  * trailing zeros dropped. Pure; used by every case screen.
  */
-import { FREQUENCY_UNITS, type FrequencyUnit } from '../../../shared/schemas/cases'
+import { FREQUENCY_UNITS, type FrequencyUnit } from '@shared/schemas/cases'
 
 export type { FrequencyUnit }
 export const FREQUENCY_UNIT_OPTIONS: readonly FrequencyUnit[] = ['kHz', 'MHz', 'GHz']

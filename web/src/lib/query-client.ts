@@ -1,9 +1,7 @@
 /** One QueryClient for the app: no retries on 4xx (they will not change), a short retry otherwise. */
 import { MutationCache, QueryCache, QueryClient } from '@tanstack/react-query'
 import { isApiError } from './api-client'
-
-/** Shared with features/auth: the cache entry that holds the signed-in user (or null). */
-export const ME_QUERY_KEY = ['me'] as const
+import { meKeys } from './query-keys'
 
 export function shouldRetry(failureCount: number, error: unknown): boolean {
   if (isApiError(error) && error.status >= 400 && error.status < 500) return false
@@ -25,6 +23,6 @@ export function createQueryClient(): QueryClient {
 
 function forgetUserOn401(client: QueryClient, error: unknown) {
   if (isApiError(error) && error.status === 401 && error.code === 'unauthenticated') {
-    client.setQueryData(ME_QUERY_KEY, { user: null })
+    client.setQueryData(meKeys.all, { user: null })
   }
 }

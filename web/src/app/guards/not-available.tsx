@@ -1,10 +1,10 @@
 /** What a signed-in person sees on a page their account cannot use. */
 import { Link } from 'react-router-dom'
-import { ROLE_LABELS } from '../../../../shared/domain/roles'
-import type { AccountAbilities, SessionUser } from '../../../../shared/schemas/auth'
-import { PageHeader } from '../../components/ui/page-header'
-import { buttonClass } from '../../components/ui/button'
-import { landingPathFor } from '../../features/auth/lib/landing'
+import { ROLE_LABELS } from '@shared/domain/roles'
+import type { AccountAbilities, SessionUser } from '@shared/schemas/auth'
+import { PageHeader } from '@/components/ui/page-header'
+import { buttonClass } from '@/components/ui/button'
+import { landingPathFor } from '@/features/auth/lib/landing'
 
 export function NotAvailable({ user, abilities }: { user: SessionUser; abilities: AccountAbilities }) {
   return (

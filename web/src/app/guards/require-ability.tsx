@@ -5,11 +5,11 @@
  * that would refuse them.
  */
 import { Navigate, Outlet, useLocation } from 'react-router-dom'
-import type { AccountAbility } from '../../../../shared/schemas/auth'
-import { Loading } from '../../components/ui/loading'
-import { QueryError } from '../../components/ui/query-error'
-import { abilitiesOf, meQueryOptions } from '../../features/auth/api/get-me'
-import { signInPathFor } from '../../features/auth/lib/landing'
+import type { AccountAbility } from '@shared/schemas/auth'
+import { Loading } from '@/components/ui/loading'
+import { QueryError } from '@/components/ui/query-error'
+import { abilitiesOf, meQueryOptions } from '@/features/auth/api/get-me'
+import { signInPathFor } from '@/features/auth/lib/landing'
 import { useQuery } from '@tanstack/react-query'
 import { NotAvailable } from './not-available'
 

@@ -1,7 +1,7 @@
 /** Who is signed in (name, role, office) and the way out. */
-import type { SessionUser } from '../../../../shared/schemas/auth'
-import { ROLE_LABELS } from '../../../../shared/domain/roles'
-import { useSignOut } from '../../features/auth/api/sign-out'
+import type { SessionUser } from '@shared/schemas/auth'
+import { ROLE_LABELS } from '@shared/domain/roles'
+import { useSignOut } from '@/features/auth/api/sign-out'
 
 export function AccountArea({ user }: { user: SessionUser }) {
   const signOut = useSignOut()

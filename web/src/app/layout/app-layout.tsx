@@ -1,7 +1,7 @@
 /** The frame around every page: header with nav and account, the page, the caution footer. */
 import { Outlet, ScrollRestoration, useNavigation } from 'react-router-dom'
-import { EstimateCaution } from '../../components/cautions/estimate-caution'
-import { useAbilities, useMe } from '../../features/auth/api/get-me'
+import { EstimateCaution } from '@/components/cautions/estimate-caution'
+import { useAbilities, useMe } from '@/features/auth/api/get-me'
 import { AccountArea } from './account-area'
 import { MainNav } from './main-nav'
 import { Wordmark } from './wordmark'

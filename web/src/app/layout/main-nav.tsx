@@ -1,6 +1,6 @@
 /** The main navigation; its links depend on who is signed in (GET /api/me). */
 import { NavLink } from 'react-router-dom'
-import type { AccountAbilities } from '../../../../shared/schemas/auth'
+import type { AccountAbilities } from '@shared/schemas/auth'
 import { navItemsFor } from './nav-items'
 
 export function MainNav({ abilities, pending }: { abilities: AccountAbilities | null; pending: boolean }) {

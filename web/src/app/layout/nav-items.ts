@@ -2,7 +2,8 @@
  * Which main-navigation links a visitor sees, from what their account may do (/api/me's
  * abilities; null for an anonymous visitor). Pure, so it is tested on its own.
  */
-import type { AccountAbilities } from '../../../../shared/schemas/auth'
+import type { AccountAbilities } from '@shared/schemas/auth'
+import { paths } from '@/lib/paths'
 
 export interface NavItem {
   /** Visible text, which is also the link's accessible name. */
@@ -11,21 +12,21 @@ export interface NavItem {
 }
 
 const ANONYMOUS: NavItem[] = [
-  { label: 'Report interference', to: '/report' },
-  { label: 'Follow a report', to: '/track' },
-  { label: 'Sign in', to: '/sign-in' },
+  { label: 'Report interference', to: paths.report.href() },
+  { label: 'Follow a report', to: paths.track.href() },
+  { label: 'Sign in', to: paths.signIn.href() },
 ]
 
 export function navItemsFor(abilities: AccountAbilities | null): NavItem[] {
   if (!abilities) return ANONYMOUS
   const items: NavItem[] = []
-  if (abilities.followOwnReports) items.push({ label: 'My reports', to: '/my-reports' })
-  if (abilities.reportAsAccount) items.push({ label: 'Report interference', to: '/report' })
-  if (abilities.runOfficeQueue) items.push({ label: 'Office queue', to: '/work' })
-  else if (abilities.workAssignedCases) items.push({ label: 'My cases', to: '/work' })
-  if (abilities.manageUsers) items.push({ label: 'Users', to: '/admin/users' })
-  if (abilities.manageOffices) items.push({ label: 'Offices', to: '/admin/offices' })
+  if (abilities.followOwnReports) items.push({ label: 'My reports', to: paths.myReports.href() })
+  if (abilities.reportAsAccount) items.push({ label: 'Report interference', to: paths.report.href() })
+  if (abilities.runOfficeQueue) items.push({ label: 'Office queue', to: paths.work.href() })
+  else if (abilities.workAssignedCases) items.push({ label: 'My cases', to: paths.work.href() })
+  if (abilities.manageUsers) items.push({ label: 'Users', to: paths.adminUsers.href() })
+  if (abilities.manageOffices) items.push({ label: 'Offices', to: paths.adminOffices.href() })
   // an investigator reaches the full list from My cases; the main links stay their own work
-  if (abilities.readCases && !abilities.workAssignedCases) items.push({ label: 'Cases', to: '/cases' })
+  if (abilities.readCases && !abilities.workAssignedCases) items.push({ label: 'Cases', to: paths.cases.href() })
   return items
 }

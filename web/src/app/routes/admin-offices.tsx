@@ -1,10 +1,10 @@
 /** /admin/offices — the field offices and their response targets. */
-import { Loading } from '../../components/ui/loading'
-import { PageHeader } from '../../components/ui/page-header'
-import { QueryError } from '../../components/ui/query-error'
-import { useOffices } from '../../features/offices/api/get-offices'
-import { OfficesTable } from '../../features/offices/components/offices-table'
-import { OfficeTargetsPanels } from '../../features/offices/components/office-targets-panels'
+import { Loading } from '@/components/ui/loading'
+import { PageHeader } from '@/components/ui/page-header'
+import { QueryError } from '@/components/ui/query-error'
+import { useOffices } from '@/features/offices/api/get-offices'
+import { OfficesTable } from '@/features/offices/components/offices-table'
+import { OfficeTargetsPanels } from '@/features/offices/components/office-targets-panels'
 
 export function Component() {
   const offices = useOffices()

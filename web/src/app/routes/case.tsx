@@ -1,17 +1,18 @@
 /** /cases/:id — one case: its header, the actions the viewer may take, the report and its timeline. */
 import { Link, useParams } from 'react-router-dom'
-import { Loading } from '../../components/ui/loading'
-import { Notice } from '../../components/ui/notice'
-import { PageHeader } from '../../components/ui/page-header'
-import { QueryError } from '../../components/ui/query-error'
-import { useCase } from '../../features/cases/api/get-case'
-import { CaseActionsPanel } from '../../features/cases/components/case-actions-panel'
-import { CaseHeader } from '../../features/cases/components/case-header'
-import { CaseReportDetails } from '../../features/cases/components/case-report-details'
-import { CaseTimeline } from '../../features/cases/components/case-timeline'
-import { FindingSummary } from '../../features/cases/components/finding-summary'
-import { useNow } from '../../features/cases/components/use-now'
-import { isApiError } from '../../lib/api-client'
+import { Loading } from '@/components/ui/loading'
+import { Notice } from '@/components/ui/notice'
+import { PageHeader } from '@/components/ui/page-header'
+import { QueryError } from '@/components/ui/query-error'
+import { useCase } from '@/features/case-page/api/get-case'
+import { CaseActionsPanel } from '@/features/case-page/components/case-actions-panel'
+import { CaseHeader } from '@/features/case-page/components/case-header'
+import { CaseReportDetails } from '@/features/case-page/components/case-report-details'
+import { CaseTimeline } from '@/features/case-page/components/case-timeline'
+import { FindingSummary } from '@/features/case-page/components/finding-summary'
+import { useNow } from '@/lib/use-now'
+import { isApiError } from '@/lib/api-client'
+import { paths } from '@/lib/paths'
 
 export function Component() {
   const { id = '' } = useParams()
@@ -28,7 +29,7 @@ export function Component() {
         {missing ? (
           <Notice tone="danger" title="There is no such case in your office." live>
             <p>
-              It may belong to another office, or the link is wrong. <Link to="/cases">Go to the case list</Link>.
+              It may belong to another office, or the link is wrong. <Link to={paths.cases.href()}>Go to the case list</Link>.
             </p>
           </Notice>
         ) : (
@@ -41,7 +42,7 @@ export function Component() {
   return (
     <div className="flex flex-col gap-6">
       <p>
-        <Link to="/cases">Back to the case list</Link>
+        <Link to={paths.cases.href()}>Back to the case list</Link>
       </p>
       <CaseHeader detail={detail} now={now} />
       <div className="grid items-start gap-6 lg:grid-cols-[minmax(0,1fr)_26rem]">

@@ -1,8 +1,8 @@
 /** /cases — every case the viewer may see (their office's; all offices for an administrator). */
-import { PageHeader } from '../../components/ui/page-header'
-import { useStaff } from '../../features/cases/api/get-staff'
-import { CaseListView } from '../../features/cases/components/case-list-view'
-import { useOffices } from '../../features/offices/api/get-offices'
+import { PageHeader } from '@/components/ui/page-header'
+import { useStaff } from '@/features/case-list/api/get-staff'
+import { CaseListView } from '@/features/case-list/components/case-list-view'
+import { useOffices } from '@/features/offices/api/get-offices'
 
 const NONE: { id: string; name: string }[] = []
 

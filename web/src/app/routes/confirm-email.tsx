@@ -1,11 +1,12 @@
 /** /confirm-email?token=… — the link in the e-mail sent at registration. */
 import { useState } from 'react'
 import { Link, useNavigate, useSearchParams } from 'react-router-dom'
-import { Notice } from '../../components/ui/notice'
-import { PageHeader } from '../../components/ui/page-header'
-import { Panel } from '../../components/ui/panel'
-import { ConfirmEmailButton } from '../../features/auth/components/confirm-email-button'
-import { landingPathFor } from '../../features/auth/lib/landing'
+import { Notice } from '@/components/ui/notice'
+import { PageHeader } from '@/components/ui/page-header'
+import { Panel } from '@/components/ui/panel'
+import { ConfirmEmailButton } from '@/features/auth/components/confirm-email-button'
+import { landingPathFor } from '@/features/auth/lib/landing'
+import { paths } from '@/lib/paths'
 
 export function Component() {
   const [params] = useSearchParams()
@@ -27,8 +28,8 @@ export function Component() {
       ) : (
         <Notice tone="caution" title="This link cannot be used." live>
           <p>
-            It may be incomplete, already used, or expired. If your address is confirmed already, <Link to="/sign-in">sign in</Link>.
-            Otherwise <Link to="/forgot-password">ask for a link to choose a password</Link>: choosing one also confirms the address.
+            It may be incomplete, already used, or expired. If your address is confirmed already, <Link to={paths.signIn.href()}>sign in</Link>.
+            Otherwise <Link to={paths.forgotPassword.href()}>ask for a link to choose a password</Link>: choosing one also confirms the address.
           </p>
         </Notice>
       )}

@@ -1,12 +1,12 @@
 /** /dev/mailbox — read the e-mails a development server "sent" (reset links, invitations…). */
-import { Button } from '../../components/ui/button'
-import { Loading } from '../../components/ui/loading'
-import { Notice } from '../../components/ui/notice'
-import { PageHeader } from '../../components/ui/page-header'
-import { QueryError } from '../../components/ui/query-error'
-import { useMailbox } from '../../features/dev-mailbox/api/get-mailbox'
-import { MessageList } from '../../features/dev-mailbox/components/message-list'
-import { isApiError } from '../../lib/api-client'
+import { Button } from '@/components/ui/button'
+import { Loading } from '@/components/ui/loading'
+import { Notice } from '@/components/ui/notice'
+import { PageHeader } from '@/components/ui/page-header'
+import { QueryError } from '@/components/ui/query-error'
+import { useMailbox } from '@/features/dev-mailbox/api/get-mailbox'
+import { MessageList } from '@/features/dev-mailbox/components/message-list'
+import { isApiError } from '@/lib/api-client'
 
 export function Component() {
   const mailbox = useMailbox()

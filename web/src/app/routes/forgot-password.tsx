@@ -1,8 +1,9 @@
 /** /forgot-password — e-mails a link to /set-password. */
 import { Link } from 'react-router-dom'
-import { PageHeader } from '../../components/ui/page-header'
-import { Panel } from '../../components/ui/panel'
-import { ForgotPasswordForm } from '../../features/auth/components/forgot-password-form'
+import { PageHeader } from '@/components/ui/page-header'
+import { Panel } from '@/components/ui/panel'
+import { ForgotPasswordForm } from '@/features/auth/components/forgot-password-form'
+import { paths } from '@/lib/paths'
 
 export function Component() {
   return (
@@ -12,7 +13,7 @@ export function Component() {
         <ForgotPasswordForm />
       </Panel>
       <p className="mt-5">
-        <Link to="/sign-in">Back to sign-in</Link>
+        <Link to={paths.signIn.href()}>Back to sign-in</Link>
       </p>
     </div>
   )

@@ -1,7 +1,8 @@
 /** / — what Quietband does for someone suffering interference, and the three ways in. */
 import { Link } from 'react-router-dom'
-import { buttonClass } from '../../components/ui/button'
-import { PriorityBadge } from '../../components/ui/priority-badge'
+import { buttonClass } from '@/components/ui/button'
+import { PriorityBadge } from '@/components/ui/priority-badge'
+import { paths } from '@/lib/paths'
 
 const STEPS = [
   { title: 'Received', text: 'You get a reference and your private tracking link by e-mail.' },
@@ -27,7 +28,7 @@ export function Component() {
           need an account.
         </p>
         <div>
-          <Link to="/report" className={buttonClass('primary', 'min-h-14 px-7 text-xl')}>
+          <Link to={paths.report.href()} className={buttonClass('primary', 'min-h-14 px-7 text-xl')}>
             Report interference
           </Link>
         </div>
@@ -70,7 +71,7 @@ export function Component() {
             add what you have noticed since, and read the outcome.
           </p>
           <p>
-            <Link to="/track" className="font-semibold">
+            <Link to={paths.track.href()} className="font-semibold">
               Follow a report
             </Link>
           </p>
@@ -81,7 +82,7 @@ export function Component() {
           </h2>
           <p>Investigators, supervisors and administrators sign in with the account their office set up for them.</p>
           <p>
-            <Link to="/sign-in" className="font-semibold">
+            <Link to={paths.signIn.href()} className="font-semibold">
               Staff sign-in
             </Link>
           </p>

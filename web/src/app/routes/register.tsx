@@ -1,8 +1,9 @@
 /** /register — optional complainant account; it works once the e-mailed link confirms the address. */
 import { Link } from 'react-router-dom'
-import { PageHeader } from '../../components/ui/page-header'
-import { Panel } from '../../components/ui/panel'
-import { RegisterForm } from '../../features/auth/components/register-form'
+import { PageHeader } from '@/components/ui/page-header'
+import { Panel } from '@/components/ui/panel'
+import { RegisterForm } from '@/features/auth/components/register-form'
+import { paths } from '@/lib/paths'
 
 export function Component() {
   return (
@@ -15,7 +16,7 @@ export function Component() {
         <RegisterForm />
       </Panel>
       <p className="mt-5">
-        Have an account already? <Link to="/sign-in">Sign in</Link>
+        Have an account already? <Link to={paths.signIn.href()}>Sign in</Link>
       </p>
     </div>
   )

@@ -1,12 +1,12 @@
 /** /report — the public report form; afterwards its reference and tracking link. */
 import { useState } from 'react'
-import { Loading } from '../../components/ui/loading'
-import { PageHeader } from '../../components/ui/page-header'
-import { useAbilities, useMe } from '../../features/auth/api/get-me'
-import { LocationPicker } from '../../features/map/components/location-picker'
-import type { SubmittedReport } from '../../features/reports/api/submit-report'
-import { ReportConfirmation } from '../../features/reports/components/report-confirmation'
-import { ReportForm } from '../../features/reports/components/report-form'
+import { Loading } from '@/components/ui/loading'
+import { PageHeader } from '@/components/ui/page-header'
+import { useAbilities, useMe } from '@/features/auth/api/get-me'
+import { LocationPicker } from '@/features/map/components/location-picker'
+import type { SubmittedReport } from '@/features/reports/api/submit-report'
+import { ReportConfirmation } from '@/features/reports/components/report-confirmation'
+import { ReportForm } from '@/features/reports/components/report-form'
 
 export function Component() {
   const me = useMe()

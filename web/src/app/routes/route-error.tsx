@@ -3,10 +3,11 @@
  * fails; it draws its own minimal frame.
  */
 import { Link, isRouteErrorResponse, useRouteError } from 'react-router-dom'
-import { buttonClass } from '../../components/ui/button'
-import { PageHeader } from '../../components/ui/page-header'
-import { RequestId } from '../../components/ui/request-id'
-import { isApiError } from '../../lib/api-client'
+import { buttonClass } from '@/components/ui/button'
+import { PageHeader } from '@/components/ui/page-header'
+import { RequestId } from '@/components/ui/request-id'
+import { isApiError } from '@/lib/api-client'
+import { paths } from '@/lib/paths'
 
 export function RouteError({ standalone = false }: { standalone?: boolean }) {
   const error = useRouteError()
@@ -43,7 +44,7 @@ function ErrorContent({ error }: { error: unknown }) {
         <button type="button" className={buttonClass('primary')} onClick={() => window.location.reload()}>
           Reload the page
         </button>
-        <Link to="/" className={buttonClass('secondary')}>
+        <Link to={paths.home.href()} className={buttonClass('secondary')}>
           Go to the start
         </Link>
       </div>
@@ -55,7 +56,7 @@ export function NotFoundContent() {
   return (
     <div className="max-w-2xl">
       <PageHeader title="Page not found" lead={<p>There is no page at this address. It may have been mistyped, or the link is out of date.</p>} />
-      <Link to="/" className={buttonClass('secondary')}>
+      <Link to={paths.home.href()} className={buttonClass('secondary')}>
         Go to the start
       </Link>
     </div>

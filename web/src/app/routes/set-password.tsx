@@ -1,11 +1,12 @@
 /** /set-password?token=… — one page for password resets and new-staff invitations. */
 import { useState } from 'react'
 import { Link, useNavigate, useSearchParams } from 'react-router-dom'
-import { PageHeader } from '../../components/ui/page-header'
-import { Notice } from '../../components/ui/notice'
-import { Panel } from '../../components/ui/panel'
-import { SetPasswordForm } from '../../features/auth/components/set-password-form'
-import { landingPathFor } from '../../features/auth/lib/landing'
+import { PageHeader } from '@/components/ui/page-header'
+import { Notice } from '@/components/ui/notice'
+import { Panel } from '@/components/ui/panel'
+import { SetPasswordForm } from '@/features/auth/components/set-password-form'
+import { landingPathFor } from '@/features/auth/lib/landing'
+import { paths } from '@/lib/paths'
 
 export function Component() {
   const [params] = useSearchParams()
@@ -28,7 +29,7 @@ export function Component() {
       ) : (
         <Notice tone="caution" title="This link cannot be used." live>
           <p>
-            It may be incomplete, already used, or expired. <Link to="/forgot-password">Ask for a new link</Link>; staff who were
+            It may be incomplete, already used, or expired. <Link to={paths.forgotPassword.href()}>Ask for a new link</Link>; staff who were
             invited can also ask their administrator to send the invitation again.
           </p>
         </Notice>

@@ -1,11 +1,12 @@
 /** /sign-in?next=… — back to `next` (if it is a page on this site) or the role's start page. */
 import { Link, useNavigate, useSearchParams } from 'react-router-dom'
-import { Panel } from '../../components/ui/panel'
-import { PageHeader } from '../../components/ui/page-header'
-import { Notice } from '../../components/ui/notice'
-import { useAbilities, useMe } from '../../features/auth/api/get-me'
-import { SignInForm } from '../../features/auth/components/sign-in-form'
-import { landingPathFor, safeNextPath } from '../../features/auth/lib/landing'
+import { Panel } from '@/components/ui/panel'
+import { PageHeader } from '@/components/ui/page-header'
+import { Notice } from '@/components/ui/notice'
+import { useAbilities, useMe } from '@/features/auth/api/get-me'
+import { SignInForm } from '@/features/auth/components/sign-in-form'
+import { landingPathFor, safeNextPath } from '@/features/auth/lib/landing'
+import { paths } from '@/lib/paths'
 
 export function Component() {
   const [params] = useSearchParams()
@@ -21,7 +22,7 @@ export function Component() {
         <div className="mb-5">
           <Notice title={`You are already signed in as ${me.data.name}.`}>
             <p>
-              <Link to={abilities ? landingPathFor(abilities) : '/'}>Go to your start page</Link>, or sign in below as someone else.
+              <Link to={abilities ? landingPathFor(abilities) : paths.home.href()}>Go to your start page</Link>, or sign in below as someone else.
             </p>
           </Notice>
         </div>
@@ -31,10 +32,10 @@ export function Component() {
       </Panel>
       <ul className="mt-5 flex flex-col gap-2">
         <li>
-          <Link to="/forgot-password">Forgot your password?</Link>
+          <Link to={paths.forgotPassword.href()}>Forgot your password?</Link>
         </li>
         <li>
-          <Link to="/register">Create a complainant account</Link> <span className="text-ink-muted">(optional — you can report without one)</span>
+          <Link to={paths.register.href()}>Create a complainant account</Link> <span className="text-ink-muted">(optional — you can report without one)</span>
         </li>
       </ul>
     </div>

@@ -1,6 +1,6 @@
 /** /track/:token — the complainant's page for one report, opened from the e-mailed link. */
 import { useParams } from 'react-router-dom'
-import { ComplainantReportScreen } from '../../features/tracking/components/complainant-report-screen'
+import { ComplainantReportScreen } from '@/features/tracking/components/complainant-report-screen'
 
 export function Component() {
   const { token = '' } = useParams()

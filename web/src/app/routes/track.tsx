@@ -1,7 +1,8 @@
 /** /track — how following a report works (the link itself carries the key). */
 import { Link } from 'react-router-dom'
-import { PageHeader } from '../../components/ui/page-header'
-import { Panel } from '../../components/ui/panel'
+import { PageHeader } from '@/components/ui/page-header'
+import { Panel } from '@/components/ui/panel'
+import { paths } from '@/lib/paths'
 
 export function Component() {
   return (
@@ -17,7 +18,7 @@ export function Component() {
       </Panel>
       <p className="mt-5 text-ink-muted">
         Keep the link private: anyone who has it can read the report. Lost it? With an account, your reports are listed under{' '}
-        <Link to="/my-reports">My reports</Link>.
+        <Link to={paths.myReports.href()}>My reports</Link>.
       </p>
     </div>
   )

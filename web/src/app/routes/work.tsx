@@ -1,14 +1,15 @@
 /** /work — staff start page: "Office queue" for whoever runs the office's queue, else "My cases". */
 import { Link } from 'react-router-dom'
-import { PageHeader } from '../../components/ui/page-header'
-import { PRIORITIES, PRIORITY_LABELS } from '../../../../shared/domain/services'
-import { PriorityBadge } from '../../components/ui/priority-badge'
-import { useAbilities, useMe } from '../../features/auth/api/get-me'
-import { useNow } from '../../features/cases/components/use-now'
-import { AWAITING_REVIEW, MY_OPEN_CASES, NEW_REPORTS } from '../../features/cases/api/get-queue'
-import { QueueSection } from '../../features/cases/components/queue-section'
-import { useOffices } from '../../features/offices/api/get-offices'
-import { OfficeTargetsPanels } from '../../features/offices/components/office-targets-panels'
+import { PageHeader } from '@/components/ui/page-header'
+import { PRIORITIES, PRIORITY_LABELS } from '@shared/domain/services'
+import { PriorityBadge } from '@/components/ui/priority-badge'
+import { useAbilities, useMe } from '@/features/auth/api/get-me'
+import { paths } from '@/lib/paths'
+import { useNow } from '@/lib/use-now'
+import { AWAITING_REVIEW, MY_OPEN_CASES, NEW_REPORTS } from '@/features/office-queue/api/get-queue'
+import { QueueSection } from '@/features/office-queue/components/queue-section'
+import { useOffices } from '@/features/offices/api/get-offices'
+import { OfficeTargetsPanels } from '@/features/offices/components/office-targets-panels'
 
 export function Component() {
   const user = useMe().data
@@ -39,7 +40,7 @@ export function Component() {
           />
           <QueueSection id="queue-review" title="Findings awaiting your review" list={AWAITING_REVIEW} now={now} showInvestigator empty="No finding is waiting for review." />
           <p>
-            <Link to="/cases?open=true">The office's open work in the case list</Link>
+            <Link to={paths.cases.href({ open: true })}>The office's open work in the case list</Link>
           </p>
           {offices.data && <OfficeTargetsPanels offices={offices.data.offices} />}
         </>
@@ -52,7 +53,7 @@ export function Component() {
           empty="No open case is assigned to you."
           footer={
             <p>
-              <Link to="/cases?investigatorId=me&open=true">Open as a full list</Link> (filter, sort, download)
+              <Link to={paths.cases.href({ investigatorId: 'me', open: true })}>Open as a full list</Link> (filter, sort, download)
             </p>
           }
         />

@@ -1,5 +1,5 @@
 /** The form's own problem (not tied to one field), announced when it appears. */
-import type { FormProblem } from '../../lib/form-errors'
+import type { FormProblem } from '@/lib/form-errors'
 import { Notice } from './notice'
 import { RequestId } from './request-id'
 

@@ -3,7 +3,7 @@
  * and for colour-blind readers alike. The more urgent, the more points the shape has to it:
  * P1 a solid diamond, P2 a solid triangle, P3 an open square, P4 an open circle.
  */
-import { PRIORITY_LABELS, type Priority } from '../../../../shared/domain/services'
+import { PRIORITY_LABELS, type Priority } from '@shared/domain/services'
 
 const COLOUR: Record<Priority, string> = {
   1: 'text-priority-1 border-priority-1',

@@ -1,5 +1,5 @@
 /** What a page shows when its data could not be loaded: the server's words, its request id, a retry. */
-import { isApiError } from '../../lib/api-client'
+import { isApiError } from '@/lib/api-client'
 import { Button } from './button'
 import { Notice } from './notice'
 import { RequestId } from './request-id'

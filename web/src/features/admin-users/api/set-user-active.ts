@@ -1,7 +1,8 @@
 /** PATCH /api/admin/users/:id {active} — let an account sign in again, or stop it. */
 import { useMutation, useQueryClient } from '@tanstack/react-query'
-import { api } from '../../../lib/api-client'
-import { usersQueryKey, type AdminUser } from './get-users'
+import { api } from '@/lib/api-client'
+import { userKeys } from '@/lib/query-keys'
+import type { AdminUser } from './get-users'
 
 export const setUserActive = (options: { userId: string; active: boolean }) =>
   api.patch<{ user: AdminUser }>(`/api/admin/users/${encodeURIComponent(options.userId)}`, { active: options.active })
@@ -11,10 +12,10 @@ export function useSetUserActive() {
   return useMutation({
     mutationFn: setUserActive,
     onSuccess: ({ user }) => {
-      queryClient.setQueryData(usersQueryKey, (old: { users: AdminUser[] } | undefined) =>
+      queryClient.setQueryData(userKeys.all, (old: { users: AdminUser[] } | undefined) =>
         old ? { users: old.users.map((u) => (u.id === user.id ? user : u)) } : old,
       )
-      return queryClient.invalidateQueries({ queryKey: usersQueryKey })
+      return queryClient.invalidateQueries({ queryKey: userKeys.all })
     },
   })
 }

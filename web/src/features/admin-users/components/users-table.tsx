@@ -10,8 +10,8 @@ import {
   useTable,
 } from '@tanstack/react-table'
 import { format, parseISO } from 'date-fns'
-import { ROLE_LABELS } from '../../../../../shared/domain/roles'
-import { SortableTh, TableFrame } from '../../../components/ui/table'
+import { ROLE_LABELS } from '@shared/domain/roles'
+import { SortableTh, TableFrame } from '@/components/ui/table'
 import type { AdminUser } from '../api/get-users'
 
 const features = tableFeatures({

@@ -3,11 +3,9 @@
  * anonymous visitor (200 either way). Pages, links and start pages follow the abilities.
  */
 import { queryOptions, useQuery } from '@tanstack/react-query'
-import { meResponseSchema, NO_ACCOUNT_ABILITIES, type AccountAbilities, type MeResponse } from '../../../../../shared/schemas/auth'
-import { ApiError, api } from '../../../lib/api-client'
-import { ME_QUERY_KEY } from '../../../lib/query-client'
-
-export const meQueryKey = ME_QUERY_KEY
+import { meResponseSchema, NO_ACCOUNT_ABILITIES, type AccountAbilities, type MeResponse } from '@shared/schemas/auth'
+import { ApiError, api } from '@/lib/api-client'
+import { meKeys } from '@/lib/query-keys'
 
 /** The answer for an anonymous visitor (also what the cache holds after signing out). */
 export const ANONYMOUS: MeResponse = { user: null }
@@ -16,7 +14,7 @@ export const getMe = (signal?: AbortSignal): Promise<MeResponse> => api.read(meR
 
 export const meQueryOptions = () =>
   queryOptions({
-    queryKey: meQueryKey,
+    queryKey: meKeys.all,
     queryFn: ({ signal }) => getMe(signal),
     staleTime: 5 * 60_000,
     // An unreachable server should not hold the page for long: one quick retry, then anonymous.

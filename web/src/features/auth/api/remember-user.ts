@@ -3,16 +3,16 @@
  * success the previous person's cached data is dropped and the new user and abilities kept.
  */
 import { useMutation, useQueryClient } from '@tanstack/react-query'
-import type { MeResponse, SignedIn } from '../../../../../shared/schemas/auth'
-import { meQueryKey } from './get-me'
+import type { MeResponse, SignedIn } from '@shared/schemas/auth'
+import { meKeys } from '@/lib/query-keys'
 
 export function useSigningInMutation<I>(mutationFn: (input: I) => Promise<SignedIn>) {
   const queryClient = useQueryClient()
   return useMutation({
     mutationFn,
     onSuccess: (session) => {
-      queryClient.removeQueries({ predicate: (q) => q.queryKey[0] !== meQueryKey[0] })
-      queryClient.setQueryData<MeResponse>(meQueryKey, session)
+      queryClient.removeQueries({ predicate: (q) => q.queryKey[0] !== meKeys.all[0] })
+      queryClient.setQueryData<MeResponse>(meKeys.all, session)
     },
   })
 }

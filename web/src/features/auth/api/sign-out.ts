@@ -1,8 +1,10 @@
 /** POST /api/auth/sign-out, then leave for the home page and forget everything cached. */
 import { useMutation, useQueryClient } from '@tanstack/react-query'
 import { useNavigate } from 'react-router-dom'
-import { api } from '../../../lib/api-client'
-import { ANONYMOUS, meQueryKey } from './get-me'
+import { api } from '@/lib/api-client'
+import { meKeys } from '@/lib/query-keys'
+import { paths } from '@/lib/paths'
+import { ANONYMOUS } from './get-me'
 
 export const signOut = () => api.post<void>('/api/auth/sign-out')
 
@@ -13,9 +15,9 @@ export function useSignOut() {
     mutationFn: signOut,
     onSuccess: async () => {
       // Leave the signed-in page first, so its guard does not bounce to sign-in mid-way.
-      await navigate('/', { replace: true })
+      await navigate(paths.home.href(), { replace: true })
       queryClient.clear()
-      queryClient.setQueryData(meQueryKey, ANONYMOUS)
+      queryClient.setQueryData(meKeys.all, ANONYMOUS)
     },
   })
 }

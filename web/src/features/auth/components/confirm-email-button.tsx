@@ -3,11 +3,11 @@
  * page opens, so a mail scanner that follows links confirms nothing.
  */
 import { useState } from 'react'
-import type { SignedIn } from '../../../../../shared/schemas/auth'
-import { Button } from '../../../components/ui/button'
-import { FormAlert } from '../../../components/ui/form-alert'
-import { isApiError } from '../../../lib/api-client'
-import { formProblem, type FormProblem } from '../../../lib/form-errors'
+import type { SignedIn } from '@shared/schemas/auth'
+import { Button } from '@/components/ui/button'
+import { FormAlert } from '@/components/ui/form-alert'
+import { isApiError } from '@/lib/api-client'
+import { formProblem, type FormProblem } from '@/lib/form-errors'
 import { useConfirmEmail } from '../api/confirm-email'
 
 export function ConfirmEmailButton({ token, onDone, onInvalidToken }: { token: string; onDone: (session: SignedIn) => void; onInvalidToken: () => void }) {

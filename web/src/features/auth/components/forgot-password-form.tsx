@@ -5,12 +5,12 @@
 import { zodResolver } from '@hookform/resolvers/zod'
 import { useEffect, useState } from 'react'
 import { useForm } from 'react-hook-form'
-import { resetRequestSchema, type ResetRequestInput } from '../../../../../shared/schemas/auth'
-import { FormAlert } from '../../../components/ui/form-alert'
-import { SubmitButton } from '../../../components/ui/submit-button'
-import { Notice } from '../../../components/ui/notice'
-import { TextField } from '../../../components/ui/text-field'
-import { applyFieldErrors, formProblem, type FormProblem } from '../../../lib/form-errors'
+import { resetRequestSchema, type ResetRequestInput } from '@shared/schemas/auth'
+import { FormAlert } from '@/components/ui/form-alert'
+import { SubmitButton } from '@/components/ui/submit-button'
+import { Notice } from '@/components/ui/notice'
+import { TextField } from '@/components/ui/text-field'
+import { applyFieldErrors, formProblem, type FormProblem } from '@/lib/form-errors'
 import { useRequestPasswordReset } from '../api/request-password-reset'
 
 export function ForgotPasswordForm() {

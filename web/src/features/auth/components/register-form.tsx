@@ -6,12 +6,12 @@
 import { zodResolver } from '@hookform/resolvers/zod'
 import { useEffect, useState } from 'react'
 import { useForm } from 'react-hook-form'
-import { registerSchema, type RegisterInput } from '../../../../../shared/schemas/auth'
-import { FormAlert } from '../../../components/ui/form-alert'
-import { Notice } from '../../../components/ui/notice'
-import { SubmitButton } from '../../../components/ui/submit-button'
-import { TextField } from '../../../components/ui/text-field'
-import { applyFieldErrors, formProblem, type FormProblem } from '../../../lib/form-errors'
+import { registerSchema, type RegisterInput } from '@shared/schemas/auth'
+import { FormAlert } from '@/components/ui/form-alert'
+import { Notice } from '@/components/ui/notice'
+import { SubmitButton } from '@/components/ui/submit-button'
+import { TextField } from '@/components/ui/text-field'
+import { applyFieldErrors, formProblem, type FormProblem } from '@/lib/form-errors'
 import { useRegister } from '../api/register'
 
 const FIELDS = ['name', 'email', 'password'] as const

@@ -7,13 +7,14 @@ import { zodResolver } from '@hookform/resolvers/zod'
 import { useEffect, useState } from 'react'
 import { useForm } from 'react-hook-form'
 import { Link } from 'react-router-dom'
-import { signInSchema, type SignedIn, type SignInInput } from '../../../../../shared/schemas/auth'
-import { FormAlert } from '../../../components/ui/form-alert'
-import { SubmitButton } from '../../../components/ui/submit-button'
-import { TextField } from '../../../components/ui/text-field'
-import { isApiError } from '../../../lib/api-client'
-import { applyFieldErrors, formProblem, type FormProblem } from '../../../lib/form-errors'
+import { signInSchema, type SignedIn, type SignInInput } from '@shared/schemas/auth'
+import { FormAlert } from '@/components/ui/form-alert'
+import { SubmitButton } from '@/components/ui/submit-button'
+import { TextField } from '@/components/ui/text-field'
+import { isApiError } from '@/lib/api-client'
+import { applyFieldErrors, formProblem, type FormProblem } from '@/lib/form-errors'
 import { useSignIn } from '../api/sign-in'
+import { paths } from '@/lib/paths'
 
 const FIELDS = ['email', 'password'] as const
 /** How long a sign-in may take before the form says why it is slow [ms]. */
@@ -84,7 +85,7 @@ export function SignInForm({ onSignedIn }: { onSignedIn: (session: SignedIn) => 
       <FormAlert problem={problem} />
       {offerReset && (
         <p>
-          <Link to="/forgot-password">Get a link by e-mail to choose a new password</Link> — it signs you in at once.
+          <Link to={paths.forgotPassword.href()}>Get a link by e-mail to choose a new password</Link> — it signs you in at once.
         </p>
       )}
       <div>

@@ -3,7 +3,7 @@
  * be loaded — a plain line saying so; the typed latitude and longitude work either way.
  */
 import { useMemo } from 'react'
-import { Loading } from '../../../components/ui/loading'
+import { Loading } from '@/components/ui/loading'
 import { useRegionMap } from '../api/get-region-map'
 import type { LatLonDeg } from '../lib/projection'
 import { regionMapData } from '../lib/region-data'

@@ -2,7 +2,7 @@
  * The drawn region, from its data: sea (the frame's background), land, the region's boundary,
  * the offices' areas, a graticule and place names.
  */
-import type { AreaGeometry } from '../../../../../shared/schemas/region'
+import type { AreaGeometry } from '@shared/schemas/region'
 import { graticule, type Projection } from '../lib/projection'
 import type { MapPlace, RegionMapData } from '../lib/region-data'
 

@@ -4,7 +4,7 @@
  * outside the box; the map then says so and shows no marker, and the position still counts.
  */
 import { useId, useMemo, useRef, type KeyboardEvent, type MouseEvent } from 'react'
-import { formatLatLonDeg } from '../../../lib/coordinates'
+import { formatLatLonDeg } from '@/lib/coordinates'
 import { createProjection, nudge, round4, type Direction, type LatLonDeg, type Projection } from '../lib/projection'
 import type { MapOffice, RegionMapData } from '../lib/region-data'
 import { MapBackdrop } from './map-backdrop'

@@ -3,7 +3,7 @@
  * FeatureCollection): null when no region is set up, so the form falls back to typed figures.
  * Pure.
  */
-import type { AreaGeometry, PlaceKind, RegionMap } from '../../../../../shared/schemas/region'
+import type { AreaGeometry, PlaceKind, RegionMap } from '@shared/schemas/region'
 import { boxOfGeometries, type GeoBox } from './map-box'
 import type { LatLonDeg } from './projection'
 

@@ -1,7 +1,7 @@
 /** Offices with their region, centre and response targets (hours per priority). */
-import { PriorityShape } from '../../../components/ui/priority-badge'
-import { PRIORITIES, type Priority } from '../../../../../shared/domain/services'
-import { TableFrame } from '../../../components/ui/table'
+import { PriorityShape } from '@/components/ui/priority-badge'
+import { PRIORITIES, type Priority } from '@shared/domain/services'
+import { TableFrame } from '@/components/ui/table'
 import type { Office } from '../api/get-offices'
 
 const SHAPE_COLOUR: Record<Priority, string> = { 1: 'text-priority-1', 2: 'text-priority-2', 3: 'text-priority-3', 4: 'text-priority-4' }

@@ -1,6 +1,6 @@
 /** Who is reporting. Phone and organisation are optional. */
 import type { UseFormReturn } from 'react-hook-form'
-import { TextField } from '../../../components/ui/text-field'
+import { TextField } from '@/components/ui/text-field'
 import type { ReportFormInput, ReportFormOutput } from './report-form-types'
 import { FormSection } from './form-section'
 

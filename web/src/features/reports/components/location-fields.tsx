@@ -1,9 +1,9 @@
 /** Where it happens: an address or place, and latitude/longitude typed or picked on the map. */
 import type { ReactNode } from 'react'
-import { latDegSpec, lonDegSpec } from '../../../../../shared/schemas/cases'
-import { readNumberWithUnit } from '../../../../../shared/schemas/number-with-unit'
+import { latDegSpec, lonDegSpec } from '@shared/schemas/cases'
+import { readNumberWithUnit } from '@shared/schemas/number-with-unit'
 import type { UseFormReturn } from 'react-hook-form'
-import { TextField } from '../../../components/ui/text-field'
+import { TextField } from '@/components/ui/text-field'
 import { FormSection, figureOrUndefined } from './form-section'
 import type { LocationPickerArgs, ReportFormInput, ReportFormOutput } from './report-form-types'
 

@@ -1,9 +1,10 @@
 /** After a report is sent: its reference (large, copyable), the office, and the tracking link. */
 import { useEffect, useRef, useState } from 'react'
 import { Link } from 'react-router-dom'
-import { Button, buttonClass } from '../../../components/ui/button'
-import { Notice } from '../../../components/ui/notice'
-import { Sign } from '../../../components/ui/sign'
+import { Button, buttonClass } from '@/components/ui/button'
+import { Notice } from '@/components/ui/notice'
+import { Sign } from '@/components/ui/sign'
+import { paths } from '@/lib/paths'
 import type { SubmittedReport } from '../api/submit-report'
 
 export function ReportConfirmation({ result, email }: { result: SubmittedReport; email: string }) {
@@ -74,6 +75,6 @@ function pathOf(url: string): string {
   try {
     return new URL(url, window.location.origin).pathname
   } catch {
-    return '/track'
+    return paths.track.href()
   }
 }

@@ -3,7 +3,7 @@
  * can name them without importing the form that imports them.
  */
 import type { z } from 'zod'
-import type { reportSchema } from '../../../../../shared/schemas/cases'
+import type { reportSchema } from '@shared/schemas/cases'
 
 export type ReportFormInput = z.input<typeof reportSchema>
 export type ReportFormOutput = z.output<typeof reportSchema>

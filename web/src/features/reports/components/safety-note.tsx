@@ -1,5 +1,5 @@
 /** Shown as soon as a safety service is chosen: who comes first, and what to do in danger. */
-import { Notice } from '../../../components/ui/notice'
+import { Notice } from '@/components/ui/notice'
 
 export function SafetyNote() {
   return (

@@ -1,9 +1,9 @@
 /** Which service suffers, its licence, and on what frequency. */
 import type { UseFormReturn } from 'react-hook-form'
-import { AFFECTED_SERVICES, SERVICE_LABELS } from '../../../../../shared/domain/services'
-import { SelectField } from '../../../components/ui/select-field'
-import { TextField } from '../../../components/ui/text-field'
-import { FREQUENCY_UNIT_OPTIONS } from '../../../lib/frequency'
+import { AFFECTED_SERVICES, SERVICE_LABELS } from '@shared/domain/services'
+import { SelectField } from '@/components/ui/select-field'
+import { TextField } from '@/components/ui/text-field'
+import { FREQUENCY_UNIT_OPTIONS } from '@/lib/frequency'
 import { FormSection, figureOrUndefined } from './form-section'
 import type { ReportFormInput, ReportFormOutput } from './report-form-types'
 import { SafetyNote } from './safety-note'

@@ -1,9 +1,9 @@
 /** When it happens and what the complainant experiences, in their own words. */
 import type { UseFormReturn } from 'react-hook-form'
-import { EXPERIENCES, EXPERIENCE_LABELS, OCCURRENCE_LABELS, OCCURRENCE_PATTERNS } from '../../../../../shared/domain/services'
-import { TextField } from '../../../components/ui/text-field'
-import { ChoiceGroup } from '../../../components/ui/choice-group'
-import { TextAreaField } from '../../../components/ui/text-area-field'
+import { EXPERIENCES, EXPERIENCE_LABELS, OCCURRENCE_LABELS, OCCURRENCE_PATTERNS } from '@shared/domain/services'
+import { TextField } from '@/components/ui/text-field'
+import { ChoiceGroup } from '@/components/ui/choice-group'
+import { TextAreaField } from '@/components/ui/text-area-field'
 import { FormSection } from './form-section'
 import type { ReportFormInput, ReportFormOutput } from './report-form-types'
 

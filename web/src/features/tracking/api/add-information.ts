@@ -1,6 +1,6 @@
 /** POST …/information — the complainant adds what they noticed since; the answer is the updated report. */
 import { useMutation, useQueryClient } from '@tanstack/react-query'
-import { api } from '../../../lib/api-client'
+import { api } from '@/lib/api-client'
 import { complainantReportKey, reportBasePath, type ComplainantReport, type ReportSource } from './get-complainant-report'
 
 export const addInformation = (source: ReportSource, body: string) =>

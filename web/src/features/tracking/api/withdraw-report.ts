@@ -1,6 +1,7 @@
 /** POST …/withdraw — the complainant withdraws the report; it closes as withdrawn. */
 import { useMutation, useQueryClient } from '@tanstack/react-query'
-import { api } from '../../../lib/api-client'
+import { api } from '@/lib/api-client'
+import { trackingKeys } from '@/lib/query-keys'
 import { complainantReportKey, reportBasePath, type ComplainantReport, type ReportSource } from './get-complainant-report'
 
 export const withdrawReport = (source: ReportSource, reason: string | undefined) =>
@@ -12,7 +13,7 @@ export function useWithdrawReport(source: ReportSource) {
     mutationFn: (reason: string | undefined) => withdrawReport(source, reason),
     onSuccess: (report) => {
       queryClient.setQueryData(complainantReportKey(source), report)
-      void queryClient.invalidateQueries({ queryKey: ['my-reports'] })
+      void queryClient.invalidateQueries({ queryKey: trackingKeys.myReports() })
     },
   })
 }

@@ -2,11 +2,11 @@
  * A complainant's report page, reached by the e-mailed link or from their account: loading,
  * "no such report" in the words that fit how they came, or the report itself.
  */
-import { Loading } from '../../../components/ui/loading'
-import { Notice } from '../../../components/ui/notice'
-import { PageHeader } from '../../../components/ui/page-header'
-import { QueryError } from '../../../components/ui/query-error'
-import { isApiError } from '../../../lib/api-client'
+import { Loading } from '@/components/ui/loading'
+import { Notice } from '@/components/ui/notice'
+import { PageHeader } from '@/components/ui/page-header'
+import { QueryError } from '@/components/ui/query-error'
+import { isApiError } from '@/lib/api-client'
 import { useComplainantReport, type ReportSource } from '../api/get-complainant-report'
 import { ComplainantReportView } from './complainant-report-view'
 

@@ -1,8 +1,9 @@
 /** A signed-in complainant's reports: reference (a link), where it stands, when it arrived. */
 import { format, parseISO } from 'date-fns'
 import { Link } from 'react-router-dom'
-import { TableFrame } from '../../../components/ui/table'
+import { TableFrame } from '@/components/ui/table'
 import type { MyReportRow } from '../api/get-my-reports'
+import { paths } from '@/lib/paths'
 
 export function MyReportsList({ reports }: { reports: MyReportRow[] }) {
   if (reports.length === 0) {
@@ -21,7 +22,7 @@ export function MyReportsList({ reports }: { reports: MyReportRow[] }) {
       {reports.map((r) => (
         <tr key={r.id} className="border-b border-rule last:border-b-0">
           <td className="px-4 py-3">
-            <Link to={`/my-reports/${r.id}`} className="font-mono font-semibold">
+            <Link to={paths.myReport.href(r.id)} className="font-mono font-semibold">
               {r.reference}
             </Link>
           </td>

@@ -1,9 +1,9 @@
 /** Withdrawing a report, with a confirm step so it is never done by a slip. */
 import { useEffect, useRef, useState } from 'react'
-import { Button, buttonClass } from '../../../components/ui/button'
-import { FormAlert } from '../../../components/ui/form-alert'
-import { formProblem, type FormProblem } from '../../../lib/form-errors'
-import { TextAreaField } from '../../../components/ui/text-area-field'
+import { Button, buttonClass } from '@/components/ui/button'
+import { FormAlert } from '@/components/ui/form-alert'
+import { formProblem, type FormProblem } from '@/lib/form-errors'
+import { TextAreaField } from '@/components/ui/text-area-field'
 import type { ReportSource } from '../api/get-complainant-report'
 import { useWithdrawReport } from '../api/withdraw-report'
 

@@ -1,5 +1,5 @@
 /** The complainant's plain steps (the server sends which one a report is at) and their short names. */
-import { COMPLAINANT_STEPS as STEP_KEYS, type ComplainantStep } from '../../../../../shared/domain/case-lifecycle'
+import { COMPLAINANT_STEPS as STEP_KEYS, type ComplainantStep } from '@shared/domain/case-lifecycle'
 
 const SHORT_NAMES: Record<ComplainantStep, string> = {
   received: 'Received',

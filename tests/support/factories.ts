@@ -1,0 +1,212 @@
+/**
+ * Test data a test owns: a fresh office, its people and its cases, built through the real
+ * services (the same verbs the product uses), so no test reads or changes rows another test
+ * file relies on. The demo data is left to the demo's own test and the browser tests.
+ *
+ * - `makeOffice` places each office on a point of its own, far from the demo region, and
+ *   `reportNear(office)` is a place a few metres from it: a report filed there routes to that
+ *   office and no other.
+ * - `makeUser` creates staff through the administrator's verb (an invitation) and sets the
+ *   password through the invitation link; a complainant registers and confirms the address.
+ * - `makeCase` files a report through the public route and walks it to the wanted state
+ *   through the move services, along the lifecycle's own moves (`CASE_MOVES`).
+ */
+import { randomUUID } from 'node:crypto'
+import request from 'supertest'
+import { expect } from 'vitest'
+import { CASE_MOVES, type CaseMoveName, type CaseState } from '../../shared/domain/case-lifecycle'
+import type { Priority } from '../../shared/domain/services'
+import type { Role } from '../../shared/domain/roles'
+import type { ReportInput } from '../../shared/schemas/cases'
+import { offices, type Office } from '../../server/db/schema'
+import type { Actor } from '../../server/policy/policy'
+import { createStaffUser } from '../../server/modules/users/users.service'
+import { confirmEmailWithToken, registerComplainant, setPasswordWithToken } from '../../server/modules/auth/auth.service'
+import { assignCase, closeCase, proposeFinding, returnFinding, startFieldWork, triageCase } from '../../server/modules/cases/case-moves.service'
+import { uniqueAddress, type TestContext } from './harness'
+import { fileReport, type Filed } from './cases'
+import { queuedTokens } from './accounts'
+
+let made = 0
+/** A word no other test process or run uses (process id, a counter, a random part). */
+export function uniqueWord(prefix = 'f'): string {
+  made += 1
+  return `${prefix}${process.pid.toString(36)}x${made.toString(36)}x${randomUUID().slice(0, 6)}`
+}
+
+/**
+ * A point of its own for a new office: somewhere between 60° S and 30° N (the demo region lies
+ * at 47–49° N), drawn at random to a millionth of a degree, so two offices practically never
+ * share one and a report filed beside an office is nearest to it.
+ */
+function officePoint(): { centreLatDeg: number; centreLonDeg: number } {
+  const round = (x: number) => Math.round(x * 1e6) / 1e6
+  return { centreLatDeg: round(-60 + Math.random() * 90), centreLonDeg: round(-179 + Math.random() * 358) }
+}
+
+/**
+ * A place more than 4,000 km from every test office (they lie south of 30° N) and from the
+ * demo region (47–49° N, 30–32° W): a report filed there is far from every office.
+ */
+export const FAR_FROM_EVERY_TEST_OFFICE = { latDeg: 75, lonDeg: 100 } as const
+
+/**
+ * A fresh office with a unique name on a point of its own (see `reportNear`). No service
+ * creates offices (they come with an installation, as the demo seed writes them), so the row
+ * is inserted as the application role.
+ */
+export async function makeOffice(t: TestContext, over: Partial<typeof offices.$inferInsert> = {}): Promise<Office> {
+  const word = uniqueWord('office')
+  const [o] = await t.services.db
+    .insert(offices)
+    .values({ name: `Test office ${word}`, regionName: `Test area ${word}`, ...officePoint(), ...over })
+    .returning()
+  return o!
+}
+
+/** A place about 10 m from the office: a report filed there is routed to it. */
+export function reportNear(office: Pick<Office, 'centreLatDeg' | 'centreLonDeg'>): { latDeg: number; lonDeg: number } {
+  return { latDeg: office.centreLatDeg + 0.0001, lonDeg: office.centreLonDeg }
+}
+
+export interface TestUser {
+  id: string
+  email: string
+  name: string
+  password: string
+  role: Role
+  officeId: string | null
+  /** The user as the services' actor. */
+  actor: Actor
+}
+
+/** An administrator the factories act as when they create staff (the policy looks at the role only). */
+const factoryAdmin: Actor = { id: randomUUID(), role: 'admin', officeId: null }
+
+/**
+ * A user of the given role. Staff and administrators are invited through the administrator's
+ * verb and choose their password through the e-mailed link (which confirms the address);
+ * a complainant registers and confirms the address from the e-mailed link.
+ */
+export async function makeUser(
+  t: TestContext,
+  opts: { role: Role; office?: Pick<Office, 'id'> | null; password?: string; name?: string; email?: string },
+): Promise<TestUser> {
+  const { role } = opts
+  const word = uniqueWord(role)
+  const email = opts.email ?? `${word}@example.test`
+  const name = opts.name ?? `Test ${role} ${word}`
+  const password = opts.password ?? `password-${word}`
+  if ((role === 'investigator' || role === 'supervisor') && !opts.office) throw new Error(`makeUser: a ${role} belongs to an office`)
+  let id: string
+  if (role === 'complainant') {
+    await registerComplainant(t.services, { name, email, password })
+    const [token] = await queuedTokens(t, email, 'confirm-email')
+    expect(token, `a confirmation link was queued to ${email}`).toBeDefined()
+    id = (await confirmEmailWithToken(t.services, token!)).id
+  } else {
+    const officeId = role === 'admin' ? null : opts.office!.id
+    id = (await createStaffUser(t.services, factoryAdmin, { name, email, role, officeId })).id
+    const [token] = await queuedTokens(t, email, 'set-password')
+    expect(token, `an invitation was queued to ${email}`).toBeDefined()
+    await setPasswordWithToken(t.services, token!, password)
+  }
+  const officeId = role === 'investigator' || role === 'supervisor' ? opts.office!.id : null
+  return { id, email, name, password, role, officeId, actor: { id, role, officeId } }
+}
+
+/** A supertest agent signed in as the user, from a client address of its own. */
+export async function signIn(t: TestContext, user: Pick<TestUser, 'email' | 'password'>) {
+  const agent = request.agent(t.app).set('X-Forwarded-For', uniqueAddress())
+  const res = await agent.post('/api/auth/sign-in').send({ email: user.email, password: user.password })
+  if (res.status !== 200) throw new Error(`sign-in as ${user.email} failed: ${res.status} ${JSON.stringify(res.body)}`)
+  return agent
+}
+export type Agent = Awaited<ReturnType<typeof signIn>>
+
+/** The moves makeCase walks along: the ordinary path of a case, no transfer, merge or early close. */
+const WALK_MOVES = ['triage', 'assign', 'startFieldWork', 'proposeFinding', 'returnFinding', 'close'] as const satisfies readonly CaseMoveName[]
+type WalkMove = (typeof WALK_MOVES)[number]
+
+/** The shortest run of moves from `received` to the state, read from the lifecycle's data. */
+export function pathTo(state: CaseState): WalkMove[] {
+  const paths = new Map<CaseState, WalkMove[]>([['received', []]])
+  const queue: CaseState[] = ['received']
+  while (queue.length > 0) {
+    const from = queue.shift()!
+    for (const move of WALK_MOVES) {
+      const m = CASE_MOVES[move]
+      if (!(m.from as readonly CaseState[]).includes(from) || paths.has(m.to)) continue
+      paths.set(m.to, [...paths.get(from)!, move])
+      queue.push(m.to)
+    }
+  }
+  const path = paths.get(state)
+  if (!path) throw new Error(`makeCase: no ordinary path reaches ${state}`)
+  return path
+}
+
+export interface TestCase extends Filed {
+  state: CaseState
+  version: number
+  office: Office
+  /** The office's supervisor and the assigned investigator who made the moves (when any were needed). */
+  supervisor?: TestUser
+  investigator?: TestUser
+}
+
+/**
+ * A case of the office: a report filed beside the office through the public route, then
+ * walked to `state` (default `received`) by the office's supervisor and an investigator of
+ * the office, through the move services. Supervisor and investigator are made when not given.
+ */
+export async function makeCase(
+  t: TestContext,
+  opts: {
+    office: Office
+    state?: CaseState
+    report?: Partial<ReportInput>
+    supervisor?: TestUser
+    investigator?: TestUser
+    /** Set at triage (the case is triaged first); otherwise the suggested priority stays. */
+    priority?: Priority
+  },
+): Promise<TestCase> {
+  const state = opts.state ?? 'received'
+  if (opts.priority !== undefined && state === 'received') throw new Error('makeCase: a priority is set at triage; ask for a triaged state or later')
+  const filed = await fileReport(t, { ...reportNear(opts.office), ...opts.report })
+  const { rows } = await t.pool.query<{ office_id: string }>(`SELECT office_id FROM cases WHERE id = $1`, [filed.id])
+  if (rows[0]!.office_id !== opts.office.id) throw new Error(`makeCase: the report was routed to another office than ${opts.office.name}`)
+  // a priority asked for is set at triage, first, whatever the path
+  const path = opts.priority !== undefined && pathTo(state)[0] !== 'triage' ? (['triage', ...pathTo(state)] as WalkMove[]) : pathTo(state)
+  let { supervisor, investigator } = opts
+  if (path.length > 0) supervisor ??= await makeUser(t, { role: 'supervisor', office: opts.office })
+  if (path.some((m) => m !== 'triage')) investigator ??= await makeUser(t, { role: 'investigator', office: opts.office })
+  let version = 1
+  const ctx = t.services
+  for (const move of path) {
+    const sup = supervisor!.actor
+    const inv = investigator?.actor
+    switch (move) {
+      case 'triage':
+        version = (await triageCase(ctx, sup, filed.id, { version, priority: opts.priority ?? 3 })).version
+        break
+      case 'assign':
+        version = (await assignCase(ctx, sup, filed.id, { version, investigatorId: investigator!.id })).version
+        break
+      case 'startFieldWork':
+        version = (await startFieldWork(ctx, inv!, filed.id, { version })).version
+        break
+      case 'proposeFinding':
+        version = (await proposeFinding(ctx, inv!, filed.id, { version, reason: 'Source found on site; details in the notes.' })).version
+        break
+      case 'returnFinding':
+        version = (await returnFinding(ctx, sup, filed.id, { version, reason: 'Measure once more at the other address.' })).version
+        break
+      case 'close':
+        version = (await closeCase(ctx, sup, filed.id, { version, resolution: 'source_corrected', reason: 'The owner switched the device off.' })).version
+        break
+    }
+  }
+  return { ...filed, state, version, office: opts.office, supervisor, investigator }
+}

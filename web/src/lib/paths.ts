@@ -1,0 +1,42 @@
+/**
+ * Every page's URL, in one place: `path` is the router's pattern (app/router.tsx), `href(…)`
+ * builds a link to it from typed values (ids, tokens, the case list's filters), encoding what
+ * needs encoding. Links, redirects, navigation and the main nav all use these; a page address
+ * written as a string elsewhere is a mistake.
+ */
+import { DEFAULT_LIST_STATE, listStateToSearchParams, type CaseListState } from './case-list-state'
+
+const page = <P extends string>(path: P) => ({ path, href: () => path })
+
+/** `?name=value` for a value that is set, '' otherwise. */
+const query = (name: string, value: string | null | undefined) => (value ? `?${new URLSearchParams({ [name]: value })}` : '')
+
+export const paths = {
+  home: page('/'),
+  /** `next`: the page (path and query) to return to after signing in. */
+  signIn: { path: '/sign-in', href: (next?: string) => `/sign-in${query('next', next)}` },
+  register: page('/register'),
+  forgotPassword: page('/forgot-password'),
+  /** Opened from an e-mailed link that carries the token. */
+  setPassword: { path: '/set-password', href: (token?: string) => `/set-password${query('token', token)}` },
+  confirmEmail: { path: '/confirm-email', href: (token?: string) => `/confirm-email${query('token', token)}` },
+  report: page('/report'),
+  track: page('/track'),
+  trackReport: { path: '/track/:token', href: (token: string) => `/track/${encodeURIComponent(token)}` },
+  devMailbox: page('/dev/mailbox'),
+  work: page('/work'),
+  /** The case list; `filters` are written to the query as the list itself writes them (defaults left out). */
+  cases: {
+    path: '/cases',
+    href: (filters: Partial<CaseListState> = {}) => {
+      const search = listStateToSearchParams({ ...DEFAULT_LIST_STATE, ...filters }).toString()
+      return search ? `/cases?${search}` : '/cases'
+    },
+  },
+  case: { path: '/cases/:id', href: (caseId: string) => `/cases/${encodeURIComponent(caseId)}` },
+  admin: page('/admin'),
+  adminUsers: page('/admin/users'),
+  adminOffices: page('/admin/offices'),
+  myReports: page('/my-reports'),
+  myReport: { path: '/my-reports/:id', href: (reportId: string) => `/my-reports/${encodeURIComponent(reportId)}` },
+} as const
