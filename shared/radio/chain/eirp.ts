@@ -17,7 +17,13 @@ import { dbmToWatts, eirpToErpDb, erpToEirpDb } from '../units'
 
 export const EIRP_ERP_METHOD: MethodRef = {
   id: 'eirp-erp-dipole',
-  source: 'ITU Radio Regulations Nos. 1.161 and 1.162; ITU-R BS.561 Annex 1 §2: EIRP = ERP + 2.15 dB [M for the wording]',
+  source: 'ITU Radio Regulations Nos. 1.161 and 1.162; ITU-R BS.561 Annex 1 §2: EIRP = ERP + 2.15 dB [M for the wording] — register 3-1…3-3',
+}
+
+export const EIRP_FROM_CONDUCTED_METHOD: MethodRef = {
+  id: 'eirp-from-conducted',
+  source:
+    'EIRP = P − L_feeder + G, exact [D]; e.i.r.p. as defined in ITU Radio Regulations No. 1.161 (power supplied to the antenna × gain) [M for the wording] — register 11-1',
 }
 
 export interface EirpErp {
@@ -41,17 +47,21 @@ export function eirpAndErp(opts: { eirpDbm: number } | { erpDbm: number }): Radi
 }
 
 /** EIRP of a transmitter from its conducted power, feeder loss and antenna gain [dBm]. */
-export function eirpFromConductedDbm(opts: { conductedPowerDbm: number; antennaGainDbi: number; feederLossDb?: number }): number {
+export function eirpFromConductedDbm(opts: { conductedPowerDbm: number; antennaGainDbi: number; feederLossDb?: number }): RadioResult<{ eirpDbm: number }> {
   const p = requireFinite('conductedPowerDbm', opts.conductedPowerDbm)
   const g = requireFinite('antennaGainDbi', opts.antennaGainDbi)
   const l = requireNonNegative('feederLossDb', opts.feederLossDb ?? 0)
-  return p - l + g // Eq. (2) [dBm]
+  return { value: { eirpDbm: p - l + g }, warnings: feederWarnings(opts.feederLossDb), method: EIRP_FROM_CONDUCTED_METHOD } // Eq. (2) [dBm]
 }
 
 /** Conducted power that gives an EIRP through the feeder and antenna [dBm] (inverse). */
-export function conductedFromEirpDbm(opts: { eirpDbm: number; antennaGainDbi: number; feederLossDb?: number }): number {
+export function conductedFromEirpDbm(opts: { eirpDbm: number; antennaGainDbi: number; feederLossDb?: number }): RadioResult<{ conductedPowerDbm: number }> {
   const e = requireFinite('eirpDbm', opts.eirpDbm)
   const g = requireFinite('antennaGainDbi', opts.antennaGainDbi)
   const l = requireNonNegative('feederLossDb', opts.feederLossDb ?? 0)
-  return e + l - g // Eq. (2) [dBm]
+  return { value: { conductedPowerDbm: e + l - g }, warnings: feederWarnings(opts.feederLossDb), method: EIRP_FROM_CONDUCTED_METHOD } // Eq. (2) [dBm]
+}
+
+function feederWarnings(feederLossDb: number | undefined): string[] {
+  return feederLossDb === undefined ? ['Feeder loss taken as 0 dB: give feederLossDb when the cable and connectors are known.'] : []
 }

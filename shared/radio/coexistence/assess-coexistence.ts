@@ -13,19 +13,17 @@
  *   (3) L_req = (EIRP + G_r − L_f − L_bw − FDR) − (N + (I/N)_crit)   [dB]  path loss that meets it
  *   (4) d_sep = L_b⁻¹(L_req)                                   [m]
  */
-import { requireFinite, requirePositive } from '../guards'
+import { requirePositive } from '../guards'
 import type { MethodRef, RadioResult } from '../types'
 import { interferenceBeforePathLossDbm, interferencePowerDbm, interferenceToNoiseDb, type InterferencePath } from './interference'
 import { resolveCriterion, desensitisationDb, type CriterionChoice } from './protection-criteria'
-import { noiseFloorDbm, type NoiseFloorOptions } from './thermal-noise'
+import { resolveVictimNoise, type VictimNoise } from './thermal-noise'
 
 export const COEXISTENCE_METHOD: MethodRef = {
   id: 'coexistence-i-over-n',
-  source: 'I/N against a protection criterion (ITU-R sharing-study method, criteria [M]); Δ = 10 log10(1 + 10^(I/N/10)) [D]',
+  source:
+    'I/N against a protection criterion (ITU-R sharing-study method, criteria [M]); Δ = 10 log10(1 + 10^(I/N/10)) [D]; separation through the model inverse — register CX-1',
 }
-
-/** The victim's noise: given directly, or from kTB, bandwidth and noise figure. */
-export type VictimNoise = { noiseDbm: number } | NoiseFloorOptions
 
 export interface CoexistenceOptions extends InterferencePath {
   victimNoise: VictimNoise
@@ -53,23 +51,16 @@ export interface CoexistenceAssessment {
   separationDistanceM: number
 }
 
-function resolveNoise(noise: VictimNoise): { noiseDbm: number; warnings: string[] } {
-  if (noise && 'noiseDbm' in noise) return { noiseDbm: requireFinite('victimNoise.noiseDbm', noise.noiseDbm), warnings: [] }
-  if (!noise) throw new RangeError('victimNoise must give noiseDbm or bandwidthHz.')
-  const r = noiseFloorDbm(noise)
-  return { noiseDbm: r.value.noiseDbm, warnings: r.warnings }
-}
-
 /** Path loss and distance at which the interference meets the criterion exactly. */
 export function separationDistanceM(
   opts: InterferencePath & { victimNoise: VictimNoise; criterion?: CriterionChoice },
 ): RadioResult<{ separationDistanceM: number; requiredPathLossDb: number }> {
-  const noise = resolveNoise(opts.victimNoise)
+  const noise = resolveVictimNoise(opts.victimNoise)
   const crit = resolveCriterion(opts.criterion)
   const requiredPathLossDb = interferenceBeforePathLossDbm(opts) - (noise.noiseDbm + crit.inrDb) // Eq. (3) [dB]
   const inverse = opts.model.distanceM(requiredPathLossDb) // Eq. (4) [m]
   return {
-    value: { separationDistanceM: inverse.distanceM, requiredPathLossDb },
+    value: { separationDistanceM: inverse.value.distanceM, requiredPathLossDb },
     warnings: [...noise.warnings, ...inverse.warnings],
     method: { id: COEXISTENCE_METHOD.id, source: `${COEXISTENCE_METHOD.source}; model: ${inverse.method.source}` },
   }
@@ -78,10 +69,10 @@ export function separationDistanceM(
 /** I/N, desensitisation, margin, EIRP reduction and separation distance for one interferer. */
 export function assessCoexistence(opts: CoexistenceOptions & { distanceM: number }): RadioResult<CoexistenceAssessment> {
   requirePositive('distanceM', opts.distanceM)
-  const noise = resolveNoise(opts.victimNoise)
+  const noise = resolveVictimNoise(opts.victimNoise)
   const crit = resolveCriterion(opts.criterion)
   const i = interferencePowerDbm(opts)
-  const inrDb = interferenceToNoiseDb({ interferenceDbm: i.value.interferenceDbm, noiseDbm: noise.noiseDbm })
+  const inrDb = interferenceToNoiseDb({ interferenceDbm: i.value.interferenceDbm, noiseDbm: noise.noiseDbm }).value.inrDb
   const marginDb = inrDb - crit.inrDb // Eq. (1) [dB]
   const sep = separationDistanceM({ ...opts, victimNoise: { noiseDbm: noise.noiseDbm } })
   return {
@@ -89,7 +80,7 @@ export function assessCoexistence(opts: CoexistenceOptions & { distanceM: number
       interferenceDbm: i.value.interferenceDbm,
       noiseDbm: noise.noiseDbm,
       inrDb,
-      desensitisationDb: desensitisationDb(inrDb),
+      desensitisationDb: desensitisationDb({ inrDb }).value.desensitisationDb,
       criterionInrDb: crit.inrDb,
       criterionDescription: crit.description,
       marginDb,

@@ -11,17 +11,26 @@
  *   (1) L_bw = −10 log10(B_overlap / B_i)                          [dB]  ≥ 0
  *   (2) I = EIRP − L_b(d) + G_r − L_f − L_bw − FDR                 [dBm]
  *   (3) I/N = I − N                                                [dB]
+ *   (4) I_max = N + (I/N)_crit                                     [dBm] inverse of (3): largest interference meeting the criterion
  */
 import { requireFinite, requireNonNegative, requirePositive } from '../guards'
 import type { PropagationModel } from '../propagation/model'
 import type { MethodRef, RadioResult } from '../types'
+import { resolveCriterion, type CriterionChoice } from './protection-criteria'
+import { resolveVictimNoise, type VictimNoise } from './thermal-noise'
 
 const log10 = Math.log10
 
 export const INTERFERENCE_METHOD: MethodRef = {
   id: 'interference-link-budget',
   source:
-    'I = EIRP − L_b(d) + G_r − L_f − L_bw − FDR; FDR and bandwidth terms after ITU-R SM.337-6 §2 [M]; path loss from the stated propagation model',
+    'I = EIRP − L_b(d) + G_r − L_f − L_bw − FDR; FDR and bandwidth terms after ITU-R SM.337-6 §2 [M]; path loss from the stated propagation model — register CX-1, CX-2',
+}
+
+export const INR_METHOD: MethodRef = {
+  id: 'interference-to-noise-ratio',
+  source:
+    'I/N = I − N with both powers in dBm, and its inverse I_max = N + (I/N)_crit, exact [D]; noise kT0B·F (ITU-R P.372 [M for the clause]) — register CX-1, CX-3',
 }
 
 /** Share of the interferer's bandwidth that falls in the victim's channel. */
@@ -76,8 +85,8 @@ export function interferencePowerDbm(opts: InterferencePath & { distanceM: numbe
   const loss = opts.model.lossDb(distanceM)
   return {
     value: {
-      interferenceDbm: before - loss.lossDb, // Eq. (2) [dBm]
-      pathLossDb: loss.lossDb,
+      interferenceDbm: before - loss.value.lossDb, // Eq. (2) [dBm]
+      pathLossDb: loss.value.lossDb,
       bandwidthOverlapLossDb: bandwidthOverlapLossDb(opts.bandwidthOverlap),
     },
     warnings: [...loss.warnings],
@@ -86,6 +95,30 @@ export function interferencePowerDbm(opts: InterferencePath & { distanceM: numbe
 }
 
 /** Interference-to-noise ratio [dB]. */
-export function interferenceToNoiseDb(opts: { interferenceDbm: number; noiseDbm: number }): number {
-  return requireFinite('interferenceDbm', opts.interferenceDbm) - requireFinite('noiseDbm', opts.noiseDbm) // Eq. (3) [dB]
+export function interferenceToNoiseDb(opts: { interferenceDbm: number; noiseDbm: number }): RadioResult<{ inrDb: number }> {
+  const inrDb = requireFinite('interferenceDbm', opts.interferenceDbm) - requireFinite('noiseDbm', opts.noiseDbm) // Eq. (3) [dB]
+  return { value: { inrDb }, warnings: [], method: INR_METHOD }
+}
+
+/**
+ * Largest interference power at the victim receiver input that meets an I/N criterion [dBm]
+ * (inverse of interferenceToNoiseDb). The victim's noise is given directly or from kTB,
+ * bandwidth and noise figure; the criterion is a preset id or a custom `{ inrDb }` (default −6 dB).
+ */
+export function maxInterferencePowerDbmForInr(opts: {
+  victimNoise: VictimNoise
+  criterion?: CriterionChoice
+}): RadioResult<{ maxInterferenceDbm: number; noiseDbm: number; criterionInrDb: number; criterionDescription: string }> {
+  const noise = resolveVictimNoise(opts.victimNoise)
+  const crit = resolveCriterion(opts.criterion)
+  return {
+    value: {
+      maxInterferenceDbm: noise.noiseDbm + crit.inrDb, // Eq. (4) [dBm]
+      noiseDbm: noise.noiseDbm,
+      criterionInrDb: crit.inrDb,
+      criterionDescription: crit.description,
+    },
+    warnings: noise.warnings,
+    method: INR_METHOD,
+  }
 }

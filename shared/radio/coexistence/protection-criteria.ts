@@ -11,6 +11,12 @@
  *   (2) I/N = 10 log10(10^(Δ/10) − 1)               [dB]  inverse, Δ > 0
  */
 import { requireFinite, requirePositive } from '../guards'
+import type { MethodRef, RadioResult } from '../types'
+
+export const DESENSITISATION_METHOD: MethodRef = {
+  id: 'desensitisation-from-inr',
+  source: 'Δ = 10 log10(1 + 10^(I/N/10)) and its inverse, exact [D] (noise and interference add in power) — register 10-1…10-4',
+}
 
 /** A named I/N criterion; the status tag says how far its value is verified. */
 export interface ProtectionCriterion {
@@ -61,12 +67,17 @@ export function resolveCriterion(choice: CriterionChoice | undefined): { inrDb: 
 }
 
 /** Rise of the noise floor caused by interference at a given I/N [dB]. */
-export function desensitisationDb(inrDb: number): number {
-  return 10 * Math.log10(1 + 10 ** (requireFinite('inrDb', inrDb) / 10)) // Eq. (1) [dB]
+export function desensitisationDb(opts: { inrDb: number }): RadioResult<{ desensitisationDb: number }> {
+  const inr = requireFinite('inrDb', opts.inrDb)
+  return {
+    value: { desensitisationDb: 10 * Math.log10(1 + 10 ** (inr / 10)) }, // Eq. (1) [dB]
+    warnings: [],
+    method: DESENSITISATION_METHOD,
+  }
 }
 
 /** I/N that causes a given desensitisation [dB] (inverse; desensitisation must be > 0). */
-export function inrForDesensitisationDb(desensitisationDbValue: number): number {
-  const d = requirePositive('desensitisationDb', desensitisationDbValue)
-  return 10 * Math.log10(10 ** (d / 10) - 1) // Eq. (2) [dB]
+export function inrForDesensitisationDb(opts: { desensitisationDb: number }): RadioResult<{ inrDb: number }> {
+  const d = requirePositive('desensitisationDb', opts.desensitisationDb)
+  return { value: { inrDb: 10 * Math.log10(10 ** (d / 10) - 1) }, warnings: [], method: DESENSITISATION_METHOD } // Eq. (2) [dB]
 }

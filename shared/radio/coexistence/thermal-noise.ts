@@ -18,7 +18,7 @@ const log10 = Math.log10
 
 export const THERMAL_NOISE_METHOD: MethodRef = {
   id: 'thermal-noise-ktb',
-  source: 'N = kT0B·F with k exact (SI 2019) and T0 = 290 K; ITU-R P.372-16 §2 refers noise to kT0B [M for the clause]',
+  source: 'N = kT0B·F with k exact (SI 2019) and T0 = 290 K; ITU-R P.372-16 §2 refers noise to kT0B [M for the clause] — register 9-1…9-4',
 }
 
 /** Thermal noise density at temperatureK (default T0 = 290 K) [dBm/Hz]. */
@@ -40,10 +40,7 @@ export function noiseFloorDbm(opts: NoiseFloorOptions): RadioResult<{ noiseDbm: 
   const b = requirePositive('bandwidthHz', opts.bandwidthHz)
   const nf = requireNonNegative('noiseFigureDb', opts.noiseFigureDb ?? 0)
   const n0 = thermalNoiseDensityDbmPerHz({ temperatureK: opts.temperatureK })
-  const warnings: string[] = []
-  if (opts.temperatureK !== undefined && opts.temperatureK !== REFERENCE_TEMPERATURE_K) {
-    warnings.push(`Noise referred to ${opts.temperatureK} K instead of the standard T0 = 290 K; noise figures are defined at 290 K.`)
-  }
+  const warnings = temperatureWarnings(opts.temperatureK)
   return {
     value: { noiseDbm: n0 + 10 * log10(b) + nf, noiseDensityDbmPerHz: n0 + nf }, // Eq. (2) [dBm]
     warnings,
@@ -52,8 +49,29 @@ export function noiseFloorDbm(opts: NoiseFloorOptions): RadioResult<{ noiseDbm: 
 }
 
 /** Bandwidth whose noise floor is noiseDbm (inverse of noiseFloorDbm) [Hz]. */
-export function noiseBandwidthHz(opts: { noiseDbm: number; noiseFigureDb?: number; temperatureK?: number }): number {
+export function noiseBandwidthHz(opts: { noiseDbm: number; noiseFigureDb?: number; temperatureK?: number }): RadioResult<{ bandwidthHz: number }> {
   const n = requireFinite('noiseDbm', opts.noiseDbm)
   const nf = requireNonNegative('noiseFigureDb', opts.noiseFigureDb ?? 0)
-  return 10 ** ((n - thermalNoiseDensityDbmPerHz({ temperatureK: opts.temperatureK }) - nf) / 10) // Eq. (3) [Hz]
+  return {
+    value: { bandwidthHz: 10 ** ((n - thermalNoiseDensityDbmPerHz({ temperatureK: opts.temperatureK }) - nf) / 10) }, // Eq. (3) [Hz]
+    warnings: temperatureWarnings(opts.temperatureK),
+    method: THERMAL_NOISE_METHOD,
+  }
+}
+
+/** The victim's noise: given directly (a measured or stated noise floor), or from kTB, bandwidth and noise figure. */
+export type VictimNoise = { noiseDbm: number } | NoiseFloorOptions
+
+/** The victim's noise floor [dBm], with the warnings of its kTB computation when it was computed. */
+export function resolveVictimNoise(noise: VictimNoise): { noiseDbm: number; warnings: string[] } {
+  if (noise && 'noiseDbm' in noise) return { noiseDbm: requireFinite('victimNoise.noiseDbm', noise.noiseDbm), warnings: [] }
+  if (!noise) throw new RangeError('victimNoise must give noiseDbm or bandwidthHz.')
+  const r = noiseFloorDbm(noise)
+  return { noiseDbm: r.value.noiseDbm, warnings: r.warnings }
+}
+
+function temperatureWarnings(temperatureK: number | undefined): string[] {
+  return temperatureK !== undefined && temperatureK !== REFERENCE_TEMPERATURE_K
+    ? [`Noise referred to ${temperatureK} K instead of the standard T0 = 290 K; noise figures are defined at 290 K.`]
+    : []
 }

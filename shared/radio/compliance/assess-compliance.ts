@@ -17,7 +17,8 @@ import { appliedLimitEirpDbm, type InstallationFacts, type LimitSpec } from './l
 
 export const COMPLIANCE_METHOD: MethodRef = {
   id: 'eirp-limit-verdict',
-  source: 'EIRP against the limit as written (cited per limit); interval decision with the 95 % interval of JCGM 100:2008 (k = 2)',
+  source:
+    'EIRP against the limit as written (cited per limit); interval decision with the 95 % interval of JCGM 100:2008 (k = 2); limit applied as in applied-limit-eirp — register 11-1…11-5',
 }
 
 export type ComplianceVerdict = 'exceeds' | 'within' | 'inconclusive'
@@ -58,8 +59,13 @@ export function assessCompliance(opts: ComplianceOptions): RadioResult<Complianc
   if (!opts.limit || typeof opts.limit.citation !== 'string' || opts.limit.citation.trim() === '') {
     throw new RangeError('limit.citation must name the regulation or authorisation the limit comes from.')
   }
-  const applied = appliedLimitEirpDbm(opts.limit.spec, opts)
-  const lim = applied.limitEirpDbm
+  const applied = appliedLimitEirpDbm({
+    spec: opts.limit.spec,
+    antennaGainDbi: opts.antennaGainDbi,
+    emissionBandwidthHz: opts.emissionBandwidthHz,
+    feederLossDb: opts.feederLossDb,
+  })
+  const lim = applied.value.limitEirpDbm
   const marginDb = eirp - lim // Eq. (1) [dB]
   let verdict: ComplianceVerdict = marginDb > 0 ? 'exceeds' : 'within'
   let marginIntervalDb: { lowDb: number; highDb: number } | undefined
@@ -86,7 +92,7 @@ export function assessCompliance(opts: ComplianceOptions): RadioResult<Complianc
       appliedLimitEirpDbm: lim,
       citation: opts.limit.citation,
       limitStatus: opts.limit.status,
-      derivation: applied.derivation,
+      derivation: applied.value.derivation,
     },
     ...(marginIntervalDb ? { interval: marginInterval(marginIntervalDb) } : {}),
     warnings,

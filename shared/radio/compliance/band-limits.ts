@@ -320,7 +320,9 @@ export const BAND_LIMITS: readonly BandLimitEntry[] = [
 ]
 
 /** Entries whose bands contain freqHz (inclusive edges). */
-export function findBandLimits(freqHz: number, entries: readonly BandLimitEntry[] = BAND_LIMITS): BandLimitEntry[] {
+export function findBandLimits(opts: { freqHz: number; entries?: readonly BandLimitEntry[] }): BandLimitEntry[] {
+  const freqHz = opts?.freqHz
+  const entries = opts?.entries ?? BAND_LIMITS
   if (typeof freqHz !== 'number' || !Number.isFinite(freqHz) || freqHz <= 0) {
     throw new RangeError(`freqHz must be a finite number greater than zero (got ${String(freqHz)}).`)
   }

@@ -18,6 +18,7 @@
  */
 import { DIPOLE_GAIN_DBI } from '../constants'
 import { requireFinite, requireNonEmpty, requireNonNegative, requirePositive } from '../guards'
+import type { MethodRef, RadioResult } from '../types'
 
 const log10 = Math.log10
 
@@ -78,11 +79,22 @@ export interface InstallationFacts {
   feederLossDb?: number
 }
 
+export const APPLIED_LIMIT_METHOD: MethodRef = {
+  id: 'applied-limit-eirp',
+  source:
+    'Limit as written turned into an EIRP: ERP + 2.15 dB (ITU RR Nos. 1.161/1.162 [M for the wording]); density × emission bandwidth [D]; ' +
+    'conducted − gain-rule reduction − feeder + gain, gain rules of 47 CFR §§15.247(b)(4), 15.247(c)(1)(i), 15.407(a)(1)(iii) [V-S], 15.255(c) [M] — register 11-1, 11-3, 11-4, 11-5',
+}
+
 export interface AppliedLimit {
   limitEirpDbm: number
   /** One plain line per step, e.g. "conducted 30 dBm − 18 dB (gain rule) + 24 dBi = 36 dBm EIRP". */
   derivation: string[]
-  warnings: string[]
+}
+
+export interface AppliedLimitOptions extends InstallationFacts {
+  /** The limit as written in the regulation or authorisation. */
+  spec: LimitSpec
 }
 
 const f2 = (v: number): string => String(+v.toFixed(2))
@@ -123,11 +135,13 @@ function conductedToEirp(pLimDbm: number, rule: ConductedGainRule, facts: Instal
 }
 
 /** The EIRP limit [dBm] that a limit comes to for this installation, with its derivation. */
-export function appliedLimitEirpDbm(spec: LimitSpec, facts: InstallationFacts = {}): AppliedLimit {
+export function appliedLimitEirpDbm(opts: AppliedLimitOptions): RadioResult<AppliedLimit> {
+  if (!opts || typeof opts !== 'object') throw new RangeError('appliedLimitEirpDbm needs an options object with spec.')
+  const { spec, ...facts } = opts
   const lines: string[] = []
   const warnings: string[] = []
   const limitEirpDbm = apply(spec, facts, lines, warnings)
-  return { limitEirpDbm, derivation: lines, warnings: [...new Set(warnings)] }
+  return { value: { limitEirpDbm, derivation: lines }, warnings: [...new Set(warnings)], method: APPLIED_LIMIT_METHOD }
 }
 
 function apply(spec: LimitSpec, facts: InstallationFacts, lines: string[], warnings: string[]): number {

@@ -39,12 +39,11 @@ export interface EirpFromMeasurementOptions {
   coverageFactor?: number
 }
 
+/** Powers in dBm (the library's one convention for powers in dB), and in W. */
 export interface EirpEstimate {
   eirpDbm: number
-  eirpDbw: number
   eirpW: number
   erpDbm: number
-  erpDbw: number
   erpW: number
   /** P_r at the point for an isotropic antenna [dBm]. */
   isotropicReceivedPowerDbm: number
@@ -71,7 +70,8 @@ export const EIRP_FROM_MEASUREMENT_VALIDITY: ValidityRange[] = FAR_FIELD_VALIDIT
 const FREQ_MISMATCH_TOLERANCE = 0.01
 
 /** Frequency the model was built for, when its spec states one. */
-export function modelFreqHz(spec: PropagationModelSpec): number | undefined {
+export function modelFreqHz(opts: { spec: PropagationModelSpec }): number | undefined {
+  const { spec } = opts
   if (spec.kind === 'absorbing') return spec.base.freqHz
   return spec.freqHz
 }
@@ -101,9 +101,9 @@ export function eirpFromMeasurement(opts: EirpFromMeasurementOptions): RadioResu
   const prDbm = isotropicPowerDbm(m)
   const loss = opts.model.lossDb(distanceM)
   warnings.push(...loss.warnings)
-  const eirpDbm = prDbm + loss.lossDb // Eq. (EIRP = P_r + L_b) [dBm]
+  const eirpDbm = prDbm + loss.value.lossDb // Eq. (EIRP = P_r + L_b) [dBm]
 
-  const freqModelHz = modelFreqHz(opts.model.spec)
+  const freqModelHz = modelFreqHz({ spec: opts.model.spec })
   if (m.kind === 'field-strength' || m.kind === 'pfd') {
     requirePositive('freqHz', m.freqHz)
     if (freqModelHz !== undefined && Math.abs(m.freqHz - freqModelHz) > FREQ_MISMATCH_TOLERANCE * freqModelHz) {
@@ -117,8 +117,8 @@ export function eirpFromMeasurement(opts: EirpFromMeasurementOptions): RadioResu
 
   const contributions: UncertaintyContribution[] = [...(opts.measurementContributions ?? []).map((c) => ({ unit: 'dB', ...c }))]
   if (opts.distanceUncertainty) contributions.push(distanceContribution({ model: opts.model, distanceM, distance: opts.distanceUncertainty }))
-  if (loss.shadowSigmaDb !== undefined && loss.shadowSigmaDb > 0) {
-    contributions.push({ name: 'model (shadowing σ)', unit: 'dB', distribution: { kind: 'normal', expandedUncertainty: loss.shadowSigmaDb, coverageFactor: 1 } })
+  if (loss.value.shadowSigmaDb !== undefined && loss.value.shadowSigmaDb > 0) {
+    contributions.push({ name: 'model (shadowing σ)', unit: 'dB', distribution: { kind: 'normal', expandedUncertainty: loss.value.shadowSigmaDb, coverageFactor: 1 } })
   }
   if (!opts.measurementContributions?.length) {
     warnings.push(contributions.length
@@ -129,13 +129,11 @@ export function eirpFromMeasurement(opts: EirpFromMeasurementOptions): RadioResu
   const erpDbm = eirpDbm - DIPOLE_GAIN_DBI // Eq. (RR 1.162) ERP = EIRP − 2.15 [dBm]
   const value: EirpEstimate = {
     eirpDbm,
-    eirpDbw: eirpDbm - 30,
     eirpW: dbmToWatts(eirpDbm),
     erpDbm,
-    erpDbw: erpDbm - 30,
     erpW: dbmToWatts(erpDbm),
     isotropicReceivedPowerDbm: prDbm,
-    pathLossDb: loss.lossDb,
+    pathLossDb: loss.value.lossDb,
     distanceM,
     modelMethod: opts.model.method,
   }
@@ -170,8 +168,8 @@ export interface PredictedMeasurement {
 export function predictMeasurementFromEirp(opts: { eirpDbm: number; distanceM: number; model: PropagationModel; freqHz?: number }): RadioResult<PredictedMeasurement> {
   const eirpDbm = requireFinite('eirpDbm', opts.eirpDbm)
   const loss = opts.model.lossDb(requirePositive('distanceM', opts.distanceM))
-  const prDbm = eirpDbm - loss.lossDb // Eq. (P_r = EIRP − L_b) [dBm]
-  const value: PredictedMeasurement = { isotropicReceivedPowerDbm: prDbm, pathLossDb: loss.lossDb }
+  const prDbm = eirpDbm - loss.value.lossDb // Eq. (P_r = EIRP − L_b) [dBm]
+  const value: PredictedMeasurement = { isotropicReceivedPowerDbm: prDbm, pathLossDb: loss.value.lossDb }
   if (opts.freqHz !== undefined) {
     requirePositive('freqHz', opts.freqHz)
     value.fieldStrengthDbuvPerM = receivedPowerToFieldDbuvPerM({ receivedPowerDbm: prDbm, freqHz: opts.freqHz })

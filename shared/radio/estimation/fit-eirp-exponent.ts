@@ -92,7 +92,7 @@ function prepare(opts: FitOptions, minimumPoints: number): Prepared {
   let refLossDb: number
   if (opts.refLossDb !== undefined) refLossDb = requireFinite('refLossDb', opts.refLossDb)
   else if (opts.freqHz !== undefined) {
-    refLossDb = freeSpaceLossDb({ freqHz: opts.freqHz, distanceM: d0 }).lossDb // L_bf(d0), ITU-R P.525-4 exact form [dB]
+    refLossDb = freeSpaceLossDb({ freqHz: opts.freqHz, distanceM: d0 }).value.lossDb // L_bf(d0), ITU-R P.525-4 exact form [dB]
   } else throw new RangeError('give refLossDb or freqHz (for free-space loss at the reference distance).')
   const n = opts.readings.length
   const x = new Float64Array(n)

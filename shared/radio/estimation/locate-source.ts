@@ -130,7 +130,7 @@ export function locateSource(opts: LocateSourceOptions): RadioResult<SourceLocat
     if (opts.pathLoss?.refLossDb !== undefined) refLossDb = requireFinite('pathLoss.refLossDb', opts.pathLoss.refLossDb)
     else if (opts.pathLoss?.freqHz !== undefined) {
       const freqHz = requirePositive('pathLoss.freqHz', opts.pathLoss.freqHz)
-      refLossDb = freeSpaceLossDb({ freqHz, distanceM: d0 }).lossDb // L_bf(d0), ITU-R P.525-4 exact form [dB]
+      refLossDb = freeSpaceLossDb({ freqHz, distanceM: d0 }).value.lossDb // L_bf(d0), ITU-R P.525-4 exact form [dB]
     } else throw new RangeError('levels need pathLoss.refLossDb or pathLoss.freqHz for the loss at the reference distance.')
   }
   const parameterNames = ['eastM', 'northM', ...(useLevels ? ['eirpDbm'] : []), ...(fitExponent ? ['exponent'] : [])]
@@ -262,7 +262,7 @@ export function locateSource(opts: LocateSourceOptions): RadioResult<SourceLocat
   if (ellipse.semiMajorM > 0.5 * nearestM) {
     warnings.push('The 95 % ellipse is large compared with the distance to the nearest observation point: the linearised region is approximate.')
   }
-  if (useLevels && !bearings.length && levels.length >= 3 && !insideConvexHull({ eastM: x, northM: y }, levelSt)) {
+  if (useLevels && !bearings.length && levels.length >= 3 && !insideConvexHull({ point: { eastM: x, northM: y }, points: levelSt })) {
     warnings.push('The estimate lies outside the area covered by the level readings: it is an extrapolation.')
   }
   const bearingResidualsDeg = bearings.map((o, i) => (run.residuals[levels.length + i] * o.sigmaDeg))
@@ -361,7 +361,8 @@ function referenceLogDistance(levels: LevelObservation[], st: EnuPoint[], d0: nu
 }
 
 /** Whether a point lies inside (or on) the convex hull of a set of points (monotone chain hull). */
-export function insideConvexHull(point: EnuPoint, points: EnuPoint[]): boolean {
+export function insideConvexHull(opts: { point: EnuPoint; points: EnuPoint[] }): boolean {
+  const { point, points } = opts
   const pts = [...points].sort((a, b) => a.eastM - b.eastM || a.northM - b.northM)
   const cross = (o: EnuPoint, a: EnuPoint, b: EnuPoint) => (a.eastM - o.eastM) * (b.northM - o.northM) - (a.northM - o.northM) * (b.eastM - o.eastM)
   const lower: EnuPoint[] = []

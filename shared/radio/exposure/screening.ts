@@ -32,7 +32,7 @@ export const EXPOSURE_SCREENING_METHOD: MethodRef = {
   id: 'rf-exposure-screening-icnirp-2020',
   source:
     'S = EIRP/(4πd²) far field [D]; ground-reflection factor 2.56 (common practice, FCC OET Bulletin 65 [M]); ' +
-    'ICNIRP (2020) Health Physics 118(5):483–524 Tables 5–6 reference levels (row status in the data)',
+    'ICNIRP (2020) Health Physics 118(5):483–524 Tables 5–6 reference levels (row status in the data) — register EX-S-1…EX-S-3, EX-D, EX-T5, EX-T6',
 }
 
 export const SCREENING_NOTICE =

@@ -12,14 +12,15 @@
  */
 import { requireFinite, requireNonNegative, requirePositive } from '../guards'
 import type { MethodRef } from '../types'
-import type { PathDistance, PathLoss, PropagationModel } from './model'
+import type { PathDistanceResult, PathLossResult, PropagationModel } from './model'
 import { bisectIncreasing, bracketIncreasing } from './numeric'
 
 /** 20·log10(e) = 8.6859 dB per neper of field amplitude [D]. */
 export const DB_PER_NEPER = 20 * Math.LOG10E
 
 /** Method of a base model with the absorption term added; the id derives from the base id. */
-export function absorbingMethod(base: MethodRef): MethodRef {
+export function absorbingMethod(opts: { base: MethodRef }): MethodRef {
+  const { base } = opts
   return {
     id: `${base.id}+absorption`,
     source: `${base.source}; plus absorption γ·d (specific attenuation, ITU-R P.676-13 Annex 1 eq. (1) for gases)`,
@@ -64,10 +65,10 @@ export function resolveAbsorptionDbPerKm(opts: { absorptionDbPerKm?: number; fie
 }
 
 /** Base loss plus absorption at a distance [dB]. */
-export function absorbingLossDb(opts: { base: PropagationModel; absorptionDbPerKm: number; distanceM: number }): PathLoss {
+export function absorbingLossDb(opts: { base: PropagationModel; absorptionDbPerKm: number; distanceM: number }): PathLossResult {
   const baseLoss = opts.base.lossDb(opts.distanceM)
   const extraDb = absorptionLossDb({ absorptionDbPerKm: opts.absorptionDbPerKm, distanceM: opts.distanceM })
-  return { ...baseLoss, lossDb: baseLoss.lossDb + extraDb, method: absorbingMethod(opts.base.method) } // Eq. (1) [dB]
+  return { ...baseLoss, value: { ...baseLoss.value, lossDb: baseLoss.value.lossDb + extraDb }, method: absorbingMethod({ base: opts.base.method }) } // Eq. (1) [dB]
 }
 
 /**
@@ -75,17 +76,17 @@ export function absorbingLossDb(opts: { base: PropagationModel; absorptionDbPerK
  * reaches lossDb at d_base, so the answer lies below d_base. For a base whose loss oscillates
  * (exact two-ray) the root found is one of several; the base's warnings say so.
  */
-export function absorbingDistanceM(opts: { base: PropagationModel; absorptionDbPerKm: number; lossDb: number }): PathDistance {
+export function absorbingDistanceM(opts: { base: PropagationModel; absorptionDbPerKm: number; lossDb: number }): PathDistanceResult {
   const lossDb = requireFinite('lossDb', opts.lossDb)
   const gamma = requireNonNegative('absorptionDbPerKm', opts.absorptionDbPerKm)
-  const method = absorbingMethod(opts.base.method)
+  const method = absorbingMethod({ base: opts.base.method })
   const baseOnly = opts.base.distanceM(lossDb)
   if (gamma === 0) return { ...baseOnly, method }
-  const total = (d: number): number => opts.base.lossDb(d).lossDb + (gamma * d) / 1e3 // Eq. (1) [dB]
-  const bracket = bracketIncreasing({ fn: total, target: lossDb, startX: baseOnly.distanceM, minX: 1e-9, maxX: baseOnly.distanceM })
+  const total = (d: number): number => opts.base.lossDb(d).value.lossDb + (gamma * d) / 1e3 // Eq. (1) [dB]
+  const bracket = bracketIncreasing({ fn: total, target: lossDb, startX: baseOnly.value.distanceM, minX: 1e-9, maxX: baseOnly.value.distanceM })
   if (!bracket) throw new RangeError(`lossDb = ${lossDb} dB is not reached by the base model plus absorption.`)
   const distanceM = bisectIncreasing({ fn: total, target: lossDb, ...bracket })
-  return { distanceM, warnings: opts.base.lossDb(distanceM).warnings, method }
+  return { value: { distanceM }, warnings: opts.base.lossDb(distanceM).warnings, method }
 }
 
 /** Local slope of base plus absorption [dB per decade]. */

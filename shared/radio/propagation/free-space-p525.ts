@@ -11,9 +11,13 @@
  *  (2) L_bf = 32.4 + 20·log10 f + 20·log10 d           P.525 practical form, f [MHz], d [km]
  *  (3) E = P_eirp − 20·log10 d + 74.77                 E [dBµV/m], P [dBW], d [km]; P.525 rounds to 74.8.
  *      74.77 = 10·log10(30) + 60 from e = √(30·p)/d, i.e. Z0 = 120π [D]
- *  (4) S = P_eirp − 10·log10(4π·d²)                    pfd [dBW/m²], d [m] — inverse-square law [D]
+ *  (4) S = P_eirp − 10·log10(4π·d²)                    pfd [dBW/m²], P [dBW], d [m] — inverse-square law [D]
  *  (5) P_eirp = E + 20·log10 d − 74.77                 inverse of (3)
  *  (6) P_eirp = S + 10·log10(4π·d²)                    inverse of (4)
+ *  (7) P[dBW] = P[dBm] − 30                            exact [D]
+ *
+ * The public face takes and returns powers in dBm (eq. (7) at the boundary); only the pfd
+ * stays in dBW/m², as ITU-R texts state it.
  *
  * The exact constant of (2) is 20·log10(4π·10⁹/c) = 32.4478; the rounded 32.4 reads 0.048 dB low.
  * Valid in the far field only, with no ground, clutter or gaseous absorption.
@@ -22,7 +26,7 @@ import { FAR_FIELD_VALIDITY } from '../chain/far-field'
 import { SPEED_OF_LIGHT_M_PER_S } from '../constants'
 import { requireFinite, requirePositive } from '../guards'
 import { checkValidity, type MethodRef, type ValidityRange } from '../types'
-import type { PathDistance, PathLoss } from './model'
+import type { PathDistanceResult, PathLossResult } from './model'
 
 export type FreeSpaceForm = 'exact' | 'p525-rounded'
 
@@ -56,51 +60,56 @@ function wavelengthWarnings(freqHz: number, distanceM: number): string[] {
 }
 
 /** Free-space basic transmission loss between isotropic antennas [dB]. */
-export function freeSpaceLossDb(opts: { freqHz: number; distanceM: number; form?: FreeSpaceForm }): PathLoss {
+export function freeSpaceLossDb(opts: { freqHz: number; distanceM: number; form?: FreeSpaceForm }): PathLossResult {
   const freqHz = requirePositive('freqHz', opts.freqHz)
   const distanceM = requirePositive('distanceM', opts.distanceM)
   const lossDb =
     opts.form === 'p525-rounded'
       ? P525_ROUNDED_CONSTANT_DB + 20 * Math.log10(freqHz / 1e6) + 20 * Math.log10(distanceM / 1e3) // Eq. (2) [dB]
       : 20 * Math.log10((4 * Math.PI * distanceM * freqHz) / SPEED_OF_LIGHT_M_PER_S) // Eq. (1) [dB]
-  return { lossDb, warnings: wavelengthWarnings(freqHz, distanceM), method: methodOf(opts.form) }
+  return { value: { lossDb }, warnings: wavelengthWarnings(freqHz, distanceM), method: methodOf(opts.form) }
 }
 
 /** Distance at which the free-space loss equals lossDb [m]; exact inverse of freeSpaceLossDb. */
-export function freeSpaceDistanceM(opts: { freqHz: number; lossDb: number; form?: FreeSpaceForm }): PathDistance {
+export function freeSpaceDistanceM(opts: { freqHz: number; lossDb: number; form?: FreeSpaceForm }): PathDistanceResult {
   const freqHz = requirePositive('freqHz', opts.freqHz)
   const lossDb = requireFinite('lossDb', opts.lossDb)
   const distanceM =
     opts.form === 'p525-rounded'
       ? 1e3 * 10 ** ((lossDb - P525_ROUNDED_CONSTANT_DB - 20 * Math.log10(freqHz / 1e6)) / 20) // Eq. (2) inverted [m]
       : (SPEED_OF_LIGHT_M_PER_S / (4 * Math.PI * freqHz)) * 10 ** (lossDb / 20) // Eq. (1) inverted [m]
-  return { distanceM, warnings: wavelengthWarnings(freqHz, distanceM), method: methodOf(opts.form) }
+  return { value: { distanceM }, warnings: wavelengthWarnings(freqHz, distanceM), method: methodOf(opts.form) }
 }
 
-/** Free-space field strength at a distance from an e.i.r.p. [dBµV/m]. */
-export function freeSpaceFieldStrengthDbuvPerM(opts: { eirpDbw: number; distanceM: number }): number {
-  const eirpDbw = requireFinite('eirpDbw', opts.eirpDbw)
+/** dBm → dBW at the boundary, eq. (7). */
+const dbmToDbwExact = (dbm: number): number => dbm - 30 // Eq. (7) [dBW]
+
+/** Free-space field strength at a distance from an e.i.r.p. in dBm [dBµV/m]. */
+export function freeSpaceFieldStrengthDbuvPerM(opts: { eirpDbm: number; distanceM: number }): number {
+  const eirpDbw = dbmToDbwExact(requireFinite('eirpDbm', opts.eirpDbm))
   const distanceM = requirePositive('distanceM', opts.distanceM)
   return eirpDbw - 20 * Math.log10(distanceM / 1e3) + P525_FIELD_CONSTANT_DB // Eq. (3) [dBµV/m]
 }
 
-/** Free-space power flux density at a distance from an e.i.r.p. [dBW/m²]. */
-export function freeSpacePfdDbwPerM2(opts: { eirpDbw: number; distanceM: number }): number {
-  const eirpDbw = requireFinite('eirpDbw', opts.eirpDbw)
+/** Free-space power flux density at a distance from an e.i.r.p. in dBm [dBW/m²]. */
+export function freeSpacePfdDbwPerM2(opts: { eirpDbm: number; distanceM: number }): number {
+  const eirpDbw = dbmToDbwExact(requireFinite('eirpDbm', opts.eirpDbm))
   const distanceM = requirePositive('distanceM', opts.distanceM)
   return eirpDbw - 10 * Math.log10(4 * Math.PI * distanceM ** 2) // Eq. (4) [dBW/m²]
 }
 
-/** E.i.r.p. that gives a field strength at a distance in free space [dBW] (inverse of freeSpaceFieldStrengthDbuvPerM). */
-export function freeSpaceEirpFromFieldDbw(opts: { fieldStrengthDbuvPerM: number; distanceM: number }): number {
+/** E.i.r.p. that gives a field strength at a distance in free space [dBm] (inverse of freeSpaceFieldStrengthDbuvPerM). */
+export function freeSpaceEirpFromFieldDbm(opts: { fieldStrengthDbuvPerM: number; distanceM: number }): number {
   const fieldStrengthDbuvPerM = requireFinite('fieldStrengthDbuvPerM', opts.fieldStrengthDbuvPerM)
   const distanceM = requirePositive('distanceM', opts.distanceM)
-  return fieldStrengthDbuvPerM + 20 * Math.log10(distanceM / 1e3) - P525_FIELD_CONSTANT_DB // Eq. (5) [dBW]
+  const eirpDbw = fieldStrengthDbuvPerM + 20 * Math.log10(distanceM / 1e3) - P525_FIELD_CONSTANT_DB // Eq. (5) [dBW]
+  return eirpDbw + 30 // Eq. (7) [dBm]
 }
 
-/** E.i.r.p. that gives a power flux density at a distance in free space [dBW] (inverse of freeSpacePfdDbwPerM2). */
-export function freeSpaceEirpFromPfdDbw(opts: { pfdDbwPerM2: number; distanceM: number }): number {
+/** E.i.r.p. that gives a power flux density at a distance in free space [dBm] (inverse of freeSpacePfdDbwPerM2). */
+export function freeSpaceEirpFromPfdDbm(opts: { pfdDbwPerM2: number; distanceM: number }): number {
   const pfdDbwPerM2 = requireFinite('pfdDbwPerM2', opts.pfdDbwPerM2)
   const distanceM = requirePositive('distanceM', opts.distanceM)
-  return pfdDbwPerM2 + 10 * Math.log10(4 * Math.PI * distanceM ** 2) // Eq. (6) [dBW]
+  const eirpDbw = pfdDbwPerM2 + 10 * Math.log10(4 * Math.PI * distanceM ** 2) // Eq. (6) [dBW]
+  return eirpDbw + 30 // Eq. (7) [dBm]
 }

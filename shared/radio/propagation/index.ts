@@ -1,7 +1,9 @@
 /** Propagation models: public API of shared/radio/propagation. */
 export type {
-  PathDistance,
-  PathLoss,
+  PathDistanceResult,
+  PathDistanceValue,
+  PathLossResult,
+  PathLossValue,
   PropagationModel,
   PropagationModelKind,
   PropagationModelSpec,

@@ -1,37 +1,46 @@
 /**
- * Log-distance path loss with optional breakpoints (piecewise exponents).
+ * Log-distance path loss with optional exponent changes (piecewise exponents).
  *
  * Source: the log-distance model PL(d) = PL(d0) + 10·n·log10(d/d0) (+ X_σ), as given in
  * OpenStax/cnx module m15526 eqs. (2)–(4) [V-S] and Rappaport, "Wireless Communications",
  * 2nd ed., §4.9.1 eqs. (4.67)–(4.69) [M]. PL(d0) is free space (ITU-R P.525-4) unless given.
- * The multi-segment form keeps the loss continuous at each breakpoint: every segment starts
- * from the loss reached at the end of the previous one [D].
+ * The multi-segment form keeps the loss continuous at each exponent-change distance: every
+ * segment starts from the loss reached at the end of the previous one [D].
+ *
+ * Naming: the distances where the exponent changes are "exponent-change distances"
+ * (`exponentChanges[i].fromDistanceM`). In this library "breakpoint" means only the distance
+ * at which a ground-reflection model turns to its d⁻⁴ branch (two-ray, TR 38.901 d_BP).
  *
  *  (1) PL(d) = PL(d0) + Σ_i 10·n_i·log10(min(d, d_{i+1}) / d_i)   over segments with d_i < d   [dB]
  *  (2) d = d_k · 10^((PL − PL(d_k)) / (10·n_k))                    inverse inside segment k      [m]
  *
- * Below d0 the first exponent is extrapolated, with a warning.
+ * Below d0 the first exponent is extrapolated, with a warning. Frequency is needed only when
+ * PL(d0) is not given (free space at d0).
  */
-import { requireFinite, requireNonEmpty, requirePositive } from '../guards'
+import { requireFinite, requirePositive } from '../guards'
 import type { MethodRef } from '../types'
 import { freeSpaceLossDb } from './free-space-p525'
-import type { PathDistance, PathLoss } from './model'
+import type { PathDistanceResult, PathLossResult } from './model'
 
-export interface LogDistanceSegment {
-  /** Distance at which this exponent starts to apply [m]. */
-  startM: number
+/** A later exponent and the distance from which it applies. */
+export interface LogDistanceExponentChange {
+  /** Exponent-change distance: this exponent applies from here on [m] (> d0). */
+  fromDistanceM: number
   /** Path-loss exponent n (2 in free space). */
   exponent: number
 }
 
 export interface LogDistanceParams {
-  freqHz: number
+  /** Frequency [Hz]; needed only when refLossDb is omitted (free space at d0). */
+  freqHz?: number
   /** Reference distance d0 [m]. */
   refDistanceM: number
   /** Loss at d0 [dB]; free space at freqHz when omitted. */
   refLossDb?: number
-  /** Segments in increasing startM; the first starts at refDistanceM. */
-  segments: LogDistanceSegment[]
+  /** Path-loss exponent n from d0 (2 in free space). */
+  exponent: number
+  /** Later exponents in increasing fromDistanceM, each beyond d0. */
+  exponentChanges?: LogDistanceExponentChange[]
   /** Shadow-fading standard deviation σ [dB], passed through to results when given. */
   shadowSigmaDb?: number
 }
@@ -41,8 +50,13 @@ export const LOG_DISTANCE_METHOD: MethodRef = {
   source: 'Log-distance path loss PL(d0) + 10·n·log10(d/d0), Rappaport 2nd ed. §4.9.1 eq. (4.68); PL(d0) per ITU-R P.525-4 when not given',
 }
 
+interface Segment {
+  startM: number
+  exponent: number
+}
+
 interface Prepared {
-  segments: LogDistanceSegment[]
+  segments: Segment[]
   /** Loss at the start of each segment [dB]. */
   startLossDb: number[]
   shadowSigmaDb?: number
@@ -50,32 +64,34 @@ interface Prepared {
 }
 
 function prepare(p: LogDistanceParams): Prepared {
-  const freqHz = requirePositive('freqHz', p.freqHz)
   const refDistanceM = requirePositive('refDistanceM', p.refDistanceM)
-  requireNonEmpty('segments', p.segments)
-  const refLossDb =
-    p.refLossDb === undefined
-      ? freeSpaceLossDb({ freqHz, distanceM: refDistanceM }).lossDb // PL(d0) per ITU-R P.525 [dB]
-      : requireFinite('refLossDb', p.refLossDb)
+  let refLossDb: number
+  if (p.refLossDb !== undefined) refLossDb = requireFinite('refLossDb', p.refLossDb)
+  else if (p.freqHz !== undefined) {
+    const freqHz = requirePositive('freqHz', p.freqHz)
+    refLossDb = freeSpaceLossDb({ freqHz, distanceM: refDistanceM }).value.lossDb // PL(d0) per ITU-R P.525 [dB]
+  } else throw new RangeError('Give refLossDb, or freqHz for free-space loss at the reference distance refDistanceM.')
   if (p.shadowSigmaDb !== undefined && (!Number.isFinite(p.shadowSigmaDb) || p.shadowSigmaDb < 0)) {
     throw new RangeError(`shadowSigmaDb must be a finite number ≥ 0 (got ${p.shadowSigmaDb}).`)
   }
-  p.segments.forEach((s, i) => {
-    requirePositive(`segments[${i}].startM`, s.startM)
-    requirePositive(`segments[${i}].exponent`, s.exponent)
-    if (i > 0 && s.startM <= p.segments[i - 1].startM) {
-      throw new RangeError(`segments[${i}].startM must be greater than segments[${i - 1}].startM (got ${s.startM}).`)
+  const segments: Segment[] = [{ startM: refDistanceM, exponent: requirePositive('exponent', p.exponent) }]
+  ;(p.exponentChanges ?? []).forEach((c, i) => {
+    const startM = requirePositive(`exponentChanges[${i}].fromDistanceM`, c.fromDistanceM)
+    const exponent = requirePositive(`exponentChanges[${i}].exponent`, c.exponent)
+    const prevM = segments[segments.length - 1].startM
+    if (startM <= prevM) {
+      throw new RangeError(
+        `exponentChanges[${i}].fromDistanceM must be greater than ${i === 0 ? `refDistanceM (${prevM} m)` : `exponentChanges[${i - 1}].fromDistanceM`} (got ${startM}).`,
+      )
     }
+    segments.push({ startM, exponent })
   })
-  if (p.segments[0].startM !== refDistanceM) {
-    throw new RangeError(`segments[0].startM must equal refDistanceM (${refDistanceM} m), got ${p.segments[0].startM}.`)
-  }
   const startLossDb = [refLossDb]
-  for (let i = 1; i < p.segments.length; i++) {
-    const prev = p.segments[i - 1]
-    startLossDb.push(startLossDb[i - 1] + 10 * prev.exponent * Math.log10(p.segments[i].startM / prev.startM)) // Eq. (1) [dB]
+  for (let i = 1; i < segments.length; i++) {
+    const prev = segments[i - 1]
+    startLossDb.push(startLossDb[i - 1] + 10 * prev.exponent * Math.log10(segments[i].startM / prev.startM)) // Eq. (1) [dB]
   }
-  return { segments: p.segments, startLossDb, shadowSigmaDb: p.shadowSigmaDb, refDistanceM }
+  return { segments, startLossDb, shadowSigmaDb: p.shadowSigmaDb, refDistanceM }
 }
 
 function belowRefWarning(distanceM: number, refDistanceM: number): string[] {
@@ -91,29 +107,28 @@ function segmentIndexAt(prep: Prepared, distanceM: number): number {
 }
 
 /** Log-distance loss at a distance [dB]. */
-export function logDistanceLossDb(opts: LogDistanceParams & { distanceM: number }): PathLoss {
+export function logDistanceLossDb(opts: LogDistanceParams & { distanceM: number }): PathLossResult {
   const distanceM = requirePositive('distanceM', opts.distanceM)
   const prep = prepare(opts)
   const k = segmentIndexAt(prep, distanceM)
   const seg = prep.segments[k]
   const lossDb = prep.startLossDb[k] + 10 * seg.exponent * Math.log10(distanceM / seg.startM) // Eq. (1) [dB]
   return {
-    lossDb,
+    value: { lossDb, ...(prep.shadowSigmaDb !== undefined ? { shadowSigmaDb: prep.shadowSigmaDb } : {}) },
     warnings: belowRefWarning(distanceM, prep.refDistanceM),
     method: LOG_DISTANCE_METHOD,
-    ...(prep.shadowSigmaDb !== undefined ? { shadowSigmaDb: prep.shadowSigmaDb } : {}),
   }
 }
 
 /** Distance at which the log-distance loss equals lossDb [m] (closed form, loss is increasing). */
-export function logDistanceDistanceM(opts: LogDistanceParams & { lossDb: number }): PathDistance {
+export function logDistanceDistanceM(opts: LogDistanceParams & { lossDb: number }): PathDistanceResult {
   const lossDb = requireFinite('lossDb', opts.lossDb)
   const prep = prepare(opts)
   let k = 0
   while (k + 1 < prep.segments.length && lossDb >= prep.startLossDb[k + 1]) k++
   const seg = prep.segments[k]
   const distanceM = seg.startM * 10 ** ((lossDb - prep.startLossDb[k]) / (10 * seg.exponent)) // Eq. (2) [m]
-  return { distanceM, warnings: belowRefWarning(distanceM, prep.refDistanceM), method: LOG_DISTANCE_METHOD }
+  return { value: { distanceM }, warnings: belowRefWarning(distanceM, prep.refDistanceM), method: LOG_DISTANCE_METHOD }
 }
 
 /** Local slope [dB per decade] = 10·n of the segment that holds the distance. */

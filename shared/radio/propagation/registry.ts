@@ -28,7 +28,7 @@ import {
   hataSlopeDbPerDecade,
 } from './hata'
 import { LOG_DISTANCE_METHOD, logDistanceDistanceM, logDistanceLossDb, logDistanceSlopeDbPerDecade } from './log-distance'
-import type { PathDistance, PathLoss, PropagationModel, PropagationModelKind, PropagationModelSpec } from './model'
+import type { PathDistanceResult, PathLossResult, PropagationModel, PropagationModelKind, PropagationModelSpec } from './model'
 import { centralSlopeDbPerDecade } from './numeric'
 import { TR38901_METHOD, TR38901_VALIDITY, tr38901DistanceM, tr38901LossDb } from './tr38901'
 import {
@@ -44,8 +44,8 @@ type Spec<K extends PropagationModelKind> = Extract<PropagationModelSpec, { kind
 
 interface Parts {
   method: MethodRef
-  lossDb(distanceM: number): PathLoss
-  distanceM(lossDb: number): PathDistance
+  lossDb(distanceM: number): PathLossResult
+  distanceM(lossDb: number): PathDistanceResult
   /** Analytic slope when there is one; otherwise the central difference is used. */
   slopeDbPerDecade?(distanceM: number): number
 }
@@ -59,7 +59,7 @@ function assemble(spec: PropagationModelSpec, parts: Parts): PropagationModel {
     lossDb: parts.lossDb,
     distanceM: parts.distanceM,
     slopeDbPerDecade: (distanceM) =>
-      parts.slopeDbPerDecade ? parts.slopeDbPerDecade(distanceM) : centralSlopeDbPerDecade((d) => parts.lossDb(d).lossDb, distanceM),
+      parts.slopeDbPerDecade ? parts.slopeDbPerDecade(distanceM) : centralSlopeDbPerDecade((d) => parts.lossDb(d).value.lossDb, distanceM),
   }
 }
 
@@ -98,7 +98,7 @@ function absorbing(spec: Spec<'absorbing'>): Parts {
   const { absorptionDbPerKm, warnings } = resolveAbsorptionDbPerKm(spec)
   const withNote = <T extends { warnings: string[] }>(r: T): T => ({ ...r, warnings: [...r.warnings, ...warnings] })
   return {
-    method: absorbingMethod(base.method),
+    method: absorbingMethod({ base: base.method }),
     lossDb: (distanceM) => withNote(absorbingLossDb({ base, absorptionDbPerKm, distanceM })),
     distanceM: (lossDb) => withNote(absorbingDistanceM({ base, absorptionDbPerKm, lossDb })),
     slopeDbPerDecade: (distanceM) => absorbingSlopeDbPerDecade({ base, absorptionDbPerKm, distanceM }),
@@ -197,8 +197,9 @@ const BASE_METHOD_IDS = [
 ]
 
 const FREQ: ModelParameterDescriptor = { key: 'freqHz', label: 'Frequency', unit: 'Hz', required: true }
-const BASE_HEIGHT: ModelParameterDescriptor = { key: 'baseHeightM', label: 'Base station antenna height', unit: 'm', required: true }
-const MOBILE_HEIGHT: ModelParameterDescriptor = { key: 'mobileHeightM', label: 'Mobile antenna height', unit: 'm', required: true, defaultValue: 1.5 }
+/** Antenna heights have one key pair in every model: txHeightM (base station) and rxHeightM (mobile, terminal). */
+const BASE_HEIGHT: ModelParameterDescriptor = { key: 'txHeightM', label: 'Base station (transmitter) antenna height', unit: 'm', required: true }
+const MOBILE_HEIGHT: ModelParameterDescriptor = { key: 'rxHeightM', label: 'Mobile (receiver) antenna height', unit: 'm', required: true, defaultValue: 1.5 }
 
 export const PROPAGATION_MODEL_DESCRIPTORS: readonly PropagationModelDescriptor[] = [
   {
@@ -225,14 +226,20 @@ export const PROPAGATION_MODEL_DESCRIPTORS: readonly PropagationModelDescriptor[
   {
     kind: 'log-distance',
     methodIds: [LOG_DISTANCE_METHOD.id],
-    label: 'Log-distance with exponent and breakpoints',
+    label: 'Log-distance with exponent and exponent changes',
     summary:
-      'Loss grows by 10·n dB per decade of distance from a reference distance. Use fitted exponents, e.g. about 2 in the open, 3–5 in built-up areas; add breakpoints where the exponent changes.',
+      'Loss grows by 10·n dB per decade of distance from a reference distance. Use fitted exponents, e.g. about 2 in the open, 3–5 in built-up areas; add exponent changes where the exponent changes.',
     parameters: [
-      FREQ,
+      { ...FREQ, required: false, help: 'Needed only when the loss at d0 is empty (free space at d0).' },
       { key: 'refDistanceM', label: 'Reference distance d0', unit: 'm', required: true, defaultValue: 1 },
       { key: 'refLossDb', label: 'Loss at d0 (free space if empty)', unit: 'dB', required: false },
-      { key: 'segments', label: 'Exponent segments (start distance, exponent n)', required: true, help: 'The first segment starts at d0.' },
+      { key: 'exponent', label: 'Path-loss exponent n from d0', required: true, defaultValue: 2 },
+      {
+        key: 'exponentChanges',
+        label: 'Exponent changes (from distance, exponent n)',
+        required: false,
+        help: 'Each applies from its distance on, beyond d0 and in increasing order.',
+      },
       { key: 'shadowSigmaDb', label: 'Shadow-fading standard deviation', unit: 'dB', required: false },
     ],
     validity: [],
@@ -247,8 +254,8 @@ export const PROPAGATION_MODEL_DESCRIPTORS: readonly PropagationModelDescriptor[
       'Direct path plus one reflection from flat ground, for open sites (water, airfields, flat farmland). Close in, the loss swings up and down; far out it grows 40 dB per decade.',
     parameters: [
       FREQ,
-      { key: 'txHeightM', label: 'Transmitter height above ground', unit: 'm', required: true },
-      { key: 'rxHeightM', label: 'Receiver height above ground', unit: 'm', required: true },
+      { key: 'txHeightM', label: 'Transmitter antenna height above ground', unit: 'm', required: true },
+      { key: 'rxHeightM', label: 'Receiver antenna height above ground', unit: 'm', required: true },
       {
         key: 'form',
         label: 'Formula',
@@ -257,7 +264,7 @@ export const PROPAGATION_MODEL_DESCRIPTORS: readonly PropagationModelDescriptor[
         choices: [
           { value: 'exact', label: 'Exact two-ray (reflection coefficient −1)' },
           { value: 'asymptote', label: 'Far-distance approximation 40·log d − 20·log(h_t·h_r)' },
-          { value: 'breakpoint', label: 'Free space up to the crossover 4π·h_t·h_r/λ, then the far-distance approximation' },
+          { value: 'breakpoint', label: 'Free space up to the breakpoint (crossover 4π·h_t·h_r/λ), then the far-distance approximation' },
         ],
       },
     ],
@@ -268,7 +275,7 @@ export const PROPAGATION_MODEL_DESCRIPTORS: readonly PropagationModelDescriptor[
   },
   {
     kind: 'absorbing',
-    methodIds: BASE_METHOD_IDS.map((id) => absorbingMethod({ id, source: '' }).id),
+    methodIds: BASE_METHOD_IDS.map((id) => absorbingMethod({ base: { id, source: '' } }).id),
     label: 'Any model plus absorption',
     summary:
       'Adds a loss proportional to distance, e.g. oxygen absorption near 60 GHz (about 15 dB/km at sea level per ITU-R P.676). Give dB/km, or a field attenuation coefficient.',
@@ -317,12 +324,14 @@ export const PROPAGATION_MODEL_DESCRIPTORS: readonly PropagationModelDescriptor[
       {
         key: 'environment',
         label: 'Area',
-        required: true,
+        required: false,
         choices: [
           { value: 'medium-city', label: 'Medium city or suburban (C_m = 0 dB)' },
           { value: 'metropolitan', label: 'Metropolitan centre (C_m = 3 dB)' },
         ],
+        help: 'Give the area or the city correction C_m, not both.',
       },
+      { key: 'cityCorrectionDb', label: 'City correction C_m', unit: 'dB', required: false, help: 'Give this or the area, not both.' },
     ],
     validity: COST231_HATA_VALIDITY,
     source: COST231_HATA_METHOD.source,
@@ -356,7 +365,7 @@ export const PROPAGATION_MODEL_DESCRIPTORS: readonly PropagationModelDescriptor[
         ],
       },
       BASE_HEIGHT,
-      { key: 'ueHeightM', label: 'Terminal antenna height', unit: 'm', required: true, defaultValue: 1.5 },
+      { ...MOBILE_HEIGHT, label: 'User terminal (receiver) antenna height' },
       { key: 'buildingHeightM', label: 'Average building height (RMa)', unit: 'm', required: false, defaultValue: 5 },
       { key: 'streetWidthM', label: 'Average street width (RMa)', unit: 'm', required: false, defaultValue: 20 },
     ],

@@ -24,11 +24,16 @@
  * c = 3.0·10⁸ m/s in the breakpoint distances, as TR 38.901 Note 1 and ns-3 use (the exact c
  * moves d′_BP by 0.07 %). UMa draws h_E at random when h_UT ≥ 13 m; this deterministic
  * library always uses h_E = 1 m and warns. The loss grows with d2D in every variant, so the
- * inverse is a bisection on d2D.
+ * inverse is a bisection on d2D; it returns d3D too.
+ *
+ * Distances: the forward function takes the ground distance d2D (`distanceM`) or, as the table
+ * defines InH on it, the 3D distance d3D (`distance3dM`), converted by eq. (1).
+ * Heights: h_BS = `txHeightM`, h_UT = `rxHeightM`. "Breakpoint" (d_BP, d′_BP) is where the LOS
+ * loss turns to its d⁻⁴ branch, the library's one meaning of the word.
  */
 import { requireFinite, requirePositive } from '../guards'
 import { checkValidity, type MethodRef, type ValidityRange } from '../types'
-import type { PathDistance, PathLoss } from './model'
+import type { PathDistanceResult, PathLossResult } from './model'
 import { bisectIncreasing, bracketIncreasing } from './numeric'
 
 export type Tr38901Scenario = 'RMa' | 'UMa' | 'UMi-street-canyon' | 'InH-office'
@@ -38,8 +43,10 @@ export interface Tr38901Params {
   freqHz: number
   scenario: Tr38901Scenario
   condition: Tr38901Condition
-  baseHeightM: number
-  ueHeightM: number
+  /** Base-station (transmitter) antenna height h_BS [m]. */
+  txHeightM: number
+  /** User-terminal (receiver) antenna height h_UT [m]. */
+  rxHeightM: number
   /** RMa only: average building height h [m], 5 m by default. */
   buildingHeightM?: number
   /** RMa only: average street width W [m], 20 m by default. */
@@ -85,19 +92,19 @@ function ruralRanges(maxDistance2dM: number): ValidityRange[] {
   return [
     { quantity: 'freqGhz', min: 0.5, max: 30, unit: 'GHz', source: 'RMa 0.5–30 GHz (ns-3 assertion citing TR 38.901)' },
     { quantity: 'distance2dM', min: 10, max: maxDistance2dM, unit: 'm', source: TABLE },
-    { quantity: 'baseHeightM', min: 10, max: 150, unit: 'm', source: TABLE },
-    { quantity: 'ueHeightM', min: 1, max: 10, unit: 'm', source: TABLE },
+    { quantity: 'txHeightM', min: 10, max: 150, unit: 'm', source: `${TABLE}: h_BS` },
+    { quantity: 'rxHeightM', min: 1, max: 10, unit: 'm', source: `${TABLE}: h_UT` },
     { quantity: 'buildingHeightM', min: 5, max: 50, unit: 'm', source: TABLE },
     { quantity: 'streetWidthM', min: 5, max: 50, unit: 'm', source: TABLE },
   ]
 }
 
-function urbanRanges(baseHeightM: number): ValidityRange[] {
+function urbanRanges(txHeightM: number): ValidityRange[] {
   return [
     { quantity: 'freqGhz', min: 0.5, max: 100, unit: 'GHz', source: FREQ_NOTE_M },
     { quantity: 'distance2dM', min: 10, max: 5_000, unit: 'm', source: TABLE },
-    { quantity: 'baseHeightM', min: baseHeightM, max: baseHeightM, unit: 'm', source: TABLE },
-    { quantity: 'ueHeightM', min: 1.5, max: 22.5, unit: 'm', source: TABLE },
+    { quantity: 'txHeightM', min: txHeightM, max: txHeightM, unit: 'm', source: `${TABLE}: h_BS` },
+    { quantity: 'rxHeightM', min: 1.5, max: 22.5, unit: 'm', source: `${TABLE}: h_UT` },
   ]
 }
 
@@ -128,13 +135,13 @@ interface Checked {
 
 function check(p: Tr38901Params): Checked {
   const fGhz = requirePositive('freqHz', p.freqHz) / 1e9
-  const hBs = requirePositive('baseHeightM', p.baseHeightM)
-  const hUt = requirePositive('ueHeightM', p.ueHeightM)
+  const hBs = requirePositive('txHeightM', p.txHeightM)
+  const hUt = requirePositive('rxHeightM', p.rxHeightM)
   const h = requirePositive('buildingHeightM', p.buildingHeightM ?? RMA_DEFAULT_BUILDING_HEIGHT_M)
   const w = requirePositive('streetWidthM', p.streetWidthM ?? RMA_DEFAULT_STREET_WIDTH_M)
   if ((p.scenario === 'UMa' || p.scenario === 'UMi-street-canyon') && Math.min(hBs, hUt) <= TR38901_EFFECTIVE_ENVIRONMENT_HEIGHT_M) {
     throw new RangeError(
-      `baseHeightM and ueHeightM must exceed the effective environment height h_E = 1 m for ${p.scenario} (got ${hBs} m and ${hUt} m).`,
+      `txHeightM (h_BS) and rxHeightM (h_UT) must exceed the effective environment height h_E = 1 m for ${p.scenario} (got ${hBs} m and ${hUt} m).`,
     )
   }
   return { fGhz, hBs, hUt, h, w }
@@ -221,36 +228,52 @@ function warningsAt(p: Tr38901Params, c: Checked, d2: number): string[] {
     freqGhz: c.fGhz,
     distance2dM: d2,
     distance3dM: Math.hypot(d2, c.hBs - c.hUt),
-    baseHeightM: c.hBs,
-    ueHeightM: c.hUt,
+    txHeightM: c.hBs,
+    rxHeightM: c.hUt,
     ...(p.scenario === 'RMa' ? { buildingHeightM: c.h, streetWidthM: c.w } : {}),
   })
   if (p.scenario === 'UMa' && c.hUt >= 13) {
     warnings.push(
-      `ueHeightM = ${c.hUt} m: TR 38.901 draws the effective environment height h_E at random for h_UT ≥ 13 m; ` +
+      `rxHeightM = ${c.hUt} m (h_UT): TR 38.901 draws the effective environment height h_E at random for h_UT ≥ 13 m; ` +
         'this deterministic model uses h_E = 1 m, which moves the LOS breakpoint outward.',
     )
   }
   return warnings
 }
 
-/** TR 38.901 path loss at a 2D (ground) distance, with the scenario's shadow-fading σ [dB]. */
-export function tr38901LossDb(opts: Tr38901Params & { distanceM: number }): PathLoss {
+/** Ground distance d2D from exactly one of distanceM (d2D) or distance3dM (d3D, eq. (1) inverted) [m]. */
+function groundDistanceM(opts: { distanceM?: number; distance3dM?: number }, c: Checked): number {
+  const has2d = opts.distanceM !== undefined
+  const has3d = opts.distance3dM !== undefined
+  if (has2d === has3d) throw new RangeError('Give exactly one of distanceM (ground, d2D) or distance3dM (d3D).')
+  if (has2d) return requirePositive('distanceM', opts.distanceM!)
+  const d3 = requirePositive('distance3dM', opts.distance3dM!)
+  const dh = Math.abs(c.hBs - c.hUt)
+  if (d3 <= dh) {
+    throw new RangeError(`distance3dM = ${d3} m must exceed the height difference |h_BS − h_UT| = ${dh} m.`)
+  }
+  return Math.sqrt(d3 * d3 - dh * dh) // Eq. (1) inverted [m]
+}
+
+/**
+ * TR 38.901 path loss at a ground distance d2D (`distanceM`) or a 3D distance d3D
+ * (`distance3dM`, the distance InH is defined on), with the scenario's shadow-fading σ [dB].
+ */
+export function tr38901LossDb(opts: Tr38901Params & { distanceM?: number; distance3dM?: number }): PathLossResult {
   const c = check(opts)
-  const d2 = requirePositive('distanceM', opts.distanceM)
+  const d2 = groundDistanceM(opts, c)
   return {
-    lossDb: lossAt(opts, c, d2),
+    value: { lossDb: lossAt(opts, c, d2), shadowSigmaDb: shadowSigmaDb(opts, c, d2) },
     warnings: warningsAt(opts, c, d2),
     method: TR38901_METHOD,
-    shadowSigmaDb: shadowSigmaDb(opts, c, d2),
   }
 }
 
 const MIN_DISTANCE_M = 1e-6
 const MAX_DISTANCE_M = 1e7
 
-/** 2D distance at which the TR 38.901 loss equals lossDb [m], by bisection (loss grows with d2D). */
-export function tr38901DistanceM(opts: Tr38901Params & { lossDb: number }): PathDistance {
+/** Ground distance d2D (and d3D) at which the TR 38.901 loss equals lossDb [m], by bisection (loss grows with d2D). */
+export function tr38901DistanceM(opts: Tr38901Params & { lossDb: number }): PathDistanceResult {
   const c = check(opts)
   const lossDb = requireFinite('lossDb', opts.lossDb)
   const fn = (d2: number): number => lossAt(opts, c, d2)
@@ -262,5 +285,5 @@ export function tr38901DistanceM(opts: Tr38901Params & { lossDb: number }): Path
     )
   }
   const d2 = bisectIncreasing({ fn, target: lossDb, ...bracket })
-  return { distanceM: d2, warnings: warningsAt(opts, c, d2), method: TR38901_METHOD }
+  return { value: { distanceM: d2, distance3dM: Math.hypot(d2, c.hBs - c.hUt) }, warnings: warningsAt(opts, c, d2), method: TR38901_METHOD } // Eq. (1) [m]
 }

@@ -19,6 +19,12 @@
  *  (6) d_x = 4π·h_t·h_r/λ  (free space = asymptote)                                  [m]
  *  (7) L = L_bf(d) for d ≤ d_x, eq. (4) beyond (continuous at d_x)                     [dB]
  *
+ * Naming: "breakpoint" in this library means only the distance at which a ground-reflection
+ * model turns to its d⁻⁴ branch; for the two-ray 'breakpoint' form that is the crossover d_x of
+ * eq. (6) (TR 38.901's d_BP plays the same role there). The critical distance d_c is not a
+ * breakpoint, nor are log-distance's exponent-change distances. Heights: h_t = `txHeightM`,
+ * h_r = `rxHeightM`.
+ *
  * Beyond the distance where Δφ = π the loss grows monotonically; nearer, it oscillates with
  * deep nulls, so the inverse of the exact form returns the smallest distance with a warning.
  */
@@ -26,7 +32,7 @@ import { SPEED_OF_LIGHT_M_PER_S } from '../constants'
 import { requireFinite, requirePositive } from '../guards'
 import type { MethodRef } from '../types'
 import { freeSpaceDistanceM, freeSpaceLossDb } from './free-space-p525'
-import type { PathDistance, PathLoss } from './model'
+import type { PathDistanceResult, PathLossResult } from './model'
 import { bisectIncreasing, bracketIncreasing } from './numeric'
 
 export type TwoRayForm = 'exact' | 'asymptote' | 'breakpoint'
@@ -69,7 +75,7 @@ export function twoRayCriticalDistanceM(opts: { freqHz: number; txHeightM: numbe
   return (4 * ht * hr) / lambdaM // Eq. (5) [m]
 }
 
-/** Crossover distance d_x = 4π·h_t·h_r/λ where free space and the d⁻⁴ asymptote meet [m]. */
+/** Crossover distance d_x = 4π·h_t·h_r/λ where free space and the d⁻⁴ asymptote meet: the breakpoint of the 'breakpoint' form [m]. */
 export function twoRayCrossoverDistanceM(opts: { freqHz: number; txHeightM: number; rxHeightM: number }): number {
   const { lambdaM, ht, hr } = checked(opts)
   return (4 * Math.PI * ht * hr) / lambdaM // Eq. (6) [m]
@@ -119,20 +125,20 @@ function oscillationWarning(lambdaM: number, ht: number, hr: number, d: number):
 const fmt = (v: number): string => String(+v.toPrecision(5))
 
 /** Breakpoint form, eq. (7): free space up to d_x, the asymptote beyond [dB]. */
-function breakpointLoss(freqHz: number, lambdaM: number, ht: number, hr: number, d: number): PathLoss {
+function breakpointLoss(freqHz: number, lambdaM: number, ht: number, hr: number, d: number): PathLossResult {
   const dx = (4 * Math.PI * ht * hr) / lambdaM // Eq. (6) [m]
-  const lossDb = d <= dx ? freeSpaceLossDb({ freqHz, distanceM: d }).lossDb : asymptoteLossDb(ht, hr, d) // Eq. (7) [dB]
-  return { lossDb, warnings: oscillationWarning(lambdaM, ht, hr, d), method: TWO_RAY_BREAKPOINT_METHOD }
+  const lossDb = d <= dx ? freeSpaceLossDb({ freqHz, distanceM: d }).value.lossDb : asymptoteLossDb(ht, hr, d) // Eq. (7) [dB]
+  return { value: { lossDb }, warnings: oscillationWarning(lambdaM, ht, hr, d), method: TWO_RAY_BREAKPOINT_METHOD }
 }
 
 /** Inverse of the breakpoint form in closed form: the loss grows monotonically with distance [m]. */
-function breakpointDistance(freqHz: number, lambdaM: number, ht: number, hr: number, lossDb: number): PathDistance {
+function breakpointDistance(freqHz: number, lambdaM: number, ht: number, hr: number, lossDb: number): PathDistanceResult {
   const dx = (4 * Math.PI * ht * hr) / lambdaM // Eq. (6) [m]
   const d =
     lossDb <= asymptoteLossDb(ht, hr, dx)
-      ? freeSpaceDistanceM({ freqHz, lossDb }).distanceM // Eq. (7) free-space branch inverted [m]
+      ? freeSpaceDistanceM({ freqHz, lossDb }).value.distanceM // Eq. (7) free-space branch inverted [m]
       : 10 ** ((lossDb + 20 * Math.log10(ht * hr)) / 40) // Eq. (7) asymptote branch, eq. (4) inverted [m]
-  return { distanceM: d, warnings: oscillationWarning(lambdaM, ht, hr, d), method: TWO_RAY_BREAKPOINT_METHOD }
+  return { value: { distanceM: d }, warnings: oscillationWarning(lambdaM, ht, hr, d), method: TWO_RAY_BREAKPOINT_METHOD }
 }
 
 /** Local slope of the breakpoint form: 20 dB per decade up to d_x, 40 beyond [dB per decade]. */
@@ -142,14 +148,14 @@ export function twoRayBreakpointSlopeDbPerDecade(opts: { freqHz: number; txHeigh
 }
 
 /** Two-ray flat-earth basic transmission loss at a ground distance [dB]. */
-export function twoRayLossDb(opts: TwoRayParams & { distanceM: number }): PathLoss {
+export function twoRayLossDb(opts: TwoRayParams & { distanceM: number }): PathLossResult {
   const { lambdaM, ht, hr } = checked(opts)
   const d = requirePositive('distanceM', opts.distanceM)
   if (opts.form === 'breakpoint') return breakpointLoss(opts.freqHz, lambdaM, ht, hr, d)
   if (opts.form === 'asymptote') {
-    return { lossDb: asymptoteLossDb(ht, hr, d), warnings: asymptoteWarnings(lambdaM, ht, hr, d), method: TWO_RAY_ASYMPTOTE_METHOD }
+    return { value: { lossDb: asymptoteLossDb(ht, hr, d) }, warnings: asymptoteWarnings(lambdaM, ht, hr, d), method: TWO_RAY_ASYMPTOTE_METHOD }
   }
-  return { lossDb: exactLossDb(lambdaM, ht, hr, d), warnings: oscillationWarning(lambdaM, ht, hr, d), method: TWO_RAY_EXACT_METHOD }
+  return { value: { lossDb: exactLossDb(lambdaM, ht, hr, d) }, warnings: oscillationWarning(lambdaM, ht, hr, d), method: TWO_RAY_EXACT_METHOD }
 }
 
 /** Largest distance considered by the inverse (well beyond any flat-earth use) [m]. */
@@ -200,13 +206,13 @@ function monotonicRootM(x: ExactInverse, lossDb: number): number | undefined {
  * The exact form returns the smallest distance: it scans the oscillating region in steps of
  * Δφ, then brackets and bisects beyond the last maximum where the loss is monotonic.
  */
-export function twoRayDistanceM(opts: TwoRayParams & { lossDb: number }): PathDistance {
+export function twoRayDistanceM(opts: TwoRayParams & { lossDb: number }): PathDistanceResult {
   const { lambdaM, ht, hr } = checked(opts)
   const lossDb = requireFinite('lossDb', opts.lossDb)
   if (opts.form === 'breakpoint') return breakpointDistance(opts.freqHz, lambdaM, ht, hr, lossDb)
   if (opts.form === 'asymptote') {
     const d = 10 ** ((lossDb + 20 * Math.log10(ht * hr)) / 40) // Eq. (4) inverted [m]
-    return { distanceM: d, warnings: asymptoteWarnings(lambdaM, ht, hr, d), method: TWO_RAY_ASYMPTOTE_METHOD }
+    return { value: { distanceM: d }, warnings: asymptoteWarnings(lambdaM, ht, hr, d), method: TWO_RAY_ASYMPTOTE_METHOD }
   }
   const x = exactInverse(opts)
   if (x.monotonicStartM > 0) {
@@ -215,7 +221,7 @@ export function twoRayDistanceM(opts: TwoRayParams & { lossDb: number }): PathDi
       const beyond = monotonicRootM(x, lossDb)
       const also = beyond !== undefined ? ` The same loss is reached again at ${fmt(beyond)} m on the monotonic branch.` : ''
       return {
-        distanceM: inside,
+        value: { distanceM: inside },
         warnings: [
           `The loss ${fmt(lossDb)} dB is first reached at ${fmt(inside)} m, inside the two-ray interference region ` +
             `(before the last maximum at ${fmt(x.monotonicStartM)} m; d_c = 4·h_t·h_r/λ = ${fmt((4 * ht * hr) / lambdaM)} m) ` +
@@ -230,7 +236,7 @@ export function twoRayDistanceM(opts: TwoRayParams & { lossDb: number }): PathDi
   if (d === undefined) {
     throw new RangeError(`lossDb = ${lossDb} dB is not reached by the exact two-ray model at any distance up to ${MAX_DISTANCE_M} m.`)
   }
-  return { distanceM: d, warnings: oscillationWarning(lambdaM, ht, hr, d), method: TWO_RAY_EXACT_METHOD }
+  return { value: { distanceM: d }, warnings: oscillationWarning(lambdaM, ht, hr, d), method: TWO_RAY_EXACT_METHOD }
 }
 
 /**
@@ -238,7 +244,7 @@ export function twoRayDistanceM(opts: TwoRayParams & { lossDb: number }): PathDi
  * two-ray loss equals lossDb [m]: beyond it the loss only grows, which is what a separation
  * distance needs. Throws a RangeError when that branch never reaches lossDb.
  */
-export function twoRayMonotonicDistanceM(opts: Omit<TwoRayParams, 'form'> & { lossDb: number }): PathDistance {
+export function twoRayMonotonicDistanceM(opts: Omit<TwoRayParams, 'form'> & { lossDb: number }): PathDistanceResult {
   const lossDb = requireFinite('lossDb', opts.lossDb)
   const x = exactInverse(opts)
   const d = monotonicRootM(x, lossDb)
@@ -247,7 +253,7 @@ export function twoRayMonotonicDistanceM(opts: Omit<TwoRayParams, 'form'> & { lo
       `lossDb = ${lossDb} dB is below the loss at the start of the monotonic branch (${fmt(x.loss(Math.max(x.monotonicStartM, 1e-9)))} dB at ${fmt(x.monotonicStartM)} m).`,
     )
   }
-  return { distanceM: d, warnings: oscillationWarning(x.lambdaM, x.ht, x.hr, d), method: TWO_RAY_EXACT_METHOD }
+  return { value: { distanceM: d }, warnings: oscillationWarning(x.lambdaM, x.ht, x.hr, d), method: TWO_RAY_EXACT_METHOD }
 }
 
 /**

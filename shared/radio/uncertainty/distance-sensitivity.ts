@@ -33,7 +33,7 @@ export function eirpChangeFromDistanceErrorDb(opts: { model: PropagationModel; d
   const d = requirePositive('distanceM', opts.distanceM)
   const dd = requireFinite('distanceErrorM', opts.distanceErrorM)
   requirePositive('distanceM + distanceErrorM', d + dd)
-  return opts.model.lossDb(d + dd).lossDb - opts.model.lossDb(d).lossDb // Eq. (register 12-2) exact finite form [dB]
+  return opts.model.lossDb(d + dd).value.lossDb - opts.model.lossDb(d).value.lossDb // Eq. (register 12-2) exact finite form [dB]
 }
 
 /** The distance row of an EIRP budget: the distance's own distribution [m] with c_d [dB/m]. */

@@ -188,13 +188,20 @@ describe('EIRP helpers', () => {
   it('conducted → EIRP → conducted returns the conducted power', () => {
     fc.assert(
       fc.property(level, gain, loss, (p, g, l) => {
-        const e = eirpFromConductedDbm({ conductedPowerDbm: p, antennaGainDbi: g, feederLossDb: l })
-        expect(conductedFromEirpDbm({ eirpDbm: e, antennaGainDbi: g, feederLossDb: l })).toBeCloseTo(p, 9)
+        const e = eirpFromConductedDbm({ conductedPowerDbm: p, antennaGainDbi: g, feederLossDb: l }).value.eirpDbm
+        expect(conductedFromEirpDbm({ eirpDbm: e, antennaGainDbi: g, feederLossDb: l }).value.conductedPowerDbm).toBeCloseTo(p, 9)
       }),
     )
   })
   it('11-1: 12 dBm conducted into 24 dBi gives 36 dBm EIRP (47 CFR §15.247 worked check, [D])', () => {
-    expect(eirpFromConductedDbm({ conductedPowerDbm: 12, antennaGainDbi: 24 })).toBe(36)
+    const r = eirpFromConductedDbm({ conductedPowerDbm: 12, antennaGainDbi: 24 })
+    expect(r.value.eirpDbm).toBe(36)
+    expect(r.method.id).toBe('eirp-from-conducted')
+    expect(r.method.source).toContain('register 11-1')
+  })
+  it('warns that the feeder loss was taken as 0 dB when none is given, and not when it is', () => {
+    expect(eirpFromConductedDbm({ conductedPowerDbm: 12, antennaGainDbi: 24 }).warnings.some((w) => /Feeder loss/.test(w))).toBe(true)
+    expect(conductedFromEirpDbm({ eirpDbm: 36, antennaGainDbi: 24, feederLossDb: 1 }).warnings).toEqual([])
   })
   it('throws a RangeError when both EIRP and ERP are given', () => {
     const both = { eirpDbm: 20, erpDbm: 18 } as unknown as { eirpDbm: number }

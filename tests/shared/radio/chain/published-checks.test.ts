@@ -19,14 +19,13 @@ import {
   type NoiseDetector,
 } from '../../../../shared/radio/chain'
 import { freeSpaceFieldStrengthDbuvPerM, freeSpacePfdDbwPerM2 } from '../../../../shared/radio/propagation'
-import { dbmToDbw } from '../../../../shared/radio/units'
 
 const within = (actual: number, expected: number, tol: number) => expect(Math.abs(actual - expected)).toBeLessThanOrEqual(tol)
 
 describe('free-space field and pfd of an EIRP given in dBm (propagation/free-space-p525)', () => {
   for (const row of FREE_SPACE_FIELD_ROWS) {
     it(`${row.id}: matches ${row.source} within ${row.tolerance} dB ${row.status}`, () => {
-      const opts = { eirpDbw: dbmToDbw(row.inputs.eirpDbm), distanceM: row.inputs.distanceM }
+      const opts = { eirpDbm: row.inputs.eirpDbm, distanceM: row.inputs.distanceM }
       within(freeSpaceFieldStrengthDbuvPerM(opts), row.expected.fieldStrengthDbuvPerM, row.tolerance)
       if (row.expected.pfdDbwPerM2 !== undefined) within(freeSpacePfdDbwPerM2(opts), row.expected.pfdDbwPerM2, row.tolerance)
     })
@@ -34,7 +33,7 @@ describe('free-space field and pfd of an EIRP given in dBm (propagation/free-spa
   for (const row of FREE_SPACE_FIELD_FROM_ERP_ROWS) {
     it(`${row.id}: matches ${row.source} within ${row.tolerance} dB ${row.status}`, () => {
       const eirpDbm = eirpAndErp({ erpDbm: row.inputs.erpDbm }).value.eirpDbm
-      within(freeSpaceFieldStrengthDbuvPerM({ eirpDbw: dbmToDbw(eirpDbm), distanceM: row.inputs.distanceM }), row.expected.fieldStrengthDbuvPerM, row.tolerance)
+      within(freeSpaceFieldStrengthDbuvPerM({ eirpDbm, distanceM: row.inputs.distanceM }), row.expected.fieldStrengthDbuvPerM, row.tolerance)
     })
   }
 })

@@ -1,6 +1,6 @@
 import fc from 'fast-check'
 import { describe, expect, it } from 'vitest'
-import { DESENSITISATION_ROWS, LINK_BUDGET_ROWS, NOISE_FLOOR_ROWS } from '../../../fixtures/radio/coexistence-checks'
+import { DESENSITISATION_ROWS, LINK_BUDGET_ROWS, MAX_INTERFERENCE_ROWS, NOISE_FLOOR_ROWS } from '../../../fixtures/radio/coexistence-checks'
 import {
   assessCoexistence,
   bandwidthOverlapLossDb,
@@ -8,6 +8,8 @@ import {
   desensitisationDb,
   inrForDesensitisationDb,
   interferencePowerDbm,
+  interferenceToNoiseDb,
+  maxInterferencePowerDbmForInr,
   noiseBandwidthHz,
   noiseFloorDbm,
   PROTECTION_CRITERIA,
@@ -39,7 +41,7 @@ describe('noiseFloorDbm', () => {
     fc.assert(
       fc.property(fc.double({ min: 1, max: 1e10, noNaN: true }), fc.double({ min: 0, max: 30, noNaN: true }), (bandwidthHz, noiseFigureDb) => {
         const n = noiseFloorDbm({ bandwidthHz, noiseFigureDb }).value.noiseDbm
-        expect(noiseBandwidthHz({ noiseDbm: n, noiseFigureDb }) / bandwidthHz).toBeCloseTo(1, 9)
+        expect(noiseBandwidthHz({ noiseDbm: n, noiseFigureDb }).value.bandwidthHz / bandwidthHz).toBeCloseTo(1, 9)
       }),
     )
   })
@@ -54,15 +56,53 @@ describe('noiseFloorDbm', () => {
 describe('desensitisationDb', () => {
   for (const row of DESENSITISATION_ROWS) {
     it(`${row.id}: I/N ${row.inputs.inrDb} dB gives ${row.expected} dB within ${row.tolerance} dB (${row.source}, ${row.status})`, () => {
-      within(desensitisationDb(row.inputs.inrDb), row.expected, row.tolerance)
+      within(desensitisationDb(row.inputs).value.desensitisationDb, row.expected, row.tolerance)
     })
   }
   it('I/N → desensitisation → I/N returns the I/N', () => {
     fc.assert(
       fc.property(fc.double({ min: -60, max: 60, noNaN: true }), (inr) => {
-        expect(inrForDesensitisationDb(desensitisationDb(inr))).toBeCloseTo(inr, 6)
+        const desensitisation = desensitisationDb({ inrDb: inr }).value.desensitisationDb
+        expect(inrForDesensitisationDb({ desensitisationDb: desensitisation }).value.inrDb).toBeCloseTo(inr, 6)
       }),
     )
+  })
+})
+
+describe('maxInterferencePowerDbmForInr', () => {
+  for (const row of MAX_INTERFERENCE_ROWS) {
+    it(`${row.id}: gives ${row.expected.maxInterferenceDbm} dBm within ${row.tolerance} dB for I/N ${row.inputs.inrDb} dB (${row.source}, ${row.status})`, () => {
+      const r = maxInterferencePowerDbmForInr({ victimNoise: row.inputs.victimNoise, criterion: { inrDb: row.inputs.inrDb } })
+      within(r.value.maxInterferenceDbm, row.expected.maxInterferenceDbm, row.tolerance)
+      expect(r.method.id).toBe('interference-to-noise-ratio')
+      expect(r.method.source).toContain('CX-3')
+    })
+  }
+  it('uses the −6 dB preset when no criterion is given', () => {
+    const r = maxInterferencePowerDbmForInr({ victimNoise: { noiseDbm: -95 } }).value
+    expect(r.maxInterferenceDbm).toBe(-101)
+    expect(r.criterionDescription).toContain('[M]')
+  })
+  it('meets the criterion exactly when its answer is fed back into interferenceToNoiseDb, for any noise and criterion', () => {
+    fc.assert(
+      fc.property(
+        fc.double({ min: 1, max: 1e10, noNaN: true }),
+        fc.double({ min: 0, max: 30, noNaN: true }),
+        fc.double({ min: -40, max: 20, noNaN: true }),
+        (bandwidthHz, noiseFigureDb, inrDb) => {
+          const r = maxInterferencePowerDbmForInr({ victimNoise: { bandwidthHz, noiseFigureDb }, criterion: { inrDb } }).value
+          const back = interferenceToNoiseDb({ interferenceDbm: r.maxInterferenceDbm, noiseDbm: r.noiseDbm }).value.inrDb
+          expect(back).toBeCloseTo(inrDb, 9)
+        },
+      ),
+    )
+  })
+  it('passes on the warning of a noise referred to a temperature other than 290 K', () => {
+    const r = maxInterferencePowerDbmForInr({ victimNoise: { bandwidthHz: 1e6, temperatureK: 300 } })
+    expect(r.warnings.some((w) => /300 K/.test(w))).toBe(true)
+  })
+  it('throws a RangeError naming victimNoise.noiseDbm for a noise floor that is not a number', () => {
+    expect(() => maxInterferencePowerDbmForInr({ victimNoise: { noiseDbm: Number.NaN } })).toThrow(/victimNoise\.noiseDbm/)
   })
 })
 

@@ -13,10 +13,10 @@ export function powerLawModel(opts: { freqHz: number; exponent?: number; refDist
   const l0 = 20 * Math.log10((4 * Math.PI * d0 * opts.freqHz) / C)
   const method = { id: 'test-power-law', source: `test model: free space at ${d0} m, then n = ${n}` }
   return {
-    spec: { kind: 'log-distance', freqHz: opts.freqHz, refDistanceM: d0, segments: [{ startM: d0, exponent: n }] },
+    spec: { kind: 'log-distance', freqHz: opts.freqHz, refDistanceM: d0, exponent: n },
     method,
-    lossDb: (distanceM) => ({ lossDb: l0 + 10 * n * Math.log10(distanceM / d0), warnings: [], method }),
-    distanceM: (lossDb) => ({ distanceM: d0 * 10 ** ((lossDb - l0) / (10 * n)), warnings: [], method }),
+    lossDb: (distanceM) => ({ value: { lossDb: l0 + 10 * n * Math.log10(distanceM / d0) }, warnings: [], method }),
+    distanceM: (lossDb) => ({ value: { distanceM: d0 * 10 ** ((lossDb - l0) / (10 * n)) }, warnings: [], method }),
     slopeDbPerDecade: () => 10 * n,
   }
 }

@@ -20,33 +20,33 @@ function toSpec(raw: Record<string, unknown>): LimitSpec {
 describe('appliedLimitEirpDbm', () => {
   for (const row of APPLIED_LIMIT_ROWS) {
     it(`${row.id}: gives ${row.expected} dBm EIRP within ${row.tolerance} dB (${row.source}, ${row.status})`, () => {
-      within(appliedLimitEirpDbm(toSpec(row.inputs.spec), row.inputs.facts).limitEirpDbm, row.expected, row.tolerance)
+      within(appliedLimitEirpDbm({ spec: toSpec(row.inputs.spec), ...row.inputs.facts }).value.limitEirpDbm, row.expected, row.tolerance)
     })
   }
   it('11-1: the dB-for-dB rule leaves 12 dBm conducted for a 24 dBi antenna, the point-to-point rule 24 dBm', () => {
-    const ptmp = appliedLimitEirpDbm({ kind: 'conducted', conductedPowerDbm: 30, gainRule: GAIN_RULES.dbForDbAbove6Dbi }, { antennaGainDbi: 24, feederLossDb: 0 })
-    const ptp = appliedLimitEirpDbm({ kind: 'conducted', conductedPowerDbm: 30, gainRule: GAIN_RULES.onePerThreeAbove6DbiPointToPoint }, { antennaGainDbi: 24, feederLossDb: 0 })
-    expect(ptmp.limitEirpDbm - 24).toBeCloseTo(12, 12)
-    expect(ptp.limitEirpDbm - 24).toBeCloseTo(24, 12)
-    expect(ptmp.derivation.join(' ')).toContain('15.247(b)(4)')
+    const ptmp = appliedLimitEirpDbm({ spec: { kind: 'conducted', conductedPowerDbm: 30, gainRule: GAIN_RULES.dbForDbAbove6Dbi }, antennaGainDbi: 24, feederLossDb: 0 })
+    const ptp = appliedLimitEirpDbm({ spec: { kind: 'conducted', conductedPowerDbm: 30, gainRule: GAIN_RULES.onePerThreeAbove6DbiPointToPoint }, antennaGainDbi: 24, feederLossDb: 0 })
+    expect(ptmp.value.limitEirpDbm - 24).toBeCloseTo(12, 12)
+    expect(ptp.value.limitEirpDbm - 24).toBeCloseTo(24, 12)
+    expect(ptmp.value.derivation.join(' ')).toContain('15.247(b)(4)')
   })
   it('applies no reduction at or below the 6 dBi threshold: EIRP limit = 30 dBm + G', () => {
-    expect(appliedLimitEirpDbm({ kind: 'conducted', conductedPowerDbm: 30, gainRule: GAIN_RULES.dbForDbAbove6Dbi }, { antennaGainDbi: 3, feederLossDb: 0 }).limitEirpDbm).toBe(33)
+    expect(appliedLimitEirpDbm({ spec: { kind: 'conducted', conductedPowerDbm: 30, gainRule: GAIN_RULES.dbForDbAbove6Dbi }, antennaGainDbi: 3, feederLossDb: 0 }).value.limitEirpDbm).toBe(33)
   })
   it('caps the dB-for-dB rule at 36 dBm EIRP for any gain above 6 dBi (47 CFR §15.247, register §11 15.247(b)(4) "EIRP cap 36 dBm")', () => {
     fc.assert(
       fc.property(fc.double({ min: 6, max: 50, noNaN: true }), (g) => {
-        expect(appliedLimitEirpDbm({ kind: 'conducted', conductedPowerDbm: 30, gainRule: GAIN_RULES.dbForDbAbove6Dbi }, { antennaGainDbi: g, feederLossDb: 0 }).limitEirpDbm).toBeCloseTo(36, 9)
+        expect(appliedLimitEirpDbm({ spec: { kind: 'conducted', conductedPowerDbm: 30, gainRule: GAIN_RULES.dbForDbAbove6Dbi }, antennaGainDbi: g, feederLossDb: 0 }).value.limitEirpDbm).toBeCloseTo(36, 9)
       }),
     )
   })
   it('leaves the 60 GHz point-to-point limit at 82 dBm for gains of 51 dBi and above', () => {
-    expect(appliedLimitEirpDbm({ kind: 'eirp', eirpDbm: 82, gainRule: GAIN_RULES.twoPerDbBelow51Dbi }, { antennaGainDbi: 55 }).limitEirpDbm).toBe(82)
+    expect(appliedLimitEirpDbm({ spec: { kind: 'eirp', eirpDbm: 82, gainRule: GAIN_RULES.twoPerDbBelow51Dbi }, antennaGainDbi: 55 }).value.limitEirpDbm).toBe(82)
   })
   it('subtracts a given feeder loss from the EIRP equivalent of a conducted limit, and warns when none is given', () => {
     const spec: LimitSpec = { kind: 'conducted', conductedPowerDbm: 30, gainRule: GAIN_RULES.noReduction }
-    expect(appliedLimitEirpDbm(spec, { antennaGainDbi: 6, feederLossDb: 2 }).limitEirpDbm).toBe(34)
-    expect(appliedLimitEirpDbm(spec, { antennaGainDbi: 6 }).warnings.some((w) => /Feeder loss/.test(w))).toBe(true)
+    expect(appliedLimitEirpDbm({ spec, antennaGainDbi: 6, feederLossDb: 2 }).value.limitEirpDbm).toBe(34)
+    expect(appliedLimitEirpDbm({ spec, antennaGainDbi: 6 }).warnings.some((w) => /Feeder loss/.test(w))).toBe(true)
   })
   it('15.407(a)(2): takes the lesser of 250 mW and 11 dBm + 10 log B (B = 10 MHz → 21 dBm)', () => {
     const spec: LimitSpec = {
@@ -56,22 +56,29 @@ describe('appliedLimitEirpDbm', () => {
         { kind: 'conducted-density', conductedDensityDbm: 11, referenceBandwidthHz: 1e6, gainRule: GAIN_RULES.noReduction },
       ],
     }
-    within(appliedLimitEirpDbm(spec, { antennaGainDbi: 0, feederLossDb: 0, emissionBandwidthHz: 10e6 }).limitEirpDbm, 21, 1e-9)
-    within(appliedLimitEirpDbm(spec, { antennaGainDbi: 0, feederLossDb: 0, emissionBandwidthHz: 40e6 }).limitEirpDbm, 23.98, 0.01)
+    within(appliedLimitEirpDbm({ spec, antennaGainDbi: 0, feederLossDb: 0, emissionBandwidthHz: 10e6 }).value.limitEirpDbm, 21, 1e-9)
+    within(appliedLimitEirpDbm({ spec, antennaGainDbi: 0, feederLossDb: 0, emissionBandwidthHz: 40e6 }).value.limitEirpDbm, 23.98, 0.01)
   })
   it('counts a narrow emission against one whole reference bandwidth of a density limit', () => {
-    const r = appliedLimitEirpDbm({ kind: 'eirp-density', eirpDensityDbm: 10, referenceBandwidthHz: 1e6 }, { emissionBandwidthHz: 200e3 })
-    expect(r.limitEirpDbm).toBe(10)
+    const r = appliedLimitEirpDbm({ spec: { kind: 'eirp-density', eirpDensityDbm: 10, referenceBandwidthHz: 1e6 }, emissionBandwidthHz: 200e3 })
+    expect(r.value.limitEirpDbm).toBe(10)
     expect(r.warnings.some((w) => /narrower/.test(w))).toBe(true)
   })
   it('throws a RangeError naming antennaGainDbi when a conducted limit has no gain', () => {
-    expect(() => appliedLimitEirpDbm({ kind: 'conducted', conductedPowerDbm: 30, gainRule: GAIN_RULES.noReduction })).toThrow(/antennaGainDbi/)
+    expect(() => appliedLimitEirpDbm({ spec: { kind: 'conducted', conductedPowerDbm: 30, gainRule: GAIN_RULES.noReduction } })).toThrow(/antennaGainDbi/)
   })
   it('throws a RangeError naming emissionBandwidthHz when a density limit has no bandwidth', () => {
-    expect(() => appliedLimitEirpDbm({ kind: 'eirp-density', eirpDensityDbm: 10, referenceBandwidthHz: 1e6 })).toThrow(/emissionBandwidthHz/)
+    expect(() => appliedLimitEirpDbm({ spec: { kind: 'eirp-density', eirpDensityDbm: 10, referenceBandwidthHz: 1e6 } })).toThrow(/emissionBandwidthHz/)
+  })
+  it('says how the limit was applied: method applied-limit-eirp citing the gain rules and register §11', () => {
+    const r = appliedLimitEirpDbm({ spec: { kind: 'erp', erpDbm: 27 } })
+    expect(r.method.id).toBe('applied-limit-eirp')
+    expect(r.method.source).toContain('1.161')
+    expect(r.method.source).toContain('register 11-1')
+    expect(r.value.derivation).toEqual(['ERP limit 27 dBm + 2.15 dB = 29.15 dBm EIRP'])
   })
   it('throws a RangeError for an empty lesser-of', () => {
-    expect(() => appliedLimitEirpDbm({ kind: 'lesser-of', limits: [] })).toThrow(/limits/)
+    expect(() => appliedLimitEirpDbm({ spec: { kind: 'lesser-of', limits: [] } })).toThrow(/limits/)
   })
 })
 
@@ -144,19 +151,19 @@ describe('band-limit reference', () => {
     }
   })
   it('finds the EN 300 328 20 dBm EIRP limit at 2440 MHz, tagged [V-S]', () => {
-    const e = findBandLimits(2440e6).find((x) => x.id === 'en300328-2g4-eirp')!
+    const e = findBandLimits({ freqHz: 2440e6 }).find((x) => x.id === 'en300328-2g4-eirp')!
     expect(e.status).toBe('[V-S]')
-    expect(appliedLimitEirpDbm(e.spec).limitEirpDbm).toBe(20)
+    expect(appliedLimitEirpDbm({ spec: e.spec }).value.limitEirpDbm).toBe(20)
   })
   it('gives 30 dBm for EN 301 893 5470–5725 MHz with TPC over 20 MHz (the 30.01 dBm density total is higher, EIRP density × bandwidth, register 11-4)', () => {
     const e = BAND_LIMITS.find((x) => x.id === 'en301893-5g47-tpc')!
-    expect(appliedLimitEirpDbm(e.spec, { emissionBandwidthHz: 20e6 }).limitEirpDbm).toBe(30)
+    expect(appliedLimitEirpDbm({ spec: e.spec, emissionBandwidthHz: 20e6 }).value.limitEirpDbm).toBe(30)
   })
   it('gives 500 mW e.r.p. = 29.14 dBm EIRP for 869.4–869.65 MHz (ITU RR Nos. 1.161/1.162, register 3-3)', () => {
-    const e = findBandLimits(869.525e6)[0]
-    within(appliedLimitEirpDbm(e.spec).limitEirpDbm, 29.14, 0.01)
+    const e = findBandLimits({ freqHz: 869.525e6 })[0]
+    within(appliedLimitEirpDbm({ spec: e.spec }).value.limitEirpDbm, 29.14, 0.01)
   })
   it('throws a RangeError naming freqHz for a zero frequency', () => {
-    expect(() => findBandLimits(0)).toThrow(/freqHz/)
+    expect(() => findBandLimits({ freqHz: 0 })).toThrow(/freqHz/)
   })
 })

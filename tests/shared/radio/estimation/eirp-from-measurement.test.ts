@@ -23,7 +23,6 @@ describe('eirpFromMeasurement', () => {
     it(`gives back 36.00 dBm from 100.77 dBµV/m at 100 m in free space at ${freqHz / 1e6} MHz (ITU-R P.525-4, register 1-6 [D], ±0.01 dB)`, () => {
       const r = eirpFromMeasurement({ measurement: { kind: 'field-strength', fieldStrengthDbuvPerM: 100.77, freqHz }, distanceM: 100, model: inlineFreeSpace(freqHz) })
       expect(Math.abs(r.value.eirpDbm - 36)).toBeLessThanOrEqual(0.01)
-      expect(Math.abs(r.value.eirpDbw - 6)).toBeLessThanOrEqual(0.01)
     })
     it(`gives back 36.00 dBm from −44.99 dBW/m² at 100 m in free space at ${freqHz / 1e6} MHz (ITU-R P.525-4, register 1-6 [D], ±0.01 dB)`, () => {
       const r = eirpFromMeasurement({ measurement: { kind: 'pfd', pfdDbwPerM2: -44.99, freqHz }, distanceM: 100, model: inlineFreeSpace(freqHz) })

@@ -12,8 +12,8 @@ export function inlineFreeSpace(freqHz: number): PropagationModel {
   return {
     spec: { kind: 'free-space', freqHz },
     method: { id: 'test-free-space', source: 'ITU-R P.525 exact form (test copy)' },
-    lossDb: (distanceM) => ({ lossDb: loss(distanceM), warnings: [], method: { id: 'test-free-space', source: 'test' } }),
-    distanceM: (lossDb) => ({ distanceM: (C * 10 ** (lossDb / 20)) / (4 * Math.PI * freqHz), warnings: [], method: { id: 'test-free-space', source: 'test' } }),
+    lossDb: (distanceM) => ({ value: { lossDb: loss(distanceM) }, warnings: [], method: { id: 'test-free-space', source: 'test' } }),
+    distanceM: (lossDb) => ({ value: { distanceM: (C * 10 ** (lossDb / 20)) / (4 * Math.PI * freqHz) }, warnings: [], method: { id: 'test-free-space', source: 'test' } }),
     slopeDbPerDecade: () => 20,
   }
 }
@@ -24,10 +24,10 @@ export function inlinePowerLaw(opts: { freqHz: number; exponent: number; refDist
   const n = opts.exponent
   const method = { id: 'test-power-law', source: 'log-distance (test copy)' }
   return {
-    spec: { kind: 'log-distance', freqHz: opts.freqHz, refDistanceM: d0, segments: [{ startM: d0, exponent: n }], shadowSigmaDb: opts.shadowSigmaDb },
+    spec: { kind: 'log-distance', freqHz: opts.freqHz, refDistanceM: d0, exponent: n, shadowSigmaDb: opts.shadowSigmaDb },
     method,
-    lossDb: (d) => ({ lossDb: l0 + 10 * n * Math.log10(d / d0), warnings: [], method, ...(opts.shadowSigmaDb ? { shadowSigmaDb: opts.shadowSigmaDb } : {}) }),
-    distanceM: (lossDb) => ({ distanceM: d0 * 10 ** ((lossDb - l0) / (10 * n)), warnings: [], method }),
+    lossDb: (d) => ({ value: { lossDb: l0 + 10 * n * Math.log10(d / d0), ...(opts.shadowSigmaDb ? { shadowSigmaDb: opts.shadowSigmaDb } : {}) }, warnings: [], method }),
+    distanceM: (lossDb) => ({ value: { distanceM: d0 * 10 ** ((lossDb - l0) / (10 * n)) }, warnings: [], method }),
     slopeDbPerDecade: () => 10 * n,
   }
 }

@@ -19,14 +19,14 @@ describe('EIRP back-calculation with the registry models', () => {
 
   for (const [n, linear, exact] of [[2, 0.43, 0.42], [3, 0.65, 0.64], [3.5, 0.76, 0.74], [4, 0.87, 0.85]]) {
     it(`gives ${linear} dB linearised and ${exact} dB exact for 5 % distance error with the log-distance model, n = ${n} (JCGM 100:2008 §5.1, register 12-2 [D])`, () => {
-      const model = createPropagationModel({ kind: 'log-distance', freqHz: 900e6, refDistanceM: 1, segments: [{ startM: 1, exponent: n }] })
+      const model = createPropagationModel({ kind: 'log-distance', freqHz: 900e6, refDistanceM: 1, exponent: n })
       expect(Math.abs(eirpUncertaintyFromDistanceDb({ model, distanceM: 400, distanceUncertaintyM: 20 }) - linear)).toBeLessThanOrEqual(0.01)
       expect(Math.abs(eirpChangeFromDistanceErrorDb({ model, distanceM: 400, distanceErrorM: 20 }) - exact)).toBeLessThanOrEqual(0.01)
     })
   }
 
   it('carries the log-distance shadowing σ into the EIRP budget', () => {
-    const model = createPropagationModel({ kind: 'log-distance', freqHz: 900e6, refDistanceM: 1, segments: [{ startM: 1, exponent: 3 }], shadowSigmaDb: 6 })
+    const model = createPropagationModel({ kind: 'log-distance', freqHz: 900e6, refDistanceM: 1, exponent: 3, shadowSigmaDb: 6 })
     const r = eirpFromMeasurement({ measurement: { kind: 'isotropic-power', receivedPowerDbm: -80 }, distanceM: 300, model, measurementContributions: [{ name: 'receiver', distribution: { kind: 'standard', standardUncertainty: 1 } }] })
     expect(r.value.expandedUncertaintyDb!).toBeCloseTo(2 * Math.sqrt(36 + 1), 9)
   })

@@ -61,20 +61,20 @@ describe('absorbing model (base plus γ·d)', () => {
   const gamma60 = gaseousSpecificAttenuation({ freqHz: 60e9, ...P676_VALIDATION_ATMOSPHERE }).value.totalDbPerKm
 
   it('adds 1.48 dB to free space over 100 m at 60 GHz (ITU-R P.676-13, register 4-1 [D] from [V-P] γ)', () => {
-    const total = absorbingLossDb({ base, absorptionDbPerKm: gamma60, distanceM: 100 }).lossDb
-    expect(Math.abs(total - base.lossDb(100).lossDb - 1.48)).toBeLessThanOrEqual(0.01)
+    const total = absorbingLossDb({ base, absorptionDbPerKm: gamma60, distanceM: 100 }).value.lossDb
+    expect(Math.abs(total - base.lossDb(100).value.lossDb - 1.48)).toBeLessThanOrEqual(0.01)
   })
 
   it('round-trips with its inverse within 1e-9 relative, over free space and Hata bases', () => {
-    const hata = createPropagationModel({ kind: 'hata', freqHz: 900e6, baseHeightM: 30, mobileHeightM: 1.5, environment: 'suburban' })
+    const hata = createPropagationModel({ kind: 'hata', freqHz: 900e6, txHeightM: 30, rxHeightM: 1.5, environment: 'suburban' })
     fc.assert(
       fc.property(
         fc.double({ min: 1, max: 5e4, noNaN: true }),
         fc.double({ min: 0, max: 30, noNaN: true }),
         fc.constantFrom(base, hata),
         (distanceM, absorptionDbPerKm, b) => {
-          const { lossDb } = absorbingLossDb({ base: b, absorptionDbPerKm, distanceM })
-          const back = absorbingDistanceM({ base: b, absorptionDbPerKm, lossDb }).distanceM
+          const { value: { lossDb } } = absorbingLossDb({ base: b, absorptionDbPerKm, distanceM })
+          const back = absorbingDistanceM({ base: b, absorptionDbPerKm, lossDb }).value.distanceM
           expect(Math.abs(back - distanceM) / distanceM).toBeLessThan(1e-9)
         },
       ),
@@ -84,7 +84,7 @@ describe('absorbing model (base plus γ·d)', () => {
   it('grows with distance', () => {
     fc.assert(
       fc.property(fc.double({ min: 1, max: 1e4, noNaN: true }), fc.double({ min: 1.001, max: 10, noNaN: true }), (d, k) => {
-        const at = (distanceM: number) => absorbingLossDb({ base, absorptionDbPerKm: gamma60, distanceM }).lossDb
+        const at = (distanceM: number) => absorbingLossDb({ base, absorptionDbPerKm: gamma60, distanceM }).value.lossDb
         expect(at(d * k)).toBeGreaterThan(at(d))
       }),
     )

@@ -3,8 +3,8 @@ import { describe, expect, it } from 'vitest'
 import {
   FREE_SPACE_EXACT_CONSTANT_DB,
   freeSpaceDistanceM,
-  freeSpaceEirpFromFieldDbw,
-  freeSpaceEirpFromPfdDbw,
+  freeSpaceEirpFromFieldDbm,
+  freeSpaceEirpFromPfdDbm,
   freeSpaceFieldStrengthDbuvPerM,
   freeSpaceLossDb,
   freeSpacePfdDbwPerM2,
@@ -14,14 +14,14 @@ import { FREE_SPACE_FIELD_ROWS, FREE_SPACE_LOSS_ROWS, FREE_SPACE_PFD_ROWS } from
 describe('freeSpaceLossDb', () => {
   for (const row of FREE_SPACE_LOSS_ROWS) {
     it(`matches ${row.id} within ${row.tolerance} dB [${row.status}] (${row.source})`, () => {
-      expect(Math.abs(freeSpaceLossDb(row.inputs).lossDb - row.expected)).toBeLessThanOrEqual(row.tolerance)
+      expect(Math.abs(freeSpaceLossDb(row.inputs).value.lossDb - row.expected)).toBeLessThanOrEqual(row.tolerance)
     })
   }
 
   it('uses the exact constant 32.4478 dB (ITU-R P.525-4, register §1 [D]), 0.048 dB above the P.525 rounding', () => {
     expect(FREE_SPACE_EXACT_CONSTANT_DB).toBeCloseTo(32.4478, 4)
-    const exact = freeSpaceLossDb({ freqHz: 1e9, distanceM: 1e3 }).lossDb
-    const rounded = freeSpaceLossDb({ freqHz: 1e9, distanceM: 1e3, form: 'p525-rounded' }).lossDb
+    const exact = freeSpaceLossDb({ freqHz: 1e9, distanceM: 1e3 }).value.lossDb
+    const rounded = freeSpaceLossDb({ freqHz: 1e9, distanceM: 1e3, form: 'p525-rounded' }).value.lossDb
     expect(exact - rounded).toBeCloseTo(0.0478, 3)
   })
 
@@ -58,8 +58,8 @@ describe('freeSpaceDistanceM', () => {
         fc.double({ min: 1e-2, max: 1e8, noNaN: true }),
         fc.constantFrom('exact' as const, 'p525-rounded' as const),
         (freqHz, distanceM, form) => {
-          const { lossDb } = freeSpaceLossDb({ freqHz, distanceM, form })
-          const back = freeSpaceDistanceM({ freqHz, lossDb, form }).distanceM
+          const { value: { lossDb } } = freeSpaceLossDb({ freqHz, distanceM, form })
+          const back = freeSpaceDistanceM({ freqHz, lossDb, form }).value.distanceM
           expect(Math.abs(back - distanceM) / distanceM).toBeLessThan(1e-9)
         },
       ),
@@ -67,7 +67,7 @@ describe('freeSpaceDistanceM', () => {
   })
 
   it('gives 1 km for the 1-1 loss of 72.45 dB at 100 MHz within 0.2 m (0.01 dB ≈ 0.12 %)', () => {
-    expect(Math.abs(freeSpaceDistanceM({ freqHz: 100e6, lossDb: 72.4478 }).distanceM - 1000)).toBeLessThan(0.2)
+    expect(Math.abs(freeSpaceDistanceM({ freqHz: 100e6, lossDb: 72.4478 }).value.distanceM - 1000)).toBeLessThan(0.2)
   })
 })
 
@@ -79,9 +79,9 @@ describe('free-space loss (properties)', () => {
         fc.double({ min: 1, max: 1e6, noNaN: true }),
         fc.double({ min: 1.001, max: 100, noNaN: true }),
         (freqHz, distanceM, factor) => {
-          const base = freeSpaceLossDb({ freqHz, distanceM }).lossDb
-          expect(freeSpaceLossDb({ freqHz, distanceM: distanceM * factor }).lossDb).toBeGreaterThan(base)
-          expect(freeSpaceLossDb({ freqHz: freqHz * factor, distanceM }).lossDb).toBeGreaterThan(base)
+          const base = freeSpaceLossDb({ freqHz, distanceM }).value.lossDb
+          expect(freeSpaceLossDb({ freqHz, distanceM: distanceM * factor }).value.lossDb).toBeGreaterThan(base)
+          expect(freeSpaceLossDb({ freqHz: freqHz * factor, distanceM }).value.lossDb).toBeGreaterThan(base)
         },
       ),
     )
@@ -95,22 +95,22 @@ describe('freeSpaceFieldStrengthDbuvPerM', () => {
     })
   }
   it('throws a RangeError naming distanceM for zero distance', () => {
-    expect(() => freeSpaceFieldStrengthDbuvPerM({ eirpDbw: 0, distanceM: 0 })).toThrow(/distanceM/)
+    expect(() => freeSpaceFieldStrengthDbuvPerM({ eirpDbm: 30, distanceM: 0 })).toThrow(/distanceM/)
   })
   it('throws a RangeError naming distanceM for a negative distance', () => {
-    expect(() => freeSpaceFieldStrengthDbuvPerM({ eirpDbw: 0, distanceM: -1 })).toThrow(RangeError)
-    expect(() => freeSpaceFieldStrengthDbuvPerM({ eirpDbw: 0, distanceM: -1 })).toThrow(/distanceM/)
+    expect(() => freeSpaceFieldStrengthDbuvPerM({ eirpDbm: 30, distanceM: -1 })).toThrow(RangeError)
+    expect(() => freeSpaceFieldStrengthDbuvPerM({ eirpDbm: 30, distanceM: -1 })).toThrow(/distanceM/)
   })
   it('EIRP → free-space field → EIRP returns the EIRP at any distance', () => {
     fc.assert(
-      fc.property(fc.double({ min: -200, max: 200, noNaN: true }), fc.double({ min: 0.01, max: 1e7, noNaN: true }), (eirpDbw, distanceM) => {
-        const e = freeSpaceFieldStrengthDbuvPerM({ eirpDbw, distanceM })
-        expect(freeSpaceEirpFromFieldDbw({ fieldStrengthDbuvPerM: e, distanceM })).toBeCloseTo(eirpDbw, 9)
+      fc.property(fc.double({ min: -200, max: 200, noNaN: true }), fc.double({ min: 0.01, max: 1e7, noNaN: true }), (eirpDbm, distanceM) => {
+        const e = freeSpaceFieldStrengthDbuvPerM({ eirpDbm, distanceM })
+        expect(freeSpaceEirpFromFieldDbm({ fieldStrengthDbuvPerM: e, distanceM })).toBeCloseTo(eirpDbm, 9)
       }),
     )
   })
-  it('gives back 0 dBW from 74.77 dBµV/m at 1 km (ITU-R P.525-4, register 1-5 inverse, [D]) within 0.01 dB', () => {
-    expect(Math.abs(freeSpaceEirpFromFieldDbw({ fieldStrengthDbuvPerM: 74.77, distanceM: 1000 }) - 0)).toBeLessThanOrEqual(0.01)
+  it('gives back 30 dBm (0 dBW) from 74.77 dBµV/m at 1 km (ITU-R P.525-4, register 1-5 inverse, [D]) within 0.01 dB', () => {
+    expect(Math.abs(freeSpaceEirpFromFieldDbm({ fieldStrengthDbuvPerM: 74.77, distanceM: 1000 }) - 30)).toBeLessThanOrEqual(0.01)
   })
 })
 
@@ -119,15 +119,15 @@ describe('freeSpacePfdDbwPerM2', () => {
     it(`matches ${row.id} within ${row.tolerance} dB [${row.status}] (${row.source})`, () => {
       expect(Math.abs(freeSpacePfdDbwPerM2(row.inputs) - row.expected)).toBeLessThanOrEqual(row.tolerance)
     })
-    it(`inverts ${row.id}: the pfd gives back ${row.inputs.eirpDbw} dBW within ${row.tolerance} dB [${row.status}]`, () => {
-      expect(Math.abs(freeSpaceEirpFromPfdDbw({ pfdDbwPerM2: row.expected, distanceM: row.inputs.distanceM }) - row.inputs.eirpDbw)).toBeLessThanOrEqual(row.tolerance)
+    it(`inverts ${row.id}: the pfd gives back ${row.inputs.eirpDbm} dBm within ${row.tolerance} dB [${row.status}]`, () => {
+      expect(Math.abs(freeSpaceEirpFromPfdDbm({ pfdDbwPerM2: row.expected, distanceM: row.inputs.distanceM }) - row.inputs.eirpDbm)).toBeLessThanOrEqual(row.tolerance)
     })
   }
   it('EIRP → pfd → EIRP returns the EIRP at any distance', () => {
     fc.assert(
-      fc.property(fc.double({ min: -200, max: 200, noNaN: true }), fc.double({ min: 0.01, max: 1e7, noNaN: true }), (eirpDbw, distanceM) => {
-        const s = freeSpacePfdDbwPerM2({ eirpDbw, distanceM })
-        expect(freeSpaceEirpFromPfdDbw({ pfdDbwPerM2: s, distanceM })).toBeCloseTo(eirpDbw, 9)
+      fc.property(fc.double({ min: -200, max: 200, noNaN: true }), fc.double({ min: 0.01, max: 1e7, noNaN: true }), (eirpDbm, distanceM) => {
+        const s = freeSpacePfdDbwPerM2({ eirpDbm, distanceM })
+        expect(freeSpaceEirpFromPfdDbm({ pfdDbwPerM2: s, distanceM })).toBeCloseTo(eirpDbm, 9)
       }),
     )
   })

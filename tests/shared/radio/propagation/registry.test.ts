@@ -20,7 +20,7 @@ const CASES: { name: string; spec: PropagationModelSpec; id: string; distanceM: 
   },
   {
     name: 'log-distance n = 3.5, log-distance model (Rappaport §4.9.1), register 6-2 [D]',
-    spec: { kind: 'log-distance', freqHz: 2.4e9, refDistanceM: 1, segments: [{ startM: 1, exponent: 3.5 }] },
+    spec: { kind: 'log-distance', freqHz: 2.4e9, refDistanceM: 1, exponent: 3.5 },
     id: 'log-distance',
     distanceM: 50,
     expectedDb: 99.52,
@@ -44,7 +44,7 @@ const CASES: { name: string; spec: PropagationModelSpec; id: string; distanceM: 
   },
   {
     name: 'Hata urban small/medium, Hata (1980), COST 231, register 7-3 [D]',
-    spec: { kind: 'hata', freqHz: 900e6, baseHeightM: 30, mobileHeightM: 1.5, environment: 'urban-small-medium' },
+    spec: { kind: 'hata', freqHz: 900e6, txHeightM: 30, rxHeightM: 1.5, environment: 'urban-small-medium' },
     id: 'okumura-hata',
     distanceM: 5000,
     expectedDb: 151.02,
@@ -52,7 +52,7 @@ const CASES: { name: string; spec: PropagationModelSpec; id: string; distanceM: 
   },
   {
     name: 'COST-231 Hata metropolitan, Hata (1980), COST 231, register 7-4 [D]',
-    spec: { kind: 'cost231-hata', freqHz: 1800e6, baseHeightM: 30, mobileHeightM: 1.5, environment: 'metropolitan' },
+    spec: { kind: 'cost231-hata', freqHz: 1800e6, txHeightM: 30, rxHeightM: 1.5, environment: 'metropolitan' },
     id: 'cost231-hata',
     distanceM: 1000,
     expectedDb: 139.2,
@@ -60,7 +60,7 @@ const CASES: { name: string; spec: PropagationModelSpec; id: string; distanceM: 
   },
   {
     name: 'TR 38.901 UMa LOS 1 km at 5 GHz, ns-3 test vector [V-I]',
-    spec: { kind: 'tr38901', freqHz: 5e9, scenario: 'UMa', condition: 'LOS', baseHeightM: 25, ueHeightM: 1.5 },
+    spec: { kind: 'tr38901', freqHz: 5e9, scenario: 'UMa', condition: 'LOS', txHeightM: 25, rxHeightM: 1.5 },
     id: 'tr38901-pathloss',
     distanceM: 1000,
     expectedDb: 109.73,
@@ -68,7 +68,7 @@ const CASES: { name: string; spec: PropagationModelSpec; id: string; distanceM: 
   },
   {
     name: 'TR 38.901 RMa NLOS 1 km at 5 GHz, ns-3 test vector [V-I]',
-    spec: { kind: 'tr38901', freqHz: 5e9, scenario: 'RMa', condition: 'NLOS', baseHeightM: 35, ueHeightM: 1.5 },
+    spec: { kind: 'tr38901', freqHz: 5e9, scenario: 'RMa', condition: 'NLOS', txHeightM: 35, rxHeightM: 1.5 },
     id: 'tr38901-pathloss',
     distanceM: 1000,
     expectedDb: 133.52,
@@ -80,7 +80,7 @@ const CASES: { name: string; spec: PropagationModelSpec; id: string; distanceM: 
     id: 'free-space-p525+absorption',
     distanceM: 100,
     // 20·log10(4π·100·60e9/c) = 108.0 dB is computed by the free-space case above; only the 1.48 dB is published.
-    expectedDb: createPropagationModel({ kind: 'free-space', freqHz: 60e9 }).lossDb(100).lossDb + 1.48,
+    expectedDb: createPropagationModel({ kind: 'free-space', freqHz: 60e9 }).lossDb(100).value.lossDb + 1.48,
     tolDb: 0.01,
   },
 ]
@@ -90,7 +90,7 @@ describe('createPropagationModel', () => {
     it(`matches ${c.name} within ${c.tolDb} dB and reports method id '${c.id}'`, () => {
       const model = createPropagationModel(c.spec)
       const r = model.lossDb(c.distanceM)
-      expect(Math.abs(r.lossDb - c.expectedDb)).toBeLessThanOrEqual(c.tolDb)
+      expect(Math.abs(r.value.lossDb - c.expectedDb)).toBeLessThanOrEqual(c.tolDb)
       expect(model.method.id).toBe(c.id)
       expect(r.method.id).toBe(c.id)
       expect(model.spec).toBe(c.spec)
@@ -102,8 +102,8 @@ describe('createPropagationModel', () => {
     fc.assert(
       fc.property(fc.constantFrom(...monotonic), fc.double({ min: 1, max: 20_000, noNaN: true }), (c, distanceM) => {
         const model = createPropagationModel(c.spec)
-        const { lossDb } = model.lossDb(distanceM)
-        const back = model.distanceM(lossDb).distanceM
+        const { value: { lossDb } } = model.lossDb(distanceM)
+        const back = model.distanceM(lossDb).value.distanceM
         expect(Math.abs(back - distanceM) / distanceM).toBeLessThan(1e-6)
       }),
     )
@@ -113,10 +113,10 @@ describe('createPropagationModel', () => {
     const model = createPropagationModel(CASES[3].spec)
     fc.assert(
       fc.property(fc.double({ min: 1, max: 20_000, noNaN: true }), (distanceM) => {
-        const { lossDb } = model.lossDb(distanceM)
-        const back = model.distanceM(lossDb).distanceM
+        const { value: { lossDb } } = model.lossDb(distanceM)
+        const back = model.distanceM(lossDb).value.distanceM
         expect(back).toBeLessThanOrEqual(distanceM * (1 + 1e-9))
-        expect(Math.abs(model.lossDb(back).lossDb - lossDb)).toBeLessThan(1e-6)
+        expect(Math.abs(model.lossDb(back).value.lossDb - lossDb)).toBeLessThan(1e-6)
       }),
     )
   })
@@ -130,7 +130,7 @@ describe('createPropagationModel', () => {
 
   it('gives the Table 7.4.1-1 distance coefficients of InH as numerical slopes (17.3 LOS, 38.3 NLOS) within 1e-4', () => {
     const inh = (condition: 'LOS' | 'NLOS') =>
-      createPropagationModel({ kind: 'tr38901', freqHz: 3.5e9, scenario: 'InH-office', condition, baseHeightM: 1.5, ueHeightM: 1.5 })
+      createPropagationModel({ kind: 'tr38901', freqHz: 3.5e9, scenario: 'InH-office', condition, txHeightM: 1.5, rxHeightM: 1.5 })
     expect(inh('LOS').slopeDbPerDecade(20)).toBeCloseTo(17.3, 4)
     expect(inh('NLOS').slopeDbPerDecade(20)).toBeCloseTo(38.3, 4)
   })
@@ -141,7 +141,7 @@ describe('createPropagationModel', () => {
 
   it('gives the absorbing model the base slope plus γ·d·ln 10, matching a central difference within 1e-6', () => {
     const model = createPropagationModel(CASES[9].spec)
-    const numeric = centralSlopeDbPerDecade((d) => model.lossDb(d).lossDb, 800)
+    const numeric = centralSlopeDbPerDecade((d) => model.lossDb(d).value.lossDb, 800)
     expect(Math.abs(model.slopeDbPerDecade(800) - numeric)).toBeLessThan(1e-6)
     expect(model.slopeDbPerDecade(800)).toBeCloseTo(20 + GAMMA_60_GHZ * 0.8 * Math.LN10, 9)
   })
@@ -153,16 +153,16 @@ describe('createPropagationModel', () => {
   })
 
   it('returns the shadow-fading σ of TR 38.901 and of a log-distance spec', () => {
-    expect(createPropagationModel(CASES[7].spec).lossDb(1000).shadowSigmaDb).toBe(4)
-    const ld = createPropagationModel({ kind: 'log-distance', freqHz: 1e9, refDistanceM: 1, segments: [{ startM: 1, exponent: 3 }], shadowSigmaDb: 7 })
-    expect(ld.lossDb(100).shadowSigmaDb).toBe(7)
+    expect(createPropagationModel(CASES[7].spec).lossDb(1000).value.shadowSigmaDb).toBe(4)
+    const ld = createPropagationModel({ kind: 'log-distance', freqHz: 1e9, refDistanceM: 1, exponent: 3, shadowSigmaDb: 7 })
+    expect(ld.lossDb(100).value.shadowSigmaDb).toBe(7)
   })
 
   it.each<[string, PropagationModelSpec]>([
     ['freqHz', { kind: 'free-space', freqHz: -1 }],
     ['txHeightM', { kind: 'two-ray', freqHz: 1e9, txHeightM: -3, rxHeightM: 1.5 }],
-    ['baseHeightM', { kind: 'hata', freqHz: 900e6, baseHeightM: Number.NaN, mobileHeightM: 1.5, environment: 'open' }],
-    ['ueHeightM', { kind: 'tr38901', freqHz: 3.5e9, scenario: 'RMa', condition: 'LOS', baseHeightM: 35, ueHeightM: -1 }],
+    ['txHeightM', { kind: 'hata', freqHz: 900e6, txHeightM: Number.NaN, rxHeightM: 1.5, environment: 'open' }],
+    ['rxHeightM', { kind: 'tr38901', freqHz: 3.5e9, scenario: 'RMa', condition: 'LOS', txHeightM: 35, rxHeightM: -1 }],
     ['absorptionDbPerKm', { kind: 'absorbing', base: { kind: 'free-space', freqHz: 60e9 }, absorptionDbPerKm: -1 }],
   ])('throws a RangeError naming %s when the spec is built', (name, spec) => {
     expect(() => createPropagationModel(spec)).toThrow(RangeError)
@@ -200,8 +200,8 @@ describe('PROPAGATION_MODEL_DESCRIPTORS', () => {
     const hata = PROPAGATION_MODEL_DESCRIPTORS.find((d) => d.kind === 'hata')!
     expect(hata.validity.map((v) => [v.quantity, v.min, v.max])).toEqual([
       ['freqMhz', 150, 1500],
-      ['baseHeightM', 30, 200],
-      ['mobileHeightM', 1, 10],
+      ['txHeightM', 30, 200],
+      ['rxHeightM', 1, 10],
       ['distanceKm', 1, 20],
     ])
   })
@@ -210,5 +210,25 @@ describe('PROPAGATION_MODEL_DESCRIPTORS', () => {
     const tr = PROPAGATION_MODEL_DESCRIPTORS.find((d) => d.kind === 'tr38901')!
     expect(Object.keys(tr.validityByVariant ?? {})).toHaveLength(8)
     expect(tr.validityByVariant!['RMa/LOS'].find((v) => v.quantity === 'distance2dM')?.max).toBe(10_000)
+  })
+})
+
+describe('createPropagationModel: inputs only where they change the result', () => {
+  it('builds a log-distance model without a frequency when the loss at d0 is given', () => {
+    const model = createPropagationModel({ kind: 'log-distance', refDistanceM: 1, refLossDb: 40, exponent: 3 })
+    expect(model.lossDb(100).value.lossDb).toBeCloseTo(40 + 60, 9) // 10·3·log10(100) = 60 dB by the model's definition
+    expect(() => createPropagationModel({ kind: 'log-distance', refDistanceM: 1, exponent: 3 })).toThrow(/refLossDb, or freqHz/)
+  })
+
+  it('builds COST-231 Hata from a numeric C_m equal to the named environment', () => {
+    const common = { kind: 'cost231-hata', freqHz: 1800e6, txHeightM: 30, rxHeightM: 1.5 } as const
+    const byName = createPropagationModel({ ...common, environment: 'metropolitan' }).lossDb(5000).value.lossDb
+    const byNumber = createPropagationModel({ ...common, cityCorrectionDb: 3 }).lossDb(5000).value.lossDb
+    expect(byNumber).toBe(byName)
+  })
+
+  it('names antenna heights txHeightM and rxHeightM in every descriptor', () => {
+    const keys = PROPAGATION_MODEL_DESCRIPTORS.flatMap((d) => d.parameters.map((p) => p.key)).filter((k) => /height/i.test(k) && k !== 'buildingHeightM')
+    expect(new Set(keys)).toEqual(new Set(['txHeightM', 'rxHeightM']))
   })
 })

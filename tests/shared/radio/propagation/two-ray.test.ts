@@ -27,13 +27,13 @@ describe('twoRayCriticalDistanceM / twoRayCrossoverDistanceM', () => {
 describe('twoRayLossDb', () => {
   for (const row of TWO_RAY_LOSS_ROWS) {
     it(`matches ${row.id} within ${row.tolerance} dB [${row.status}] (${row.source})`, () => {
-      expect(Math.abs(twoRayLossDb(row.inputs).lossDb - row.expected)).toBeLessThanOrEqual(row.tolerance)
+      expect(Math.abs(twoRayLossDb(row.inputs).value.lossDb - row.expected)).toBeLessThanOrEqual(row.tolerance)
     })
   }
 
   it('matches the free-space references it is compared with (ITU-R P.525-4, register 5-2 and 5-3 FSPL)', () => {
     for (const row of TWO_RAY_FREE_SPACE_ROWS) {
-      expect(Math.abs(freeSpaceLossDb(row.inputs).lossDb - row.expected)).toBeLessThanOrEqual(row.tolerance)
+      expect(Math.abs(freeSpaceLossDb(row.inputs).value.lossDb - row.expected)).toBeLessThanOrEqual(row.tolerance)
     }
   })
 
@@ -49,8 +49,8 @@ describe('twoRayLossDb', () => {
   })
 
   it('tends to the d⁻⁴ asymptote far beyond d_x (within 0.01 dB at 100 km)', () => {
-    const exact = twoRayLossDb({ ...GEOMETRY, distanceM: 100_000 }).lossDb
-    const asymptote = twoRayLossDb({ ...GEOMETRY, distanceM: 100_000, form: 'asymptote' }).lossDb
+    const exact = twoRayLossDb({ ...GEOMETRY, distanceM: 100_000 }).value.lossDb
+    const asymptote = twoRayLossDb({ ...GEOMETRY, distanceM: 100_000, form: 'asymptote' }).value.lossDb
     expect(Math.abs(exact - asymptote)).toBeLessThan(0.01)
   })
 
@@ -58,7 +58,7 @@ describe('twoRayLossDb', () => {
     const dc = twoRayCriticalDistanceM(GEOMETRY)
     fc.assert(
       fc.property(fc.double({ min: dc, max: 1e6, noNaN: true }), fc.double({ min: 1.001, max: 10, noNaN: true }), (d, k) => {
-        expect(twoRayLossDb({ ...GEOMETRY, distanceM: d * k }).lossDb).toBeGreaterThan(twoRayLossDb({ ...GEOMETRY, distanceM: d }).lossDb)
+        expect(twoRayLossDb({ ...GEOMETRY, distanceM: d * k }).value.lossDb).toBeGreaterThan(twoRayLossDb({ ...GEOMETRY, distanceM: d }).value.lossDb)
       }),
     )
   })
@@ -82,15 +82,15 @@ describe('twoRayLossDb', () => {
 describe('twoRayDistanceM', () => {
   it('inverts the asymptote in closed form: 114.89 dB gives 5 km within 2 m (5-2)', () => {
     const r = twoRayDistanceM({ ...GEOMETRY, lossDb: 114.8945, form: 'asymptote' })
-    expect(Math.abs(r.distanceM - 5000)).toBeLessThan(2)
+    expect(Math.abs(r.value.distanceM - 5000)).toBeLessThan(2)
     expect(r.warnings).toEqual([])
   })
 
   it('round-trips the asymptote within 1e-9 relative', () => {
     fc.assert(
       fc.property(fc.double({ min: 1, max: 1e6, noNaN: true }), (distanceM) => {
-        const { lossDb } = twoRayLossDb({ ...GEOMETRY, distanceM, form: 'asymptote' })
-        const back = twoRayDistanceM({ ...GEOMETRY, lossDb, form: 'asymptote' }).distanceM
+        const { value: { lossDb } } = twoRayLossDb({ ...GEOMETRY, distanceM, form: 'asymptote' })
+        const back = twoRayDistanceM({ ...GEOMETRY, lossDb, form: 'asymptote' }).value.distanceM
         expect(Math.abs(back - distanceM) / distanceM).toBeLessThan(1e-9)
       }),
     )
@@ -98,8 +98,8 @@ describe('twoRayDistanceM', () => {
 
   it('returns the smallest distance, inside the oscillating region, with a warning that names the monotonic-branch distance', () => {
     const r = twoRayDistanceM({ ...GEOMETRY, lossDb: 114.94 })
-    expect(r.distanceM).toBeLessThan(twoRayCriticalDistanceM(GEOMETRY))
-    expect(Math.abs(twoRayLossDb({ ...GEOMETRY, distanceM: r.distanceM }).lossDb - 114.94)).toBeLessThan(1e-6)
+    expect(r.value.distanceM).toBeLessThan(twoRayCriticalDistanceM(GEOMETRY))
+    expect(Math.abs(twoRayLossDb({ ...GEOMETRY, distanceM: r.value.distanceM }).value.lossDb - 114.94)).toBeLessThan(1e-6)
     expect(r.warnings.join(' ')).toMatch(/oscillates/)
     expect(r.warnings.join(' ')).toMatch(/500\d m on the monotonic branch/)
   })
@@ -107,18 +107,18 @@ describe('twoRayDistanceM', () => {
   it('finds no smaller distance with the same loss (checked on a 0.05 m grid)', () => {
     const target = 100
     const r = twoRayDistanceM({ ...GEOMETRY, lossDb: target })
-    for (let d = 0.05; d < r.distanceM - 0.05; d += 0.05) {
-      expect(twoRayLossDb({ ...GEOMETRY, distanceM: d }).lossDb).toBeLessThan(target)
+    for (let d = 0.05; d < r.value.distanceM - 0.05; d += 0.05) {
+      expect(twoRayLossDb({ ...GEOMETRY, distanceM: d }).value.lossDb).toBeLessThan(target)
     }
   })
 
   it('round-trips the exact form in loss (1e-6 dB) wherever the distance lies', () => {
     fc.assert(
       fc.property(fc.double({ min: 1, max: 1e5, noNaN: true }), (distanceM) => {
-        const { lossDb } = twoRayLossDb({ ...GEOMETRY, distanceM })
-        const back = twoRayDistanceM({ ...GEOMETRY, lossDb }).distanceM
+        const { value: { lossDb } } = twoRayLossDb({ ...GEOMETRY, distanceM })
+        const back = twoRayDistanceM({ ...GEOMETRY, lossDb }).value.distanceM
         expect(back).toBeLessThanOrEqual(distanceM * (1 + 1e-9))
-        expect(Math.abs(twoRayLossDb({ ...GEOMETRY, distanceM: back }).lossDb - lossDb)).toBeLessThan(1e-6)
+        expect(Math.abs(twoRayLossDb({ ...GEOMETRY, distanceM: back }).value.lossDb - lossDb)).toBeLessThan(1e-6)
       }),
     )
   })
@@ -127,9 +127,9 @@ describe('twoRayDistanceM', () => {
     const dc = twoRayCriticalDistanceM(GEOMETRY)
     fc.assert(
       fc.property(fc.double({ min: dc * 1.01, max: 1e6, noNaN: true }), (distanceM) => {
-        const { lossDb } = twoRayLossDb({ ...GEOMETRY, distanceM })
+        const { value: { lossDb } } = twoRayLossDb({ ...GEOMETRY, distanceM })
         const back = twoRayMonotonicDistanceM({ ...GEOMETRY, lossDb })
-        expect(Math.abs(back.distanceM - distanceM) / distanceM).toBeLessThan(1e-6)
+        expect(Math.abs(back.value.distanceM - distanceM) / distanceM).toBeLessThan(1e-6)
         expect(back.warnings).toEqual([])
       }),
     )
@@ -139,8 +139,8 @@ describe('twoRayDistanceM', () => {
     const low = { freqHz: 100e6, txHeightM: 0.5, rxHeightM: 0.5 }
     fc.assert(
       fc.property(fc.double({ min: 0.1, max: 1e5, noNaN: true }), (distanceM) => {
-        const { lossDb } = twoRayLossDb({ ...low, distanceM })
-        expect(Math.abs(twoRayDistanceM({ ...low, lossDb }).distanceM - distanceM) / distanceM).toBeLessThan(1e-6)
+        const { value: { lossDb } } = twoRayLossDb({ ...low, distanceM })
+        expect(Math.abs(twoRayDistanceM({ ...low, lossDb }).value.distanceM - distanceM) / distanceM).toBeLessThan(1e-6)
       }),
     )
   })
@@ -158,20 +158,20 @@ describe('two-ray breakpoint form (free space up to d_x, then the d⁻⁴ asympt
   for (const row of TWO_RAY_BREAKPOINT_ROWS) {
     it(`matches ${row.id} within ${row.tolerance} dB [${row.status}] (${row.source})`, () => {
       const r = twoRayLossDb({ ...row.inputs, form: 'breakpoint' })
-      expect(Math.abs(r.lossDb - row.expected)).toBeLessThanOrEqual(row.tolerance)
+      expect(Math.abs(r.value.lossDb - row.expected)).toBeLessThanOrEqual(row.tolerance)
       expect(r.method.id).toBe('two-ray-breakpoint')
     })
   }
 
   it('is continuous at the crossover d_x (free space = asymptote there, [D]) and grows with distance', () => {
     const dx = twoRayCrossoverDistanceM(GEOMETRY)
-    const below = twoRayLossDb({ ...GEOMETRY, distanceM: dx * (1 - 1e-9), form: 'breakpoint' }).lossDb
-    const above = twoRayLossDb({ ...GEOMETRY, distanceM: dx * (1 + 1e-9), form: 'breakpoint' }).lossDb
+    const below = twoRayLossDb({ ...GEOMETRY, distanceM: dx * (1 - 1e-9), form: 'breakpoint' }).value.lossDb
+    const above = twoRayLossDb({ ...GEOMETRY, distanceM: dx * (1 + 1e-9), form: 'breakpoint' }).value.lossDb
     expect(Math.abs(above - below)).toBeLessThan(1e-6)
     fc.assert(
       fc.property(fc.double({ min: 1, max: 1e6, noNaN: true }), fc.double({ min: 1.001, max: 10, noNaN: true }), (d, k) => {
-        const near = twoRayLossDb({ ...GEOMETRY, distanceM: d, form: 'breakpoint' }).lossDb
-        expect(twoRayLossDb({ ...GEOMETRY, distanceM: d * k, form: 'breakpoint' }).lossDb).toBeGreaterThan(near)
+        const near = twoRayLossDb({ ...GEOMETRY, distanceM: d, form: 'breakpoint' }).value.lossDb
+        expect(twoRayLossDb({ ...GEOMETRY, distanceM: d * k, form: 'breakpoint' }).value.lossDb).toBeGreaterThan(near)
       }),
     )
   })
@@ -179,9 +179,9 @@ describe('two-ray breakpoint form (free space up to d_x, then the d⁻⁴ asympt
   it('never reads below free space or below the asymptote (it is the larger of the two)', () => {
     fc.assert(
       fc.property(fc.double({ min: 1, max: 1e6, noNaN: true }), (distanceM) => {
-        const l = twoRayLossDb({ ...GEOMETRY, distanceM, form: 'breakpoint' }).lossDb
-        expect(l).toBeGreaterThanOrEqual(freeSpaceLossDb({ freqHz: GEOMETRY.freqHz, distanceM }).lossDb - 1e-9)
-        expect(l).toBeGreaterThanOrEqual(twoRayLossDb({ ...GEOMETRY, distanceM, form: 'asymptote' }).lossDb - 1e-9)
+        const l = twoRayLossDb({ ...GEOMETRY, distanceM, form: 'breakpoint' }).value.lossDb
+        expect(l).toBeGreaterThanOrEqual(freeSpaceLossDb({ freqHz: GEOMETRY.freqHz, distanceM }).value.lossDb - 1e-9)
+        expect(l).toBeGreaterThanOrEqual(twoRayLossDb({ ...GEOMETRY, distanceM, form: 'asymptote' }).value.lossDb - 1e-9)
       }),
     )
   })
@@ -189,9 +189,9 @@ describe('two-ray breakpoint form (free space up to d_x, then the d⁻⁴ asympt
   it('round-trips in distance within 1e-9 relative on both sides of d_x', () => {
     fc.assert(
       fc.property(fc.double({ min: 1, max: 1e6, noNaN: true }), (distanceM) => {
-        const { lossDb } = twoRayLossDb({ ...GEOMETRY, distanceM, form: 'breakpoint' })
+        const { value: { lossDb } } = twoRayLossDb({ ...GEOMETRY, distanceM, form: 'breakpoint' })
         const back = twoRayDistanceM({ ...GEOMETRY, lossDb, form: 'breakpoint' })
-        expect(Math.abs(back.distanceM - distanceM) / distanceM).toBeLessThan(1e-9)
+        expect(Math.abs(back.value.distanceM - distanceM) / distanceM).toBeLessThan(1e-9)
         expect(back.method.id).toBe('two-ray-breakpoint')
       }),
     )
@@ -204,7 +204,7 @@ describe('two-ray breakpoint form (free space up to d_x, then the d⁻⁴ asympt
     const model = createPropagationModel({ kind: 'two-ray', ...GEOMETRY, form: 'breakpoint' })
     expect(model.method.id).toBe('two-ray-breakpoint')
     expect(model.slopeDbPerDecade(dx * 2)).toBe(40)
-    expect(Math.abs(model.lossDb(5000).lossDb - 114.89)).toBeLessThanOrEqual(0.01) // flat-earth two-ray asymptote (Rappaport eq. 4.52), register 5-2 [D]
+    expect(Math.abs(model.lossDb(5000).value.lossDb - 114.89)).toBeLessThanOrEqual(0.01) // flat-earth two-ray asymptote (Rappaport eq. 4.52), register 5-2 [D]
   })
 
   it('warns inside the critical distance d_c, where the real two-ray loss swings around this trend', () => {
