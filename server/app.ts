@@ -26,6 +26,8 @@ import { regionRoutes } from './modules/regions/regions.routes'
 import { mailboxRoutes } from './modules/dev/mailbox.routes'
 import { casesRoutes } from './modules/cases/cases.routes'
 import { publicCaseRoutes } from './modules/cases/public.routes'
+import { bandLimitsRoutes } from './modules/band-limits/band-limits.routes'
+import { calculationsRoutes } from './modules/calculations/calculations.routes'
 
 export interface AppDeps {
   pool: pg.Pool
@@ -126,6 +128,8 @@ export function createApp(deps: AppDeps): AppHandle {
   api.use(regionRoutes(ctx))
   api.use(publicCaseRoutes(ctx))
   api.use(casesRoutes(ctx))
+  api.use(bandLimitsRoutes(ctx))
+  api.use(calculationsRoutes(ctx))
   api.use(mailboxRoutes({ dir: deps.mailboxDir, listenHost: deps.listenHost, nodeEnv: deps.nodeEnv ?? process.env.NODE_ENV, trustProxy: deps.trustProxy }))
   api.use(apiNotFound)
   app.use('/api', api)

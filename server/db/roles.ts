@@ -6,7 +6,8 @@
  */
 import pg from 'pg'
 import PgBoss from 'pg-boss'
-import { runMigrations } from './client'
+import { createDb, createPool, runMigrations } from './client'
+import { seedBandLimits } from '../modules/band-limits/band-limits.seed'
 import { log } from '../log/logger'
 
 export const APP_GROUP_ROLE = 'quietband_app'
@@ -17,11 +18,24 @@ const JOB_QUEUE_GRANT_LOCK_KEY = 5_172_032
 
 /**
  * Brings the database up to date as its owner: migrations, then the job queue's own schema
- * (pg-boss creates or migrates it), then the application's rights on that schema.
+ * (pg-boss creates or migrates it), then the application's rights on that schema, then the
+ * reference data every installation starts with (the band-limit list, added where missing).
  */
 export async function prepareDatabase(migrationUrl: string): Promise<void> {
   await runMigrations(migrationUrl)
   await prepareJobQueue(migrationUrl)
+  await seedReferenceData(migrationUrl)
+}
+
+/** The band limits of the radio library that the list does not hold yet (none after the first start). */
+export async function seedReferenceData(migrationUrl: string): Promise<void> {
+  const pool = createPool(migrationUrl, 1)
+  try {
+    const added = await seedBandLimits(createDb(pool))
+    if (added > 0) log().info(`band-limit list: ${added} entries added from the radio library`)
+  } finally {
+    await pool.end()
+  }
 }
 
 export async function prepareJobQueue(migrationUrl: string): Promise<void> {

@@ -27,5 +27,7 @@ export function accountAbilities(actor: Actor): AccountAbilities {
     readCases: !('none' in scope),
     manageUsers: can(actor, 'user.list'),
     manageOffices: 'all' in scope && can(actor, 'office.configure'),
+    readBandLimits: can(actor, 'bandLimit.read'),
+    manageBandLimits: can(actor, 'bandLimit.edit'),
   }
 }

@@ -26,6 +26,8 @@ export type Action =
   | 'user.list'
   | 'user.create'
   | 'user.update'
+  | 'bandLimit.read'
+  | 'bandLimit.edit'
 
 const STAFF: Role[] = ['investigator', 'supervisor']
 
@@ -38,6 +40,9 @@ const rules: Record<Action, (actor: Actor, resource?: OfficeScoped) => boolean> 
   'user.list': (a) => a.role === 'admin',
   'user.create': (a) => a.role === 'admin',
   'user.update': (a) => a.role === 'admin',
+  // the band-limit list is national: every office's staff read it, supervisors and administrators edit it
+  'bandLimit.read': (a) => a.role === 'admin' || STAFF.includes(a.role),
+  'bandLimit.edit': (a) => a.role === 'admin' || a.role === 'supervisor',
 }
 
 function sameOffice(actor: Actor, resource?: OfficeScoped): boolean {

@@ -78,6 +78,10 @@ export const accountAbilitiesSchema = z.object({
   manageUsers: z.boolean(),
   /** Sets every office's response targets. */
   manageOffices: z.boolean(),
+  /** Reads the national band-limit list and its history. */
+  readBandLimits: z.boolean(),
+  /** Edits band limits (with a reason; every change is kept). */
+  manageBandLimits: z.boolean(),
 })
 export type AccountAbilities = z.infer<typeof accountAbilitiesSchema>
 export type AccountAbility = keyof AccountAbilities
@@ -91,6 +95,8 @@ export const NO_ACCOUNT_ABILITIES: AccountAbilities = {
   readCases: false,
   manageUsers: false,
   manageOffices: false,
+  readBandLimits: false,
+  manageBandLimits: false,
 }
 
 /** A signed-in session: the user and what the account may do (sign-in, confirmation, password, /api/me). */

@@ -8,6 +8,8 @@ import { z } from 'zod'
 import { CASE_MOVES, CASE_STATES, COMPLAINANT_STEPS, RESOLUTIONS, TIMELINE_VISIBILITIES, type CaseMoveName } from '../domain/case-lifecycle'
 import { ROLES } from '../domain/roles'
 import { AFFECTED_SERVICES, EXPERIENCES, OCCURRENCE_PATTERNS, PRIORITIES } from '../domain/services'
+import { CALCULATION_KINDS } from '../calculations/kinds'
+import type { LimitSpec } from '../radio/compliance/limit-spec'
 
 /** An instant as JSON carries it: ISO 8601 in UTC (`2026-03-01T09:30:00.000Z`). */
 const instant = z.iso.datetime()
@@ -256,6 +258,62 @@ export const mailboxMessageSchema = z.object({
 })
 export type MailboxMessage = z.infer<typeof mailboxMessageSchema>
 
+const conductedGainRuleViewSchema = z.discriminatedUnion('kind', [
+  z.object({ kind: z.literal('no-reduction'), citation: z.string().optional() }),
+  z.object({ kind: z.literal('reduce-conducted-above'), thresholdGainDbi: z.number(), reductionDbPerDb: z.number(), citation: z.string().optional() }),
+])
+const eirpGainRuleViewSchema = z.object({ kind: z.literal('reduce-eirp-below'), thresholdGainDbi: z.number(), reductionDbPerDb: z.number(), citation: z.string().optional() })
+
+/** A limit as written (the radio library's LimitSpec): powers and densities in dBm, bandwidths in Hz. */
+export const limitSpecViewSchema: z.ZodType<LimitSpec> = z.lazy(() =>
+  z.discriminatedUnion('kind', [
+    z.object({ kind: z.literal('eirp'), eirpDbm: z.number(), gainRule: eirpGainRuleViewSchema.optional() }),
+    z.object({ kind: z.literal('erp'), erpDbm: z.number() }),
+    z.object({ kind: z.literal('eirp-density'), eirpDensityDbm: z.number(), referenceBandwidthHz: z.number() }),
+    z.object({ kind: z.literal('conducted'), conductedPowerDbm: z.number(), gainRule: conductedGainRuleViewSchema }),
+    z.object({ kind: z.literal('conducted-density'), conductedDensityDbm: z.number(), referenceBandwidthHz: z.number(), gainRule: conductedGainRuleViewSchema }),
+    z.object({ kind: z.literal('lesser-of'), limits: z.array(limitSpecViewSchema) }),
+  ]),
+)
+
+/** What a band-limit entry says (the fields an edit may change). */
+export const bandLimitContentViewSchema = z.object({
+  title: z.string(),
+  bandsHz: z.array(z.object({ lowHz: z.number(), highHz: z.number() })),
+  spec: limitSpecViewSchema,
+  citation: z.string(),
+  /** False: recalled, not checked against the regulation's text. */
+  verified: z.boolean(),
+  statusNote: z.string(),
+  conditions: z.string().nullable(),
+})
+
+/** An entry of the national band-limit list. */
+export const bandLimitViewSchema = bandLimitContentViewSchema.extend({
+  id,
+  /** The radio library's stable id of the entry, cited by findings. */
+  key: z.string(),
+  /** Sent back with an edit; the server refuses a stale one (409 stale_version). */
+  version: z.number().int().min(1),
+  updatedAt: instant,
+  /** The name of whoever changed it last; null while it is as seeded. */
+  updatedBy: z.string().nullable(),
+})
+export type BandLimitView = z.infer<typeof bandLimitViewSchema>
+
+/** One edit of a band limit: who, when, why, and the changed fields before and after. */
+export const bandLimitChangeViewSchema = z.object({
+  id: z.number().int(),
+  at: instant,
+  by: z.string(),
+  reason: z.string(),
+  /** The entry's version this change made. */
+  version: z.number().int().min(2),
+  before: bandLimitContentViewSchema.partial(),
+  after: bandLimitContentViewSchema.partial(),
+})
+export type BandLimitChangeView = z.infer<typeof bandLimitChangeViewSchema>
+
 /** The bodies of the API's answers, by route (each wraps the shapes above in one named field). */
 export const caseResponseSchema = z.object({ case: caseDetailSchema })
 export const mergeCandidatesResponseSchema = z.object({ candidates: z.array(mergeCandidateSchema) })
@@ -270,3 +328,58 @@ export const userResponseSchema = z.object({ user: userRowSchema })
 export const staffListResponseSchema = z.object({ staff: z.array(userRowSchema) })
 export const staffMemberResponseSchema = z.object({ staff: userRowSchema })
 export const mailboxResponseSchema = z.object({ messages: z.array(mailboxMessageSchema) })
+export const bandLimitsResponseSchema = z.object({ bandLimits: z.array(bandLimitViewSchema) })
+export const bandLimitResponseSchema = z.object({ bandLimit: bandLimitViewSchema })
+export const bandLimitHistoryResponseSchema = z.object({ changes: z.array(bandLimitChangeViewSchema) })
+
+/** A calculation record of a case (shared/calculations): inputs as read, the server's outputs, and what it rests on. */
+const jsonValue = z.json()
+const methodRefSchema = z.object({ id: z.string(), source: z.string() })
+export const calculationViewSchema = z.object({
+  id,
+  caseId: id,
+  kind: z.enum(CALCULATION_KINDS),
+  kindLabel: z.string(),
+  /** As read: numbers in the base unit named in their key (freqHz, distanceM, eirpDbm). */
+  inputs: z.record(z.string(), jsonValue),
+  outputs: z.object({
+    value: jsonValue,
+    interval: z.object({ quantity: z.string(), low: z.number(), high: z.number(), basis: z.string() }).optional(),
+  }),
+  warnings: z.array(z.string()),
+  methods: z.array(methodRefSchema),
+  libraryVersion: z.string(),
+  author: z.object({ id, name: z.string() }),
+  at: instant,
+  /** Copies of the references used (a band-limit entry, …), as they were when the record was made. */
+  references: z.record(z.string(), jsonValue),
+  measurementIds: z.array(z.string()),
+  evidenceIds: z.array(z.string()),
+})
+export type CalculationView = z.infer<typeof calculationViewSchema>
+
+/** A record recomputed with the current library: every output value, stored beside now. */
+export const recomputeViewSchema = z.object({
+  calculationId: id,
+  kind: z.enum(CALCULATION_KINDS),
+  storedLibraryVersion: z.string(),
+  currentLibraryVersion: z.string(),
+  sameLibraryVersion: z.boolean(),
+  /** Relative tolerance under the same library version (1e-9). */
+  tolerance: z.number(),
+  differences: z.array(
+    z.object({ path: z.string(), stored: jsonValue.optional(), now: jsonValue.optional(), relativeDifference: z.number().nullable(), differs: z.boolean() }),
+  ),
+  largestRelativeDifference: z.number(),
+  /** Any value beyond the tolerance, or changed. */
+  differs: z.boolean(),
+  warningsNow: z.array(z.string()),
+  methodsNow: z.array(methodRefSchema),
+  /** When the record cannot be run again at all (its inputs no longer read), why. */
+  refused: z.string().nullable(),
+})
+export type RecomputeView = z.infer<typeof recomputeViewSchema>
+
+export const calculationResponseSchema = z.object({ calculation: calculationViewSchema })
+export const calculationsResponseSchema = z.object({ calculations: z.array(calculationViewSchema) })
+export const recomputeResponseSchema = z.object({ recompute: recomputeViewSchema })

@@ -10,7 +10,7 @@ import request from 'supertest'
 import { createTestContext, uniqueAddress, type TestContext } from '../support/harness'
 import { listRoutes } from '../support/routes'
 import { caseVersion, fileReport, validReport } from '../support/cases'
-import { makeOffice, makeUser, reportNear, signIn, type TestUser } from '../support/factories'
+import { makeBandLimit, makeOffice, makeUser, reportNear, signIn, type TestUser } from '../support/factories'
 import type { Office } from '../../server/db/schema'
 
 type Who = 'anonymous' | 'complainant' | 'investigator' | 'supervisor' | 'admin'
@@ -176,6 +176,35 @@ function complainantRow(route: string, body: Record<string, unknown>): FuzzRow {
   }
 }
 
+/** Storing a calculation on a case being worked (a new case whenever one was stored). */
+function calculationRow(): FuzzRow {
+  let caseId: string | undefined
+  return {
+    route: 'POST /api/cases/:id/calculations',
+    async path(renew) {
+      if (!caseId || renew) caseId = await caseIn('assigned')
+      return `/api/cases/${caseId}/calculations`
+    },
+    base: async () => ({
+      kind: 'eirp_single_point',
+      inputs: { measurement: { kind: 'field-strength', fieldStrengthDbuvPerM: '74.77 dBµV/m', freqHz: '100 MHz' }, distanceM: '1 km', model: { kind: 'free-space', freqHz: '100 MHz' } },
+    }),
+  }
+}
+
+/** Editing a band-limit entry of this file's own (a fresh entry, at version 1, after each edit). */
+function bandLimitRow(): FuzzRow {
+  let id: string | undefined
+  return {
+    route: 'PATCH /api/band-limits/:id',
+    async path(renew) {
+      if (!id || renew) id = (await makeBandLimit(t)).id
+      return `/api/band-limits/${id}`
+    },
+    base: async () => ({ changes: { citation: 'Fuzzed citation, clause 2' }, reason: 'Fuzzing the edit', version: 1 }),
+  }
+}
+
 const fixed = (route: string, path: () => string, body: () => Record<string, unknown>): FuzzRow => ({
   route,
   path: async () => path(),
@@ -198,6 +227,8 @@ const FUZZ: FuzzRow[] = [
   complainantRow('POST /api/track/:token/withdraw', { reason: 'It stopped.' }),
   complainantRow('POST /api/my/reports/:id/information', { body: 'Also in the mornings.' }),
   complainantRow('POST /api/my/reports/:id/withdraw', { reason: 'It stopped.' }),
+  calculationRow(),
+  bandLimitRow(),
   caseRow('notes', 'received', () => ({ body: 'Checked the register.', visibility: 'internal', requestsInformation: false })),
   caseRow('triage', 'received', () => ({ priority: 2, note: 'Looks like an outage.' })),
   caseRow('assign', 'received', () => ({ investigatorId: ids.investigatorId })),
@@ -281,6 +312,11 @@ describe('odd ids in paths', () => {
     'GET /api/track/:token',
     'POST /api/track/:token/information',
     'POST /api/track/:token/withdraw',
+    'POST /api/cases/:id/calculations',
+    'GET /api/cases/:id/calculations',
+    'GET /api/calculations/:id/recompute',
+    'PATCH /api/band-limits/:id',
+    'GET /api/band-limits/:id/history',
   ]
 
   it('answer 400 or 404 with the one error body, never 500, to anyone', async () => {

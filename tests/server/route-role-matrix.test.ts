@@ -91,6 +91,25 @@ const MATRIX: Row[] = [
   { route: 'POST /api/cases/:id/return-finding', path: (ids) => `/api/cases/${ids.ownCaseId}/return-finding`, body: { version: 1, reason: 'More work' }, expect: [401, 403, 403, 409, 403] },
   { route: 'POST /api/cases/:id/close', path: (ids) => `/api/cases/${ids.ownCaseId}/close`, body: { version: 1, resolution: 'source_corrected', reason: 'Fixed' }, expect: [401, 403, 403, 409, 403] },
   { route: 'POST /api/cases/:id/reopen', path: (ids) => `/api/cases/${ids.ownCaseId}/reopen`, body: { version: 1, reason: 'Back again' }, expect: [401, 403, 403, 409, 403] },
+  // calculation records: staff of the case's office read them (another office's case 404, the administrator 403);
+  // the assigned investigator or the office's supervisor store them while the case is worked (the own new report: 409)
+  {
+    route: 'POST /api/cases/:id/calculations',
+    path: (ids) => `/api/cases/${ids.ownCaseId}/calculations`,
+    body: { kind: 'compliance_verdict', inputs: { eirpDbm: '23 dBm', limit: { source: 'band-limit', bandLimitId: 'en300328-2g4-eirp' } } },
+    expect: [401, 403, 403, 409, 403],
+  },
+  { route: 'GET /api/cases/:id/calculations', path: (ids) => `/api/cases/${ids.otherCaseId}/calculations`, expect: [401, 403, 404, 404, 200] },
+  { route: 'GET /api/calculations/:id/recompute', path: () => '/api/calculations/00000000-0000-4000-8000-000000000000/recompute', expect: [401, 403, 404, 404, 404] },
+  // the national band-limit list: staff read it; supervisors and administrators edit (an entry that does not exist: 404)
+  { route: 'GET /api/band-limits', expect: [401, 403, 200, 200, 200] },
+  {
+    route: 'PATCH /api/band-limits/:id',
+    path: () => '/api/band-limits/00000000-0000-4000-8000-000000000000',
+    body: { changes: { citation: 'Matrix' }, reason: 'Matrix check', version: 1 },
+    expect: [401, 403, 403, 404, 404],
+  },
+  { route: 'GET /api/band-limits/:id/history', path: () => '/api/band-limits/00000000-0000-4000-8000-000000000000/history', expect: [401, 403, 404, 404, 404] },
 ]
 
 let t: TestContext

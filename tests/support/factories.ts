@@ -18,7 +18,10 @@ import { CASE_MOVES, type CaseMoveName, type CaseState } from '../../shared/doma
 import type { Priority } from '../../shared/domain/services'
 import type { Role } from '../../shared/domain/roles'
 import type { ReportInput } from '../../shared/schemas/cases'
-import { offices, type Office } from '../../server/db/schema'
+import { eq } from 'drizzle-orm'
+import { bandLimits, offices, type BandLimitRow, type Office } from '../../server/db/schema'
+import type { BandLimitEntry } from '../../shared/radio/compliance/band-limits'
+import { seedBandLimits } from '../../server/modules/band-limits/band-limits.seed'
 import type { Actor } from '../../server/policy/policy'
 import { createStaffUser } from '../../server/modules/users/users.service'
 import { confirmEmailWithToken, registerComplainant, setPasswordWithToken } from '../../server/modules/auth/auth.service'
@@ -209,4 +212,25 @@ export async function makeCase(
     }
   }
   return { ...filed, state, version, office: opts.office, supervisor, investigator }
+}
+
+/**
+ * A band limit of the test's own (a key no other test uses), added to the national list the
+ * way the library's entries are (the start-time seed), so edits never touch a seeded entry.
+ */
+export async function makeBandLimit(t: TestContext, over: Partial<BandLimitEntry> = {}): Promise<BandLimitRow> {
+  const key = uniqueWord('band-limit')
+  const entry: BandLimitEntry = {
+    id: key,
+    title: `Test limit ${key}`,
+    bandsHz: [{ lowHz: 433.05e6, highHz: 434.79e6 }],
+    spec: { kind: 'erp', erpDbm: 10 },
+    citation: 'Test citation, clause 1',
+    status: '[M]',
+    statusNote: 'Made by a test.',
+    ...over,
+  }
+  expect(await seedBandLimits(t.services.db, [entry])).toBe(1)
+  const [row] = await t.services.db.select().from(bandLimits).where(eq(bandLimits.key, entry.id))
+  return row!
 }

@@ -55,6 +55,10 @@ export const routes: RouteObject[] = [
             children: [{ path: paths.adminOffices.path, lazy: () => import('./routes/admin-offices') }],
           },
           {
+            element: <RequireAbility anyOf={['readBandLimits']} />,
+            children: [{ path: paths.bandLimits.path, lazy: () => import('./routes/band-limits') }],
+          },
+          {
             element: <RequireAbility anyOf={['followOwnReports']} />,
             children: [
               { path: paths.myReports.path, lazy: () => import('./routes/my-reports') },

@@ -37,6 +37,8 @@ export const paths = {
   admin: page('/admin'),
   adminUsers: page('/admin/users'),
   adminOffices: page('/admin/offices'),
+  /** The national band-limit list (staff read it; supervisors and administrators edit it). */
+  bandLimits: page('/registers/band-limits'),
   myReports: page('/my-reports'),
   myReport: { path: '/my-reports/:id', href: (reportId: string) => `/my-reports/${encodeURIComponent(reportId)}` },
 } as const

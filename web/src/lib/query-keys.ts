@@ -54,3 +54,10 @@ export const regionKeys = {
 export const mailboxKeys = {
   all: ['dev', 'mailbox'] as const,
 }
+
+/** The national band-limit list, and each entry's history of changes. */
+export const bandLimitKeys = {
+  all: ['band-limits'] as const,
+  list: () => [...bandLimitKeys.all, 'list'] as const,
+  history: (bandLimitId: string) => [...bandLimitKeys.all, 'history', bandLimitId] as const,
+}

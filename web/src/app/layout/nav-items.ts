@@ -28,5 +28,6 @@ export function navItemsFor(abilities: AccountAbilities | null): NavItem[] {
   if (abilities.manageOffices) items.push({ label: 'Offices', to: paths.adminOffices.href() })
   // an investigator reaches the full list from My cases; the main links stay their own work
   if (abilities.readCases && !abilities.workAssignedCases) items.push({ label: 'Cases', to: paths.cases.href() })
+  if (abilities.readBandLimits) items.push({ label: 'Band limits', to: paths.bandLimits.href() })
   return items
 }

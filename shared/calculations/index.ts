@@ -1,0 +1,3 @@
+/** Calculations a case keeps as records: the kinds, their strict inputs, and stored-against-recomputed comparison. */
+export * from './kinds'
+export * from './compare'
