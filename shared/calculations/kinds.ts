@@ -146,17 +146,45 @@ export const complianceVerdictInputSchema = z.strictObject({
 export type ComplianceVerdictInputs = z.infer<typeof complianceVerdictInputSchema>
 
 /** The copy of the limit a compliance record keeps: later edits of the reference never change it. */
+/** A band-limit entry as the office's register holds it now (what a record copies). */
+export interface BandLimitReference {
+  key: string
+  title: string
+  spec: LimitSpec
+  citation: string
+  verified: boolean
+  statusNote: string
+  /** The register row's version when copied (absent for the library's own list). */
+  version?: number
+}
+
+/** Where a calculation finds the references its inputs name; the server reads the registers. */
+export interface ReferenceLookup {
+  bandLimit(key: string): BandLimitReference | undefined
+}
+
+/** The library's own list, for pure use without a database (tests, the quick calculator). */
+export const LIBRARY_REFERENCES: ReferenceLookup = {
+  bandLimit(key) {
+    const e = BAND_LIMITS.find((b) => b.id === key)
+    return e && { key: e.id, title: e.title, spec: e.spec, citation: e.citation, verified: !e.status.includes('[M]'), statusNote: e.statusNote }
+  },
+}
+
 export interface LimitCopy extends CitedLimit {
   /** Where it came from: the band-limit reference (with the entry's id and title) or stated by the investigator. */
   from: 'band-limit-reference' | 'stated'
   entryId?: string
   title?: string
   statusNote?: string
+  /** The register row's version that was copied. */
+  entryVersion?: number
 }
 
 const limitCopySchema = z.object({
   from: z.enum(['band-limit-reference', 'stated']),
   entryId: z.string().optional(),
+  entryVersion: z.number().optional(),
   title: z.string().optional(),
   statusNote: z.string().optional(),
   spec: limitSpecSchema,
@@ -164,14 +192,26 @@ const limitCopySchema = z.object({
   status: z.string().optional(),
 })
 
-function complianceReferences(inputs: ComplianceVerdictInputs): { limit: LimitCopy } {
+function complianceReferences(inputs: ComplianceVerdictInputs, lookup: ReferenceLookup): { limit: LimitCopy } {
   if (inputs.limit.source === 'stated') {
     return { limit: { from: 'stated', spec: inputs.limit.spec, citation: inputs.limit.citation, ...(inputs.limit.status ? { status: inputs.limit.status } : {}) } }
   }
   const id = inputs.limit.bandLimitId
-  const entry = BAND_LIMITS.find((e) => e.id === id)
+  const entry = lookup.bandLimit(id)
   if (!entry) throw new CalculationRefused(`There is no band-limit entry "${id}".`)
-  return { limit: { from: 'band-limit-reference', entryId: entry.id, title: entry.title, statusNote: entry.statusNote, spec: entry.spec, citation: entry.citation, status: entry.status } }
+  return {
+    limit: {
+      from: 'band-limit-reference',
+      entryId: entry.key,
+      ...(entry.version !== undefined ? { entryVersion: entry.version } : {}),
+      title: entry.title,
+      statusNote: entry.statusNote,
+      spec: entry.spec,
+      citation: entry.citation,
+      // an unverified value carries the library's [M] mark, so the verdict warns about it
+      status: entry.verified ? 'verified' : '[M] not verified',
+    },
+  }
 }
 
 function runComplianceVerdict(inputs: ComplianceVerdictInputs, references: Record<string, unknown>): CalculationRun {
@@ -203,7 +243,7 @@ export interface CalculationKindDef<S extends z.ZodType = z.ZodType> {
   label: string
   inputSchema: S
   /** Copies of every reference the inputs name, taken when the record is stored. */
-  references(inputs: z.infer<S>): Record<string, Json>
+  references(inputs: z.infer<S>, lookup: ReferenceLookup): Record<string, Json>
   run(inputs: z.infer<S>, references: Record<string, unknown>): CalculationRun
 }
 
@@ -221,7 +261,7 @@ export const CALCULATION_KIND_DEFS = {
     kind: 'compliance_verdict',
     label: CALCULATION_KIND_LABELS.compliance_verdict,
     inputSchema: complianceVerdictInputSchema,
-    references: (inputs) => toJson(complianceReferences(inputs)) as Record<string, Json>,
+    references: (inputs, lookup) => toJson(complianceReferences(inputs, lookup)) as Record<string, Json>,
     run: (inputs, references) => runComplianceVerdict(inputs, references),
   }),
 } as const satisfies Record<CalculationKind, CalculationKindDef<z.ZodType>>
@@ -237,14 +277,14 @@ export const newCalculationSchema = z.discriminatedUnion('kind', [
 export type NewCalculation = z.infer<typeof newCalculationSchema>
 
 /** Takes the reference copies and runs a calculation of its kind (inputs already parsed). */
-export function runNewCalculation(c: NewCalculation): { references: Record<string, Json>; run: CalculationRun } {
+export function runNewCalculation(c: NewCalculation, lookup: ReferenceLookup = LIBRARY_REFERENCES): { references: Record<string, Json>; run: CalculationRun } {
   switch (c.kind) {
     case 'eirp_single_point': {
-      const references = CALCULATION_KIND_DEFS.eirp_single_point.references(c.inputs)
+      const references = CALCULATION_KIND_DEFS.eirp_single_point.references(c.inputs, lookup)
       return { references, run: CALCULATION_KIND_DEFS.eirp_single_point.run(c.inputs, references) }
     }
     case 'compliance_verdict': {
-      const references = CALCULATION_KIND_DEFS.compliance_verdict.references(c.inputs)
+      const references = CALCULATION_KIND_DEFS.compliance_verdict.references(c.inputs, lookup)
       return { references, run: CALCULATION_KIND_DEFS.compliance_verdict.run(c.inputs, references) }
     }
   }

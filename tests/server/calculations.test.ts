@@ -15,7 +15,7 @@ import { assessCompliance, BAND_LIMITS, createPropagationModel, eirpFromMeasurem
 import { calculationResponseSchema, calculationsResponseSchema, recomputeResponseSchema } from '../../shared/schemas/views'
 import { FREE_SPACE_FIELD_ROWS } from '../fixtures/radio/propagation-free-space'
 import { createTestContext, type TestContext } from '../support/harness'
-import { makeCase, makeOffice, makeUser, signIn, type Agent, type TestCase, type TestUser } from '../support/factories'
+import { makeBandLimit, makeCase, makeOffice, makeUser, signIn, type Agent, type TestCase, type TestUser } from '../support/factories'
 
 const appUrl = inject('databaseUrl')
 const ownerUrl = inject('migrationDatabaseUrl')
@@ -131,9 +131,27 @@ describe('storing a calculation', () => {
       statusNote: entry.statusNote,
       spec: entry.spec,
       citation: entry.citation,
-      status: entry.status,
+      status: 'verified',
+      entryVersion: 1,
     })
     expect(calculation.methods.map((m) => m.id)).toEqual(['eirp-limit-verdict', 'applied-limit-eirp'])
+  })
+
+  it('judges against the register as the office keeps it, and keeps its copy when the register changes later', async () => {
+    const own = await makeBandLimit(t, { spec: { kind: 'erp', erpDbm: 10 }, status: '[M]' })
+    const editor = await signIn(t, await makeUser(t, { role: 'admin' }))
+    await editor.patch(`/api/band-limits/${own.id}`).send({ changes: { spec: { kind: 'erp', erpDbm: '14 dBm' }, verified: true }, reason: 'Checked against the national table', version: 1 }).expect(200)
+    const inputs = { eirpDbm: '17 dBm', limit: { source: 'band-limit', bandLimitId: own.key } }
+    const res = await store(supervisor, worked.id, { kind: 'compliance_verdict', inputs }).expect(201)
+    const { calculation } = calculationResponseSchema.parse(res.body)
+    // ERP 14 dBm is EIRP 16.15 dBm (ERP + 2.15 dB, ITU Radio Regulations Nos. 1.161–1.162 — register 3-1): 17 dBm exceeds it by 0.85 dB
+    expect(calculation.references.limit).toMatchObject({ entryId: own.key, entryVersion: 2, spec: { kind: 'erp', erpDbm: 14 }, status: 'verified' })
+    expect(calculation.outputs.value).toMatchObject({ verdict: 'exceeds', appliedLimitEirpDbm: expect.closeTo(16.15, 2), marginDb: expect.closeTo(0.85, 2) })
+    await editor.patch(`/api/band-limits/${own.id}`).send({ changes: { spec: { kind: 'erp', erpDbm: '20 dBm' } }, reason: 'A later revision', version: 2 }).expect(200)
+    const again = await investigator.get(`/api/calculations/${calculation.id}/recompute`).expect(200)
+    expect(JSON.stringify(again.body)).not.toContain('"erpDbm":20')
+    const listed = calculationsResponseSchema.parse((await supervisor.get(`/api/cases/${worked.id}/calculations`).expect(200)).body)
+    expect(listed.calculations.find((c) => c.id === calculation.id)!.references.limit).toMatchObject({ entryVersion: 2, spec: { kind: 'erp', erpDbm: 14 } })
   })
 
   it('judges a stated limit as inconclusive when the interval straddles it, and keeps the stated limit as its reference', async () => {

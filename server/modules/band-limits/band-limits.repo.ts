@@ -22,6 +22,12 @@ export async function findBandLimit(db: Db, id: string): Promise<BandLimitWithEd
   return r && { ...r.row, updatedByName: r.updatedByName }
 }
 
+/** The register's entry with this library key (the key findings cite), as it is now. */
+export async function findBandLimitByKey(db: Db, key: string): Promise<BandLimitRow | undefined> {
+  const [r] = await db.select().from(bandLimits).where(eq(bandLimits.key, key))
+  return r
+}
+
 /** Applies changes when the row is still at `version`; undefined when it has moved on (or is gone). */
 export async function updateBandLimitIfVersion(db: Db, id: string, version: number, changes: Partial<BandLimitContent>, byUserId: string): Promise<BandLimitRow | undefined> {
   const [row] = await db

@@ -3,7 +3,7 @@
  * calculation itself from the inputs (shared/calculations → shared/radio); the author is the
  * session's user and the time is the database's.
  */
-import { CalculationRefused, runNewCalculation, type NewCalculation } from '../../../shared/calculations/kinds'
+import { CalculationRefused, runNewCalculation, type BandLimitReference, type NewCalculation, type ReferenceLookup } from '../../../shared/calculations/kinds'
 import { RADIO_LIBRARY_VERSION } from '../../../shared/radio'
 import type { CalculationView, RecomputeView } from '../../../shared/schemas/views'
 import type { ServiceContext } from '../../context'
@@ -14,11 +14,26 @@ import type { Actor } from '../../policy/policy'
 import { loadVisibleCase } from '../cases/case-access'
 import { appendEvent } from '../cases/cases.repo'
 import { findUserById } from '../users/users.repo'
+import { findBandLimitByKey } from '../band-limits/band-limits.repo'
+import type { Db } from '../../db/client'
 import { calculationsOfCase, findCalculation, insertCalculation } from './calculations.repo'
 import { presentCalculation } from './calculations.present'
 import { recomputeStored } from './recompute'
 
 export const calculationNotFound = () => notFound('calculation_not_found', 'No such calculation in your office.')
+
+/**
+ * The references a calculation names, read from the office's registers as they are now (the
+ * record keeps a copy, so later edits of a register never change it).
+ */
+async function registerReferences(db: Db, input: NewCalculation): Promise<ReferenceLookup> {
+  let bandLimit: BandLimitReference | undefined
+  if (input.kind === 'compliance_verdict' && input.inputs.limit.source === 'band-limit') {
+    const row = await findBandLimitByKey(db, input.inputs.limit.bandLimitId)
+    bandLimit = row && { key: row.key, title: row.title, spec: row.spec, citation: row.citation, verified: row.verified, statusNote: row.statusNote, version: row.version }
+  }
+  return { bandLimit: (key) => (bandLimit?.key === key ? bandLimit : undefined) }
+}
 
 /** Runs a calculation on the case and stores it as a record, with an internal timeline event. */
 export async function storeCalculation(ctx: ServiceContext, actor: Actor, caseId: string, input: NewCalculation): Promise<CalculationView> {
@@ -28,7 +43,7 @@ export async function storeCalculation(ctx: ServiceContext, actor: Actor, caseId
     if (!calculationAllowedIn(c.status)) throw conflict('invalid_state', 'Calculations are stored while the case is being worked (assigned, in field work or sent back).')
     let result
     try {
-      result = runNewCalculation(input)
+      result = runNewCalculation(input, await registerReferences(db, input))
     } catch (e) {
       if (e instanceof CalculationRefused) throw badRequest('calculation_refused', e.message)
       throw e
