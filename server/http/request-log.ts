@@ -35,7 +35,11 @@ export function loggablePath(url: string): string {
   return out
 }
 
-type Req = IncomingMessage & Partial<Pick<Request, 'originalUrl' | 'user' | 'id'>>
+type Req = IncomingMessage & Partial<Pick<Request, 'originalUrl' | 'user' | 'id'>> & { [LOGGED_PATH]?: string }
+
+const LOGGED_PATH = Symbol('loggedPath')
+/** The request's loggable path, worked out once (the line's fields and its message both use it). */
+const pathOf = (req: Req): string => (req[LOGGED_PATH] ??= loggablePath(req.originalUrl ?? req.url ?? ''))
 
 export function requestLog(logger: Logger): RequestHandler {
   const middleware = pinoHttp<Req, ServerResponse>({
@@ -45,14 +49,14 @@ export function requestLog(logger: Logger): RequestHandler {
     wrapSerializers: false,
     customAttributeKeys: { reqId: 'requestId', responseTime: 'durationMs' },
     serializers: {
-      req: (req: Req) => ({ method: req.method, path: loggablePath(req.originalUrl ?? req.url ?? '') }),
+      req: (req: Req) => ({ method: req.method, path: pathOf(req) }),
       res: (res: ServerResponse) => ({ status: res.statusCode }),
     },
     // the user is known only after the session middleware ran, i.e. when the answer is logged
     customProps: (req) => (req.user ? { userId: req.user.id } : {}),
     customLogLevel: (_req, res, err) => (err || res.statusCode >= 500 ? 'error' : res.statusCode >= 400 ? 'warn' : 'info'),
-    customSuccessMessage: (req, res, ms) => `${req.method} ${loggablePath(req.originalUrl ?? req.url ?? '')} ${res.statusCode} ${ms} ms`,
-    customErrorMessage: (req, res) => `${req.method} ${loggablePath(req.originalUrl ?? req.url ?? '')} ${res.statusCode}`,
+    customSuccessMessage: (req, res, ms) => `${req.method} ${pathOf(req)} ${res.statusCode} ${ms} ms`,
+    customErrorMessage: (req, res) => `${req.method} ${pathOf(req)} ${res.statusCode}`,
   })
   return middleware as unknown as RequestHandler
 }

@@ -1,19 +1,16 @@
 /** /confirm-email?token=… — the link in the e-mail sent at registration. */
-import { useState } from 'react'
-import { Link, useNavigate, useSearchParams } from 'react-router-dom'
+import { Link, useNavigate } from 'react-router-dom'
 import { Notice } from '@/components/ui/notice'
 import { PageHeader } from '@/components/ui/page-header'
 import { Panel } from '@/components/ui/panel'
 import { ConfirmEmailButton } from '@/features/auth/components/confirm-email-button'
 import { landingPathFor } from '@/features/auth/lib/landing'
+import { useEmailedToken } from '@/features/auth/lib/use-emailed-token'
 import { paths } from '@/lib/paths'
 
 export function Component() {
-  const [params] = useSearchParams()
   const navigate = useNavigate()
-  const token = params.get('token') ?? ''
-  const [tokenRejected, setTokenRejected] = useState(false)
-  const usable = token.length >= 20 && !tokenRejected
+  const { token, usable, refuse } = useEmailedToken()
 
   return (
     <div className="max-w-lg">
@@ -23,7 +20,7 @@ export function Component() {
       />
       {usable ? (
         <Panel>
-          <ConfirmEmailButton token={token} onDone={(session) => navigate(landingPathFor(session.abilities), { replace: true })} onInvalidToken={() => setTokenRejected(true)} />
+          <ConfirmEmailButton token={token} onDone={(session) => navigate(landingPathFor(session.abilities), { replace: true })} onInvalidToken={refuse} />
         </Panel>
       ) : (
         <Notice tone="caution" title="This link cannot be used." live>

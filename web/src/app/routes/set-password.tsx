@@ -1,19 +1,16 @@
 /** /set-password?token=… — one page for password resets and new-staff invitations. */
-import { useState } from 'react'
-import { Link, useNavigate, useSearchParams } from 'react-router-dom'
+import { Link, useNavigate } from 'react-router-dom'
 import { PageHeader } from '@/components/ui/page-header'
 import { Notice } from '@/components/ui/notice'
 import { Panel } from '@/components/ui/panel'
 import { SetPasswordForm } from '@/features/auth/components/set-password-form'
 import { landingPathFor } from '@/features/auth/lib/landing'
+import { useEmailedToken } from '@/features/auth/lib/use-emailed-token'
 import { paths } from '@/lib/paths'
 
 export function Component() {
-  const [params] = useSearchParams()
   const navigate = useNavigate()
-  const token = params.get('token') ?? ''
-  const [tokenRejected, setTokenRejected] = useState(false)
-  const usable = token.length >= 20 && !tokenRejected
+  const { token, usable, refuse } = useEmailedToken()
 
   return (
     <div className="max-w-lg">
@@ -23,7 +20,7 @@ export function Component() {
           <SetPasswordForm
             token={token}
             onDone={(session) => navigate(landingPathFor(session.abilities), { replace: true })}
-            onInvalidToken={() => setTokenRejected(true)}
+            onInvalidToken={refuse}
           />
         </Panel>
       ) : (
