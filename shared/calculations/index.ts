@@ -1,3 +1,4 @@
 /** Calculations a case keeps as records: the kinds, their strict inputs, and stored-against-recomputed comparison. */
 export * from './kinds'
 export * from './compare'
+export * from './references'

@@ -20,6 +20,8 @@ import {
   type MethodRef,
   type PointMeasurement,
 } from '../radio'
+import type { ReferenceLookup } from './references'
+export type { BandLimitReference, ReferenceLookup } from './references'
 import { dbi, dbm, dbuvPerM, dbwPerM2, distanceM, distanceUncertainty, freqHz, plain, positiveDb, propagationModelSpec, text, uncertaintyContribution } from './inputs'
 
 export const CALCULATION_KINDS = ['eirp_single_point', 'compliance_verdict'] as const
@@ -144,24 +146,6 @@ export const complianceVerdictInputSchema = z.strictObject({
   feederLossDb: positiveDb('the feeder loss').optional(),
 })
 export type ComplianceVerdictInputs = z.infer<typeof complianceVerdictInputSchema>
-
-/** The copy of the limit a compliance record keeps: later edits of the reference never change it. */
-/** A band-limit entry as the office's register holds it now (what a record copies). */
-export interface BandLimitReference {
-  key: string
-  title: string
-  spec: LimitSpec
-  citation: string
-  verified: boolean
-  statusNote: string
-  /** The register row's version when copied (absent for the library's own list). */
-  version?: number
-}
-
-/** Where a calculation finds the references its inputs name; the server reads the registers. */
-export interface ReferenceLookup {
-  bandLimit(key: string): BandLimitReference | undefined
-}
 
 /** The library's own list, for pure use without a database (tests, the quick calculator). */
 export const LIBRARY_REFERENCES: ReferenceLookup = {
