@@ -14,7 +14,7 @@ import { isApiError } from '@/lib/api-client'
 import { formProblem, type FormProblem } from '@/lib/form-errors'
 import type { BandLimit } from '../api/get-band-limits'
 import { useReviseBandLimit } from '../api/revise-band-limit'
-import { frequencyText, limitNumberFields, specWithTexts } from '../lib/describe-limit'
+import { frequencyText, LIMIT_FIELD_HINT, limitFieldText, limitNumberFields, specWithTexts } from '../lib/describe-limit'
 
 type Texts = Record<string, string>
 
@@ -30,7 +30,7 @@ function initialTexts(b: BandLimit): Texts {
     texts[`changes.bandsHz.${i}.lowHz`] = frequencyText(band.lowHz)
     texts[`changes.bandsHz.${i}.highHz`] = frequencyText(band.highHz)
   })
-  for (const f of limitNumberFields(b.spec)) texts[`changes.spec.${f.path}`] = f.kind === 'power' ? `${f.value} dBm` : frequencyText(f.value)
+  for (const f of limitNumberFields(b.spec)) texts[`changes.spec.${f.path}`] = limitFieldText(f)
   return texts
 }
 
@@ -38,6 +38,9 @@ export function BandLimitForm({ bandLimit, onDone }: { bandLimit: BandLimit; onD
   const revise = useReviseBandLimit()
   const [texts, setTexts] = useState<Texts>(() => initialTexts(bandLimit))
   const [verified, setVerified] = useState(bandLimit.verified)
+  // the frequency ranges on screen, by a key of their own (a removed range leaves no gap)
+  const [rangeKeys, setRangeKeys] = useState<number[]>(() => bandLimit.bandsHz.map((_, i) => i))
+  const [nextRangeKey, setNextRangeKey] = useState(bandLimit.bandsHz.length)
   const [errors, setErrors] = useState<Record<string, string>>({})
   const [problem, setProblem] = useState<FormProblem | null>(null)
   const numberFields = limitNumberFields(bandLimit.spec)
@@ -53,6 +56,14 @@ export function BandLimitForm({ bandLimit, onDone }: { bandLimit: BandLimit; onD
     onChange: (e: { target: { value: string } }) => setTexts((t) => ({ ...t, [path]: e.target.value })),
   })
 
+  /** "changes.bandsHz.1.highHz" names the second range shown: its key may differ after a removal. */
+  const rangePathToKey = (path: string) => path.replace(/^changes\.bandsHz\.(\d+)/, (_, i: string) => `changes.bandsHz.${rangeKeys[Number(i)] ?? i}`)
+  const addRange = () => {
+    setRangeKeys((keys) => [...keys, nextRangeKey])
+    setNextRangeKey((k) => k + 1)
+  }
+  const removeRange = (key: number) => setRangeKeys((keys) => keys.filter((k) => k !== key))
+
   const onSubmit = async (event: FormEvent) => {
     event.preventDefault()
     setProblem(null)
@@ -66,13 +77,13 @@ export function BandLimitForm({ bandLimit, onDone }: { bandLimit: BandLimit; onD
         statusNote: texts['changes.statusNote'],
         conditions: texts['changes.conditions'],
         verified,
-        bandsHz: bandLimit.bandsHz.map((_, i) => ({ lowHz: texts[`changes.bandsHz.${i}.lowHz`], highHz: texts[`changes.bandsHz.${i}.highHz`] })),
+        bandsHz: rangeKeys.map((k) => ({ lowHz: texts[`changes.bandsHz.${k}.lowHz`], highHz: texts[`changes.bandsHz.${k}.highHz`] })),
         spec: specWithTexts(bandLimit.spec, specTexts),
       },
     }
     const parsed = bandLimitPatchSchema.safeParse(body)
     if (!parsed.success) {
-      setErrors(Object.fromEntries(parsed.error.issues.map((i) => [i.path.join('.'), i.message])))
+      setErrors(Object.fromEntries(parsed.error.issues.map((i) => [rangePathToKey(i.path.join('.')), i.message])))
       return
     }
     setErrors({})
@@ -80,7 +91,7 @@ export function BandLimitForm({ bandLimit, onDone }: { bandLimit: BandLimit; onD
       await revise.mutateAsync({ bandLimitId: bandLimit.id, patch: parsed.data })
       onDone()
     } catch (error) {
-      if (isApiError(error) && error.details.length > 0) setErrors(Object.fromEntries(error.details.map((d) => [d.path, d.message])))
+      if (isApiError(error) && error.details.length > 0) setErrors(Object.fromEntries(error.details.map((d) => [rangePathToKey(d.path), d.message])))
       setProblem(
         formProblem(error, {
           byCode: {
@@ -97,17 +108,27 @@ export function BandLimitForm({ bandLimit, onDone }: { bandLimit: BandLimit; onD
       <TextField {...field('changes.title', 'Title')} />
       <fieldset className="flex flex-col gap-3">
         <legend className="font-semibold">Frequency ranges</legend>
-        {bandLimit.bandsHz.map((_, i) => (
-          <div key={i} className="grid gap-3 sm:grid-cols-2">
-            <TextField {...field(`changes.bandsHz.${i}.lowHz`, `Range ${i + 1}: lower edge`, 'With its unit: Hz, kHz, MHz or GHz')} />
-            <TextField {...field(`changes.bandsHz.${i}.highHz`, `Range ${i + 1}: upper edge`)} />
+        {rangeKeys.map((k, i) => (
+          <div key={k} className="grid items-end gap-3 sm:grid-cols-[1fr_1fr_auto]">
+            <TextField {...field(`changes.bandsHz.${k}.lowHz`, `Range ${i + 1}: lower edge`, 'With its unit: Hz, kHz, MHz or GHz')} />
+            <TextField {...field(`changes.bandsHz.${k}.highHz`, `Range ${i + 1}: upper edge`)} />
+            {rangeKeys.length > 1 && (
+              <Button variant="secondary" onClick={() => removeRange(k)} aria-label={`Remove range ${i + 1}`}>
+                Remove
+              </Button>
+            )}
           </div>
         ))}
+        <div>
+          <Button variant="secondary" onClick={addRange}>
+            Add a frequency range
+          </Button>
+        </div>
       </fieldset>
       <fieldset className="grid gap-3 sm:grid-cols-2">
         <legend className="font-semibold">Limit</legend>
         {numberFields.map((f) => (
-          <TextField key={f.path} {...field(`changes.spec.${f.path}`, f.label, f.kind === 'power' ? 'In dBm' : 'With its unit: Hz, kHz, MHz or GHz')} />
+          <TextField key={f.path} {...field(`changes.spec.${f.path}`, f.label, LIMIT_FIELD_HINT[f.kind])} />
         ))}
       </fieldset>
       {errors['changes.spec'] && <p className="text-danger">{errors['changes.spec']}</p>}

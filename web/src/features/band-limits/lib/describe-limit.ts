@@ -52,7 +52,18 @@ export interface LimitNumberField {
   path: string
   label: string
   value: number
-  kind: 'power' | 'bandwidth'
+  kind: 'power' | 'bandwidth' | 'gain' | 'rate'
+}
+
+/** A limit's antenna-gain rule, if it has one with figures (threshold and reduction). */
+function gainRuleFields(spec: LimitSpec, prefix: string, labelPrefix: string): LimitNumberField[] {
+  const rule = 'gainRule' in spec ? spec.gainRule : undefined
+  if (!rule || rule.kind === 'no-reduction') return []
+  const side = rule.kind === 'reduce-eirp-below' ? 'below' : 'above'
+  return [
+    { path: `${prefix}gainRule.thresholdGainDbi`, label: `${labelPrefix}Antenna gain ${side} which the limit is reduced (dBi)`, value: rule.thresholdGainDbi, kind: 'gain' },
+    { path: `${prefix}gainRule.reductionDbPerDb`, label: `${labelPrefix}Reduction per dB of gain (dB/dB)`, value: rule.reductionDbPerDb, kind: 'rate' },
+  ]
 }
 
 const POWER_KEY = { eirp: 'eirpDbm', erp: 'erpDbm', 'eirp-density': 'eirpDensityDbm', conducted: 'conductedPowerDbm', 'conducted-density': 'conductedDensityDbm' } as const
@@ -65,7 +76,29 @@ export function limitNumberFields(spec: LimitSpec, prefix = '', labelPrefix = ''
   if (spec.kind === 'eirp-density' || spec.kind === 'conducted-density') {
     fields.push({ path: `${prefix}referenceBandwidthHz`, label: `${labelPrefix}Reference bandwidth`, value: spec.referenceBandwidthHz, kind: 'bandwidth' })
   }
-  return fields
+  return [...fields, ...gainRuleFields(spec, prefix, labelPrefix)]
+}
+
+/** A limit figure as the form writes it back, with its unit. */
+export function limitFieldText(f: LimitNumberField): string {
+  switch (f.kind) {
+    case 'power':
+      return `${f.value} dBm`
+    case 'bandwidth':
+      return frequencyText(f.value)
+    case 'gain':
+      return `${f.value} dBi`
+    case 'rate':
+      return `${f.value} dB/dB`
+  }
+}
+
+/** The hint beside a limit figure: the units it takes. */
+export const LIMIT_FIELD_HINT: Record<LimitNumberField['kind'], string> = {
+  power: 'In dBm',
+  bandwidth: 'With its unit: Hz, kHz, MHz or GHz',
+  gain: 'In dBi',
+  rate: 'dB of reduction per dB of gain',
 }
 
 /** The spec with the values at `paths` replaced by what the form holds (text, read by the strict parser). */

@@ -76,6 +76,9 @@ export function eventTitle(e: TimelineEventLike): string {
       return 'Information requested from the complainant'
     case 'complainant_information':
       return 'Information added by the complainant'
+    case 'calculation_stored':
+      // the event's text carries the result; the title only says what kind of entry it is
+      return 'Calculation stored'
     default:
       return e.toState ? `Now: ${CASE_STATE_LABELS[e.toState as CaseState] ?? e.toState}` : e.kind
   }
