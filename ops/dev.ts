@@ -8,6 +8,8 @@ import { createPool } from '../server/db/client'
 import { prepareDatabase } from '../server/db/roles'
 import { ensureLocalServices, loadDotEnv, LocalServiceError, ROOT } from './local/services'
 import { seedDemo } from './seed-demo'
+import { loadEnv } from '../server/config/env'
+import { objectStoreFromEnv } from '../server/storage/object-store'
 
 loadDotEnv()
 const services = await ensureLocalServices().catch((e: unknown) => {
@@ -26,7 +28,14 @@ const env: NodeJS.ProcessEnv = {
 const ownerUrl = env.MIGRATION_DATABASE_URL ?? env.DATABASE_URL!
 await prepareDatabase(ownerUrl)
 const pool = createPool(ownerUrl, 2)
-await seedDemo(pool)
+// the demo licence register goes through the object store (skipped when the configuration is incomplete: the API says why)
+let objectStore: ReturnType<typeof objectStoreFromEnv> | undefined
+try {
+  objectStore = objectStoreFromEnv(loadEnv(env))
+} catch {
+  objectStore = undefined
+}
+await seedDemo(pool, { objectStore })
 await pool.end()
 
 const children: ChildProcess[] = [

@@ -10,6 +10,7 @@ import type pg from 'pg'
 import PgBoss from 'pg-boss'
 import type { Resolution } from '../shared/domain/case-lifecycle'
 import type { Priority } from '../shared/domain/services'
+import type { RecommendedAction } from '../shared/domain/findings'
 import { reportSchema, type ReportInput } from '../shared/schemas/cases'
 import type { SessionUser } from '../shared/schemas/auth'
 import type { ServiceContext } from '../server/context'
@@ -28,7 +29,7 @@ type Step =
   | { move: 'triage'; priority: Priority; note?: string }
   | { move: 'assign'; investigator: string }
   | { move: 'startFieldWork' }
-  | { move: 'proposeFinding'; reason: string }
+  | { move: 'proposeFinding'; reason: string; source: string; action: RecommendedAction; operator?: string }
   | { move: 'returnFinding'; reason: string }
   | { move: 'close'; resolution: Resolution; reason: string }
   | { move: 'dismiss'; resolution: 'no_interference_found' | 'referred'; reason: string }
@@ -138,6 +139,9 @@ export const DEMO_CASES: readonly DemoCase[] = [
       { move: 'startFieldWork' },
       {
         move: 'proposeFinding',
+        source: 'Outdoor wireless bridge at the grain store, 600 m from link end B',
+        operator: 'Owner of the grain store',
+        action: 'advise_operator',
         reason:
           'Source found: an outdoor wireless bridge at the grain store, 600 m from link end B, set to the link’s channel at full power. The owner has agreed to move it to another channel by Friday. Proposed resolution: source corrected.',
       },
@@ -222,6 +226,8 @@ export const DEMO_CASES: readonly DemoCase[] = [
       { move: 'startFieldWork' },
       {
         move: 'proposeFinding',
+        source: 'Neighbouring Wi-Fi networks sharing the 2.4 GHz band',
+        action: 'no_action',
         reason:
           'Measured in the evening: 14 neighbouring Wi-Fi networks share the 2.4 GHz band, all within their rules; no other emission found. This is congestion, not harmful interference. Advised moving the router to the 5 GHz band.',
       },
@@ -260,6 +266,8 @@ export const DEMO_CASES: readonly DemoCase[] = [
       { move: 'startFieldWork' },
       {
         move: 'proposeFinding',
+        source: 'Solar inverter at 12 Ropewalk (likely)',
+        action: 'advise_operator',
         reason: 'Daylight-only comb of emissions at 50 kHz spacing; the solar inverter at 12 Ropewalk is the likely source.',
       },
       {
@@ -297,6 +305,8 @@ export const DEMO_CASES: readonly DemoCase[] = [
       { move: 'startFieldWork' },
       {
         move: 'proposeFinding',
+        source: 'Mains-powered signal blocker in unit 4 of the Crannock Head estate',
+        action: 'formal_warning',
         reason:
           'A mains-powered signal blocker in unit 4 of the Crannock Head estate, used to stop staff using phones, jams 380–960 MHz. Device seized with the owner’s consent; formal warning and penalty notice issued.',
       },
@@ -439,7 +449,17 @@ export async function seedDemoCases(pool: pg.Pool, opts: { publicUrl?: string; n
             version = (await startFieldWork(ctx, investigator!, id, { version })).version
             break
           case 'proposeFinding':
-            version = (await proposeFinding(ctx, investigator!, id, { version, reason: step.reason })).version
+            version = (
+              await proposeFinding(ctx, investigator!, id, {
+                version,
+                summary: step.reason,
+                sourceDescription: step.source,
+                operator: step.operator,
+                recommendedAction: step.action,
+                calculationIds: [],
+                evidenceIds: [],
+              })
+            ).version
             break
           case 'returnFinding':
             version = (await returnFinding(ctx, supervisor, id, { version, reason: step.reason })).version

@@ -9,6 +9,10 @@ import { offices, users } from '../server/db/schema'
 import { hashPassword } from '../server/modules/auth/passwords'
 import { seedDemoCases } from './seed-demo-cases'
 import { seedDemoRegion } from './seed-demo-region'
+import { seedDemoEquipment } from './seed-demo-equipment'
+import { seedDemoStationRegister } from './seed-demo-stations'
+import type { ObjectStore } from '../server/storage/object-store'
+import { log } from '../server/log/logger'
 
 export const DEMO_PASSWORD = 'quietband-demo'
 
@@ -29,8 +33,21 @@ export const DEMO_USERS = [
   { email: 'harbour.master@example.test', name: 'Port of Harrowmere (harbour master)', role: 'complainant', office: null },
 ] as const
 
-/** Inserts the demo data when the database has no office yet. Returns whether it seeded. */
-export async function seedDemo(pool: pg.Pool): Promise<boolean> {
+/**
+ * Inserts the demo data when the database has no office yet. Returns whether it seeded. With
+ * the object store, the demo licence register is imported too while the register has none.
+ */
+export async function seedDemo(pool: pg.Pool, opts: { objectStore?: ObjectStore } = {}): Promise<boolean> {
+  const seeded = await seedDemoPeople(pool)
+  await seedDemoEquipment(pool)
+  if (opts.objectStore) {
+    // the register needs the file store: when it is away the rest of the demo still stands, and the next start imports it
+    await seedDemoStationRegister(pool, opts.objectStore).catch((e: unknown) => log().warn(`demo licence register not imported: ${(e as Error)?.message ?? String(e)}`))
+  }
+  return seeded
+}
+
+async function seedDemoPeople(pool: pg.Pool): Promise<boolean> {
   const client = await pool.connect()
   try {
     await client.query('BEGIN')

@@ -8,6 +8,7 @@ import { ConfigError, loadEnv } from '../server/config/env'
 import { createPool } from '../server/db/client'
 import { appRoleIsProtected, prepareDatabase } from '../server/db/roles'
 import { startServer } from '../server/main'
+import { objectStoreFromEnv } from '../server/storage/object-store'
 import { ensureLocalServices, loadDotEnv, LocalServiceError } from './local/services'
 import { ensureWebBuild, WEB_DIST } from './local/web-build'
 import { DEMO_PASSWORD, DEMO_USERS, seedDemo } from './seed-demo'
@@ -49,7 +50,7 @@ try {
   await prepareDatabase(env.MIGRATION_DATABASE_URL)
   const protectedTimeline = await appRoleIsProtected(env.DATABASE_URL)
   const pool = createPool(env.MIGRATION_DATABASE_URL, 2)
-  const seeded = await seedDemo(pool)
+  const seeded = await seedDemo(pool, { objectStore: objectStoreFromEnv(env) })
   await pool.end()
   const build = ensureWebBuild()
   const running = await startServer(env)

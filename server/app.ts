@@ -23,11 +23,17 @@ import type { SignInDelay } from './modules/auth/sign-in-delay'
 import { usersRoutes } from './modules/users/users.routes'
 import { officesRoutes } from './modules/offices/offices.routes'
 import { regionRoutes } from './modules/regions/regions.routes'
+import { tileOrigin } from './config/env'
 import { mailboxRoutes } from './modules/dev/mailbox.routes'
 import { casesRoutes } from './modules/cases/cases.routes'
 import { publicCaseRoutes } from './modules/cases/public.routes'
 import { bandLimitsRoutes } from './modules/band-limits/band-limits.routes'
 import { calculationsRoutes } from './modules/calculations/calculations.routes'
+import { equipmentRoutes } from './modules/equipment/equipment.routes'
+import { measurementsRoutes } from './modules/measurements/measurements.routes'
+import { stationRegisterRoutes } from './modules/stations/stations.routes'
+import type { ObjectStore } from './storage/object-store'
+import { findingsRoutes } from './modules/findings/findings.routes'
 
 export interface AppDeps {
   pool: pg.Pool
@@ -51,6 +57,10 @@ export interface AppDeps {
   trustProxy?: number
   /** Request and error log (silent when absent, as in most tests). */
   logger?: Logger
+  /** The file store (S3) uploads go to; absent, routes that store or read files answer 503 storage_unavailable. */
+  objectStore?: ObjectStore
+  /** A map tile server (MAP_TILE_URL, MAP_TILE_ATTRIBUTION); absent: the web draws the offline basemap. */
+  mapTiles?: { urlTemplate: string; attribution: string }
 }
 
 export interface AppHandle {
@@ -68,6 +78,7 @@ export function createApp(deps: AppDeps): AppHandle {
     boss: deps.boss,
     publicUrl: deps.publicUrl.replace(/\/$/, ''),
     mailQueue: deps.mailQueue ?? DEFAULT_MAIL_QUEUE_OPTIONS,
+    objectStore: deps.objectStore,
     now: () => new Date(),
   }
   const app = express()
@@ -78,7 +89,7 @@ export function createApp(deps: AppDeps): AppHandle {
   app.use(
     helmet({
       contentSecurityPolicy: {
-        directives: { 'default-src': ["'self'"], 'img-src': ["'self'", 'data:', 'blob:'], 'style-src': ["'self'", "'unsafe-inline'"], 'upgrade-insecure-requests': null },
+        directives: { 'default-src': ["'self'"], 'img-src': ["'self'", 'data:', 'blob:', ...(deps.mapTiles ? [tileOrigin(deps.mapTiles.urlTemplate)] : [])], 'style-src': ["'self'", "'unsafe-inline'"], 'upgrade-insecure-requests': null },
       },
       crossOriginEmbedderPolicy: false,
       // HSTS only means something over https, so it is sent only there (below)
@@ -125,11 +136,15 @@ export function createApp(deps: AppDeps): AppHandle {
   api.use(authRoutes(ctx, passport, { signInDelay: deps.signInDelay }))
   api.use(usersRoutes(ctx))
   api.use(officesRoutes(ctx))
-  api.use(regionRoutes(ctx))
+  api.use(regionRoutes(ctx, { basemap: deps.mapTiles ? { kind: 'tiles', ...deps.mapTiles } : { kind: 'offline' } }))
   api.use(publicCaseRoutes(ctx))
   api.use(casesRoutes(ctx))
   api.use(bandLimitsRoutes(ctx))
   api.use(calculationsRoutes(ctx))
+  api.use(equipmentRoutes(ctx))
+  api.use(measurementsRoutes(ctx))
+  api.use(stationRegisterRoutes(ctx))
+  api.use(findingsRoutes(ctx))
   api.use(mailboxRoutes({ dir: deps.mailboxDir, listenHost: deps.listenHost, nodeEnv: deps.nodeEnv ?? process.env.NODE_ENV, trustProxy: deps.trustProxy }))
   api.use(apiNotFound)
   app.use('/api', api)

@@ -2,6 +2,7 @@ import type pg from 'pg'
 import type PgBoss from 'pg-boss'
 import type { Db } from './db/client'
 import type { MailQueueOptions } from './jobs/boss'
+import type { ObjectStore } from './storage/object-store'
 
 /** What services need from the outside world; built once by createApp. */
 export interface ServiceContext {
@@ -10,6 +11,8 @@ export interface ServiceContext {
   boss: PgBoss
   publicUrl: string
   mailQueue: MailQueueOptions
+  /** The file store (S3); absent, storing or reading a file answers 503 storage_unavailable. */
+  objectStore?: ObjectStore
   /** The time a change happens at. Real time in the app; a story's clock when the demo is seeded. */
   now(): Date
 }

@@ -12,6 +12,7 @@ import { createMailer } from './mail/mailer'
 import { createApp } from './app'
 import { createLogger, log, setProcessLogger } from './log/logger'
 import { isDatabaseUnavailable } from './db/client'
+import { objectStoreFromEnv } from './storage/object-store'
 
 export interface RunningServer {
   url: string
@@ -54,6 +55,8 @@ export async function startServer(env: Env): Promise<RunningServer> {
     pruneSessions: true,
     trustProxy: env.TRUST_PROXY,
     logger,
+    objectStore: objectStoreFromEnv(env),
+    mapTiles: env.MAP_TILE_URL && env.MAP_TILE_ATTRIBUTION ? { urlTemplate: env.MAP_TILE_URL, attribution: env.MAP_TILE_ATTRIBUTION } : undefined,
   })
   const server: Server = await new Promise((resolve, reject) => {
     const s = handle.app.listen(env.PORT, env.HOST, () => resolve(s))

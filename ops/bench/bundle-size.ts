@@ -11,7 +11,9 @@
  *
  * Building into a temporary folder leaves the shared dist/web alone (a running `npm start`
  * serves it). Gzip at zlib's default level 6, as typical web servers compress.
- * Target: initial JavaScript ≤ 200 kB gzipped.
+ * Targets: initial JavaScript ≤ 200 kB gzipped; the report page's own chunks — its lazy chunk,
+ * the chunks it imports that the entry does not bring, and the lazy map it shows at once
+ * (Leaflet, its CSS and ours) — ≤ 120 kB gzipped.
  */
 import { execFileSync } from 'node:child_process'
 import fs from 'node:fs'
@@ -23,6 +25,11 @@ import { argValue, machineInfo, machineLine, reportResult } from './support'
 
 const ROOT = fileURLToPath(new URL('../..', import.meta.url))
 const TARGET_KB = 200
+const REPORT_TARGET_KB = 120
+/** Lazy chunks a page loads as soon as it shows (React.lazy inside it), counted with the page. */
+const SHOWN_AT_ONCE: Record<string, string[]> = {
+  '/report': ['src/components/map/leaflet/leaflet-field-map.tsx'],
+}
 const out = argValue('--out')
 const PUBLIC_ROUTES: Record<string, string> = {
   '/': 'src/app/routes/home.tsx',
@@ -74,13 +81,28 @@ function readManifest(dist: string): Record<string, ManifestChunk> | null {
   return null
 }
 
-/** Files a chunk needs at once: itself and its static imports, transitively. */
-function staticClosure(manifest: Record<string, ManifestChunk>, key: string, seen = new Set<string>()): Set<string> {
+/** Files a chunk needs at once: itself and its static imports, transitively (with `css`, their stylesheets too). */
+function staticClosure(manifest: Record<string, ManifestChunk>, key: string, seen = new Set<string>(), css = false): Set<string> {
   const chunk = manifest[key]
   if (!chunk || seen.has(chunk.file)) return seen
   seen.add(chunk.file)
-  for (const i of chunk.imports ?? []) staticClosure(manifest, i, seen)
+  if (css) for (const c of chunk.css ?? []) seen.add(c)
+  for (const i of chunk.imports ?? []) staticClosure(manifest, i, seen, css)
   return seen
+}
+
+/**
+ * The report page's own files: its lazy chunk and what it imports, then the chunks it shows at
+ * once (the map), JavaScript and CSS, less what the entry already brought (and its CSS).
+ */
+function pageFiles(manifest: Record<string, ManifestChunk>, route: string, src: string, initial: string[]): { file: string; gzip: number }[] {
+  const entryCss = Object.values(manifest).filter((c) => c.isEntry).flatMap((c) => c.css ?? [])
+  const files = staticClosure(manifest, src, new Set(), true)
+  for (const lazyKey of SHOWN_AT_ONCE[route] ?? []) {
+    if (!manifest[lazyKey]) throw new Error(`no chunk for ${lazyKey} in the manifest`)
+    staticClosure(manifest, lazyKey, files, true)
+  }
+  return [...files].filter((f) => !initial.includes(f) && !entryCss.includes(f)).map((f) => ({ file: f, gzip: 0 }))
 }
 
 function main(): void {
@@ -99,7 +121,12 @@ function main(): void {
 
     const manifest = readManifest(dist)
     const routeRows: string[] = []
+    let reportGzip = Number.NaN
+    const reportRows: string[] = []
     if (manifest) {
+      const files = pageFiles(manifest, '/report', PUBLIC_ROUTES['/report']!, initial).map((f) => ({ ...f, gzip: sizes(dist, f.file).gzip, raw: sizes(dist, f.file).raw }))
+      reportGzip = files.reduce((s, f) => s + f.gzip, 0)
+      reportRows.push(...files.sort((a, b) => b.gzip - a.gzip).map((f) => `| ${path.basename(f.file)} | ${kB(f.raw)} | ${kB(f.gzip)} |`))
       for (const [route, src] of Object.entries(PUBLIC_ROUTES)) {
         if (!manifest[src]) {
           routeRows.push(`| ${route} | (no chunk for ${src}) | – | – |`)
@@ -134,9 +161,21 @@ function main(): void {
             '',
           ]
         : ['(No manifest in this build: per-page chunks not listed. Run without --dist to build with one.)', '']),
+      ...(manifest
+        ? [
+            `## The report page with its map`,
+            '',
+            `Its own chunks and the map it shows at once (Leaflet's lazy chunk, its CSS and ours), beyond the entry: **${kB(reportGzip)} kB gzipped**; target ≤ ${REPORT_TARGET_KB} kB: **${reportGzip / 1000 <= REPORT_TARGET_KB ? 'met' : 'missed'}**`,
+            '',
+            '| file | raw kB | gzip kB |',
+            '|---|---:|---:|',
+            ...reportRows,
+            '',
+          ]
+        : []),
     ].join('\n')
     reportResult(md, out)
-    process.exitCode = totalGzip / 1000 <= TARGET_KB ? 0 : 1
+    process.exitCode = totalGzip / 1000 <= TARGET_KB && !(reportGzip / 1000 > REPORT_TARGET_KB) ? 0 : 1
   } finally {
     built?.cleanup()
   }

@@ -7,6 +7,23 @@ import { z } from 'zod'
 
 const url = (what: string) => z.string({ message: `${what} is required` }).url({ message: `${what} must be a URL` })
 
+/** True for an http(s) URL holding {z}, {x} and {y} (a tile URL template); {s} subdomains allowed. */
+export function isTileUrlTemplate(v: string): boolean {
+  if (!['{z}', '{x}', '{y}'].every((p) => v.includes(p))) return false
+  try {
+    const u = new URL(v.replace(/\{[a-z]+\}/g, '0'))
+    return u.protocol === 'https:' || u.protocol === 'http:'
+  } catch {
+    return false
+  }
+}
+
+/** The origin of a tile URL template (subdomain placeholder {s} kept as a wildcard, as CSP allows). */
+export function tileOrigin(template: string): string {
+  const u = new URL(template.replace(/\{s\}/g, 'tile-subdomain').replace(/\{[a-z]+\}/g, '0'))
+  return `${u.protocol}//${u.host.replace('tile-subdomain', '*')}`
+}
+
 const envSchema = z.object({
   NODE_ENV: z.enum(['development', 'production', 'test']).default('development'),
   HOST: z.string().default('127.0.0.1'),
@@ -22,6 +39,8 @@ const envSchema = z.object({
   S3_ACCESS_KEY_ID: z.string({ message: 'S3_ACCESS_KEY_ID is required' }).min(1),
   S3_SECRET_ACCESS_KEY: z.string({ message: 'S3_SECRET_ACCESS_KEY is required' }).min(1),
   S3_FORCE_PATH_STYLE: z.enum(['true', 'false']).default('true').transform((v) => v === 'true'),
+  /** The largest file an upload may hold, in bytes (default 50 MB). */
+  UPLOAD_MAX_BYTES: z.coerce.number().int().min(1024).max(10 * 1024 ** 3).default(50 * 1024 * 1024),
   SMTP_URL: url('SMTP_URL').refine((v) => /^smtps?:\/\//.test(v), 'SMTP_URL must start with smtp:// or smtps://'),
   MAIL_FROM: z.string().default('Quietband <no-reply@quietband.test>'),
   /** Folder where the local SMTP fake keeps messages; set only with the embedded fake. */
@@ -39,6 +58,17 @@ const envSchema = z.object({
   MAIL_POLL_INTERVAL_SECONDS: z.coerce.number().min(0.5).max(60).default(1),
   /** Seconds between the job queue's maintenance runs, which retry mail left unfinished by a crash. */
   JOB_MAINTENANCE_INTERVAL_SECONDS: z.coerce.number().int().min(1).max(600).default(5),
+  /**
+   * A map tile server for the basemap: an http(s) URL template with {z}, {x} and {y} (and
+   * optionally {s}). Unset: the offline basemap drawn from the region's own data. The
+   * Content-Security-Policy's img-src then admits the URL's origin.
+   */
+  MAP_TILE_URL: z
+    .string()
+    .refine(isTileUrlTemplate, 'MAP_TILE_URL must be an http(s) URL template with {z}, {x} and {y}, e.g. https://tiles.example.org/{z}/{x}/{y}.png')
+    .optional(),
+  /** The tile server's required credit (plain text); required with MAP_TILE_URL. */
+  MAP_TILE_ATTRIBUTION: z.string().trim().min(1, 'MAP_TILE_ATTRIBUTION must not be empty').max(300).optional(),
 })
 
 export type Env = z.infer<typeof envSchema> & { MIGRATION_DATABASE_URL: string }
@@ -47,7 +77,9 @@ export class ConfigError extends Error {}
 
 /** Parses the environment; throws a ConfigError listing every bad variable by name. */
 export function loadEnv(source: NodeJS.ProcessEnv = process.env): Env {
-  const parsed = envSchema.safeParse(source)
+  const parsed = envSchema
+    .refine((e) => !e.MAP_TILE_URL || !!e.MAP_TILE_ATTRIBUTION, { path: ['MAP_TILE_ATTRIBUTION'], message: 'MAP_TILE_ATTRIBUTION is required with MAP_TILE_URL (the tile server’s credit)' })
+    .safeParse(source)
   if (parsed.success) return { ...parsed.data, MIGRATION_DATABASE_URL: parsed.data.MIGRATION_DATABASE_URL ?? parsed.data.DATABASE_URL }
   const lines = parsed.error.issues.map((i) => `  ${i.path.join('.')}: ${i.message}`)
   throw new ConfigError(`Quietband cannot start: the configuration is incomplete or invalid.\n${lines.join('\n')}\nSee .env.example.`)

@@ -8,6 +8,7 @@
 import type { AccountAbilities } from '../../shared/schemas/auth'
 import { mayMakeMove, type CaseAccess } from './case-policy'
 import { can, officeScope, type Actor } from './policy'
+import { mayManageEquipment, mayReadEquipment } from './equipment-policy'
 
 /** A new report of the actor's own office, assigned to the actor (no such case need exist). */
 function caseOfOwnOffice(actor: Actor): CaseAccess | null {
@@ -29,5 +30,10 @@ export function accountAbilities(actor: Actor): AccountAbilities {
     manageOffices: 'all' in scope && can(actor, 'office.configure'),
     readBandLimits: can(actor, 'bandLimit.read'),
     manageBandLimits: can(actor, 'bandLimit.edit'),
+    readStationRegister: can(actor, 'stationRegister.read'),
+    importStationRegister: can(actor, 'stationRegister.import'),
+    // the register of the actor's own office (an administrator keeps every office's)
+    readEquipment: actor.role === 'admin' || (actor.officeId !== null && mayReadEquipment(actor, actor.officeId)),
+    manageEquipment: actor.role === 'admin' || (actor.officeId !== null && mayManageEquipment(actor, actor.officeId)),
   }
 }

@@ -28,6 +28,8 @@ export type Action =
   | 'user.update'
   | 'bandLimit.read'
   | 'bandLimit.edit'
+  | 'stationRegister.read'
+  | 'stationRegister.import'
 
 const STAFF: Role[] = ['investigator', 'supervisor']
 
@@ -43,6 +45,9 @@ const rules: Record<Action, (actor: Actor, resource?: OfficeScoped) => boolean> 
   // the band-limit list is national: every office's staff read it, supervisors and administrators edit it
   'bandLimit.read': (a) => a.role === 'admin' || STAFF.includes(a.role),
   'bandLimit.edit': (a) => a.role === 'admin' || a.role === 'supervisor',
+  // the licence register is national: every office's staff read it, administrators import new versions
+  'stationRegister.read': (a) => a.role === 'admin' || STAFF.includes(a.role),
+  'stationRegister.import': (a) => a.role === 'admin',
 }
 
 function sameOffice(actor: Actor, resource?: OfficeScoped): boolean {

@@ -81,6 +81,9 @@ export interface StationReference {
   highFreqHz: number
   /** The authorised limit, as the licence states it (EIRP, ERP, or conducted power and gain). */
   limit: LimitSpec
+  /** With a conducted-power limit: the antenna gain and feeder loss the licence states. */
+  antennaGainDbi?: number
+  feederLossDb?: number
   /** Authorised EIRP after the library's appliedLimitEirpDbm, for ranking and display. */
   authorisedEirpDbm: number
   validFrom: string | null
@@ -103,5 +106,9 @@ export interface ReferenceLookup {
   bandLimit(key: string): BandLimitReference | undefined
   measurement?(id: string): MeasurementReference | undefined
   station?(id: string): StationReference | undefined
+  /** The stations of the register in force whose authorised range meets [lowFreqHz, highFreqHz], edges included. */
+  candidateStations?(q: { lowFreqHz: number; highFreqHz: number }): StationReference[]
+  /** The licence register's version in force (null before the first import). */
+  stationRegisterVersion?(): number | null
   calculation?(id: string): CalculationReference | undefined
 }

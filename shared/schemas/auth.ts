@@ -82,6 +82,14 @@ export const accountAbilitiesSchema = z.object({
   readBandLimits: z.boolean(),
   /** Edits band limits (with a reason; every change is kept). */
   manageBandLimits: z.boolean(),
+  /** Reads the licence register (authorised stations) and its versions. */
+  readStationRegister: z.boolean(),
+  /** Imports a new version of the licence register from a CSV file. */
+  importStationRegister: z.boolean(),
+  /** Reads their office's antennas-and-instruments register (an administrator: every office's). */
+  readEquipment: z.boolean(),
+  /** Adds and edits items of that register (every change is kept). */
+  manageEquipment: z.boolean(),
 })
 export type AccountAbilities = z.infer<typeof accountAbilitiesSchema>
 export type AccountAbility = keyof AccountAbilities
@@ -97,6 +105,10 @@ export const NO_ACCOUNT_ABILITIES: AccountAbilities = {
   manageOffices: false,
   readBandLimits: false,
   manageBandLimits: false,
+  readStationRegister: false,
+  importStationRegister: false,
+  readEquipment: false,
+  manageEquipment: false,
 }
 
 /** A signed-in session: the user and what the account may do (sign-in, confirmation, password, /api/me). */

@@ -147,7 +147,6 @@ export const dismissSchema = z.object({
   reason: reason('Write a summary for the complainant'),
 })
 export const startFieldWorkSchema = z.object({ version })
-export const proposeFindingSchema = z.object({ version, reason: reason('Summarise the finding') })
 export const returnFindingSchema = z.object({ version, reason: reason('Say what more is needed') })
 export const closeSchema = z.object({
   version,

@@ -58,6 +58,13 @@ export const QUANTITIES = {
     units: { 'dBW/m²': lin(1), 'W/m²': { toBase: (x) => 10 * log10(x), positiveOnly: true }, 'dBm/m²': { toBase: (x) => x - 30 } },
     aliases: { 'dBW/m2': 'dBW/m²', 'W/m2': 'W/m²', 'dBm/m2': 'dBm/m²' },
   },
+  /** A voltage at an instrument's input (dBµV re 1 µV). */
+  voltage: {
+    base: 'dBµV',
+    units: { 'dBµV': lin(1), 'µV': { toBase: (x) => 20 * log10(x), positiveOnly: true }, mV: { toBase: (x) => 20 * log10(x) + 60, positiveOnly: true } },
+    aliases: { dBuV: 'dBµV', uV: 'µV' },
+  },
+  antennaFactor: { base: 'dB/m', units: { 'dB/m': lin(1) }, aliases: { 'dB(1/m)': 'dB/m', 'dB/m⁻¹': 'dB/m' } },
   gain: { base: 'dBi', units: { dBi: lin(1), dBd: { toBase: (x) => x + 2.15 } } },
   loss: { base: 'dB', units: { dB: lin(1) } },
   specificAttenuation: { base: 'dB/km', units: { 'dB/km': lin(1) } },

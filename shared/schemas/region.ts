@@ -66,8 +66,21 @@ export const regionFeatureSchema = z.union([regionOutlineFeatureSchema, coastFea
 export type RegionFeature = z.infer<typeof regionFeatureSchema>
 
 /**
+ * What the map is drawn on: a tile server's URL template ({z}/{x}/{y}) and its attribution
+ * (plain text) when the server is configured with one, or the offline basemap drawn from this
+ * answer's own features, so nothing leaves the service.
+ */
+export const basemapSchema = z.discriminatedUnion('kind', [
+  z.object({ kind: z.literal('offline') }).strict(),
+  z.object({ kind: z.literal('tiles'), urlTemplate: z.string().min(1), attribution: z.string().min(1) }).strict(),
+])
+export type Basemap = z.infer<typeof basemapSchema>
+export const OFFLINE_BASEMAP: Basemap = { kind: 'offline' }
+
+/**
  * The region map. Without a configured region it holds only the offices (and the web shows
  * no map); the strict property objects keep anything else (staff, targets) out of it.
+ * `basemap` is a foreign member of the FeatureCollection (RFC 7946 §6.1).
  */
-export const regionMapSchema = z.object({ type: z.literal('FeatureCollection'), features: z.array(regionFeatureSchema) })
+export const regionMapSchema = z.object({ type: z.literal('FeatureCollection'), features: z.array(regionFeatureSchema), basemap: basemapSchema })
 export type RegionMap = z.infer<typeof regionMapSchema>

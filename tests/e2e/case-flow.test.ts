@@ -100,12 +100,41 @@ describe('a report from the public to its closing', () => {
     await inv.getByRole('link', { name: reference }).first().click()
     await inv.getByRole('button', { name: 'Start field work' }).click()
     await inv.getByLabel('Finding summary').waitFor(T)
+    // a calculation stored on the case through the API (as the workbench stores them), to link to the finding
+    const caseId = new URL(inv.url()).pathname.split('/').pop()!
+    const storedStatus = await inv.evaluate(async (id) => {
+      const inputs = { measurement: { kind: 'field-strength', fieldStrengthDbuvPerM: '74.77 dBµV/m', freqHz: '100 MHz' }, distanceM: '1 km', model: { kind: 'free-space', freqHz: '100 MHz' }, measurementContributions: [{ name: 'antenna calibration', distribution: { kind: 'normal', expandedUncertainty: '1.5 dB', coverageFactor: 2 } }] }
+      const res = await fetch(`/api/cases/${id}/calculations`, { method: 'POST', headers: { 'Content-Type': 'application/json' }, body: JSON.stringify({ kind: 'eirp_single_point', inputs }) })
+      return res.status
+    }, caseId)
+    expect(storedStatus).toBe(201)
+    await inv.reload()
+    const calculationList = inv.getByRole('group', { name: /Calculations the finding rests on/ })
+    await calculationList.getByRole('checkbox').first().waitFor(T)
+    await calculationList.getByRole('checkbox').first().check()
+    await inv.getByLabel('The source', { exact: true }).fill('Unlicensed mobile repeater on the roof opposite')
+    await inv.locator('#finding-lat').fill('48.1062')
+    await inv.locator('#finding-lon').fill('-31.3786')
+    await inv.getByLabel('Recommended action').selectOption('advise_operator')
+    // the form fits a phone's width
+    await inv.setViewportSize({ width: 390, height: 844 })
+    expect(await inv.evaluate(() => document.documentElement.scrollWidth), 'no sideways scrolling at 390 px').toBeLessThanOrEqual(390)
+    await screenshot(inv, 'flow-5b-finding-form-390')
+    await inv.setViewportSize({ width: 1280, height: 860 })
     await inv.getByLabel('Finding summary').fill('An unlicensed mobile repeater on the roof opposite raised the uplink noise; the owner switched it off on request.')
     await inv.getByRole('button', { name: 'Propose finding' }).click()
     await expect.poll(() => inv.locator('main').innerText(), T).toContain('Finding awaiting review')
 
-    // 5. the supervisor approves and closes
+    // 5. the supervisor reviews the structured finding, approves and closes
     await openCase(sup, reference)
+    await expect.poll(() => sup.locator('main').innerText(), T).toContain('Unlicensed mobile repeater on the roof opposite')
+    expect(await sup.locator('main').innerText()).toContain('Before acting on this finding')
+    expect(await sup.locator('main').innerText()).toMatch(/Calculations it rests on[\s\S]*dBm[\s\S]*library \d+\.\d+\.\d+/)
+    await sup.setViewportSize({ width: 390, height: 844 })
+    expect(await sup.evaluate(() => document.documentElement.scrollWidth), 'no sideways scrolling at 390 px').toBeLessThanOrEqual(390)
+    await screenshot(sup, 'flow-5c-finding-review-390')
+    await sup.setViewportSize({ width: 1280, height: 860 })
+    await screenshot(sup, 'flow-5d-finding-review')
     await sup.getByLabel('Resolution').selectOption('source_corrected')
     await sup.getByLabel('Summary for the complainant').fill('We found an unlicensed repeater near you. Its owner has switched it off, and your service should be back.')
     await sup.getByRole('button', { name: 'Approve and close' }).click()

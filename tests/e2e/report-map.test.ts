@@ -1,65 +1,117 @@
 /**
- * In Debian's Chromium: the report form's map is drawn from the region's data (GET
- * /api/region); a click on it fills in latitude and longitude. With no region set up the form
- * says so plainly, and a report with typed figures still goes in.
+ * In Debian's Chromium: the report form's map is Leaflet over the offline basemap drawn from
+ * the region's data (GET /api/region; no tile server is configured, so no request leaves the
+ * service); a click on it fills in latitude and longitude. With no region set up the form says
+ * so plainly, and a report with typed figures still goes in.
  */
 import { describe, expect, it } from 'vitest'
 import type { Page } from 'playwright-core'
-import { newPage, screenshot } from '../support/browser'
+import path from 'node:path'
+import { SCREENSHOTS, newPage, screenshot } from '../support/browser'
 import { runningApp } from '../support/e2e'
 
 const app = runningApp()
 const T = { timeout: 20_000 }
-const MAP = 'Map of Vellmark Coast: pick where it happens'
+const MAP = 'Map: pick where it happens'
+/** A 1 × 1 transparent PNG, the smallest tile. */
+const ONE_PIXEL_PNG = Buffer.from('iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAYAAAAfFcSJAAAADUlEQVR42mNkYPhfDwAChwGA60e6kgAAAABJRU5ErkJggg==', 'base64')
 
-/** Clicks the map at a position: the map is equirectangular over the region's outline box. */
+/** Web Mercator's northing for a latitude (the map's projection), up to a constant factor. */
+const mercatorY = (latDeg: number) => Math.log(Math.tan(Math.PI / 4 + (latDeg * Math.PI) / 360))
+
+/**
+ * Clicks the map at a position, framed by the drawn region boundary: the demo outline's box is
+ * 47.2–48.6° N, 32.2–29.8° W; on Leaflet's Web Mercator x is linear in longitude, y in mercatorY.
+ */
 async function clickMapAt(page: Page, p: { latDeg: number; lonDeg: number }) {
   const box = { southDeg: 47.2, northDeg: 48.6, westDeg: -32.2, eastDeg: -29.8 }
-  const svg = page.getByRole('application', { name: MAP }).locator('svg')
-  await svg.scrollIntoViewIfNeeded()
-  const frame = (await svg.boundingBox())!
+  const outline = page.getByRole('img', { name: 'Boundary of Vellmark Coast' })
+  await page.getByRole('region', { name: MAP }).scrollIntoViewIfNeeded()
+  const frame = (await outline.boundingBox())!
   await page.mouse.click(
     frame.x + ((p.lonDeg - box.westDeg) / (box.eastDeg - box.westDeg)) * frame.width,
-    frame.y + ((box.northDeg - p.latDeg) / (box.northDeg - box.southDeg)) * frame.height,
+    frame.y + ((mercatorY(box.northDeg) - mercatorY(p.latDeg)) / (mercatorY(box.northDeg) - mercatorY(box.southDeg))) * frame.height,
   )
 }
 
 describe('the report form’s map', () => {
-  it('shows the region from its data, and a click fills in latitude and longitude', async () => {
+  it('draws the region with Leaflet and no tiles, and a click fills in latitude and longitude', async () => {
     const { page, errors } = await newPage(app.browser)
+    const foreign: string[] = []
+    page.on('request', (r) => {
+      if (!r.url().startsWith(app.web.baseUrl) && !r.url().startsWith('data:')) foreign.push(r.url())
+    })
     await page.goto(`${app.web.baseUrl}/report`)
-    const map = page.getByRole('application', { name: MAP })
+    const map = page.getByRole('region', { name: MAP })
     await map.waitFor(T)
-    // the demo data's office marks and place names are drawn
-    await expect.poll(() => map.locator('text').allTextContents()).toEqual(expect.arrayContaining(['Harrowmere office', 'Kestrel Bay office', 'Marrow Sound']))
+    expect(await map.getAttribute('class')).toContain('leaflet-container')
+    expect(await page.locator('img.leaflet-tile').count()).toBe(0)
+    // the demo data's offices and place names are drawn, and the key names the layers
+    await expect.poll(() => map.locator('.leaflet-tooltip').allTextContents()).toEqual(expect.arrayContaining(['Harrowmere office', 'Kestrel Bay office']))
+    expect(await map.locator('.qb-map-place').allTextContents()).toContain('Marrow Sound')
+    const key = page.getByRole('list', { name: 'Key to the map' })
+    expect(await key.locator('li').allTextContents()).toEqual(['Region boundary and land', '2 field offices', 'Office area'])
+    // a scale bar in metres or kilometres, and a north arrow
+    expect(await map.locator('.leaflet-control-scale-line').textContent()).toMatch(/^\d+ k?m$/)
+    await page.getByRole('img', { name: 'North arrow: north is up' }).waitFor(T)
 
     await clickMapAt(page, { latDeg: 48.105, lonDeg: -31.38 })
+    await expect.poll(() => page.getByLabel('Latitude').inputValue()).not.toBe('')
     const lat = Number(await page.getByLabel('Latitude').inputValue())
     const lon = Number(await page.getByLabel('Longitude').inputValue())
     expect(Math.abs(lat - 48.105)).toBeLessThan(0.01)
     expect(Math.abs(lon - -31.38)).toBeLessThan(0.01)
     await page.getByText(/^Marker at 48\.1\d{3}° N, 31\.3\d{3}° W$/).waitFor(T)
+    await map.getByRole('img', { name: 'The place you gave' }).waitFor(T)
+    expect(await key.locator('li').allTextContents()).toContain('The place you gave')
 
-    // the arrow keys move the marker from there
-    await map.focus()
-    await page.keyboard.press('ArrowUp')
-    expect(Number(await page.getByLabel('Latitude').inputValue())).toBeCloseTo(lat + 0.01, 6)
+    // the typed figures stay the source of truth: typing moves the marker
+    await page.getByLabel('Latitude').fill('47.95')
+    await page.getByText(/^Marker at 47\.9500° N, /).waitFor(T)
 
     for (const width of [1440, 390]) {
       await page.setViewportSize({ width, height: 900 })
       await map.scrollIntoViewIfNeeded()
       await screenshot(page, `report-map-${width}`)
+      await page.getByRole('region', { name: MAP }).locator('..').locator('..').screenshot({ path: path.join(SCREENSHOTS, `report-map-${width}-map.png`) })
     }
+    expect(foreign, 'no request left the service').toEqual([])
+    expect(errors).toEqual([])
+    await page.context().close()
+  })
+
+  it('draws the tiles of a configured tile server under the layers, with its credit as plain text', async () => {
+    const { page, errors } = await newPage(app.browser)
+    const tiles: string[] = []
+    // the region answer as a server with MAP_TILE_URL would give it; tiles from this origin (CSP img-src 'self')
+    await page.route('**/api/region', async (route) => {
+      const body = await (await route.fetch()).json()
+      const basemap = { kind: 'tiles', urlTemplate: `${app.web.baseUrl}/test-tiles/{z}/{x}/{y}.png`, attribution: 'Test tiles © <Example>' }
+      await route.fulfill({ status: 200, contentType: 'application/geo+json', body: JSON.stringify({ ...body, basemap }) })
+    })
+    await page.route('**/test-tiles/**', (route) => {
+      tiles.push(route.request().url())
+      return route.fulfill({ status: 200, contentType: 'image/png', body: ONE_PIXEL_PNG })
+    })
+    await page.goto(`${app.web.baseUrl}/report`)
+    const map = page.getByRole('region', { name: MAP })
+    await map.waitFor(T)
+    await expect.poll(() => map.locator('img.leaflet-tile-loaded').count()).toBeGreaterThan(0)
+    expect(tiles[0]).toMatch(/\/test-tiles\/\d+\/\d+\/\d+\.png$/)
+    expect(await map.locator('.leaflet-control-attribution').textContent()).toBe('Leaflet | Test tiles © <Example>')
+    // the land is the tiles' now: no offline land, but the region's boundary and offices stay
+    expect(await page.getByRole('list', { name: 'Key to the map' }).locator('li').allTextContents()).toEqual(['2 field offices', 'Office area'])
+    await page.getByRole('img', { name: 'Boundary of Vellmark Coast' }).waitFor(T)
     expect(errors).toEqual([])
     await page.context().close()
   })
 
   it('says plainly that no map is set up, and takes a report with typed figures', async () => {
     const { page, errors } = await newPage(app.browser)
-    await page.route('**/api/region', (route) => route.fulfill({ status: 200, contentType: 'application/geo+json', body: JSON.stringify({ type: 'FeatureCollection', features: [] }) }))
+    await page.route('**/api/region', (route) => route.fulfill({ status: 200, contentType: 'application/geo+json', body: JSON.stringify({ type: 'FeatureCollection', features: [], basemap: { kind: 'offline' } }) }))
     await page.goto(`${app.web.baseUrl}/report`)
     await page.getByText('No map is set up for this service yet.', { exact: false }).waitFor(T)
-    expect(await page.getByRole('application').count()).toBe(0)
+    expect(await page.locator('.leaflet-container').count()).toBe(0)
 
     await page.getByLabel('Your name').fill('Ines Harlow')
     await page.getByLabel('E-mail').fill(`no-map-${Date.now()}@example.test`)

@@ -48,9 +48,9 @@ describe('sign-in', () => {
   })
 
   it.each([
-    ['admin', { readCases: true, manageUsers: true, manageOffices: true, readBandLimits: true, manageBandLimits: true }],
-    ['supervisor', { runOfficeQueue: true, readCases: true, readBandLimits: true, manageBandLimits: true }],
-    ['investigator', { workAssignedCases: true, readCases: true, readBandLimits: true }],
+    ['admin', { readCases: true, manageUsers: true, manageOffices: true, readBandLimits: true, manageBandLimits: true, readStationRegister: true, importStationRegister: true, readEquipment: true, manageEquipment: true }],
+    ['supervisor', { runOfficeQueue: true, readCases: true, readBandLimits: true, manageBandLimits: true, readStationRegister: true, readEquipment: true, manageEquipment: true }],
+    ['investigator', { workAssignedCases: true, readCases: true, readBandLimits: true, readStationRegister: true, readEquipment: true }],
     ['complainant', { reportAsAccount: true, followOwnReports: true }],
   ] as const)('tells the signed-in %s what their account may do, and nothing more', async (role, allowed) => {
     const agent = await signIn(t, user[role])

@@ -11,6 +11,8 @@ import { fileURLToPath } from 'node:url'
 import { promisify } from 'node:util'
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
 import pg from 'pg'
+import geographiclib from 'geographiclib-geodesic'
+import { complianceVerdictOutputSchema, eirpFitOutputSchema, eirpSinglePointOutputSchema } from '../../shared/calculations'
 import { assessCompliance, BAND_LIMITS, createPropagationModel, eirpFromMeasurement, RADIO_LIBRARY_VERSION } from '../../shared/radio'
 import { calculationResponseSchema, calculationsResponseSchema, recomputeResponseSchema } from '../../shared/schemas/views'
 import { FREE_SPACE_FIELD_ROWS } from '../fixtures/radio/propagation-free-space'
@@ -314,5 +316,157 @@ describe.skipIf(sameRole)('the ops check (ops/recompute-calculations.ts)', () =>
     expect(res.body.recompute).toMatchObject({ sameLibraryVersion: true, differs: true })
     // and the trigger is back: the owner's plain UPDATE is refused again
     await expect(owner.query(`UPDATE calculations SET warnings = '[]' WHERE id = $1`, [stored.body.calculation.id])).rejects.toThrow(/append-only/)
+  })
+})
+
+/** A measurement of the case as the form sends it: a reading through an antenna of 0 dBi, no register. */
+const measurementBody = (over: Record<string, unknown> = {}) => ({
+  takenAt: '2026-11-20T10:15:00Z',
+  latDeg: '46.8',
+  lonDeg: '7.1',
+  heightM: '1.5 m',
+  freqHz: '433.92 MHz',
+  rbwHz: '120 kHz',
+  detector: 'rms',
+  reading: { unit: 'dBm', value: '-60' },
+  antenna: { source: 'gain', antennaGainDbi: '0' },
+  cableLossDb: '0',
+  polarisation: 'vertical',
+  ...over,
+})
+
+async function addMeasurement(agent: Agent, caseId: string, over: Record<string, unknown> = {}): Promise<{ id: string; derived: { isotropicReceivedPowerDbm?: number; fieldStrengthDbuvPerM?: number } }> {
+  const res = await agent.post(`/api/cases/${caseId}/measurements`).send({ measurement: measurementBody(over) })
+  expect(res.status, JSON.stringify(res.body)).toBe(201)
+  return res.body.measurement
+}
+
+/** An authorised station of a new register version, inserted as the owner (the import route is tested with the register). */
+async function addStation(limit: object, uploadedBy: string): Promise<{ id: string; version: number }> {
+  const { rows } = await owner.query<{ id: string; version: number }>(
+    `WITH n AS (SELECT coalesce(max(version), 0) + 1 AS version FROM station_register_versions),
+     f AS (INSERT INTO stored_files (object_key, original_name, size_bytes, sha256, content_type, content_type_source, purpose, uploaded_by)
+           VALUES ('calc-test/' || gen_random_uuid(), 'register.csv', 0, repeat('a', 64), 'text/csv', 'declared', 'station_register_import', $1) RETURNING id),
+     v AS (INSERT INTO station_register_versions (version, imported_by, stored_file_id, file_name, sha256, delimiter, accepted_count, rejected_count, column_mapping, rejected_rows)
+           SELECT n.version, $1, f.id, 'register.csv', repeat('a', 64), 'comma', 1, 0, '{"fields":{}}', '[]' FROM n, f RETURNING version)
+     INSERT INTO authorised_stations (register_version, line, station_code, licensee, service, latitude_deg, longitude_deg, low_freq_hz, high_freq_hz, "limit", authorised_eirp_dbm)
+     SELECT v.version, 2, 'NRV-0117', 'Harrowfield Taxi Cooperative', 'PMR', 46.8, 7.1, 433.9e6, 434e6, $2::jsonb, 32.15 FROM v RETURNING id, register_version AS version`,
+    [uploadedBy, JSON.stringify(limit)],
+  )
+  return rows[0]!
+}
+
+describe('calculations built on stored measurements, estimates and stations', () => {
+  const SOURCE = { latDeg: 46.8, lonDeg: 7.11 }
+
+  it('takes a measurement’s level and keeps its copy (and its id) after the measurement is corrected', async () => {
+    const m = await addMeasurement(investigator, worked.id)
+    const inputs = { measurementId: m.id, distanceM: '100 m', model: { kind: 'free-space', freqHz: '433.92 MHz' } }
+    const res = await store(investigator, worked.id, { kind: 'eirp_single_point', inputs }).expect(201)
+    const { calculation } = calculationResponseSchema.parse(res.body)
+    const value = eirpSinglePointOutputSchema.parse(calculation.outputs.value)
+    // EIRP = P_iso + L_bf(100 m, 433.92 MHz): the library's own forward model, P_iso from the measurement's copy
+    const loss = createPropagationModel({ kind: 'free-space', freqHz: 433.92e6 }).lossDb(100).value.lossDb
+    expect(value.eirpDbm).toBeCloseTo(m.derived.isotropicReceivedPowerDbm! + loss, 9)
+    expect(calculation.measurementIds).toEqual([m.id])
+    const copy = (calculation.references.measurements as { id: string; derived: object; version: number }[])[0]!
+    expect(copy).toMatchObject({ id: m.id, version: 1, derived: { isotropicReceivedPowerDbm: m.derived.isotropicReceivedPowerDbm, fieldStrengthDbuvPerM: m.derived.fieldStrengthDbuvPerM } })
+
+    await investigator.post(`/api/measurements/${m.id}/corrections`).send({ measurement: measurementBody({ reading: { unit: 'dBm', value: '-50' } }) }).expect(201)
+    const listed = calculationsResponseSchema.parse((await investigator.get(`/api/cases/${worked.id}/calculations`).expect(200)).body).calculations.find((c) => c.id === calculation.id)!
+    expect(listed.references).toEqual(calculation.references)
+    const again = recomputeResponseSchema.parse((await investigator.get(`/api/calculations/${calculation.id}/recompute`).expect(200)).body).recompute
+    expect(again.differs).toBe(false)
+  })
+
+  it('joins a measurement’s calibration warning to the result', async () => {
+    const supervisorOffice = worked.office.id
+    const item = await supervisor.post(`/api/offices/${supervisorOffice}/equipment`).send({ item: { name: `Dipole ${Date.now()}`, type: 'antenna', antennaGainDbi: '2.15 dBi', calibrationDueOn: '2026-06-30' } }).expect(201)
+    const m = await addMeasurement(investigator, worked.id, { antenna: { source: 'register', equipmentId: item.body.item.id } })
+    const res = await store(investigator, worked.id, { kind: 'eirp_single_point', inputs: { measurementId: m.id, sourcePosition: SOURCE, model: { kind: 'free-space', freqHz: 433.92e6 } } }).expect(201)
+    const { calculation } = calculationResponseSchema.parse(res.body)
+    expect(calculation.warnings.some((w) => /calibrat/i.test(w))).toBe(true)
+    expect((calculation.outputs.value as { distanceFrom: string }).distanceFrom).toBe('positions')
+  })
+
+  it('fits several measurements and judges a verdict on the stored estimate’s EIRP, keeping a copy of the estimate', async () => {
+    // levels from P = 20 − L(1 m) − 30 log10(d) at 433.92 MHz (log-distance model, Rappaport §4.9.1), placed by GeographicLib
+    const l0 = createPropagationModel({ kind: 'free-space', freqHz: 433.92e6 }).lossDb(1).value.lossDb
+    const ms = []
+    for (const [i, d] of [100, 300, 1000, 3000].entries()) {
+      const g = geographiclib.Geodesic.WGS84.Direct(SOURCE.latDeg, SOURCE.lonDeg, 90 * i, d)
+      const p = 20 - l0 - 30 * Math.log10(d)
+      ms.push(await addMeasurement(investigator, worked.id, { latDeg: String(g.lat2), lonDeg: String(g.lon2), reading: { unit: 'dBm', value: String(p) } }))
+    }
+    const fit = await store(investigator, worked.id, { kind: 'eirp_fit', inputs: { readings: { source: 'measurements', measurementIds: ms.map((m) => m.id), sourcePosition: SOURCE }, exponent: { kind: 'free' }, refDistanceM: '1 m' } }).expect(201)
+    const fitted = calculationResponseSchema.parse(fit.body).calculation
+    const v = eirpFitOutputSchema.parse(fitted.outputs.value)
+    expect(v.eirpDbm).toBeCloseTo(20, 3) // the reading is stored with the strict parser's digits; 1e-3 dB covers them
+    expect(v.exponent).toBeCloseTo(3, 3)
+    expect(fitted.measurementIds).toEqual(ms.map((m) => m.id))
+
+    const verdict = await store(investigator, worked.id, { kind: 'compliance_verdict', inputs: { eirpCalculationId: fitted.id, limit: { source: 'stated', spec: { kind: 'eirp', eirpDbm: '17 dBm' }, citation: 'Licence condition 4' } } }).expect(201)
+    const judged = calculationResponseSchema.parse(verdict.body).calculation
+    const j = complianceVerdictOutputSchema.parse(judged.outputs.value)
+    expect(j.marginDb).toBeCloseTo(v.eirpDbm - 17, 9) // margin = EIRP − limit, by hand
+    expect(judged.references.eirpCalculation).toMatchObject({ id: fitted.id, kind: 'eirp_fit', eirpDbm: v.eirpDbm })
+  })
+
+  it('judges against an authorised station’s licence and keeps the station with its register version', async () => {
+    const st = await addStation({ kind: 'erp', erpDbm: 30 }, worked.supervisor!.id)
+    const res = await store(investigator, worked.id, { kind: 'compliance_verdict', inputs: { eirpDbm: '33 dBm', limit: { source: 'station', stationId: st.id } } }).expect(201)
+    const { calculation } = calculationResponseSchema.parse(res.body)
+    const v = complianceVerdictOutputSchema.parse(calculation.outputs.value)
+    expect(v.appliedLimitEirpDbm).toBeCloseTo(32.15, 9) // ERP + 2.15 dB (ITU RR Nos. 1.161–1.162, register 3-1)
+    expect(v.verdict).toBe('exceeds')
+    expect(calculation.references.station).toMatchObject({ id: st.id, registerVersion: st.version, stationCode: 'NRV-0117' })
+  })
+
+  it('refuses measurements and calculations of another case, and an unknown station, naming each, and stores nothing', async () => {
+    const theirs = await addMeasurement(await signIn(t, otherOfficeCase.investigator!), otherOfficeCase.id)
+    const theirCalc = await store(await signIn(t, otherOfficeCase.investigator!), otherOfficeCase.id, { kind: 'eirp_single_point', inputs: eirpInputs }).expect(201)
+    const before = await countOf(worked.id)
+    const a = await store(investigator, worked.id, { kind: 'eirp_single_point', inputs: { measurementId: theirs.id, distanceM: 100, model: { kind: 'free-space', freqHz: 433.92e6 } } }).expect(400)
+    expect(a.body.error).toMatchObject({ code: 'calculation_refused', message: `There is no measurement ${theirs.id} on this case.` })
+    const b = await store(investigator, worked.id, { kind: 'compliance_verdict', inputs: { eirpCalculationId: theirCalc.body.calculation.id, limit: { source: 'stated', spec: { kind: 'eirp', eirpDbm: 17 }, citation: 'x' } } }).expect(400)
+    expect(b.body.error.message).toBe(`There is no stored calculation ${theirCalc.body.calculation.id} on this case.`)
+    const missing = '00000000-0000-4000-8000-00000000abcd'
+    const c = await store(investigator, worked.id, { kind: 'compliance_verdict', inputs: { eirpDbm: 20, limit: { source: 'station', stationId: missing } } }).expect(400)
+    expect(c.body.error.message).toBe(`There is no authorised station ${missing} in the licence register.`)
+    expect(await countOf(worked.id)).toBe(before)
+  })
+
+  it('refuses to build on a record that gives no EIRP estimate (a verdict), naming it', async () => {
+    const verdict = await store(investigator, worked.id, { kind: 'compliance_verdict', inputs: { eirpDbm: 20, limit: { source: 'stated', spec: { kind: 'eirp', eirpDbm: 17 }, citation: 'x' } } }).expect(201)
+    const res = await store(investigator, worked.id, { kind: 'exposure_screening', inputs: { eirpCalculationId: verdict.body.calculation.id, freqHz: 1e8, population: 'general-public', groundReflection: false, points: { source: 'typed', distancesM: [10] } } }).expect(400)
+    expect(res.body.error.message).toBe(`The stored calculation ${verdict.body.calculation.id} (compliance_verdict) gives no EIRP estimate.`)
+  })
+
+  it('refuses a fit with too few readings in the library’s words (400 calculation_refused)', async () => {
+    const res = await store(investigator, worked.id, { kind: 'eirp_fit', inputs: { readings: { source: 'typed', points: [{ distanceM: 100, receivedPowerDbm: -60 }] }, exponent: { kind: 'free' }, refDistanceM: 1, refLossDb: 40 } }).expect(400)
+    expect(res.body.error).toMatchObject({ code: 'calculation_refused' })
+    expect(res.body.error.message).toMatch(/at least 2 readings/)
+  })
+
+  it('stores every kind and recomputes each with no difference, from the record alone', async () => {
+    const m = await addMeasurement(investigator, worked.id, { bearingDeg: '90', bearingSigmaDeg: '3' })
+    const base = calculationResponseSchema.parse((await store(investigator, worked.id, { kind: 'eirp_single_point', inputs: eirpInputs }).expect(201)).body).calculation
+    const bodies = [
+      { kind: 'eirp_fit', inputs: { readings: { source: 'typed', points: [{ distanceM: 100, receivedPowerDbm: -60 }, { distanceM: 300, receivedPowerDbm: -75 }, { distanceM: 1000, receivedPowerDbm: -88 }] }, exponent: { kind: 'free' }, refDistanceM: 1, freqHz: '433.92 MHz' } },
+      { kind: 'source_locate', inputs: { observations: { source: 'typed', bearings: [{ latDeg: 46.8, lonDeg: 7.1, bearingDeg: 45 }, { latDeg: 46.8, lonDeg: 7.13, bearingDeg: 315 }, { latDeg: 46.78, lonDeg: 7.115, bearingDeg: 0 }] }, bearingSigmaDeg: 3 } },
+      { kind: 'coexistence', inputs: { eirpCalculationId: base.id, distanceM: '2 km', model: { kind: 'cost231-hata', freqHz: '1800 MHz', txHeightM: 30, rxHeightM: 1.5, cityCorrectionDb: 3 }, victimNoise: { kind: 'noise-figure', bandwidthHz: '200 kHz', noiseFigureDb: 9 }, criterion: { kind: 'named', id: 'i-n-minus-10' } } },
+      { kind: 'exposure_screening', inputs: { eirpCalculationId: base.id, freqHz: '100 MHz', population: 'general-public', groundReflection: true, points: { source: 'measurements', measurementIds: [m.id], sourcePosition: SOURCE } } },
+      { kind: 'compliance_verdict', inputs: { eirpCalculationId: base.id, limit: { source: 'stated', spec: { kind: 'erp', erpDbm: '1 W' }, citation: 'Licence condition 2' } } },
+    ]
+    for (const body of bodies) {
+      const res = await store(investigator, worked.id, body)
+      expect(res.status, JSON.stringify(res.body)).toBe(201)
+      const recompute = recomputeResponseSchema.parse((await investigator.get(`/api/calculations/${res.body.calculation.id}/recompute`).expect(200)).body).recompute
+      expect(recompute.differs, `${body.kind}: ${JSON.stringify(recompute.differences.filter((d) => d.differs))}`).toBe(false)
+      expect(recompute.refused).toBeNull()
+      expect(recompute.differences.length).toBeGreaterThan(3)
+    }
+    const ops = await opsCheck(worked.id)
+    expect(ops.code, ops.out).toBe(0)
   })
 })

@@ -63,7 +63,7 @@ async function caseIn(target: 'received' | 'triaged' | 'assigned' | 'field_work'
     [supervisor, 'triage', { priority: 2 }],
     [supervisor, 'assign', { investigatorId }],
     [investigator, 'start-field-work', {}],
-    [investigator, 'propose-finding', { reason: 'Faulty masthead amplifier at the marina, 180 m away.' }],
+    [investigator, 'propose-finding', { sourceDescription: 'A faulty masthead amplifier', recommendedAction: 'advise_operator', summary: 'Faulty masthead amplifier at the marina, 180 m away.' }],
   ]
   const order = ['received', 'triaged', 'assigned', 'field_work', 'finding_proposed']
   const steps = target === 'returned' ? 5 : target === 'closed' ? 5 : order.indexOf(target)
@@ -120,7 +120,7 @@ describe('the whole path of a case', () => {
 
   it('returns a finding for more work, and the investigator proposes again', async () => {
     const f = await caseIn('returned')
-    expect((await act(investigator, f.id, 'propose-finding', { reason: 'Second site measured; same source.' })).status).toBe(200)
+    expect((await act(investigator, f.id, 'propose-finding', { sourceDescription: 'A faulty masthead amplifier', recommendedAction: 'advise_operator', summary: 'Second site measured; same source.' })).status).toBe(200)
     expect((await state(f.id)).status).toBe('finding_proposed')
   })
 
@@ -151,7 +151,7 @@ describe('reopening after the investigator has left', () => {
     const leaver = await signIn(t, leaverUser)
     const f = await fileHere()
     expect((await act(supervisor, f.id, 'assign', { investigatorId: leaverId })).status).toBe(200)
-    expect((await act(leaver, f.id, 'propose-finding', { reason: 'Nothing found on three visits.' })).status).toBe(200)
+    expect((await act(leaver, f.id, 'propose-finding', { sourceDescription: 'A faulty masthead amplifier', recommendedAction: 'advise_operator', summary: 'Nothing found on three visits.' })).status).toBe(200)
     expect((await act(supervisor, f.id, 'close', { resolution: 'no_interference_found', reason: 'We measured three times and found nothing.' })).status).toBe(200)
     await admin.patch(`/api/admin/users/${leaverId}`).send({ active: false }).expect(200)
     const res = await act(supervisor, f.id, 'reopen', { reason: 'It is back every evening.' })
@@ -288,7 +288,7 @@ describe('triage work', () => {
     const closed = await fileHere()
     for (const c of [open1, open2, closed]) expect((await act(supervisor, c.id, 'assign', { investigatorId: newcomerId })).status).toBe(200)
     const newcomer = await signIn(t, newcomerUser)
-    expect((await act(newcomer, closed.id, 'propose-finding', { reason: 'Nothing there.' })).status).toBe(200)
+    expect((await act(newcomer, closed.id, 'propose-finding', { sourceDescription: 'A faulty masthead amplifier', recommendedAction: 'advise_operator', summary: 'Nothing there.' })).status).toBe(200)
     expect((await act(supervisor, closed.id, 'close', { resolution: 'no_interference_found', reason: 'Nothing found.' })).status).toBe(200)
     const after = await supervisor.get(`/api/cases/${f.id}/investigators`).expect(200)
     expect(after.body.investigators.find((i: { id: string }) => i.id === newcomerId).openCases).toBe(2)

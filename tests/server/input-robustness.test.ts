@@ -135,7 +135,7 @@ async function caseIn(state: CaseState): Promise<string> {
   if (state === 'received') return f.id
   await move(supervisor, 'assign', { investigatorId: ids.investigatorId })
   if (state === 'assigned') return f.id
-  await move(investigator, 'propose-finding', { reason: 'Faulty amplifier at the marina.' })
+  await move(investigator, 'propose-finding', { sourceDescription: 'A faulty masthead amplifier', recommendedAction: 'advise_operator', summary: 'Faulty amplifier at the marina.' })
   if (state === 'finding_proposed') return f.id
   await move(supervisor, 'close', { resolution: 'source_corrected', reason: 'The owner replaced it.' })
   return f.id
@@ -236,7 +236,7 @@ const FUZZ: FuzzRow[] = [
   caseRow('merge', 'received', () => ({ intoCaseId: ids.mergeTargetId })),
   caseRow('dismiss', 'received', () => ({ resolution: 'referred', reason: 'For the aviation authority' })),
   caseRow('start-field-work', 'assigned', () => ({})),
-  caseRow('propose-finding', 'assigned', () => ({ reason: 'Found it' })),
+  caseRow('propose-finding', 'assigned', () => ({ sourceDescription: 'A faulty masthead amplifier', sourceLatDeg: '48.1', sourceLonDeg: '-31.35', calculationIds: [], evidenceIds: [], recommendedAction: 'advise_operator', summary: 'Found it' })),
   caseRow('return-finding', 'finding_proposed', () => ({ reason: 'More work' })),
   caseRow('close', 'finding_proposed', () => ({ resolution: 'source_corrected', reason: 'Fixed' })),
   caseRow('reopen', 'closed', () => ({ reason: 'Back again' })),

@@ -6,11 +6,12 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import request from 'supertest'
 import { regionMapSchema, regionSchema, type RegionMap } from '../../shared/schemas/region'
 import { createDb } from '../../server/db/client'
+import { createApp } from '../../server/app'
+import { ConfigError, loadEnv, tileOrigin } from '../../server/config/env'
 import { presentRegionMap, saveRegion } from '../../server/modules/regions/regions.service'
 import { DEMO_OFFICES } from '../../ops/seed-demo'
 import { DEMO_OFFICE_AREAS, DEMO_REGION_MAP, seedDemoRegion } from '../../ops/seed-demo-region'
-import { boxOfGeometries, positionsOf } from '../../web/src/features/map/lib/map-box'
-import { createProjection } from '../../web/src/features/map/lib/projection'
+import { boxOfGeometries, positionsOf } from '../../web/src/components/map/lib/map-box'
 import { createTestContext, uniqueAddress, type TestContext } from '../support/harness'
 import { makeOffice, makeUser, signIn } from '../support/factories'
 
@@ -95,7 +96,27 @@ describe('GET /api/region', () => {
     expect(regionMapSchema.parse(map)).toEqual({
       type: 'FeatureCollection',
       features: [{ type: 'Feature', geometry: { type: 'Point', coordinates: [20, 10] }, properties: { kind: 'office', name: 'Upland' } }],
+      basemap: { kind: 'offline' },
     })
+  })
+
+  it('names the offline basemap while no tile server is configured', async () => {
+    const res = await anonymous().get('/api/region')
+    expect(res.body.basemap).toEqual({ kind: 'offline' })
+    expect(res.headers['content-security-policy']).toMatch(/img-src 'self' data: blob:;/)
+  })
+
+  it('names the configured tile server and its credit, and lets the browser load its tiles (CSP img-src)', async () => {
+    const mapTiles = { urlTemplate: 'https://{s}.tiles.example.org/base/{z}/{x}/{y}.png', attribution: 'Map data © Example <contributors>' }
+    const handle = createApp({ pool: t.pool, boss: t.boss, sessionSecret: 'test-session-secret-that-is-long-enough-0123', publicUrl: 'http://127.0.0.1:3999', trustProxy: 1, mapTiles })
+    try {
+      const res = await request(handle.app).get('/api/region').set('X-Forwarded-For', uniqueAddress())
+      expect(res.status).toBe(200)
+      expect(regionMapSchema.parse(res.body).basemap).toEqual({ kind: 'tiles', ...mapTiles })
+      expect(res.headers['content-security-policy']).toContain("img-src 'self' data: blob: https://*.tiles.example.org;")
+    } finally {
+      handle.close()
+    }
   })
 })
 
@@ -128,8 +149,11 @@ describe('region data on write', () => {
 
 describe('the demo region', () => {
   const box = boxOfGeometries([DEMO_REGION_MAP.outline])!
-  const projection = createProjection(box)
-  const inside = ([lon, lat]: [number, number]) => projection.contains({ latDeg: lat, lonDeg: lon })
+  const inside = ([lon, lat]: [number, number]) => lat >= box.southDeg && lat <= box.northDeg && lon >= box.westDeg && lon <= box.eastDeg
+  // The areas were split on an equirectangular drawing of the box (standard parallel at its
+  // middle): x = (λ − λ0)·cos φ1, y = φ, in degrees.
+  const cosPhi1 = Math.cos((((box.southDeg + box.northDeg) / 2) * Math.PI) / 180)
+  const project = (p: { latDeg: number; lonDeg: number }) => ({ x: (p.lonDeg - box.westDeg) * cosPhi1, y: p.latDeg })
 
   it('passes the shared schema, and its coast, places and office areas lie inside its outline’s box', () => {
     expect(regionSchema.parse(DEMO_REGION_MAP)).toEqual(DEMO_REGION_MAP)
@@ -158,17 +182,49 @@ describe('the demo region', () => {
   })
 
   it('splits the offices’ areas where both offices are equally far on the map (the nearest-office rule)', () => {
-    const [harrowmere, kestrel] = DEMO_OFFICES.map((o) => projection.project({ latDeg: o.centreLatDeg, lonDeg: o.centreLonDeg }))
+    const [harrowmere, kestrel] = DEMO_OFFICES.map((o) => project({ latDeg: o.centreLatDeg, lonDeg: o.centreLonDeg }))
     const shared = positionsOf(DEMO_OFFICE_AREAS.Harrowmere!.coordinates).filter(([lon, lat]) =>
       positionsOf(DEMO_OFFICE_AREAS['Kestrel Bay']!.coordinates).some(([lon2, lat2]) => lon === lon2 && lat === lat2),
     )
     expect(new Set(shared.map(String)).size).toBe(2)
     for (const [lon, lat] of shared) {
-      const p = projection.project({ latDeg: lat, lonDeg: lon })
+      const p = project({ latDeg: lat, lonDeg: lon })
       const toH = Math.hypot(p.x - harrowmere!.x, p.y - harrowmere!.y)
       const toK = Math.hypot(p.x - kestrel!.x, p.y - kestrel!.y)
-      // the split's positions are written to 0.001°, about 1 map unit here
-      expect(Math.abs(toH - toK)).toBeLessThan(2)
+      // the split's positions are written to 0.001°
+      expect(Math.abs(toH - toK)).toBeLessThan(0.003)
     }
+  })
+})
+
+describe('map tile configuration (MAP_TILE_URL, MAP_TILE_ATTRIBUTION)', () => {
+  const complete = {
+    PUBLIC_URL: 'http://127.0.0.1:3000',
+    DATABASE_URL: 'postgres://u:p@127.0.0.1:5432/db',
+    SESSION_SECRET: 'x'.repeat(40),
+    S3_BUCKET: 'evidence',
+    S3_ACCESS_KEY_ID: 'key',
+    S3_SECRET_ACCESS_KEY: 'secret',
+    SMTP_URL: 'smtp://127.0.0.1:2525',
+  }
+
+  it('is optional: unset, the offline basemap is used', () => {
+    expect(loadEnv(complete).MAP_TILE_URL).toBeUndefined()
+  })
+
+  it('takes an http(s) template with {z}, {x} and {y} and a credit', () => {
+    const env = loadEnv({ ...complete, MAP_TILE_URL: 'https://tiles.example.org/{z}/{x}/{y}.png', MAP_TILE_ATTRIBUTION: 'Map data © Example' })
+    expect(env.MAP_TILE_URL).toBe('https://tiles.example.org/{z}/{x}/{y}.png')
+    expect(tileOrigin(env.MAP_TILE_URL!)).toBe('https://tiles.example.org')
+    expect(tileOrigin('http://{s}.tiles.example.org:8080/{z}/{x}/{y}.png')).toBe('http://*.tiles.example.org:8080')
+  })
+
+  it.each([
+    ['a template without {y}', { MAP_TILE_URL: 'https://tiles.example.org/{z}/{x}.png', MAP_TILE_ATTRIBUTION: 'Credit' }, /MAP_TILE_URL:/],
+    ['a non-http template', { MAP_TILE_URL: 'ftp://tiles.example.org/{z}/{x}/{y}.png', MAP_TILE_ATTRIBUTION: 'Credit' }, /MAP_TILE_URL:/],
+    ['a template without its credit', { MAP_TILE_URL: 'https://tiles.example.org/{z}/{x}/{y}.png' }, /MAP_TILE_ATTRIBUTION:/],
+  ])('refuses %s, naming the variable', (_what, change, name) => {
+    expect(() => loadEnv({ ...complete, ...change })).toThrow(ConfigError)
+    expect(() => loadEnv({ ...complete, ...change })).toThrow(name)
   })
 })

@@ -286,9 +286,9 @@ describe('the complainant’s view through a whole case', () => {
     await move(sup, 'assign', { investigatorId })
     await move(inv, 'start-field-work', {})
     await inv.post(`/api/cases/${id}/notes`).send({ body: 'Can we visit on Tuesday?', visibility: 'complainant', requestsInformation: true }).expect(201)
-    await move(inv, 'propose-finding', { reason: 'INTERNAL-finding-draft' })
+    await move(inv, 'propose-finding', { sourceDescription: 'A faulty masthead amplifier', recommendedAction: 'advise_operator', summary: 'INTERNAL-finding-draft' })
     await move(sup, 'return-finding', { reason: 'INTERNAL-return-reason' })
-    await move(inv, 'propose-finding', { reason: 'INTERNAL-finding-final' })
+    await move(inv, 'propose-finding', { sourceDescription: 'A faulty masthead amplifier', recommendedAction: 'advise_operator', summary: 'INTERNAL-finding-final' })
     await move(sup, 'close', { resolution: 'source_corrected', reason: 'The faulty amplifier was replaced.' })
 
     const byLink = (await request(t.app).get(`/api/track/${token}`).expect(200)).body.report

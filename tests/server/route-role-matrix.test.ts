@@ -35,6 +35,12 @@ interface Ids {
   trackingToken: string
 }
 
+/** A well-formed import request (the register's routes check the role before the upload they name). */
+const MATRIX_IMPORT = {
+  delimiter: 'comma',
+  mapping: { fields: { stationCode: { column: 'code' }, licensee: { column: 'holder' }, latitude: { column: 'lat' }, longitude: { column: 'lon' }, lowFreq: { column: 'low' }, highFreq: { column: 'high' }, eirp: { column: 'eirp' } } },
+}
+
 const MATRIX: Row[] = [
   { route: 'GET /api/health', expect: [200, 200, 200, 200, 200] },
   { route: 'GET /api/me', expect: [200, 200, 200, 200, 200] }, // anonymous: { user: null }
@@ -87,7 +93,7 @@ const MATRIX: Row[] = [
   { route: 'POST /api/cases/:id/merge', path: (ids) => `/api/cases/${ids.otherCaseId}/merge`, body: { version: 1, intoCaseId: '00000000-0000-4000-8000-000000000000' }, expect: [401, 403, 404, 404, 403] },
   { route: 'POST /api/cases/:id/dismiss', path: (ids) => `/api/cases/${ids.otherCaseId}/dismiss`, body: { version: 1, resolution: 'referred', reason: 'For the aviation authority' }, expect: [401, 403, 404, 404, 403] },
   { route: 'POST /api/cases/:id/start-field-work', path: (ids) => `/api/cases/${ids.ownCaseId}/start-field-work`, body: { version: 1 }, expect: [401, 403, 403, 403, 403] },
-  { route: 'POST /api/cases/:id/propose-finding', path: (ids) => `/api/cases/${ids.ownCaseId}/propose-finding`, body: { version: 1, reason: 'Found it' }, expect: [401, 403, 403, 403, 403] },
+  { route: 'POST /api/cases/:id/propose-finding', path: (ids) => `/api/cases/${ids.ownCaseId}/propose-finding`, body: { version: 1, sourceDescription: 'A faulty masthead amplifier', recommendedAction: 'advise_operator', summary: 'Found it' }, expect: [401, 403, 403, 403, 403] },
   { route: 'POST /api/cases/:id/return-finding', path: (ids) => `/api/cases/${ids.ownCaseId}/return-finding`, body: { version: 1, reason: 'More work' }, expect: [401, 403, 403, 409, 403] },
   { route: 'POST /api/cases/:id/close', path: (ids) => `/api/cases/${ids.ownCaseId}/close`, body: { version: 1, resolution: 'source_corrected', reason: 'Fixed' }, expect: [401, 403, 403, 409, 403] },
   { route: 'POST /api/cases/:id/reopen', path: (ids) => `/api/cases/${ids.ownCaseId}/reopen`, body: { version: 1, reason: 'Back again' }, expect: [401, 403, 403, 409, 403] },
@@ -100,6 +106,8 @@ const MATRIX: Row[] = [
     expect: [401, 403, 403, 409, 403],
   },
   { route: 'GET /api/cases/:id/calculations', path: (ids) => `/api/cases/${ids.otherCaseId}/calculations`, expect: [401, 403, 404, 404, 200] },
+  // findings: staff of the case's office and administrators read them (another office's case 404); proposing is the propose-finding move
+  { route: 'GET /api/cases/:id/findings', path: (ids) => `/api/cases/${ids.otherCaseId}/findings`, expect: [401, 403, 404, 404, 200] },
   { route: 'GET /api/calculations/:id/recompute', path: () => '/api/calculations/00000000-0000-4000-8000-000000000000/recompute', expect: [401, 403, 404, 404, 404] },
   // the national band-limit list: staff read it; supervisors and administrators edit (an entry that does not exist: 404)
   { route: 'GET /api/band-limits', expect: [401, 403, 200, 200, 200] },
@@ -110,6 +118,66 @@ const MATRIX: Row[] = [
     expect: [401, 403, 403, 404, 404],
   },
   { route: 'GET /api/band-limits/:id/history', path: () => '/api/band-limits/00000000-0000-4000-8000-000000000000/history', expect: [401, 403, 404, 404, 404] },
+  // the licence register: staff read it; only administrators import (this app has no file store: a form that is not multipart is 400 before it)
+  { route: 'POST /api/station-register/uploads', body: {}, expect: [401, 403, 403, 403, 400] },
+  { route: 'POST /api/station-register/uploads/:id/inspect', path: () => '/api/station-register/uploads/00000000-0000-4000-8000-000000000000/inspect', body: {}, expect: [401, 403, 403, 403, 404] },
+  {
+    route: 'POST /api/station-register/uploads/:id/preview',
+    path: () => '/api/station-register/uploads/00000000-0000-4000-8000-000000000000/preview',
+    body: MATRIX_IMPORT,
+    expect: [401, 403, 403, 403, 404],
+  },
+  {
+    route: 'POST /api/station-register/uploads/:id/confirm',
+    path: () => '/api/station-register/uploads/00000000-0000-4000-8000-000000000000/confirm',
+    body: MATRIX_IMPORT,
+    expect: [401, 403, 403, 403, 404],
+  },
+  { route: 'GET /api/station-register/stations', expect: [401, 403, 200, 200, 200] },
+  { route: 'GET /api/station-register/stations/:id', path: () => '/api/station-register/stations/00000000-0000-4000-8000-000000000000', expect: [401, 403, 404, 404, 404] },
+  { route: 'GET /api/station-register/versions', expect: [401, 403, 200, 200, 200] },
+  { route: 'GET /api/station-register/versions/:version', path: () => '/api/station-register/versions/999999999', expect: [401, 403, 404, 404, 404] },
+  {
+    route: 'POST /api/station-register/candidates',
+    body: { victimPosition: { latDeg: 47.7, lonDeg: -30.6 }, lowFreqHz: '446 MHz', highFreqHz: '446.2 MHz' },
+    expect: [401, 403, 200, 200, 200],
+  },
+  // an office's equipment register: its staff read it, its supervisor and administrators keep it (the other office: 404 to staff)
+  { route: 'GET /api/offices/:id/equipment', path: (ids) => `/api/offices/${ids.otherOfficeId}/equipment`, expect: [401, 403, 404, 404, 200] },
+  {
+    route: 'POST /api/offices/:id/equipment',
+    path: (ids) => `/api/offices/${ids.otherOfficeId}/equipment`,
+    body: { item: { name: 'Matrix analyser', type: 'analyser', calibrationDueOn: '2030-01-01' } },
+    expect: [401, 403, 404, 404, 201],
+  },
+  {
+    route: 'PATCH /api/equipment/:id',
+    path: () => '/api/equipment/00000000-0000-4000-8000-000000000000',
+    body: { item: { name: 'Matrix analyser', type: 'analyser' }, version: 1 },
+    expect: [401, 403, 404, 404, 404],
+  },
+  { route: 'GET /api/equipment/:id/history', path: () => '/api/equipment/00000000-0000-4000-8000-000000000000/history', expect: [401, 403, 404, 404, 404] },
+  // a case's measurements: staff of its office read them; the assigned investigator or the supervisor record them while
+  // the case is worked (the own new report: the unassigned investigator 403, the supervisor 409, the administrator 403)
+  { route: 'GET /api/cases/:id/measurements', path: (ids) => `/api/cases/${ids.otherCaseId}/measurements`, expect: [401, 403, 404, 404, 200] },
+  {
+    route: 'POST /api/cases/:id/measurements',
+    path: (ids) => `/api/cases/${ids.ownCaseId}/measurements`,
+    body: { measurement: { takenAt: '2026-01-05T10:00:00Z', latDeg: '51', lonDeg: '-1', freqHz: '433.92 MHz', reading: { unit: 'dBm', value: '-60' }, antenna: { source: 'gain', antennaGainDbi: '0' } } },
+    expect: [401, 403, 403, 409, 403],
+  },
+  {
+    route: 'PATCH /api/measurements/:id',
+    path: () => '/api/measurements/00000000-0000-4000-8000-000000000000',
+    body: { measurement: { takenAt: '2026-01-05T10:00:00Z', latDeg: '51', lonDeg: '-1', freqHz: '433.92 MHz', reading: { unit: 'dBm', value: '-60' } }, version: 1 },
+    expect: [401, 403, 404, 404, 404],
+  },
+  {
+    route: 'POST /api/measurements/:id/corrections',
+    path: () => '/api/measurements/00000000-0000-4000-8000-000000000000/corrections',
+    body: { measurement: { takenAt: '2026-01-05T10:00:00Z', latDeg: '51', lonDeg: '-1', freqHz: '433.92 MHz', reading: { unit: 'dBm', value: '-60' } } },
+    expect: [401, 403, 404, 404, 404],
+  },
 ]
 
 let t: TestContext

@@ -27,6 +27,7 @@ import { createTestContext, uniqueAddress, type TestContext } from '../support/h
 import { caseVersion, fileReport, validReport } from '../support/cases'
 import { makeOffice, makeUser, reportNear, signIn, type Agent, type TestUser } from '../support/factories'
 import type { Office } from '../../server/db/schema'
+import { findingsResponseSchema } from '../../shared/schemas/findings'
 
 let t: TestContext
 let office: Office
@@ -88,7 +89,7 @@ describe('the answers of the API fit their view schemas', () => {
       [supervisor, 'triage', { priority: 3 }],
       [supervisor, 'assign', { investigatorId }],
       [investigator, 'start-field-work', {}],
-      [investigator, 'propose-finding', { reason: 'A faulty amplifier two houses away.' }],
+      [investigator, 'propose-finding', { sourceDescription: 'A faulty masthead amplifier', recommendedAction: 'advise_operator', summary: 'A faulty amplifier two houses away.' }],
       [supervisor, 'close', { resolution: 'source_corrected', reason: 'The owner replaced the amplifier.' }],
     ] as const) {
       expect((await step(agent, path, body)).status, path).toBe(200)
@@ -96,6 +97,9 @@ describe('the answers of the API fit their view schemas', () => {
     const detail = await investigator.get(`/api/cases/${f.id}`)
     expectFits(caseResponseSchema, detail)
     expect(detail.body.case.resolution).toBe('source_corrected')
+    const findings = await investigator.get(`/api/cases/${f.id}/findings`)
+    expectFits(findingsResponseSchema, findings)
+    expect(findings.body.current.review.outcome).toBe('approved')
   })
 
   it('offices, staff and users', async () => {

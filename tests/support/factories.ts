@@ -201,7 +201,16 @@ export async function makeCase(
         version = (await startFieldWork(ctx, inv!, filed.id, { version })).version
         break
       case 'proposeFinding':
-        version = (await proposeFinding(ctx, inv!, filed.id, { version, reason: 'Source found on site; details in the notes.' })).version
+        version = (
+          await proposeFinding(ctx, inv!, filed.id, {
+            version,
+            sourceDescription: 'A faulty amplifier on a neighbour’s mast',
+            recommendedAction: 'advise_operator',
+            calculationIds: [],
+            evidenceIds: [],
+            summary: 'Source found on site; details in the notes.',
+          })
+        ).version
         break
       case 'returnFinding':
         version = (await returnFinding(ctx, sup, filed.id, { version, reason: 'Measure once more at the other address.' })).version

@@ -9,6 +9,7 @@ import { startBoss } from '../../server/jobs/boss'
 import { DEMO_PASSWORD } from '../../ops/seed-demo'
 import type { Logger } from '../../server/log/logger'
 import type { ServiceContext } from '../../server/context'
+import type { ObjectStore } from '../../server/storage/object-store'
 
 export const DEMO = {
   admin: 'admin@quietband.test',
@@ -36,7 +37,7 @@ export interface TestContext {
 /** A mail queue of this test file's own, so workers of other files never take its messages. */
 export const testMailQueue = () => `mail-send-test-${process.pid}-${Math.random().toString(36).slice(2, 8)}`
 
-export async function createTestContext(opts: { mailboxDir?: string; publicUrl?: string; logger?: Logger } = {}): Promise<TestContext> {
+export async function createTestContext(opts: { mailboxDir?: string; publicUrl?: string; logger?: Logger; objectStore?: ObjectStore } = {}): Promise<TestContext> {
   const databaseUrl = inject('databaseUrl')
   const pool = createPool(databaseUrl, 5)
   const mailQueueName = testMailQueue()
@@ -52,12 +53,13 @@ export async function createTestContext(opts: { mailboxDir?: string; publicUrl?:
     mailQueue,
     trustProxy: 1,
     logger: opts.logger,
+    objectStore: opts.objectStore,
     // failed sign-ins answer at once here; the growing delay has its own tests (auth-lockout.test.ts)
     signInDelay: () => 0,
   })
   return {
     mailQueueName,
-    services: { pool, db: createDb(pool), boss, publicUrl: publicUrl.replace(/\/$/, ''), mailQueue, now: () => new Date() },
+    services: { pool, db: createDb(pool), boss, publicUrl: publicUrl.replace(/\/$/, ''), mailQueue, now: () => new Date(), objectStore: opts.objectStore },
     handle,
     app: handle.app,
     pool,

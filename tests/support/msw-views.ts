@@ -230,7 +230,7 @@ export function anonymousMe() {
  */
 export function regionMapResponse(region: 'configured' | null = 'configured'): RegionMap {
   const office = { type: 'Feature', geometry: { type: 'Point', coordinates: [-31.4, 48.1] }, properties: { kind: 'office', name: 'Tarnwick Field Office' } }
-  if (region === null) return regionMapSchema.parse({ type: 'FeatureCollection', features: [office] })
+  if (region === null) return regionMapSchema.parse({ type: 'FeatureCollection', features: [office], basemap: { kind: 'offline' } })
   const ring = (w: number, s: number, e: number, n: number) => [[[w, s], [e, s], [e, n], [w, n], [w, s]]]
   return regionMapSchema.parse({
     type: 'FeatureCollection',
@@ -240,5 +240,6 @@ export function regionMapResponse(region: 'configured' | null = 'configured'): R
       { type: 'Feature', geometry: { type: 'Point', coordinates: [-31.35, 48.12] }, properties: { kind: 'place', name: 'Tarnwick', placeKind: 'town' } },
       office,
     ],
+    basemap: { kind: 'offline' },
   })
 }

@@ -4,8 +4,10 @@ import type { CaseAbilities, CaseDetail } from '../../shared/schemas/views'
 import { Component as CasePage } from '@/app/routes/case'
 import { paths } from '@/lib/paths'
 import { answer, apiError } from '../support/msw-server'
+import { measurementsResponse } from '../support/msw-measurements'
 import { abilities, caseResponse, IDS, investigatorsResponse, mergeCandidatesResponse, transferOfficesResponse } from '../support/msw-views'
 import { renderPage } from '../support/web-render'
+import { calculationsResponse, findingsResponse } from '../support/msw-findings'
 
 const CASE_URL = `/cases/${IDS.case}`
 
@@ -14,6 +16,9 @@ function serveTheCase(options: { abilities: CaseAbilities; changes?: Partial<Cas
   answer('get', '/api/cases/:id', caseResponse({ ...options.changes, abilities: options.abilities }))
   answer('get', '/api/cases/:id/investigators', investigatorsResponse())
   answer('get', '/api/cases/:id/merge-candidates', mergeCandidatesResponse())
+  answer('get', '/api/cases/:id/findings', findingsResponse())
+  answer('get', '/api/cases/:id/calculations', calculationsResponse([]))
+  answer('get', '/api/cases/:id/measurements', measurementsResponse())
   return {
     transferOffices: answer('get', '/api/cases/:id/transfer-offices', transferOfficesResponse(options.otherOffices === false ? [] : undefined)),
   }
@@ -125,6 +130,10 @@ describe('the case page’s action panel', () => {
     const assigned = { status: 'assigned', investigatorId: IDS.investigatorIlse, investigatorName: 'Ilse Brannock' } as const
     let current = caseResponse({ ...assigned, version: 7, abilities: abilities('startFieldWork', 'proposeFinding', 'addInternalNote') })
     const reads = answer('get', '/api/cases/:id', () => current)
+    answer('get', '/api/cases/:id/findings', findingsResponse())
+    answer('get', '/api/cases/:id/calculations', calculationsResponse([]))
+    answer('get', '/api/cases/:id/measurements', measurementsResponse())
+  answer('get', '/api/cases/:id/measurements', measurementsResponse())
     answer('post', '/api/cases/:id/start-field-work', () =>
       apiError(409, { code: 'stale_version', message: 'The case was changed by someone else. Reload it and try again.' }),
     )

@@ -34,6 +34,8 @@ describe('timeline lanes', () => {
     expect(eventTitle(ev('assign', 'internal', { investigatorName: 'Marta Ferreira' }))).toBe('Assigned to Marta Ferreira')
     expect(eventTitle(ev('calculation_stored', 'internal', { calculationKind: 'eirp_fit' }))).toBe('Calculation stored')
     expect(eventTitle(ev('close', 'internal', { resolution: 'source_corrected' }))).toBe('Approved and closed: Source found and corrected')
+    expect(eventTitle(ev('proposeFinding', 'internal', { recommendedAction: 'formal_warning' }))).toBe('Finding proposed: Send a formal warning')
+    expect(eventTitle(ev('proposeFinding', 'internal', { recommendedAction: 'shrug' }))).toBe('Finding proposed')
   })
 
   it('names a merged report following its case, and a report filed far from every office', () => {

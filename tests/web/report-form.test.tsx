@@ -70,6 +70,24 @@ async function fillInAGoodReport(user: ReturnType<typeof renderPage>['user'], ch
 }
 
 describe('the public report form', () => {
+  it('shows the map with the region’s offices, and the typed position on it (the typed figures lead)', async () => {
+    const { user } = await openTheReportPage()
+    const map = await screen.findByRole('region', { name: 'Map: pick where it happens' }, { timeout: 10_000 })
+    expect(map).toHaveClass('leaflet-container')
+    expect(within(screen.getByRole('list', { name: 'Key to the map' })).getAllByRole('listitem').map((li) => li.textContent)).toEqual([
+      'Region boundary and land',
+      '1 field office',
+    ])
+    expect(screen.getByText('No place picked on the map yet.')).toBeInTheDocument()
+    await user.type(screen.getByLabelText('Latitude'), GOOD.latDeg)
+    await user.type(screen.getByLabelText('Longitude'), '-31.35')
+    expect(await screen.findByText('Marker at 48.1000° N, 31.3500° W')).toBeInTheDocument()
+    expect(within(map).getByRole('img', { name: 'The place you gave' })).toBeInTheDocument()
+    await user.clear(screen.getByLabelText('Latitude'))
+    await user.type(screen.getByLabelText('Latitude'), '51.5')
+    expect(await screen.findByText('51.5000° N, 31.3500° W is outside Vellmark Coast. It is still accepted.')).toBeInTheDocument()
+  })
+
   it('refuses a hexadecimal frequency in the browser with the shared parser’s message, and sends nothing', async () => {
     const sent = answer('post', '/api/reports', submittedReport(), { status: 201 })
     const { user } = await openTheReportPage()

@@ -2,7 +2,7 @@
  * Every query of the calculations module. Records are only inserted and read (the table is
  * append-only in the database); no authorization here.
  */
-import { and, asc, eq, gt } from 'drizzle-orm'
+import { and, asc, eq, gt, inArray } from 'drizzle-orm'
 import type { Db } from '../../db/client'
 import { calculations, users, type CalculationRow } from '../../db/schema'
 
@@ -45,4 +45,13 @@ export function calculationsPage(db: Db, q: { afterId?: string; caseId?: string;
     .where(and(q.afterId ? gt(calculations.id, q.afterId) : undefined, q.caseId ? eq(calculations.caseId, q.caseId) : undefined))
     .orderBy(asc(calculations.id))
     .limit(q.limit)
+}
+
+/** The records of one case with these ids (records of other cases are not returned). */
+export async function calculationsOfCaseByIds(db: Db, caseId: string, ids: readonly string[]): Promise<CalculationRow[]> {
+  if (ids.length === 0) return []
+  return db
+    .select()
+    .from(calculations)
+    .where(and(eq(calculations.caseId, caseId), inArray(calculations.id, [...ids])))
 }

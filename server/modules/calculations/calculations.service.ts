@@ -3,7 +3,7 @@
  * calculation itself from the inputs (shared/calculations → shared/radio); the author is the
  * session's user and the time is the database's.
  */
-import { CalculationRefused, runNewCalculation, type BandLimitReference, type NewCalculation, type ReferenceLookup } from '../../../shared/calculations/kinds'
+import { CalculationRefused, runNewCalculation, type NewCalculation, type ReferenceLookup } from '../../../shared/calculations/kinds'
 import { RADIO_LIBRARY_VERSION } from '../../../shared/radio'
 import type { CalculationView, RecomputeView } from '../../../shared/schemas/views'
 import type { ServiceContext } from '../../context'
@@ -14,8 +14,9 @@ import type { Actor } from '../../policy/policy'
 import { loadVisibleCase } from '../cases/case-access'
 import { appendEvent } from '../cases/cases.repo'
 import { findUserById } from '../users/users.repo'
-import { findBandLimitByKey } from '../band-limits/band-limits.repo'
+import { candidateSourcesLookup } from '../stations/station-references'
 import type { Db } from '../../db/client'
+import { prefetchReferences } from './calculation-references'
 import { calculationsOfCase, findCalculation, insertCalculation } from './calculations.repo'
 import { presentCalculation } from './calculations.present'
 import { recomputeStored } from './recompute'
@@ -23,16 +24,14 @@ import { recomputeStored } from './recompute'
 export const calculationNotFound = () => notFound('calculation_not_found', 'No such calculation in your office.')
 
 /**
- * The references a calculation names, read from the office's registers as they are now (the
- * record keeps a copy, so later edits of a register never change it).
+ * The references a calculation names, read from the office's registers and the case as they are
+ * now (the record keeps a copy, so later edits of a register never change it).
  */
-async function registerReferences(db: Db, input: NewCalculation): Promise<ReferenceLookup> {
-  let bandLimit: BandLimitReference | undefined
-  if (input.kind === 'compliance_verdict' && input.inputs.limit.source === 'band-limit') {
-    const row = await findBandLimitByKey(db, input.inputs.limit.bandLimitId)
-    bandLimit = row && { key: row.key, title: row.title, spec: row.spec, citation: row.citation, verified: row.verified, statusNote: row.statusNote, version: row.version }
-  }
-  return { bandLimit: (key) => (bandLimit?.key === key ? bandLimit : undefined) }
+async function registerReferences(db: Db, caseId: string, input: NewCalculation): Promise<{ lookup: ReferenceLookup; measurementIds: string[] }> {
+  const { lookup, measurementIds } = await prefetchReferences(db, caseId, input)
+  // candidate sources: the licence register's stations overlapping the interference (server/modules/stations)
+  const candidates = input.kind === 'candidate_sources' ? await candidateSourcesLookup(db, input.inputs) : {}
+  return { lookup: { ...lookup, ...candidates }, measurementIds }
 }
 
 /** Runs a calculation on the case and stores it as a record, with an internal timeline event. */
@@ -41,9 +40,10 @@ export async function storeCalculation(ctx: ServiceContext, actor: Actor, caseId
     const c = await loadVisibleCase(db, actor, caseId)
     if (!mayStoreCalculation(actor, c)) throw forbidden('Only the assigned investigator or the office supervisor can store calculations on this case.')
     if (!calculationAllowedIn(c.status)) throw conflict('invalid_state', 'Calculations are stored while the case is being worked (assigned, in field work or sent back).')
+    const named = await registerReferences(db, c.id, input)
     let result
     try {
-      result = runNewCalculation(input, await registerReferences(db, input))
+      result = runNewCalculation(input, named.lookup)
     } catch (e) {
       if (e instanceof CalculationRefused) throw badRequest('calculation_refused', e.message)
       throw e
@@ -58,6 +58,7 @@ export async function storeCalculation(ctx: ServiceContext, actor: Actor, caseId
       libraryVersion: RADIO_LIBRARY_VERSION,
       authorUserId: actor.id,
       referenceCopies: result.references,
+      measurementIds: named.measurementIds,
     })
     const name = (await findUserById(db, actor.id))?.name ?? 'Unknown user'
     await appendEvent(db, {

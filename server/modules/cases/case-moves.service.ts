@@ -7,6 +7,7 @@
 import type pg from 'pg'
 import { CASE_MOVE_LABELS, CASE_STATE_LABELS, moveAllowedFrom, stateAfter, type CaseMoveName, type Resolution } from '../../../shared/domain/case-lifecycle'
 import type { Priority } from '../../../shared/domain/services'
+import type { ProposeFinding } from '../../../shared/schemas/findings'
 import { withTransaction, type Db } from '../../db/client'
 import type { CaseRow } from '../../db/schema'
 import type { ServiceContext } from '../../context'
@@ -24,6 +25,7 @@ import {
 import { mayMakeMove, type CaseActor } from '../../policy/case-policy'
 import { findOffice } from '../offices/offices.repo'
 import { activeStaffOf, findUserById } from '../users/users.repo'
+import { recordFinding } from '../findings/findings.service'
 import { loadVisibleCase, staleVersion } from './case-access'
 import { appendEvent, lockCase, lockCasesInIdOrder, mergedReportsOf, repointMergedReports, updateCaseIfVersion, type NewCase } from './cases.repo'
 import { CLOCK_COLUMNS, dueAtFor } from './due'
@@ -238,15 +240,25 @@ export function startFieldWork(ctx: ServiceContext, actor: CaseActor, caseId: st
   return makeMove(ctx, actor, caseId, 'startFieldWork', input.version, async () => ({}))
 }
 
-/** The investigator proposes a finding; the office's supervisors are asked to review it. */
-export function proposeFinding(ctx: ServiceContext, actor: CaseActor, caseId: string, input: { version: number; reason: string }) {
-  return makeMove(ctx, actor, caseId, 'proposeFinding', input.version, async ({ c, db, mail, actorName }) => ({
-    body: input.reason,
-    after: async (u) => {
-      const supervisors = await activeStaffOf(db, c.officeId, 'supervisor')
-      for (const s of supervisors) await mail(findingProposedMail(s, u, actorName, caseLink(ctx, u.id)))
-    },
-  }))
+/**
+ * The investigator proposes a finding; the office's supervisors are asked to review it. The
+ * structured finding is written as a new row of `findings` in the move's transaction (a link
+ * to another case's calculation refuses the whole move); its summary is the timeline's text.
+ */
+export function proposeFinding(ctx: ServiceContext, actor: CaseActor, caseId: string, input: ProposeFinding) {
+  return makeMove(ctx, actor, caseId, 'proposeFinding', input.version, async ({ c, db, mail, actorName }) => {
+    // the move's policy has allowed only the assigned investigator (a signed-in user) here
+    if (actor.role === 'tracking_link') throw forbidden('Only the assigned investigator can propose a finding.')
+    const finding = await recordFinding(db, c, actor.id, input)
+    return {
+      body: input.summary,
+      data: { findingId: finding.id, recommendedAction: finding.recommendedAction, calculationIds: finding.calculationIds },
+      after: async (u) => {
+        const supervisors = await activeStaffOf(db, c.officeId, 'supervisor')
+        for (const s of supervisors) await mail(findingProposedMail(s, u, actorName, caseLink(ctx, u.id)))
+      },
+    }
+  })
 }
 
 /** Sends a finding back for more work: the case returns to its investigator, who is e-mailed. */

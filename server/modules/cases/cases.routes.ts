@@ -7,13 +7,13 @@ import {
   dismissSchema,
   mergeSchema,
   noteSchema,
-  proposeFindingSchema,
   reopenSchema,
   returnFindingSchema,
   startFieldWorkSchema,
   transferSchema,
   triageSchema,
 } from '../../../shared/schemas/cases'
+import { proposeFindingSchema } from '../../../shared/schemas/findings'
 import type { ServiceContext } from '../../context'
 import { actorOf, requireRole } from '../../http/authenticate'
 import { parseWith } from '../../http/validate'

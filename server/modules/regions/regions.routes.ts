@@ -1,5 +1,6 @@
 import { Router } from 'express'
 import type { ServiceContext } from '../../context'
+import type { Basemap } from '../../../shared/schemas/region'
 import { getRegionMap } from './regions.service'
 
 /**
@@ -10,11 +11,12 @@ import { getRegionMap } from './regions.service'
  */
 export const REGION_MAP_MAX_AGE_S = 300
 
-export function regionRoutes(ctx: ServiceContext): Router {
+/** `basemap`: the tile server from the configuration (MAP_TILE_URL), or the offline basemap. */
+export function regionRoutes(ctx: ServiceContext, opts: { basemap?: Basemap } = {}): Router {
   const r = Router()
   // public: the report form needs it before anyone signs in
   r.get('/region', async (_req, res) => {
-    const map = await getRegionMap(ctx)
+    const map = await getRegionMap(ctx, opts.basemap)
     res.setHeader('Cache-Control', `public, max-age=${REGION_MAP_MAX_AGE_S}`)
     res.type('application/geo+json').send(JSON.stringify(map))
   })

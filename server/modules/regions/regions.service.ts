@@ -5,7 +5,7 @@
  */
 import type { Db } from '../../db/client'
 import type { ServiceContext } from '../../context'
-import { areaSchema, regionSchema, type AreaGeometry, type RegionFeature, type RegionInput, type RegionMap } from '../../../shared/schemas/region'
+import { OFFLINE_BASEMAP, areaSchema, regionSchema, type AreaGeometry, type Basemap, type RegionFeature, type RegionInput, type RegionMap } from '../../../shared/schemas/region'
 import { findRegion, listOfficesForMap, setOfficeArea, upsertRegion } from './regions.repo'
 
 export interface PublicOffice {
@@ -15,8 +15,11 @@ export interface PublicOffice {
   area: AreaGeometry | null
 }
 
-/** The FeatureCollection for a region (or none configured) and its offices. Pure. */
-export function presentRegionMap(r: RegionInput | null, officeRows: PublicOffice[]): RegionMap {
+/**
+ * The FeatureCollection for a region (or none configured) and its offices, with the basemap
+ * the server is configured with (the offline one unless a tile server is set). Pure.
+ */
+export function presentRegionMap(r: RegionInput | null, officeRows: PublicOffice[], basemap: Basemap = OFFLINE_BASEMAP): RegionMap {
   const features: RegionFeature[] = []
   if (r) {
     features.push({ type: 'Feature', geometry: r.outline, properties: { kind: 'region', name: r.name } })
@@ -29,14 +32,14 @@ export function presentRegionMap(r: RegionInput | null, officeRows: PublicOffice
   for (const o of officeRows) {
     features.push({ type: 'Feature', geometry: { type: 'Point', coordinates: [o.centreLonDeg, o.centreLatDeg] }, properties: { kind: 'office', name: o.name } })
   }
-  return { type: 'FeatureCollection', features }
+  return { type: 'FeatureCollection', features, basemap }
 }
 
 /** GET /api/region: public, the same for everyone. */
-export async function getRegionMap(ctx: ServiceContext): Promise<RegionMap> {
+export async function getRegionMap(ctx: ServiceContext, basemap: Basemap = OFFLINE_BASEMAP): Promise<RegionMap> {
   const r = await findRegion(ctx.db)
   const officeRows = await listOfficesForMap(ctx.db)
-  return presentRegionMap(r ?? null, officeRows)
+  return presentRegionMap(r ?? null, officeRows, basemap)
 }
 
 /** Sets the region (there is one); the input is checked with the shared schema first. */

@@ -59,6 +59,19 @@ export const routes: RouteObject[] = [
             children: [{ path: paths.bandLimits.path, lazy: () => import('./routes/band-limits') }],
           },
           {
+            element: <RequireAbility anyOf={['readStationRegister']} />,
+            children: [{ path: paths.stationRegister.path, lazy: () => import('./routes/station-register') }],
+          },
+          {
+            element: <RequireAbility anyOf={['readEquipment']} />,
+            children: [{ path: paths.equipment.path, lazy: () => import('./routes/equipment') }],
+          },
+          {
+            // staff: the calculator judges against the band-limit list, as the workbench does
+            element: <RequireAbility anyOf={['readBandLimits']} />,
+            children: [{ path: paths.calculator.path, lazy: () => import('./routes/calculator') }],
+          },
+          {
             element: <RequireAbility anyOf={['followOwnReports']} />,
             children: [
               { path: paths.myReports.path, lazy: () => import('./routes/my-reports') },

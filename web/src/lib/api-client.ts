@@ -100,7 +100,22 @@ async function readChecked<S extends z.ZodType>(schema: S, path: string, signal?
   return parsed.data
 }
 
+/** POST of a multipart form (a file upload); the browser writes the form's boundary itself. */
+async function upload<T>(path: string, form: FormData): Promise<T> {
+  let response: Response
+  try {
+    response = await fetch(path, { method: 'POST', credentials: 'same-origin', headers: { Accept: 'application/json' }, body: form })
+  } catch {
+    throw new ApiError({ status: 0, code: 'network_error', message: UNREACHABLE_MESSAGE })
+  }
+  const parsed = await readBody(response)
+  if (!response.ok) throw toApiError({ status: response.status, body: parsed })
+  return parsed as T
+}
+
 export const api = {
+  /** POST of a multipart form with a file. */
+  upload,
   get: <T>(path: string, signal?: AbortSignal) => apiRequest<T>({ path, signal }),
   /** GET whose answer is parsed with its schema from shared/schemas. */
   read: readChecked,

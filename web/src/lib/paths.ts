@@ -39,6 +39,12 @@ export const paths = {
   adminOffices: page('/admin/offices'),
   /** The national band-limit list (staff read it; supervisors and administrators edit it). */
   bandLimits: page('/registers/band-limits'),
+  /** The licence register: authorised stations (staff read it; administrators import new versions). */
+  stationRegister: page('/registers/stations'),
+  /** The office's antennas and instruments (staff read it; the supervisor and administrators keep it). */
+  equipment: page('/registers/equipment'),
+  /** The quick calculator: the estimate forms without a case; its inputs live in the query. */
+  calculator: page('/calculator'),
   myReports: page('/my-reports'),
   myReport: { path: '/my-reports/:id', href: (reportId: string) => `/my-reports/${encodeURIComponent(reportId)}` },
 } as const

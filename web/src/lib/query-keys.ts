@@ -22,6 +22,14 @@ export const caseKeys = {
   investigators: (caseId: string) => [...caseKeys.all, 'investigators', caseId] as const,
   mergeCandidates: (caseId: string) => [...caseKeys.all, 'merge-candidates', caseId] as const,
   transferOffices: (caseId: string) => [...caseKeys.all, 'transfer-offices', caseId] as const,
+  /** The case's findings (current and earlier proposals). */
+  findings: (caseId: string) => [...caseKeys.all, 'findings', caseId] as const,
+  /** The case's stored calculation records. */
+  calculations: (caseId: string) => [...caseKeys.all, 'calculations', caseId] as const,
+  /** A stored calculation run again with the current library. */
+  recompute: (calculationId: string) => [...caseKeys.all, 'recompute', calculationId] as const,
+  /** The case's measurements. */
+  measurements: (caseId: string) => [...caseKeys.all, 'measurements', caseId] as const,
 }
 
 /** The office's staff, for the case list's investigator filter. */
@@ -60,4 +68,19 @@ export const bandLimitKeys = {
   all: ['band-limits'] as const,
   list: () => [...bandLimitKeys.all, 'list'] as const,
   history: (bandLimitId: string) => [...bandLimitKeys.all, 'history', bandLimitId] as const,
+}
+
+/** The licence register: a search of a version's stations, the versions, one version's report. */
+export const stationRegisterKeys = {
+  all: ['station-register'] as const,
+  stations: (search: { q?: string; freq?: string; page?: number; version?: number }) => [...stationRegisterKeys.all, 'stations', search] as const,
+  versions: () => [...stationRegisterKeys.all, 'versions'] as const,
+  version: (version: number) => [...stationRegisterKeys.all, 'version', version] as const,
+}
+
+/** An office's antennas-and-instruments register, and each item's history of changes. */
+export const equipmentKeys = {
+  all: ['equipment'] as const,
+  list: (officeId: string) => [...equipmentKeys.all, 'list', officeId] as const,
+  history: (equipmentId: string) => [...equipmentKeys.all, 'history', equipmentId] as const,
 }

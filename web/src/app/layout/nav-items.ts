@@ -29,5 +29,8 @@ export function navItemsFor(abilities: AccountAbilities | null): NavItem[] {
   // an investigator reaches the full list from My cases; the main links stay their own work
   if (abilities.readCases && !abilities.workAssignedCases) items.push({ label: 'Cases', to: paths.cases.href() })
   if (abilities.readBandLimits) items.push({ label: 'Band limits', to: paths.bandLimits.href() })
+  if (abilities.readStationRegister) items.push({ label: 'Licence register', to: paths.stationRegister.href() })
+  if (abilities.readEquipment) items.push({ label: 'Equipment', to: paths.equipment.href() })
+  if (abilities.readBandLimits) items.push({ label: 'Calculator', to: paths.calculator.href() })
   return items
 }

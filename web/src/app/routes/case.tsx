@@ -10,6 +10,8 @@ import { CaseHeader } from '@/features/case-page/components/case-header'
 import { CaseReportDetails } from '@/features/case-page/components/case-report-details'
 import { CaseTimeline } from '@/features/case-page/components/case-timeline'
 import { FindingSummary } from '@/features/case-page/components/finding-summary'
+import { MeasurementsSection } from '@/features/measurements/components/measurements-section'
+import { Workbench } from '@/features/estimates/workbench/workbench'
 import { useNow } from '@/lib/use-now'
 import { isApiError } from '@/lib/api-client'
 import { paths } from '@/lib/paths'
@@ -45,16 +47,19 @@ export function Component() {
         <Link to={paths.cases.href()}>Back to the case list</Link>
       </p>
       <CaseHeader detail={detail} now={now} />
+      <Workbench detail={detail} />
       <div className="grid items-start gap-6 lg:grid-cols-[minmax(0,1fr)_26rem]">
         <div className="lg:col-start-2 lg:row-start-1">
           <CaseActionsPanel detail={detail} reload={() => void query.refetch()} reloading={query.isFetching} />
         </div>
         <div className="flex flex-col gap-6 lg:col-start-1 lg:row-start-1">
-          <FindingSummary events={detail.timeline} underReview={detail.status === 'finding_proposed'} />
+          <FindingSummary detail={detail} />
           <CaseReportDetails detail={detail} />
           <CaseTimeline events={detail.timeline} />
         </div>
       </div>
+      {/* full width: the measurement form keeps its live levels beside the fields on a wide screen */}
+      <MeasurementsSection caseId={detail.id} officeId={detail.officeId} casePoint={{ latDeg: detail.latDeg, lonDeg: detail.lonDeg }} />
     </div>
   )
 }

@@ -3,7 +3,7 @@ import { useState } from 'react'
 import { Loading } from '@/components/ui/loading'
 import { PageHeader } from '@/components/ui/page-header'
 import { useAbilities, useMe } from '@/features/auth/api/get-me'
-import { LocationPicker } from '@/features/map/components/location-picker'
+import { FieldMap } from '@/components/map'
 import type { SubmittedReport } from '@/features/reports/api/submit-report'
 import { ReportConfirmation } from '@/features/reports/components/report-confirmation'
 import { ReportForm } from '@/features/reports/components/report-form'
@@ -34,7 +34,14 @@ export function Component() {
       ) : (
         <ReportForm
           contact={user && abilities?.reportAsAccount ? { name: user.name, email: user.email } : undefined}
-          renderLocationPicker={({ value, onPick }) => <LocationPicker value={value} onPick={onPick} />}
+          renderLocationPicker={({ value, onPick }) => (
+            <FieldMap
+              label="Map: pick where it happens"
+              victim={value ? { at: value, label: 'The place you gave' } : null}
+              offices="region"
+              onPick={(latDeg, lonDeg) => onPick({ latDeg, lonDeg })}
+            />
+          )}
           onSubmitted={(result, email) => {
             setSent({ result, email })
             window.scrollTo({ top: 0 })

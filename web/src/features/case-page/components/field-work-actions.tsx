@@ -1,9 +1,6 @@
-/** The investigator's moves: start field work, propose a finding. */
-import { proposeFindingSchema } from '@shared/schemas/cases'
-import { useProposeFinding } from '../api/propose-finding'
+/** The investigator's move to start field work (proposing a finding: finding-form.tsx). */
 import { useStartFieldWork } from '../api/start-field-work'
 import { ActionForm } from './action-form'
-import { ReasonMoveForm } from './reason-move-form'
 import { useCaseActionForm } from './use-case-action-form'
 
 export function StartFieldWorkForm() {
@@ -22,24 +19,6 @@ export function StartFieldWorkForm() {
         void action.run({ send: (version) => start.mutateAsync({ version }), success: 'Field work started.' })
       }}
       action={action}
-    />
-  )
-}
-
-export function ProposeFindingForm() {
-  return (
-    <ReasonMoveForm
-      id="propose-finding"
-      title="Propose a finding"
-      intro={<p>Your supervisor reviews it, then closes the case or sends it back.</p>}
-      submitLabel="Propose finding"
-      pendingLabel="Sending…"
-      schema={proposeFindingSchema}
-      useMove={useProposeFinding}
-      label="Finding summary"
-      hint="The source you found, the evidence (where and what you measured) and what you recommend."
-      rows={6}
-      success="Finding proposed. Your supervisor has been asked to review it."
     />
   )
 }

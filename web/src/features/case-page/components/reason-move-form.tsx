@@ -1,5 +1,5 @@
 /**
- * A move whose one field is a written reason: propose a finding, send it back, reopen. The
+ * A move whose one field is a written reason: send a finding back, reopen. The
  * reason is checked by the server's own schema for that move.
  */
 import { zodResolver } from '@hookform/resolvers/zod'

@@ -29,7 +29,15 @@ export function CloseCaseForm() {
     <ActionForm
       id="close"
       title="Approve and close"
-      intro={<p>The complainant receives the outcome and your summary by e-mail, and sees them on their tracking page.</p>}
+      intro={
+        <>
+          {/* on a narrow screen the finding comes after this panel */}
+          <p className="mb-1 lg:hidden">
+            <a href="#finding-heading">Read the finding first</a>
+          </p>
+          <p>The complainant receives the outcome and your summary by e-mail, and sees them on their tracking page.</p>
+        </>
+      }
       submitLabel="Approve and close"
       pendingLabel="Closing…"
       submitting={form.formState.isSubmitting}

@@ -3,6 +3,7 @@
  * complainant, or from the complainant) and a one-line title. Pure, so it is tested alone.
  */
 import { CASE_STATE_LABELS, RESOLUTION_LABELS, type CaseState, type Resolution } from '@shared/domain/case-lifecycle'
+import { RECOMMENDED_ACTION_LABELS, RECOMMENDED_ACTIONS, type RecommendedAction } from '@shared/domain/findings'
 
 export interface TimelineEventLike {
   kind: string
@@ -59,7 +60,9 @@ export function eventTitle(e: TimelineEventLike): string {
     case 'startFieldWork':
       return 'Field work started'
     case 'proposeFinding':
-      return 'Finding proposed'
+      return (RECOMMENDED_ACTIONS as readonly unknown[]).includes(d.recommendedAction)
+        ? `Finding proposed: ${RECOMMENDED_ACTION_LABELS[d.recommendedAction as RecommendedAction]}`
+        : 'Finding proposed'
     case 'returnFinding':
       return 'Sent back for more work'
     case 'close':

@@ -1,0 +1,2 @@
+ALTER TABLE "calculations" DROP CONSTRAINT "calculations_kind_valid";--> statement-breakpoint
+ALTER TABLE "calculations" ADD CONSTRAINT "calculations_kind_valid" CHECK ("calculations"."kind" in ('eirp_single_point', 'compliance_verdict', 'eirp_fit', 'source_locate', 'coexistence', 'exposure_screening', 'candidate_sources'));

@@ -1,0 +1,2 @@
+DROP INDEX "authorised_stations_version_freq_idx";--> statement-breakpoint
+CREATE INDEX "authorised_stations_freq_range_idx" ON "authorised_stations" USING gist (numrange("low_freq_hz"::numeric, "high_freq_hz"::numeric, '[]'));

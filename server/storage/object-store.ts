@@ -1,0 +1,32 @@
+/**
+ * The object store the app keeps files in (S3-compatible; the local fake in development), and
+ * how big an upload may be. Built once from the configuration (server/main.ts) and handed to
+ * createApp; absent, every route that stores or reads a file answers 503 storage_unavailable.
+ */
+import type { S3Client } from '@aws-sdk/client-s3'
+import type { Env } from '../config/env'
+import { createS3Client, type S3Settings } from './s3'
+
+export interface ObjectStore {
+  client: S3Client
+  bucket: string
+  /** The largest file an upload may hold [bytes] (UPLOAD_MAX_BYTES). */
+  maxUploadBytes: number
+}
+
+export function createObjectStore(settings: S3Settings & { maxUploadBytes: number }): ObjectStore {
+  return { client: createS3Client(settings), bucket: settings.bucket, maxUploadBytes: settings.maxUploadBytes }
+}
+
+/** The store the configuration names (S3_* and UPLOAD_MAX_BYTES). */
+export function objectStoreFromEnv(env: Env): ObjectStore {
+  return createObjectStore({
+    endpoint: env.S3_ENDPOINT,
+    region: env.S3_REGION,
+    bucket: env.S3_BUCKET,
+    accessKeyId: env.S3_ACCESS_KEY_ID,
+    secretAccessKey: env.S3_SECRET_ACCESS_KEY,
+    forcePathStyle: env.S3_FORCE_PATH_STYLE,
+    maxUploadBytes: env.UPLOAD_MAX_BYTES,
+  })
+}

@@ -1,0 +1,223 @@
+/**
+ * Storing files: a stream goes straight into the object store (lib-storage multipart Upload,
+ * never held in memory whole) while its SHA-256 and size are computed; the `stored_files` row
+ * is written only once the object is stored, and the object is removed again when that write
+ * fails, so there is never a row without its object nor an object without its row. Object keys
+ * are `<purpose>/<uuid>`: never reused.
+ *
+ * `storeUpload` takes a multipart form's one file (multer with a streaming storage engine);
+ * `storeStream` takes any stream (the demo seeder's CSV). `readStoredObject` streams a file back.
+ *
+ * Content type: the one the uploader declared (the multipart part's header) is kept, marked
+ * `declared`; nothing sniffs the content yet.
+ */
+import crypto from 'node:crypto'
+import { Transform, type Readable, type TransformCallback } from 'node:stream'
+import { DeleteObjectCommand, GetObjectCommand } from '@aws-sdk/client-s3'
+import { Upload } from '@aws-sdk/lib-storage'
+import type { Request, Response } from 'express'
+import multer, { MulterError, type StorageEngine } from 'multer'
+import type { StoredFilePurpose } from '../../shared/domain/stored-files'
+import type { Db } from '../db/client'
+import type { StoredFileRow } from '../db/schema'
+import { badRequest, HttpError } from '../http/errors'
+import { log } from '../log/logger'
+import type { ObjectStore } from './object-store'
+import { insertStoredFile } from './stored-files.repo'
+
+export const storageUnavailable = (detail?: string) =>
+  new HttpError(503, 'storage_unavailable', `The file store cannot be reached, so nothing was stored. Please try again in a moment.${detail ? ` (${detail})` : ''}`)
+export const fileTooLarge = (maxBytes: number) => new HttpError(413, 'file_too_large', `The file is larger than the ${formatBytes(maxBytes)} an upload may hold.`)
+
+function formatBytes(n: number): string {
+  if (n >= 1024 * 1024) return `${+(n / (1024 * 1024)).toFixed(1)} MB`
+  if (n >= 1024) return `${+(n / 1024).toFixed(1)} kB`
+  return `${n} bytes`
+}
+
+/** The store itself, or a 503 when the app runs without one. */
+function requireStore(store: ObjectStore | undefined): ObjectStore {
+  if (!store) throw storageUnavailable('no file store is configured')
+  return store
+}
+
+/** Counts and hashes the bytes passing through; fails once more than `maxBytes` have passed. */
+class Digest extends Transform {
+  readonly hash = crypto.createHash('sha256')
+  size = 0
+  tooLarge = false
+  constructor(private readonly maxBytes: number) {
+    super()
+  }
+  override _transform(chunk: Buffer, _enc: BufferEncoding, cb: TransformCallback) {
+    this.size += chunk.length
+    if (this.size > this.maxBytes) {
+      this.tooLarge = true
+      return cb(new Error('file too large'))
+    }
+    this.hash.update(chunk)
+    cb(null, chunk)
+  }
+}
+
+interface PutResult {
+  objectKey: string
+  sizeBytes: number
+  sha256: string
+}
+
+const newObjectKey = (purpose: StoredFilePurpose) => `${purpose}/${crypto.randomUUID()}`
+
+/** Streams `body` into the store under a new key; the key, size and SHA-256 of what was stored. */
+async function putStream(store: ObjectStore, body: Readable, purpose: StoredFilePurpose, contentType: string): Promise<PutResult> {
+  const objectKey = newObjectKey(purpose)
+  const digest = new Digest(store.maxUploadBytes)
+  const source = body.pipe(digest)
+  body.on('error', (e) => digest.destroy(e))
+  const upload = new Upload({
+    client: store.client,
+    params: { Bucket: store.bucket, Key: objectKey, Body: source, ContentType: contentType },
+    partSize: 5 * 1024 * 1024,
+    queueSize: 2,
+    leavePartsOnError: false,
+  })
+  // a failure of the source (too large, a broken request) ends the upload too
+  digest.on('error', () => void upload.abort().catch(() => {}))
+  try {
+    await upload.done()
+  } catch (e) {
+    if (digest.tooLarge) throw fileTooLarge(store.maxUploadBytes)
+    if (e instanceof HttpError) throw e
+    log().warn(`object store: upload of ${objectKey} failed: ${(e as Error)?.name ?? ''} ${(e as Error)?.message ?? String(e)}`)
+    throw storageUnavailable()
+  }
+  if (digest.tooLarge) {
+    await removeObject(store, objectKey)
+    throw fileTooLarge(store.maxUploadBytes)
+  }
+  return { objectKey, sizeBytes: digest.size, sha256: digest.hash.digest('hex') }
+}
+
+/** Removes an object (a file whose row could not be written); a failure is logged, never thrown. */
+export async function removeObject(store: ObjectStore, objectKey: string): Promise<void> {
+  try {
+    await store.client.send(new DeleteObjectCommand({ Bucket: store.bucket, Key: objectKey }))
+  } catch (e) {
+    log().error(`object store: could not remove ${objectKey} (left without a row): ${(e as Error)?.message ?? String(e)}`)
+  }
+}
+
+export interface StoreFileMeta {
+  originalName: string
+  contentType: string
+  purpose: StoredFilePurpose
+  /** From the session (or the seeder's account), never from the request. */
+  uploadedBy: string
+}
+
+/** Writes the row of a stored object; removes the object when the row cannot be written. */
+async function recordStored(db: Db, store: ObjectStore, put: PutResult, meta: StoreFileMeta): Promise<StoredFileRow> {
+  try {
+    return await insertStoredFile(db, {
+      objectKey: put.objectKey,
+      originalName: meta.originalName.slice(0, 255) || 'unnamed',
+      sizeBytes: put.sizeBytes,
+      sha256: put.sha256,
+      contentType: meta.contentType || 'application/octet-stream',
+      contentTypeSource: 'declared',
+      purpose: meta.purpose,
+      uploadedBy: meta.uploadedBy,
+    })
+  } catch (e) {
+    await removeObject(store, put.objectKey)
+    throw e
+  }
+}
+
+/** Stores a stream as a file: the object first, then its row. */
+export async function storeStream(deps: { db: Db; store: ObjectStore | undefined }, body: Readable, meta: StoreFileMeta): Promise<StoredFileRow> {
+  const store = requireStore(deps.store)
+  const put = await putStream(store, body, meta.purpose, meta.contentType)
+  return recordStored(deps.db, store, put, meta)
+}
+
+type StreamedFile = Express.Multer.File & PutResult
+
+/** A multer storage engine that streams the part into the object store. */
+function objectStoreEngine(store: ObjectStore, purpose: StoredFilePurpose): StorageEngine {
+  return {
+    _handleFile(_req, file, cb) {
+      putStream(store, file.stream, purpose, file.mimetype).then(
+        (put) => cb(null, { ...put, size: put.sizeBytes } as Partial<Express.Multer.File>),
+        (e: unknown) => {
+          // drain the rest of the part so busboy can finish (multer reports the error)
+          file.stream.resume()
+          cb(e as Error)
+        },
+      )
+    },
+    _removeFile(_req, file, cb) {
+      const key = (file as Partial<StreamedFile>).objectKey
+      if (!key) return cb(null)
+      removeObject(store, key).then(() => cb(null), cb)
+    },
+  }
+}
+
+export interface StoredUpload {
+  file: StoredFileRow
+  /** The form's other fields (text only). */
+  fields: Record<string, string>
+}
+
+/**
+ * Stores the one file of a multipart form (field `fieldName`): 413 file_too_large beyond the
+ * configured size, 503 storage_unavailable when the store cannot take it (no row then), 400
+ * when the request holds no file or is not a multipart form.
+ */
+export async function storeUpload(
+  deps: { db: Db; store: ObjectStore | undefined },
+  req: Request,
+  res: Response,
+  opts: { fieldName?: string; purpose: StoredFilePurpose; uploadedBy: string },
+): Promise<StoredUpload> {
+  const fieldName = opts.fieldName ?? 'file'
+  if (!req.is('multipart/form-data')) throw badRequest('not_multipart', `Send the file as a multipart form with the field "${fieldName}".`)
+  const store = requireStore(deps.store)
+  const handler = multer({
+    storage: objectStoreEngine(store, opts.purpose),
+    limits: { fileSize: store.maxUploadBytes, files: 1, fields: 20, fieldSize: 10_000, parts: 25 },
+  }).single(fieldName)
+  try {
+    await new Promise<void>((resolve, reject) => handler(req, res, (err?: unknown) => (err ? reject(err) : resolve())))
+  } catch (e) {
+    if (e instanceof MulterError) {
+      if (e.code === 'LIMIT_FILE_SIZE') throw fileTooLarge(store.maxUploadBytes)
+      if (e.code === 'LIMIT_UNEXPECTED_FILE') throw badRequest('unexpected_file', `Send one file, in the field "${fieldName}".`)
+      throw badRequest('bad_upload', `The form could not be read: ${e.message}.`)
+    }
+    if (e instanceof HttpError) throw e
+    // busboy: a malformed multipart body
+    if (e instanceof Error && /multipart|boundary|unexpected end of form/i.test(e.message)) throw badRequest('bad_upload', `The form could not be read: ${e.message}.`)
+    throw e
+  }
+  const file = req.file as StreamedFile | undefined
+  if (!file) throw badRequest('file_missing', `Choose a file to upload (the field "${fieldName}").`)
+  const fields: Record<string, string> = {}
+  for (const [k, v] of Object.entries((req.body ?? {}) as Record<string, unknown>)) if (typeof v === 'string') fields[k] = v
+  const row = await recordStored(deps.db, store, file, { originalName: file.originalname, contentType: file.mimetype, purpose: opts.purpose, uploadedBy: opts.uploadedBy })
+  return { file: row, fields }
+}
+
+/** Streams a stored object back (503 storage_unavailable when the store cannot give it). */
+export async function readStoredObject(store: ObjectStore | undefined, objectKey: string): Promise<Readable> {
+  const s = requireStore(store)
+  try {
+    const r = await s.client.send(new GetObjectCommand({ Bucket: s.bucket, Key: objectKey }))
+    if (!r.Body) throw new Error('no body')
+    return r.Body as Readable
+  } catch (e) {
+    log().warn(`object store: reading ${objectKey} failed: ${(e as Error)?.name ?? ''} ${(e as Error)?.message ?? String(e)}`)
+    throw storageUnavailable()
+  }
+}

@@ -1,0 +1,16 @@
+/**
+ * The caution shown wherever a finding is read: a finding that rests on an estimate supports,
+ * and does not replace, the regulator's procedure; enforcement follows local codes and
+ * licensed practice.
+ */
+export const ENFORCEMENT_CAUTION =
+  'A finding that rests on an estimate must follow local codes and licensed practice before any enforcement step: the estimate supports, and does not replace, the legal procedure and a qualified engineer\u2019s judgement.'
+
+export function EnforcementCaution() {
+  return (
+    <aside aria-label="Enforcement caution" className="rounded-control border-l-4 border-caution bg-caution-soft px-4 py-3 text-sm text-ink">
+      <p className="font-semibold">Before acting on this finding</p>
+      <p className="mt-1">{ENFORCEMENT_CAUTION}</p>
+    </aside>
+  )
+}

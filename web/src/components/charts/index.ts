@@ -1,0 +1,18 @@
+/**
+ * Charts: uPlot, loaded only where a chart shows (LevelDistanceChart and ResidualChart are
+ * lazy); BudgetBars is plain HTML. Import from here.
+ */
+export { LevelDistanceChart, ResidualChart } from './lazy-charts'
+export { BudgetBars } from './budget-bars'
+export type {
+  BudgetBarRow,
+  BudgetBarsProps,
+  DistanceMark,
+  LevelBand,
+  LevelCurve,
+  LevelDistanceChartProps,
+  LevelPoint,
+  LevelQuantity,
+  ResidualChartProps,
+  ResidualPoint,
+} from './chart-types'

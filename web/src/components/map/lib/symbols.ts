@@ -1,0 +1,54 @@
+/**
+ * The map's symbols: each layer has its own colour from the project's palette (styles.css;
+ * SVG presentation attributes cannot read CSS variables, so the values are repeated here) AND
+ * its own shape, so layers stay apart without colour vision. Markup strings, shared by the
+ * Leaflet icons and the legend. Pure.
+ */
+export const MAP_COLOURS = {
+  ink: '#18212b',
+  paper: '#f6f4ee',
+  surface: '#ffffff',
+  sea: '#dcebef', // signal-soft
+  office: '#0e5a6e', // signal
+  measurement: '#a84b00', // priority-2
+  source: '#a3201a', // danger
+  station: '#2b5ca6', // priority-3
+  nearby: '#586270', // priority-4
+  field: '#7a838d',
+} as const
+
+export type SymbolKind = 'victim' | 'measurement' | 'bearing' | 'source' | 'ellipse' | 'station' | 'office' | 'officeArea' | 'nearbyCase' | 'region'
+
+const C = MAP_COLOURS
+const svg = (size: number, body: string) => `<svg xmlns="http://www.w3.org/2000/svg" width="${size}" height="${size}" viewBox="-12 -12 24 24" aria-hidden="true" focusable="false">${body}</svg>`
+
+/** SVG markup of a layer's symbol, `size` CSS px square, centred on its point. */
+export function symbolSvg(kind: SymbolKind, size = 24): string {
+  switch (kind) {
+    case 'victim': // a target: ring, dot and ticks
+      return svg(size, `<circle r="7" fill="${C.surface}" fill-opacity="0.85" stroke="${C.ink}" stroke-width="2.5"/><circle r="2.2" fill="${C.ink}"/><path d="M0 -11.5V-7M0 7V11.5M-11.5 0H-7M7 0H11.5" stroke="${C.ink}" stroke-width="2.5"/>`)
+    case 'measurement': // a filled circle
+      return svg(size, `<circle r="6" fill="${C.measurement}" stroke="${C.surface}" stroke-width="2"/>`)
+    case 'bearing': // a dashed line with an arrow head
+      return svg(size, `<path d="M-10 6L8 -6" stroke="${C.measurement}" stroke-width="2.5" stroke-dasharray="4 3"/><path d="M9.5 -7L2 -6.5L6 -1Z" fill="${C.measurement}"/>`)
+    case 'source': // a diamond
+      return svg(size, `<path d="M0 -9L9 0L0 9L-9 0Z" fill="${C.source}" stroke="${C.surface}" stroke-width="2"/>`)
+    case 'ellipse':
+      return svg(size, `<ellipse rx="10" ry="6" transform="rotate(-30)" fill="${C.source}" fill-opacity="0.15" stroke="${C.source}" stroke-width="2"/>`)
+    case 'station': // a triangle
+      return svg(size, `<path d="M0 -9L8.5 7H-8.5Z" fill="${C.station}" stroke="${C.surface}" stroke-width="2" stroke-linejoin="round"/>`)
+    case 'office': // a square
+      return svg(size, `<rect x="-7" y="-7" width="14" height="14" fill="${C.office}" stroke="${C.surface}" stroke-width="2"/>`)
+    case 'officeArea':
+      return svg(size, `<rect x="-9" y="-7" width="18" height="14" fill="${C.office}" fill-opacity="0.06" stroke="${C.office}" stroke-width="2" stroke-dasharray="4 3"/>`)
+    case 'nearbyCase': // a hollow ring
+      return svg(size, `<circle r="6" fill="${C.surface}" stroke="${C.nearby}" stroke-width="3"/>`)
+    case 'region':
+      return svg(size, `<path d="M-10 -6H10V6H-10Z" fill="${C.paper}" stroke="${C.ink}" stroke-width="2.5"/>`)
+  }
+}
+
+/** Text for Leaflet's attribution box, which takes HTML: the tile server's credit as plain text. */
+export function escapeHtml(text: string): string {
+  return text.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!)
+}

@@ -1,0 +1,93 @@
+/**
+ * The props of the field map (components/map): each layer optional, positions in degrees
+ * (WGS 84), lengths in metres, bearings in degrees clockwise from true north.
+ */
+import type { AreaGeometry } from '@shared/schemas/region'
+
+/** A position in decimal degrees (WGS 84), north and east positive. */
+export interface MapPoint {
+  latDeg: number
+  lonDeg: number
+}
+
+/** Where the complainant suffers the interference. */
+export interface MapVictim {
+  at: MapPoint
+  /** Default "Complainant's position". */
+  label?: string
+}
+
+/** A measurement site; the label is written beside it ("M3 −71.2 dBm"). */
+export interface MapMeasurement {
+  id: string
+  at: MapPoint
+  label: string
+}
+
+/** A bearing line: from a point along a true bearing for a length, drawn on the geodesic. */
+export interface MapBearing {
+  id: string
+  from: MapPoint
+  /** Degrees clockwise from true north. */
+  bearingDeg: number
+  /** How far the line is drawn [m]. */
+  lengthM: number
+  label?: string
+}
+
+/** A 95 % confidence ellipse on the ground (as the radio library's `ConfidenceEllipse`). */
+export interface MapEllipse {
+  semiMajorM: number
+  semiMinorM: number
+  /** Direction of the major axis, degrees clockwise from true north. */
+  orientationDeg: number
+}
+
+/** The estimated source position and its 95 % ellipse. */
+export interface MapEstimatedSource {
+  at: MapPoint
+  ellipse?: MapEllipse | null
+  /** Default "Estimated source". */
+  label?: string
+}
+
+/** A licensed station that may be the source. */
+export interface MapCandidateStation {
+  id: string
+  at: MapPoint
+  label: string
+}
+
+/** A field office: its point and, when it has one, its area. */
+export interface MapOffice {
+  name: string
+  at: MapPoint
+  area?: AreaGeometry | null
+}
+
+/** Another case near this one. */
+export interface MapNearbyCase {
+  id: string
+  at: MapPoint
+  label: string
+}
+
+export interface FieldMapProps {
+  /** The map's accessible name, e.g. "Map of case QB-2026-0042". */
+  label: string
+  victim?: MapVictim | null
+  measurements?: MapMeasurement[]
+  bearings?: MapBearing[]
+  estimatedSource?: MapEstimatedSource | null
+  candidateStations?: MapCandidateStation[]
+  /** Offices with their areas; 'region' takes the offices of the public region map (GET /api/region). */
+  offices?: MapOffice[] | 'region'
+  nearbyCases?: MapNearbyCase[]
+  /**
+   * Pick mode: a click or tap on the map calls this with the position, rounded to 4 decimals
+   * (≈ 11 m). Typed coordinates stay the keyboard way to set a position; show them as `victim`.
+   */
+  onPick?: (latDeg: number, lonDeg: number) => void
+  /** Height of the map [CSS px]; default 420. The width follows the container. */
+  heightPx?: number
+}
