@@ -4,6 +4,7 @@
  * may make them. A service refuses with 404 when the case is outside the actor's office,
  * 403 when the role or relation is wrong, and 409 when the state does not allow the move.
  */
+import { calculationAllowedIn, mayStoreCalculation } from './calculation-policy'
 import { CASE_MOVES, moveAllowedFrom, MOVES_REFUSED_WHILE_HOLDING_MERGED_REPORTS, type CaseMoveName, type CaseState, type Mover } from '../../shared/domain/case-lifecycle'
 import type { CaseAbilities } from '../../shared/schemas/views'
 import type { Actor } from './policy'
@@ -74,5 +75,10 @@ export function caseAbilities(actor: CaseActor, c: CaseAccess): CaseAbilities {
   const moves = Object.fromEntries(
     (Object.keys(CASE_MOVES) as CaseMoveName[]).map((m) => [m, mayMakeMove(actor, m, c) && moveAllowedFrom(m, c.status) && !(c.holdsMergedReports && MOVES_REFUSED_WHILE_HOLDING_MERGED_REPORTS.includes(m))]),
   ) as Record<CaseMoveName, boolean>
-  return { ...moves, addInternalNote: mayAddInternalNote(actor, c), messageComplainant: mayMessageComplainant(actor, c) }
+  return {
+    ...moves,
+    addInternalNote: mayAddInternalNote(actor, c),
+    messageComplainant: mayMessageComplainant(actor, c),
+    storeCalculation: mayStoreCalculation(actor, c) && calculationAllowedIn(c.status),
+  }
 }

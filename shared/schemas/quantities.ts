@@ -103,6 +103,9 @@ export function readQuantity(input: unknown, kind: QuantityKind, spec: QuantityS
   if (!unit) return { ok: false, missing: false, message: `Use one of these units for ${spec.label}: ${unitsOf(kind).join(', ')}.` }
   const rule = def.units[unit]!
   let value: number
+  // the digits the range check judges: as written for a scaled unit, of the result for a converted one
+  // (1 mW is 0 dBm: a value of zero that is no underflow of the written digits)
+  let digits = n.decimal.digits
   if ('factor' in rule) {
     // decimal shift for powers of ten, as the strict parser does (433.92 MHz is exactly 433 920 000 Hz)
     const k = Math.round(Math.log10(rule.factor))
@@ -110,8 +113,9 @@ export function readQuantity(input: unknown, kind: QuantityKind, spec: QuantityS
   } else {
     if (rule.positiveOnly && !(n.amount > 0)) return { ok: false, missing: false, message: `${cap(spec.label)} in ${unit} must be above zero.` }
     value = rule.toBase(n.amount)
+    digits = String(Math.abs(value))
   }
-  const problem = checkNumber(value, n.decimal.digits, { ...spec, label: spec.label })
+  const problem = checkNumber(value, digits, { ...spec, label: spec.label })
   return problem ? { ok: false, missing: false, message: inBaseWords(problem, def.base) } : { ok: true, value }
 }
 

@@ -39,7 +39,13 @@ export type TimelineEvent = z.infer<typeof timelineEventSchema>
 const moveFlags = Object.fromEntries((Object.keys(CASE_MOVES) as CaseMoveName[]).map((m) => [m, z.boolean()])) as Record<CaseMoveName, z.ZodBoolean>
 
 /** What the viewer may do with a case now (computed by the case policy): one flag per move, and notes. */
-export const caseAbilitiesSchema = z.object({ ...moveFlags, addInternalNote: z.boolean(), messageComplainant: z.boolean() })
+export const caseAbilitiesSchema = z.object({
+  ...moveFlags,
+  addInternalNote: z.boolean(),
+  messageComplainant: z.boolean(),
+  /** Run and store calculations (the workbench): the assigned investigator or the office supervisor while the case is worked. */
+  storeCalculation: z.boolean(),
+})
 export type CaseAbilities = z.infer<typeof caseAbilitiesSchema>
 
 export const caseDetailSchema = z.object({

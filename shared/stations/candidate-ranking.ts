@@ -90,8 +90,14 @@ export const defaultCandidateModel = (q: { lowFreqHz: number; highFreqHz: number
 /** Below this the path loss is taken at 1 m (a station on the victim's own spot). */
 const MIN_DISTANCE_M = 1
 
+/** What the ranking reads of a station (a StationReference has it all). */
+export type RankableStation = Pick<
+  StationReference,
+  'id' | 'registerVersion' | 'stationCode' | 'licensee' | 'service' | 'latitudeDeg' | 'longitudeDeg' | 'lowFreqHz' | 'highFreqHz' | 'authorisedEirpDbm'
+>
+
 /** Ranks the stations (any list: the server's overlapping rows, or a record's copies). */
-export function rankCandidateStations(stations: readonly StationReference[], q: CandidateQuery): CandidateRanking {
+export function rankCandidateStations(stations: readonly RankableStation[], q: CandidateQuery): CandidateRanking {
   if (!(q.highFreqHz >= q.lowFreqHz)) throw new RangeError('The high frequency must not be below the low frequency.')
   const model = q.model ?? defaultCandidateModel(q)
   const propagation = createPropagationModel(model)

@@ -42,6 +42,11 @@ describe('measurements on a case', () => {
     const form = section.getByRole('form', { name: 'Record a measurement' })
     await form.waitFor()
 
+    // the map opens for picking the position (or says why it cannot), beside the typed fields
+    await form.getByRole('button', { name: 'Pick on the map' }).click()
+    await expect.poll(async () => (await form.getByLabel('Map to pick the measurement position').count()) + (await form.getByText(/Type the latitude and longitude instead/).count()), { timeout: 15_000 }).toBeGreaterThan(0)
+    await form.screenshot({ path: path.join(SCREENSHOTS, 'measurements-map-1440.png') })
+    await form.getByRole('button', { name: 'Close the map' }).click()
     await form.getByRole('textbox', { name: 'Latitude' }).fill('48.1172')
     await form.getByRole('textbox', { name: 'Longitude' }).fill('-31.3921')
     await form.getByRole('textbox', { name: 'Antenna height above ground' }).fill('1.5')

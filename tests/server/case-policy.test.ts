@@ -39,6 +39,8 @@ const MAY: { what: string; check: (a: CaseActor) => boolean; who: Person[] }[] =
   { what: 'add an internal note', check: (a) => mayAddInternalNote(a, theCase), who: ['the assigned investigator', 'another investigator of the office', 'a supervisor of the office'] },
   { what: 'message the complainant while open', check: (a) => mayMessageComplainant(a, theCase), who: ['the assigned investigator', 'a supervisor of the office'] },
   { what: 'message the complainant once closed', check: (a) => mayMessageComplainant(a, { ...theCase, status: 'closed' }), who: [] },
+  { what: 'run and store calculations while worked', check: (a) => caseAbilities(a, theCase).storeCalculation, who: ['the assigned investigator', 'a supervisor of the office'] },
+  { what: 'run and store calculations once a finding is proposed', check: (a) => caseAbilities(a, { ...theCase, status: 'finding_proposed' }).storeCalculation, who: [] },
   {
     what: 'see the case',
     check: (a) => canSeeCase(a, theCase),

@@ -12,6 +12,9 @@ import { listRoutes } from '../support/routes'
 import { caseVersion, fileReport, validReport } from '../support/cases'
 import { makeBandLimit, makeOffice, makeUser, reportNear, signIn, type TestUser } from '../support/factories'
 import type { Office } from '../../server/db/schema'
+import { addEquipment } from '../../server/modules/equipment/equipment.service'
+import { recordMeasurement } from '../../server/modules/measurements/measurements.service'
+import { equipmentContentSchema, measurementContentSchema } from '../../shared/schemas/measurements'
 
 type Who = 'anonymous' | 'complainant' | 'investigator' | 'supervisor' | 'admin'
 const WHO: Who[] = ['anonymous', 'complainant', 'investigator', 'supervisor', 'admin']
@@ -205,6 +208,38 @@ function bandLimitRow(): FuzzRow {
   }
 }
 
+/** A measurement as a form sends it. */
+const MEASUREMENT = { takenAt: '2026-11-20T10:15:00Z', latDeg: '48.1', lonDeg: '-31.35', freqHz: '433.92 MHz', reading: { unit: 'dBm', value: '-60' }, antenna: { source: 'gain', antennaGainDbi: '2 dBi' } }
+
+/** An item of the own office's register at version 1 (a fresh one after each edit). */
+function equipmentRow(): FuzzRow {
+  let id: string | undefined
+  return {
+    route: 'PATCH /api/equipment/:id',
+    async path(renew) {
+      if (!id || renew) id = (await addEquipment(t.services, ACCOUNT.supervisor.actor, ids.ownOfficeId, equipmentContentSchema.parse({ name: 'Fuzz receiver', type: 'receiver' }))).id
+      return `/api/equipment/${id}`
+    },
+    base: async () => ({ item: { name: 'Fuzz receiver 2', type: 'receiver' }, version: 1 }),
+  }
+}
+
+/** Recording a measurement on a case being worked; editing and correcting one (a fresh one after each success). */
+function measurementRow(route: 'POST /api/cases/:id/measurements' | 'PATCH /api/measurements/:id' | 'POST /api/measurements/:id/corrections'): FuzzRow {
+  let target: string | undefined
+  return {
+    route,
+    async path(renew) {
+      if (!target || renew) {
+        const caseId = await caseIn('assigned')
+        target = route === 'POST /api/cases/:id/measurements' ? caseId : (await recordMeasurement(t.services, ACCOUNT.supervisor.actor, caseId, measurementContentSchema.parse(MEASUREMENT))).id
+      }
+      return route.split(' ')[1]!.replace(':id', target)
+    },
+    base: async () => (route === 'PATCH /api/measurements/:id' ? { measurement: MEASUREMENT, version: 1 } : { measurement: MEASUREMENT }),
+  }
+}
+
 const fixed = (route: string, path: () => string, body: () => Record<string, unknown>): FuzzRow => ({
   route,
   path: async () => path(),
@@ -229,6 +264,11 @@ const FUZZ: FuzzRow[] = [
   complainantRow('POST /api/my/reports/:id/withdraw', { reason: 'It stopped.' }),
   calculationRow(),
   bandLimitRow(),
+  fixed('POST /api/offices/:id/equipment', () => `/api/offices/${ids.ownOfficeId}/equipment`, () => ({ item: { name: 'Fuzz analyser', type: 'analyser' } })),
+  equipmentRow(),
+  measurementRow('POST /api/cases/:id/measurements'),
+  measurementRow('PATCH /api/measurements/:id'),
+  measurementRow('POST /api/measurements/:id/corrections'),
   caseRow('notes', 'received', () => ({ body: 'Checked the register.', visibility: 'internal', requestsInformation: false })),
   caseRow('triage', 'received', () => ({ priority: 2, note: 'Looks like an outage.' })),
   caseRow('assign', 'received', () => ({ investigatorId: ids.investigatorId })),
@@ -317,6 +357,14 @@ describe('odd ids in paths', () => {
     'GET /api/calculations/:id/recompute',
     'PATCH /api/band-limits/:id',
     'GET /api/band-limits/:id/history',
+    'GET /api/offices/:id/equipment',
+    'POST /api/offices/:id/equipment',
+    'PATCH /api/equipment/:id',
+    'GET /api/equipment/:id/history',
+    'GET /api/cases/:id/measurements',
+    'POST /api/cases/:id/measurements',
+    'PATCH /api/measurements/:id',
+    'POST /api/measurements/:id/corrections',
   ]
 
   it('answer 400 or 404 with the one error body, never 500, to anyone', async () => {

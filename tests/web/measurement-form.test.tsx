@@ -158,3 +158,71 @@ describe('the measurement form', () => {
     expect(within(form).getByText(/to within about 8 m/)).toBeTruthy()
   })
 })
+
+/** A stored measurement as the server shows it. */
+const stored = (over: object) =>
+  measurementsResponseSchema.shape.measurements.element.parse({
+    id: '00000000-0000-4000-8000-0000000000a1',
+    caseId: CASE_ID,
+    officeId: OFFICE_ID,
+    author: 'Marta Ferreira',
+    createdAt: '2026-11-20T10:20:00.000Z',
+    updatedAt: '2026-11-20T10:20:00.000Z',
+    takenAt: '2026-11-20T10:15:00.000Z',
+    latDeg: 48.1172,
+    lonDeg: -31.3921,
+    heightM: 1.5,
+    freqHz: 433.92e6,
+    measurementBandwidthHz: null,
+    rbwHz: 120e3,
+    detector: 'rms',
+    reading: { value: 40, unit: 'dBµV' },
+    antenna: { source: 'register', equipmentId: LPDA_ID },
+    instrumentId: null,
+    cableLossDb: 3,
+    preampGainDb: null,
+    polarisation: 'vertical',
+    bearingDeg: null,
+    bearingSigmaDeg: null,
+    notes: null,
+    evidenceFileId: null,
+    derived: { fieldStrengthDbuvPerM: 59.17329488947475, pfdDbwPerM2: -86.58, isotropicReceivedPowerDbm: -70.5, antennaFactorDbPerM: 16.17329488947475 },
+    methods: {},
+    warnings: ['Log-periodic LP-1: calibration ran out on 2026-06-30, before this measurement (2026-11-20).'],
+    equipment: [{ equipmentId: LPDA_ID, name: 'Log-periodic LP-1', type: 'antenna', calibrationDueOn: '2026-06-30', version: 1 }],
+    libraryVersion: '2.0.0',
+    version: 1,
+    supersedesId: null,
+    supersededById: null,
+    usedByCalculations: 0,
+    abilities: { edit: true, correct: true },
+    ...over,
+  })
+
+describe('the measurement list', () => {
+  it('offers Correct (not Edit) once a calculation uses a measurement, sends the correction, and marks a superseded one', async () => {
+    const used = stored({ id: '00000000-0000-4000-8000-0000000000a1', usedByCalculations: 1, abilities: { edit: false, correct: true } })
+    const old = stored({ id: '00000000-0000-4000-8000-0000000000a2', supersededById: '00000000-0000-4000-8000-0000000000a3', abilities: { edit: false, correct: false } })
+    answer('get', `/api/cases/${CASE_ID}/measurements`, measurementsResponseSchema.parse({ measurements: [old, used], abilities: { record: true } }))
+    answer('get', `/api/offices/${OFFICE_ID}/equipment`, EQUIPMENT)
+    const sent = answer('post', `/api/measurements/${used.id}/corrections`, { measurement: { ...used, id: '00000000-0000-4000-8000-0000000000a4', supersedesId: used.id } }, { status: 201 })
+    const { user } = renderPage({ url: '/m', routes: [{ path: '/m', Component: Page }] })
+
+    const first = await screen.findByRole('article', { name: /^M1 ·/ })
+    expect(within(first).getByText('Superseded by a correction — kept as recorded')).toBeTruthy()
+    expect(within(first).queryByRole('button')).toBeNull()
+    const second = screen.getByRole('article', { name: /^M2 ·/ })
+    expect(within(second).getByText(/calibration ran out on 2026-06-30/)).toBeTruthy()
+    expect(within(second).getByText('59.2 dBµV/m')).toBeTruthy()
+    expect(within(second).queryByRole('button', { name: 'Edit M2' })).toBeNull()
+    await user.click(within(second).getByRole('button', { name: 'Correct M2' }))
+
+    const form = await screen.findByRole('form', { name: 'Correct the measurement' })
+    expect((within(form).getByLabelText('Centre frequency') as HTMLInputElement).value).toBe('433.92')
+    await user.clear(within(form).getByLabelText('Reading'))
+    await user.type(within(form).getByLabelText('Reading'), '41')
+    await user.click(within(form).getByRole('button', { name: 'Save the correction' }))
+    await waitFor(() => expect(sent).toHaveLength(1))
+    expect(sent[0]!.body).toMatchObject({ measurement: { reading: { unit: 'dBµV', value: '41 dBµV' }, antenna: { source: 'register', equipmentId: LPDA_ID }, freqHz: '433.92 MHz' } })
+  })
+})

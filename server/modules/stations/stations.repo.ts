@@ -92,6 +92,30 @@ export async function stationRowsByIds(db: Db, ids: readonly string[]): Promise<
   return db.select().from(authorisedStations).where(inArray(authorisedStations.id, [...ids]))
 }
 
+/** What the ranking reads of a station, and nothing more (the read-only ranking of many stations). */
+const rankableColumns = {
+  id: authorisedStations.id,
+  registerVersion: authorisedStations.registerVersion,
+  stationCode: authorisedStations.stationCode,
+  licensee: authorisedStations.licensee,
+  service: authorisedStations.service,
+  latitudeDeg: authorisedStations.latitudeDeg,
+  longitudeDeg: authorisedStations.longitudeDeg,
+  lowFreqHz: authorisedStations.lowFreqHz,
+  highFreqHz: authorisedStations.highFreqHz,
+  authorisedEirpDbm: authorisedStations.authorisedEirpDbm,
+}
+export type RankableStationRow = { [K in keyof typeof rankableColumns]: AuthorisedStationRow[K] }
+
+/** overlappingStationRows, with the columns the ranking reads only. */
+export async function overlappingRankableRows(db: Db, q: { lowFreqHz: number; highFreqHz: number }): Promise<RankableStationRow[]> {
+  const current = db.select({ v: max(stationRegisterVersions.version) }).from(stationRegisterVersions)
+  return db
+    .select(rankableColumns)
+    .from(authorisedStations)
+    .where(and(eq(authorisedStations.registerVersion, sql`(${current})`), sql`${authorisedRange} && numrange(${q.lowFreqHz}::numeric, ${q.highFreqHz}::numeric, '[]')`))
+}
+
 /**
  * The stations of the version in force whose authorised range meets [lowFreqHz, highFreqHz]
  * (edges included; the ranking decides what a shared edge is worth).

@@ -32,7 +32,6 @@ import { can, type Actor } from '../../policy/policy'
 import { findStoredFile, type StoredFileWithUploader } from '../../storage/stored-files.repo'
 import { readStoredObject, storeStream, storeUpload } from '../../storage/stored-files'
 import { firstLine, readCsv, type CsvRow } from './register-csv'
-import { candidateStationReferences, currentStationRegisterVersion } from './station-references'
 import { presentDraft, presentRegisterVersion, presentStation, presentStoredFile } from './stations.present'
 import {
   currentRegisterVersion,
@@ -42,6 +41,7 @@ import {
   insertStations,
   listRegisterVersions,
   lockNextRegisterVersion,
+  overlappingRankableRows,
   searchStationRows,
 } from './stations.repo'
 
@@ -262,7 +262,8 @@ export async function getVersion(ctx: ServiceContext, actor: Actor, version: num
 export async function rankCandidatesNow(ctx: ServiceContext, actor: Actor, inputs: CandidateSourcesInputs): Promise<CandidateSourcesOutput & { warnings: string[] }> {
   mayRead(actor)
   const q = candidateQueryOf(inputs)
-  const [stations, version] = await Promise.all([candidateStationReferences(ctx.db, { lowFreqHz: q.lowFreqHz, highFreqHz: q.highFreqHz }), currentStationRegisterVersion(ctx.db)])
+  // the columns the ranking reads only (a stored record reads the whole rows, for its copies)
+  const [stations, version] = await Promise.all([overlappingRankableRows(ctx.db, { lowFreqHz: q.lowFreqHz, highFreqHz: q.highFreqHz }), currentRegisterVersion(ctx.db)])
   let r
   try {
     r = rankCandidateStations(stations, q)

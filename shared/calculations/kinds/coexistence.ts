@@ -116,7 +116,10 @@ function runCoexistence(inputs: CoexistenceInputs, references: Record<string, un
   } satisfies CoexistenceOutput
   return {
     outputs: { value: toJson(value) },
-    warnings: r.warnings,
+    warnings: [
+      ...(fromCalc?.eirpIntervalDbm ? [`The interferer's EIRP is the stored estimate's central value; its 95 % interval reaches ${f2(fromCalc.eirpIntervalDbm.highDbm)} dBm.`] : []),
+      ...r.warnings,
+    ],
     methods: [r.method, model.method, ...methods],
     summary: `I/N ${f2(v.inrDb)} dB at ${f2(distance)} m against ${f2(v.criterionInrDb)} dB: ${v.meetsCriterion ? 'criterion met' : `${f2(v.eirpReductionDb)} dB EIRP reduction needed`}; separation ${f2(v.separationDistanceM)} m`,
   }

@@ -106,11 +106,13 @@ function runSourceLocate(inputs: SourceLocateInputs, references: Record<string, 
       if (freq === undefined && inputs.pathLoss?.refLossDb === undefined) freq = ms[0]!.freqHz
     }
     if (o.use !== 'levels') {
-      const without = ms.filter((m) => m.bearingDeg === undefined)
-      if (without.length) throw new CalculationRefused(`${without.length} of the measurements have no bearing (taken ${without.map((m) => m.takenAt).join(', ')}); locate from levels only, or choose measurements with bearings.`)
-      const noSigma = ms.filter((m) => inputs.bearingSigmaDeg === undefined && !(m.bearingSigmaDeg! > 0))
-      if (noSigma.length) throw new CalculationRefused('Some bearings have no standard deviation: enter one for all bearings.')
-      bearings = ms.map((m) => ({ id: m.id, latDeg: m.latitudeDeg, lonDeg: m.longitudeDeg, bearingDeg: m.bearingDeg!, sigmaDeg: inputs.bearingSigmaDeg ?? m.bearingSigmaDeg! }))
+      const withBearing = ms.filter((m) => m.bearingDeg !== undefined)
+      if (withBearing.length === 0) throw new CalculationRefused('None of the measurements has a bearing: locate from their levels, or choose measurements with bearings.')
+      const skipped = ms.length - withBearing.length
+      if (skipped > 0) warnings.push(`${skipped} of the ${ms.length} measurements have no bearing: ${o.use === 'bearings' ? 'they are not used' : 'they give their level only'}.`)
+      const noSigma = withBearing.filter((m) => inputs.bearingSigmaDeg === undefined && !(m.bearingSigmaDeg! > 0))
+      if (noSigma.length) throw new CalculationRefused(`${noSigma.length} bearing(s) have no standard deviation: enter one for all bearings.`)
+      bearings = withBearing.map((m) => ({ id: m.id, latDeg: m.latitudeDeg, lonDeg: m.longitudeDeg, bearingDeg: m.bearingDeg!, sigmaDeg: inputs.bearingSigmaDeg ?? m.bearingSigmaDeg! }))
     }
   } else {
     levels = (o.levels ?? []).map((l) => ({ ...l, id: null, sigmaDb: inputs.levelSigmaDb! }))

@@ -177,6 +177,11 @@ describe('source_locate', () => {
     const v = sourceLocateOutputSchema.parse(r.outputs.value)
     expect(distanceBetweenM(v, SOURCE)).toBeLessThan(1)
     expect(v.eirpDbm).toBeNull()
+    // a measurement without a bearing among them is left out, with a warning
+    const plain = measurementRef({ ...SOURCE, derived: { isotropicReceivedPowerDbm: -60 } })
+    const mixed = run('source_locate', { observations: { source: 'measurements', measurementIds: [...ms, plain].map((m) => m.id), use: 'bearings' } }, lookupOf({ measurements: [...ms, plain] }))
+    expect(mixed.warnings).toContain('1 of the 5 measurements have no bearing: they are not used.')
+    expect(JSON.stringify(sourceLocateOutputSchema.parse(mixed.outputs.value).latDeg)).toBe(JSON.stringify(v.latDeg))
     expect(v.ellipse95.semiMajorM).toBeGreaterThan(0)
     expect(Math.max(...v.bearingResiduals.map((x) => Math.abs(x.residualDeg)))).toBeLessThan(0.01)
   })
@@ -185,7 +190,7 @@ describe('source_locate', () => {
     const bearings = [0, 1, 2].map(() => ({ latDeg: 46.8, lonDeg: 7.1, bearingDeg: 45 }))
     expect(() => run('source_locate', { observations: { source: 'typed', bearings }, bearingSigmaDeg: 2 })).toThrow(/singular geometry/)
     const m = measurementRef({ ...SOURCE, derived: { isotropicReceivedPowerDbm: -60 } })
-    expect(() => run('source_locate', { observations: { source: 'measurements', measurementIds: [m.id], use: 'bearings' }, bearingSigmaDeg: 2 }, lookupOf({ measurements: [m] }))).toThrow(/have no bearing/)
+    expect(() => run('source_locate', { observations: { source: 'measurements', measurementIds: [m.id], use: 'bearings' }, bearingSigmaDeg: 2 }, lookupOf({ measurements: [m] }))).toThrow('None of the measurements has a bearing: locate from their levels, or choose measurements with bearings.')
   })
 
   it('refuses levels without their σ or path loss, and typed bearings without σ', () => {

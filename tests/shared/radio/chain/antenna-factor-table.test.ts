@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest'
+import { cite } from '../../../fixtures/radio/check-row'
 import { antennaFactorFromTableDbPerM, antennaFactorTableProblem, ANTENNA_FACTOR_TABLE_METHOD } from '../../../../shared/radio/chain'
 
 /** An invented log-periodic antenna's calibration: 200–1000 MHz. */
@@ -25,14 +26,14 @@ const NUMPY_INTERP_LOG10 = [
 
 describe('antennaFactorFromTableDbPerM (linear in dB over log10 frequency)', () => {
   for (const row of NUMPY_INTERP_LOG10) {
-    it(`matches numpy.interp on log10 frequency at ${row.freqHz / 1e6} MHz within 1e-9 dB/m`, () => {
+    it(`matches ${cite('numpy 2.4.6 numpy.interp on log10 frequency', 'AF-1')} at ${row.freqHz / 1e6} MHz within 1e-9 dB/m`, () => {
       const r = antennaFactorFromTableDbPerM({ freqHz: row.freqHz, table: TABLE })
       expect(Math.abs(r.value - row.expected)).toBeLessThan(1e-9)
       expect(r.method).toEqual(ANTENNA_FACTOR_TABLE_METHOD)
     })
   }
 
-  it('matches the hand-worked 250 MHz value (12.3758 dB/m) within 1e-4 dB/m', () => {
+  it(`matches the hand-worked 250 MHz value (12.3758 dB/m) within 1e-4 dB/m — ${cite('the interpolation equation', 'AF-2')}`, () => {
     expect(antennaFactorFromTableDbPerM({ freqHz: 250e6, table: TABLE }).value).toBeCloseTo(12.3758, 4)
   })
 

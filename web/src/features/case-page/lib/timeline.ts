@@ -82,6 +82,10 @@ export function eventTitle(e: TimelineEventLike): string {
     case 'calculation_stored':
       // the event's text carries the result; the title only says what kind of entry it is
       return 'Calculation stored'
+    case 'measurement_recorded':
+      return 'Measurement recorded'
+    case 'measurement_corrected':
+      return 'Measurement corrected'
     default:
       return e.toState ? `Now: ${CASE_STATE_LABELS[e.toState as CaseState] ?? e.toState}` : e.kind
   }

@@ -56,16 +56,26 @@ export function QField(props: { path: string; label: string; kind: QuantityKind;
   )
 }
 
-export function ChoiceField(props: { path: string; label: string; options: { value: string; label: string }[]; hint?: string; fallback?: string; onPick?: (value: string) => FormState }) {
+export function ChoiceField(props: {
+  path: string
+  label: string
+  options: { value: string; label: string }[]
+  hint?: string
+  fallback?: string
+  onPick?: (value: string) => FormState
+  /** Other paths whose errors belong beside this control (the schema names the input the choice replaces). */
+  alsoErrorsOf?: string[]
+}) {
   const { state, onChange, errors, idPrefix, shown } = useEstimateForm()
   shown.add(props.path)
+  for (const p of props.alsoErrorsOf ?? []) shown.add(p)
   return (
     <SelectField
       label={props.label}
       name={fieldName(idPrefix, props.path)}
       options={props.options}
       hint={props.hint}
-      error={errorAt(errors, props.path)}
+      error={errorAt(errors, props.path) ?? props.alsoErrorsOf?.map((p) => errors[p]).find(Boolean)}
       value={state[props.path] ?? props.fallback ?? props.options[0]?.value ?? ''}
       onChange={(e) => onChange(props.onPick ? props.onPick(e.target.value) : { ...state, [props.path]: e.target.value })}
     />

@@ -28,7 +28,8 @@ function measurementInputs(s: FormState): Record<string, unknown> {
   }
 }
 
-const usesStored = (s: FormState) => (s.levelFrom ?? 'typed') === 'stored' && Boolean(s.measurementId)
+/** The level comes from a ticked measurement (only offered on a case with some ticked). */
+const usesStored = (s: FormState, sources: EstimateSources) => (sources.measurements?.length ?? 0) > 0 && s.levelFrom === 'stored'
 
 function Fields({ sources }: { sources: EstimateSources }) {
   const { state } = useEstimateForm()
@@ -51,7 +52,7 @@ function Fields({ sources }: { sources: EstimateSources }) {
         )}
         {from === 'stored' ? (
           <>
-            <ChoiceField path="measurementId" label="Measurement" options={[{ value: '', label: 'Choose one of those ticked' }, ...chosen.map((m) => ({ value: m.id, label: m.label }))]} />
+            <ChoiceField path="measurementId" alsoErrorsOf={['measurement']} label="Measurement" options={[{ value: '', label: 'Choose one of those ticked' }, ...chosen.map((m) => ({ value: m.id, label: m.label }))]} />
             <ChoiceField
               path="measurementLevel"
               label="Which of its levels"
@@ -105,8 +106,8 @@ function Fields({ sources }: { sources: EstimateSources }) {
   )
 }
 
-function levelInputs(s: FormState): Record<string, unknown> {
-  if (!usesStored(s)) return { measurement: measurementInputs(s), distanceM: quantityInput(s, 'distanceM', U.distance) }
+function levelInputs(s: FormState, sources: EstimateSources): Record<string, unknown> {
+  if (!usesStored(s, sources)) return { measurement: measurementInputs(s), distanceM: quantityInput(s, 'distanceM', U.distance) }
   const byPosition = s.distanceFrom === 'position'
   return compact({
     measurementId: textInput(s, 'measurementId'),
@@ -123,9 +124,9 @@ export const eirpSinglePointForm: KindForm = {
   purpose: 'Back-calculates the EIRP (and ERP) from one level measured at a known distance.',
   initial: { 'measurement.kind': 'field-strength', 'model.kind': 'free-space' },
   Fields,
-  toInputs: (s) =>
+  toInputs: (s, sources) =>
     compact({
-      ...levelInputs(s),
+      ...levelInputs(s, sources),
       model: modelInputs(s, 'model', (p, u) => quantityInput(s, p, u)),
       measurementContributions: contributionsInputs(s, 'measurementContributions'),
       distanceUncertainty: distanceUncertaintyInputs(s, 'distanceUncertainty'),

@@ -26,12 +26,16 @@ function words(camel: string): string {
     .join(' ')
 }
 
+/** A key's name in words and the unit its suffix names, if any. */
+function split(key: string): { name: string; unit: string | null } {
+  const suffix = SUFFIXES.find(([s]) => key.endsWith(s) && key.length > s.length && /[a-z0-9]/.test(key[key.length - s.length - 1]!))
+  return { name: words(suffix ? key.slice(0, -suffix[0].length) : key), unit: suffix ? suffix[1] : null }
+}
+
 export function outputPathLabel(path: string): string {
   const parts = path.split('.')
   if (parts[0] === 'value') parts.shift()
-  const last = parts.pop() ?? path
-  const suffix = SUFFIXES.find(([s]) => last.endsWith(s) && last.length > s.length && /[a-z0-9]/.test(last[last.length - s.length - 1]!))
-  const name = words(suffix ? last.slice(0, -suffix[0].length) : last)
-  const where = parts.map((p) => (/^\d+$/.test(p) ? String(Number(p) + 1) : words(p)))
-  return `${[...where, name].join(' › ')}${suffix ? ` [${suffix[1]}]` : ''}`
+  const last = split(parts.pop() ?? path)
+  const where = parts.map((p) => (/^\d+$/.test(p) ? String(Number(p) + 1) : split(p).name))
+  return `${[...where, last.name].join(' › ')}${last.unit ? ` [${last.unit}]` : ''}`
 }

@@ -4,7 +4,6 @@
  * first). Folded until opened, so the case page asks for nothing more until someone works here.
  */
 import { useState } from 'react'
-import { CASE_MOVES } from '@shared/domain/case-lifecycle'
 import type { CaseDetail } from '@shared/schemas/views'
 import { Loading } from '@/components/ui/loading'
 import { QueryError } from '@/components/ui/query-error'
@@ -24,8 +23,6 @@ import { CaseMap } from './case-map'
 import { MeasurementChecklist, measurementLabel } from './measurement-checklist'
 import { useKeptForm } from './use-kept-form'
 
-/** The states in which estimates are made: those from which a finding can still be proposed. */
-export const WORKBENCH_STATES: readonly string[] = CASE_MOVES.proposeFinding.from
 
 function WorkbenchBody({ detail }: { detail: CaseDetail }) {
   const first = KIND_FORMS[0]!
@@ -99,7 +96,8 @@ function WorkbenchBody({ detail }: { detail: CaseDetail }) {
 /** Mounted by the case page; shows only while the case is being worked (assigned, field work, sent back). */
 export function Workbench({ detail }: { detail: CaseDetail }) {
   const [open, setOpen] = useState(false)
-  if (!WORKBENCH_STATES.includes(detail.status)) return null
+  // the server says who may run estimates now: the assigned investigator or the office supervisor, while the case is worked
+  if (!detail.abilities.storeCalculation) return null
   return (
     <section aria-label="Estimates workbench" className="rounded-panel border border-rule bg-surface">
       <details onToggle={(e) => setOpen(e.currentTarget.open)}>

@@ -70,6 +70,16 @@ export function MeasurementCard({ m, number, onEdit, onCorrect }: { m: Measureme
             </div>
           ))}
         </dl>
+        {Object.keys(m.methods).length > 0 && (
+          <details className="text-sm">
+            <summary className="min-h-11 cursor-pointer py-2">How these levels were derived (radio library {m.libraryVersion})</summary>
+            <ul className="list-disc pl-5">
+              {[...new Map(Object.values(m.methods).map((x) => [x.id, x])).values()].map((x) => (
+                <li key={x.id}>{x.source}</li>
+              ))}
+            </ul>
+          </details>
+        )}
         {(m.abilities.edit || m.abilities.correct) && (
           <div className="flex flex-wrap gap-3">
             {m.abilities.edit ? (

@@ -144,7 +144,7 @@ export function MeasurementForm({
 
           <fieldset className="flex min-w-0 flex-col gap-4">
             <legend className="text-lg font-semibold">Reading</legend>
-            <QuantityField label="Centre frequency" name="freqHz" kind="frequency" value={s.freq} onChange={(v) => set('freq', v)} error={sel('freqHz')} placeholder="433.92" />
+            <QuantityField label="Centre frequency" name="freqHz" kind="frequency" value={s.freq} onChange={(v) => set('freq', v)} error={sel('freqHz')} />
             <SelectField
               label="What the instrument shows"
               name="readingUnit"
@@ -157,7 +157,7 @@ export function MeasurementForm({
               options={READING_UNITS.map((u) => ({ value: u, label: READING_UNIT_LABELS[u] }))}
               error={sel('reading.unit')}
             />
-            <QuantityField label="Reading" name="reading" kind={readingKind} value={s.reading} onChange={(v) => set('reading', v)} error={sel('reading.value') ?? sel('reading')} placeholder="-62.5" />
+            <QuantityField label="Reading" name="reading" kind={readingKind} value={s.reading} onChange={(v) => set('reading', v)} error={sel('reading.value') ?? sel('reading')} />
             <div className="grid grid-cols-1 gap-4 @2xl:grid-cols-2">
               <QuantityField label="Resolution bandwidth (RBW)" name="rbwHz" kind="bandwidth" value={s.rbw} onChange={(v) => set('rbw', v)} error={sel('rbwHz')} />
               <QuantityField label="Measurement bandwidth" name="measurementBandwidthHz" kind="bandwidth" value={s.measurementBandwidth} onChange={(v) => set('measurementBandwidth', v)} error={sel('measurementBandwidthHz')} />

@@ -59,8 +59,8 @@ export function PositionFields({
     <fieldset className="flex min-w-0 flex-col gap-3">
       <legend className="text-lg font-semibold">Position</legend>
       <div className="grid grid-cols-1 gap-4 @2xl:grid-cols-2">
-        <QuantityField label="Latitude" name="latDeg" kind="angle" value={lat} onChange={(v) => onChange(v, lon)} error={errors.lat} hint="Decimal degrees, north positive (WGS 84)." placeholder="51.50720" />
-        <QuantityField label="Longitude" name="lonDeg" kind="angle" value={lon} onChange={(v) => onChange(lat, v)} error={errors.lon} hint="Decimal degrees, east positive." placeholder="-0.12760" />
+        <QuantityField label="Latitude" name="latDeg" kind="angle" value={lat} onChange={(v) => onChange(v, lon)} error={errors.lat} hint="Decimal degrees, north positive (WGS 84)." />
+        <QuantityField label="Longitude" name="lonDeg" kind="angle" value={lon} onChange={(v) => onChange(lat, v)} error={errors.lon} hint="Decimal degrees, east positive." />
       </div>
       <div className="flex flex-wrap gap-3">
         <Button variant="secondary" onClick={useDevice} disabled={geo.state === 'finding'}>
@@ -77,7 +77,6 @@ export function PositionFields({
       )}
       {mapOpen && (
         <div className="flex flex-col gap-2">
-          <p className="text-sm text-ink-muted">Tap or click where the measurement was taken; the marker shows the position in the fields.</p>
           <FieldMap
             label="Map to pick the measurement position"
             heightPx={320}
