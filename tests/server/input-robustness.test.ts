@@ -246,6 +246,8 @@ const fixed = (route: string, path: () => string, body: () => Record<string, unk
   base: async () => body(),
 })
 
+const NO_SUCH_UPLOAD = '5d2f0c3e-8a41-4c55-9b0e-2f7a9c1d6e40'
+
 const FUZZ: FuzzRow[] = [
   fixed('POST /api/auth/sign-in', () => '/api/auth/sign-in', () => ({ email: `fuzz-nobody-${process.pid}@example.test`, password: 'not-the-password' })),
   fixed('POST /api/auth/sign-out', () => '/api/auth/sign-out', () => ({})),
@@ -266,6 +268,12 @@ const FUZZ: FuzzRow[] = [
   bandLimitRow(),
   fixed('POST /api/offices/:id/equipment', () => `/api/offices/${ids.ownOfficeId}/equipment`, () => ({ item: { name: 'Fuzz analyser', type: 'analyser' } })),
   equipmentRow(),
+  // the register import: JSON where a file is expected, and the steps of an upload nobody made
+  fixed('POST /api/station-register/uploads', () => '/api/station-register/uploads', () => ({ delimiter: 'comma' })),
+  fixed('POST /api/station-register/uploads/:id/inspect', () => `/api/station-register/uploads/${NO_SUCH_UPLOAD}/inspect`, () => ({ delimiter: 'comma' })),
+  fixed('POST /api/station-register/uploads/:id/preview', () => `/api/station-register/uploads/${NO_SUCH_UPLOAD}/preview`, () => ({ delimiter: 'comma', mapping: { fields: {} } })),
+  fixed('POST /api/station-register/uploads/:id/confirm', () => `/api/station-register/uploads/${NO_SUCH_UPLOAD}/confirm`, () => ({ delimiter: 'comma', mapping: { fields: {} } })),
+  fixed('POST /api/station-register/candidates', () => '/api/station-register/candidates', () => ({ victimPosition: { latDeg: '48.1', lonDeg: '-31.4' }, lowFreqHz: '446 MHz', highFreqHz: '446.2 MHz' })),
   measurementRow('POST /api/cases/:id/measurements'),
   measurementRow('PATCH /api/measurements/:id'),
   measurementRow('POST /api/measurements/:id/corrections'),

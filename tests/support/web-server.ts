@@ -2,6 +2,8 @@
  * A real listening Quietband for browser tests: the built web app (dist/web), the API on the
  * throwaway database, an SMTP fake with its development mailbox and a running mail worker.
  */
+// the AWS SDK's notice that later releases will need Node 22 (known; see the stack notes), once per process
+process.env.AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED ??= 'true'
 import fs from 'node:fs'
 import os from 'node:os'
 import path from 'node:path'
@@ -15,6 +17,7 @@ import { startBoss, startMailWorker } from '../../server/jobs/boss'
 import { createMailer } from '../../server/mail/mailer'
 import { startSmtpFake } from '../../ops/local/smtp-fake'
 import { freePort } from '../../ops/local/free-port'
+import { createObjectStore } from '../../server/storage/object-store'
 
 export const WEB_DIST = fileURLToPath(new URL('../../dist/web', import.meta.url))
 
@@ -37,7 +40,9 @@ export async function startWebServer(): Promise<RunningWeb> {
   // the public URL must be known before listening (e-mailed links, origin checks): pick the port first
   const port = await freePort()
   const baseUrl = `http://127.0.0.1:${port}`
-  const handle = createApp({ pool, boss, sessionSecret: 'e2e-session-secret-long-enough-0123456789', publicUrl: baseUrl, staticDir: WEB_DIST, mailboxDir, listenHost: '127.0.0.1', mailQueue: { queueName: mailQueueName, retryDelaySeconds: 1, retryLimit: 10 } })
+  const s3 = inject('s3')
+  const objectStore = s3 && createObjectStore({ ...s3, region: 'us-east-1', forcePathStyle: true, maxUploadBytes: 50e6 })
+  const handle = createApp({ objectStore, pool, boss, sessionSecret: 'e2e-session-secret-long-enough-0123456789', publicUrl: baseUrl, staticDir: WEB_DIST, mailboxDir, listenHost: '127.0.0.1', mailQueue: { queueName: mailQueueName, retryDelaySeconds: 1, retryLimit: 10 } })
   const server: Server = await new Promise((resolve, reject) => {
     const s = handle.app.listen(port, '127.0.0.1', () => resolve(s))
     s.once('error', reject)

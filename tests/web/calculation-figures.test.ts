@@ -4,13 +4,13 @@ import { formatFigure, mainFigure, nameOfKey, unitOfKey } from '@/features/case-
 
 describe('unitOfKey and nameOfKey', () => {
   it.each([
-    ['eirpDbm', 'dBm', 'eirp'],
+    ['eirpDbm', 'dBm', 'EIRP'],
     ['marginDb', 'dB', 'margin'],
     ['fieldStrengthDbuvPerM', 'dBµV/m', 'field strength'],
     ['pfdDbwPerM2', 'dBW/m²', 'pfd'],
     ['distanceM', 'm', 'distance'],
     ['freqHz', 'Hz', 'freq'],
-    ['eirpW', 'W', 'eirp'],
+    ['eirpW', 'W', 'EIRP'],
     ['verdict', '', 'verdict'],
   ])('%s is in %s, named "%s"', (key, unit, name) => {
     expect(unitOfKey(key)).toBe(unit)
@@ -21,7 +21,7 @@ describe('unitOfKey and nameOfKey', () => {
 describe('mainFigure', () => {
   it('takes the quantity the interval bounds, with the interval', () => {
     const f = mainFigure({ outputs: { value: { eirpW: 0.2, eirpDbm: 23.4 }, interval: { quantity: 'eirpDbm', low: 21.9, high: 24.9, basis: 'k = 2' } } })
-    expect(f).toEqual({ key: 'eirpDbm', name: 'eirp', value: 23.4, unit: 'dBm', interval: { low: 21.9, high: 24.9, basis: 'k = 2' } })
+    expect(f).toEqual({ key: 'eirpDbm', name: 'EIRP', value: 23.4, unit: 'dBm', interval: { low: 21.9, high: 24.9, basis: 'k = 2' } })
   })
 
   it('without an interval, prefers the first level in decibels to the first number', () => {

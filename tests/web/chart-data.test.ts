@@ -1,7 +1,7 @@
 /** The charts' data preparation (components/charts/lib): the parts that need no canvas. */
 import { describe, expect, it } from 'vitest'
 import { combineUncertainty } from '../../shared/radio/uncertainty/gum-budget'
-import { budgetBars, distanceSpanM, formatDistanceTick, levelChartData, logSpacedM, residualChartData, sortByDistance } from '@/components/charts/lib/chart-data'
+import { budgetBars, distanceSpanM, formatDistanceTick, levelChartData, logDistanceSplits, logSpacedM, residualChartData, sortByDistance } from '@/components/charts/lib/chart-data'
 
 describe('log spacing of curve samples', () => {
   it('spaces samples evenly in log d, ends included', () => {
@@ -134,5 +134,21 @@ describe('budget bars', () => {
 
   it('leaves out rows without a usable share', () => {
     expect(budgetBars([{ name: 'x', contributionDb: 1, varianceShare: Number.NaN }, { name: 'y', contributionDb: 1, varianceShare: 1 }]).map((b) => b.name)).toEqual(['y'])
+  })
+})
+
+describe('ticks of a log distance axis', () => {
+  it('falls on round distances, 1, 2 and 5 × 10^k, inside the range', () => {
+    expect(logDistanceSplits(70, 1100)).toEqual([100, 200, 500, 1000])
+    expect(logDistanceSplits(1, 10)).toEqual([1, 2, 5, 10])
+  })
+
+  it('keeps to the decades when a wide range would crowd the axis', () => {
+    expect(logDistanceSplits(1, 1e6)).toEqual([1, 10, 100, 1000, 10000, 100000, 1e6])
+  })
+
+  it('gives no tick for a range a log axis cannot show', () => {
+    expect(logDistanceSplits(0, 100)).toEqual([])
+    expect(logDistanceSplits(100, 100)).toEqual([])
   })
 })

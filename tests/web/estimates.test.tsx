@@ -16,7 +16,6 @@ import { outputPathLabel } from '@/features/estimates/lib/output-path'
 import { ENFORCEMENT_CAUTION } from '@/components/cautions/enforcement-caution'
 import { paths } from '@/lib/paths'
 import { answer, apiError } from '../support/msw-server'
-import { measurementsResponse } from '../support/msw-measurements'
 import { abilities, caseResponse, IDS } from '../support/msw-views'
 import { renderPage } from '../support/web-render'
 
@@ -47,10 +46,9 @@ function record(changes: Partial<CalculationView>): CalculationView {
 
 /** A case in field work with its workbench's lists. */
 function serveWorkedCase(calculations: CalculationView[] = []) {
-  answer('get', '/api/cases/:id', caseResponse({ status: 'field_work', investigatorId: IDS.investigatorIlse, investigatorName: 'Ilse Brannock', abilities: abilities('proposeFinding') }))
+  answer('get', '/api/cases/:id', caseResponse({ status: 'field_work', investigatorId: IDS.investigatorIlse, investigatorName: 'Ilse Brannock', abilities: abilities('proposeFinding', 'storeCalculation') }))
   answer('get', '/api/cases/:id/findings', findingsResponseSchema.parse({ current: null, earlier: [] }))
   answer('get', '/api/cases/:id/calculations', calculationsResponseSchema.parse({ calculations }))
-  answer('get', '/api/cases/:id/measurements', measurementsResponse())
   answer('get', '/api/cases/:id/measurements', measurementsResponseSchema.parse({ measurements: [], abilities: { record: true } }))
   // the case page's measurement panel asks for the office's equipment
   answer('get', '/api/offices/:id/equipment', equipmentListResponseSchema.parse({ items: [], abilities: { manage: false } }))

@@ -127,7 +127,7 @@ function limitOf(references: Record<string, unknown>): LimitCopy {
       title: `${st.stationCode} — ${st.licensee} (${st.service})`,
       spec: spec.data,
       citation: `Licence of station ${st.stationCode} (${st.licensee}), licence register version ${st.registerVersion}`,
-      status: 'licence register',
+      status: 'as licensed',
     }
   }
   const copy = limitCopySchema.safeParse(references.limit)

@@ -101,5 +101,5 @@ export function assessCompliance(opts: ComplianceOptions): RadioResult<Complianc
 }
 
 function marginInterval(m: { lowDb: number; highDb: number }): CoverageInterval {
-  return { quantity: 'marginDb', low: m.lowDb, high: m.highDb, basis: 'margin at the ends of the EIRP interval given by the caller' }
+  return { quantity: 'marginDb', low: m.lowDb, high: m.highDb, basis: 'margin at the ends of the 95 % interval of the EIRP judged' }
 }

@@ -20,6 +20,26 @@ export function formatDistanceTick(distanceM: number): string {
   return `${text} ${km ? 'km' : 'm'}`
 }
 
+/**
+ * Ticks for a log distance axis between `minM` and `maxM`: 1, 2 and 5 × 10^k inside the range
+ * (only the decades when that would crowd the axis with more than `maxTicks`).
+ */
+export function logDistanceSplits(minM: number, maxM: number, maxTicks = 9): number[] {
+  if (!(minM > 0) || !(maxM > minM)) return []
+  const within = (steps: number[]) => {
+    const out: number[] = []
+    for (let k = Math.floor(Math.log10(minM)); k <= Math.ceil(Math.log10(maxM)); k++) {
+      for (const m of steps) {
+        const v = Number(`${m}e${k}`)
+        if (v >= minM * (1 - 1e-9) && v <= maxM * (1 + 1e-9)) out.push(v)
+      }
+    }
+    return out
+  }
+  const fine = within([1, 2, 5])
+  return fine.length <= maxTicks ? fine : within([1])
+}
+
 /** Usable on a log distance axis: a finite distance above 0 m. */
 const onLogAxis = (distanceM: number) => Number.isFinite(distanceM) && distanceM > 0
 

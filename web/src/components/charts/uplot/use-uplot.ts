@@ -6,7 +6,7 @@ import 'uplot/dist/uPlot.min.css'
 import './charts.css'
 import { useEffect, useRef } from 'react'
 import uPlot from 'uplot'
-import { formatDistanceTick } from '../lib/chart-data'
+import { formatDistanceTick, logDistanceSplits } from '../lib/chart-data'
 
 export function useUplot(makeOptions: (width: number) => uPlot.Options, data: uPlot.AlignedData, optionsKey: string) {
   const ref = useRef<HTMLDivElement>(null)
@@ -61,6 +61,8 @@ export function distanceAxis(): uPlot.Axis {
     stroke: CHART_COLOURS.ink,
     grid: { stroke: CHART_COLOURS.grid, width: 1 },
     ticks: { stroke: CHART_COLOURS.grid, width: 1 },
+    // round distances (1, 2, 5 × 10^k) rather than uPlot's own log splits, which land between them
+    splits: (u) => logDistanceSplits(u.scales.x!.min ?? 1, u.scales.x!.max ?? 10),
     values: (_u, splits) => splits.map((d) => (d == null ? '' : formatDistanceTick(d))),
   }
 }

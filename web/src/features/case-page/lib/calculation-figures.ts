@@ -34,11 +34,19 @@ export function unitOfKey(key: string): string {
   return ''
 }
 
-/** The quantity's name in words: `eirpDbm` → "eirp", `marginDb` → "margin". */
+/** Words the trade writes in capitals (or its own way), whatever their place in a key. */
+const TRADE_WORDS: Record<string, string> = { eirp: 'EIRP', erp: 'ERP', inr: 'I/N', rbw: 'RBW', pfd: 'pfd' }
+
+/** The quantity's name in words: `eirpDbm` → "EIRP", `marginDb` → "margin". */
 export function nameOfKey(key: string): string {
   const unit = UNIT_ENDINGS.find(([ending]) => key.endsWith(ending) && key.length > ending.length)
   const stem = unit ? key.slice(0, -unit[0].length) : key
-  return stem.replace(/([a-z0-9])([A-Z])/g, '$1 $2').toLowerCase()
+  return stem
+    .replace(/([a-z0-9])([A-Z])/g, '$1 $2')
+    .toLowerCase()
+    .split(' ')
+    .map((w) => TRADE_WORDS[w] ?? w)
+    .join(' ')
 }
 
 export interface MainFigure {

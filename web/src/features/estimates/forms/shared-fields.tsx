@@ -29,8 +29,11 @@ export function eirpSourceInputs(s: FormState, key: string): Record<string, unkn
   return stored ? { eirpCalculationId: stored } : compact({ [key]: quantityInput(s, key, U.dbm) })
 }
 
-/** Whether the points come from the ticked measurements (only offered when some are ticked). */
-export const fromMeasurements = (s: FormState, sources: EstimateSources) => (sources.measurements?.length ?? 0) > 0 && s.pointsFrom === 'measurements'
+/**
+ * Whether the points come from the ticked measurements: yes as soon as some are ticked, unless
+ * the investigator chose to type them (ticking measurements says which to use).
+ */
+export const fromMeasurements = (s: FormState, sources: EstimateSources) => (sources.measurements?.length ?? 0) > 0 && s.pointsFrom !== 'typed'
 
 export function PointsFromField({ sources, what }: { sources: EstimateSources; what: string }) {
   const n = sources.measurements?.length ?? 0
@@ -40,9 +43,10 @@ export function PointsFromField({ sources, what }: { sources: EstimateSources; w
       <ChoiceField
         path="pointsFrom"
         label={`${what} from`}
+        fallback="measurements"
         options={[
-          { value: 'typed', label: 'Typed below' },
           { value: 'measurements', label: `The ${n} ticked measurement${n === 1 ? '' : 's'} of this case` },
+          { value: 'typed', label: 'Typed below' },
         ]}
       />
     </div>

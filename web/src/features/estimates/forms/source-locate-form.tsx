@@ -83,7 +83,7 @@ export const sourceLocateForm: KindForm = {
   kind: 'source_locate',
   label: 'Source position from levels and bearings',
   purpose: 'Finds the most likely source position from levels at known points and/or bearings, with its 95 % ellipse.',
-  initial: { use: 'levels-and-bearings' },
+  initial: { use: 'levels-and-bearings', 'pathLoss.refDistanceM': '1' },
   Fields,
   toInputs: (s, sources) =>
     compact({

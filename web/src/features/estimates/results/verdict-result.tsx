@@ -37,7 +37,7 @@ export function VerdictResult({ value }: { value: VerdictOutput }) {
       </dl>
       <p className="text-sm break-words">
         <span className="font-semibold">Limit from:</span> {value.citation}
-        {value.limitStatus ? ` — status ${value.limitStatus}` : ''}
+        {value.limitStatus ? ` — ${value.limitStatus}` : ''}
       </p>
       <EnforcementCaution />
       {value.derivation && value.derivation.length > 0 && (
