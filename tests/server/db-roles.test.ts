@@ -80,6 +80,16 @@ describe.skipIf(sameRole)('the application database role', () => {
       expect(rows[0].n).toBeGreaterThan(0)
     })
 
+    it('may correct measurements and equipment but never delete or empty them', async () => {
+      // the demo's registers hold equipment; a delete the role may not make fails before it looks at any row
+      await expect(app.query('DELETE FROM measurements')).rejects.toThrow(/permission denied/)
+      await expect(app.query('DELETE FROM equipment')).rejects.toThrow(/permission denied/)
+      await expect(app.query('TRUNCATE measurements')).rejects.toThrow(/permission denied/)
+      await expect(app.query('TRUNCATE equipment')).rejects.toThrow(/permission denied/)
+      // updating stays possible (an unused measurement is edited in place, an item gets a new version)
+      await expect(inRolledBack(app, (c) => c.query(`UPDATE equipment SET notes = notes WHERE false`))).resolves.toBeDefined()
+    })
+
     it('may not drop or alter the table, or add one of its own', async () => {
       await expect(app.query('DROP TABLE case_events')).rejects.toThrow(/must be owner/)
       await expect(app.query('ALTER TABLE case_events ADD COLUMN note text')).rejects.toThrow(/must be owner/)
