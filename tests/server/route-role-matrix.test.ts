@@ -83,6 +83,7 @@ const MATRIX: Row[] = [
   { route: 'GET /api/cases/export.csv', expect: [401, 403, 200, 200, 200] },
   { route: 'GET /api/cases/:id', path: (ids) => `/api/cases/${ids.otherCaseId}`, expect: [401, 403, 404, 404, 200] },
   { route: 'GET /api/cases/:id/merge-candidates', path: (ids) => `/api/cases/${ids.otherCaseId}/merge-candidates`, expect: [401, 403, 404, 404, 200] },
+  { route: 'GET /api/cases/:id/nearby-cases', path: (ids) => `/api/cases/${ids.otherCaseId}/nearby-cases`, expect: [401, 403, 404, 404, 200] },
   { route: 'GET /api/cases/:id/investigators', path: (ids) => `/api/cases/${ids.otherCaseId}/investigators`, expect: [401, 403, 404, 404, 200] },
   { route: 'GET /api/cases/:id/transfer-offices', path: (ids) => `/api/cases/${ids.otherCaseId}/transfer-offices`, expect: [401, 403, 404, 404, 200] },
   { route: 'POST /api/cases/:id/notes', path: (ids) => `/api/cases/${ids.ownCaseId}/notes`, body: { body: 'Checked the licence register.', visibility: 'internal' }, expect: [401, 403, 201, 201, 403] },

@@ -135,6 +135,43 @@ export function openCasesNear(
     .limit(200)
 }
 
+/**
+ * Open (not closed) cases of an office, other than one, whose place lies in a latitude/longitude
+ * box around a centre; `lonDeg` may run past ±180 (wrapped here) or be null (every longitude,
+ * near a pole). Ordered by a flat-earth distance from the centre (longitude scaled by the
+ * cosine of the centre's latitude), nearest first, at most `limit`: the caller measures the
+ * geodesic distance of these and keeps the nearest.
+ */
+export function openCasesInBox(
+  db: Db,
+  q: { officeId: string; exceptCaseId: string; centre: { latDeg: number; lonDeg: number }; latDeg: [number, number]; lonDeg: [number, number] | null; limit: number },
+): Promise<Pick<CaseRow, 'id' | 'reference' | 'status' | 'latDeg' | 'lonDeg' | 'freqLowHz' | 'freqHighHz'>[]> {
+  const wrap = (x: number) => ((((x + 180) % 360) + 360) % 360) - 180
+  let lonInBox = sql`true`
+  if (q.lonDeg) {
+    const [west, east] = [wrap(q.lonDeg[0]), wrap(q.lonDeg[1])]
+    lonInBox = west <= east ? sql`${cases.lonDeg} between ${west} and ${east}` : sql`(${cases.lonDeg} >= ${west} or ${cases.lonDeg} <= ${east})`
+  }
+  const cosLat = Math.cos((q.centre.latDeg * Math.PI) / 180)
+  // the longitude difference wrapped into [−180, 180) so a box across the antimeridian orders right
+  const dLon = sql`(${cases.lonDeg} - ${q.centre.lonDeg}::float8 + 540 - 360 * floor((${cases.lonDeg} - ${q.centre.lonDeg}::float8 + 540) / 360) - 180)`
+  const flatDistance = sql`power(${cases.latDeg} - ${q.centre.latDeg}::float8, 2) + power(${dLon} * ${cosLat}::float8, 2)`
+  return db
+    .select({ id: cases.id, reference: cases.reference, status: cases.status, latDeg: cases.latDeg, lonDeg: cases.lonDeg, freqLowHz: cases.freqLowHz, freqHighHz: cases.freqHighHz })
+    .from(cases)
+    .where(
+      and(
+        eq(cases.officeId, q.officeId),
+        ne(cases.id, q.exceptCaseId),
+        ne(cases.status, 'closed'),
+        sql`${cases.latDeg} between ${q.latDeg[0]} and ${q.latDeg[1]}`,
+        lonInBox,
+      ),
+    )
+    .orderBy(flatDistance, asc(cases.id))
+    .limit(q.limit)
+}
+
 /** Active investigators of an office with how many open cases each holds, lightest first. */
 export function investigatorLoads(db: Db, officeId: string): Promise<{ id: string; name: string; openCases: number }[]> {
   return db

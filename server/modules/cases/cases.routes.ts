@@ -23,6 +23,7 @@ import { addCaseNote } from './case-notes.service'
 import { exportCasesCsv, listCases } from './case-list.service'
 import * as moves from './case-moves.service'
 import { getCaseDetail, investigatorsForCase, mergeCandidates, transferOffices } from './case-read.service'
+import { nearbyOpenCases } from './nearby-cases.service'
 import type { Actor } from '../../policy/policy'
 
 
@@ -45,6 +46,9 @@ export function casesRoutes(ctx: ServiceContext): Router {
   })
   r.get('/cases/:id/merge-candidates', staff, async (req, res) => {
     res.json({ candidates: await mergeCandidates(ctx, actorOf(req), caseIdOf(req.params)) })
+  })
+  r.get('/cases/:id/nearby-cases', staff, async (req, res) => {
+    res.json({ cases: await nearbyOpenCases(ctx, actorOf(req), caseIdOf(req.params)) })
   })
   r.get('/cases/:id/investigators', staff, async (req, res) => {
     res.json({ investigators: await investigatorsForCase(ctx, actorOf(req), caseIdOf(req.params)) })

@@ -21,6 +21,8 @@ export const caseKeys = {
   detail: (caseId: string) => [...caseKeys.all, 'detail', caseId] as const,
   investigators: (caseId: string) => [...caseKeys.all, 'investigators', caseId] as const,
   mergeCandidates: (caseId: string) => [...caseKeys.all, 'merge-candidates', caseId] as const,
+  /** The office's other open cases around a case, for its map. */
+  nearbyCases: (caseId: string) => [...caseKeys.all, 'nearby-cases', caseId] as const,
   transferOffices: (caseId: string) => [...caseKeys.all, 'transfer-offices', caseId] as const,
   /** The case's findings (current and earlier proposals). */
   findings: (caseId: string) => [...caseKeys.all, 'findings', caseId] as const,

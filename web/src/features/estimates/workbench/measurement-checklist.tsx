@@ -2,10 +2,14 @@
 import type { MeasurementView } from '@shared/schemas/measurements'
 import { fmt, fmtHz } from '../lib/units'
 
-export function measurementLabel(m: MeasurementView): string {
+/** The measurement's level, the most derived one it has: "105.07 dBµV/m". */
+export function measurementLevel(m: MeasurementView): string {
   const d = m.derived
-  const level =
-    d.fieldStrengthDbuvPerM !== undefined ? fmt(d.fieldStrengthDbuvPerM, 'dBµV/m') : d.pfdDbwPerM2 !== undefined ? fmt(d.pfdDbwPerM2, 'dBW/m²') : d.isotropicReceivedPowerDbm !== undefined ? fmt(d.isotropicReceivedPowerDbm, 'dBm') : `${fmt(m.reading.value, m.reading.unit)} read`
+  return d.fieldStrengthDbuvPerM !== undefined ? fmt(d.fieldStrengthDbuvPerM, 'dBµV/m') : d.pfdDbwPerM2 !== undefined ? fmt(d.pfdDbwPerM2, 'dBW/m²') : d.isotropicReceivedPowerDbm !== undefined ? fmt(d.isotropicReceivedPowerDbm, 'dBm') : `${fmt(m.reading.value, m.reading.unit)} read`
+}
+
+export function measurementLabel(m: MeasurementView): string {
+  const level = measurementLevel(m)
   const at = new Date(m.takenAt).toLocaleString('en-GB', { dateStyle: 'short', timeStyle: 'short' })
   return `${level} at ${fmtHz(m.freqHz)}, ${at}`
 }
