@@ -34,6 +34,9 @@ import { measurementsRoutes } from './modules/measurements/measurements.routes'
 import { stationRegisterRoutes } from './modules/stations/stations.routes'
 import type { ObjectStore } from './storage/object-store'
 import { findingsRoutes } from './modules/findings/findings.routes'
+import { evidenceRoutes } from './modules/evidence/evidence.routes'
+import { evidenceBundleRoutes } from './modules/evidence-bundle/evidence-bundle.routes'
+import { evidenceAnalysisRoutes } from './modules/evidence/processing/analysis.routes'
 
 export interface AppDeps {
   pool: pg.Pool
@@ -145,6 +148,9 @@ export function createApp(deps: AppDeps): AppHandle {
   api.use(measurementsRoutes(ctx))
   api.use(stationRegisterRoutes(ctx))
   api.use(findingsRoutes(ctx))
+  api.use(evidenceRoutes(ctx))
+  api.use(evidenceBundleRoutes(ctx))
+  api.use(evidenceAnalysisRoutes(ctx))
   api.use(mailboxRoutes({ dir: deps.mailboxDir, listenHost: deps.listenHost, nodeEnv: deps.nodeEnv ?? process.env.NODE_ENV, trustProxy: deps.trustProxy }))
   api.use(apiNotFound)
   app.use('/api', api)

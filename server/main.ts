@@ -11,7 +11,9 @@ import { startBoss, startMailWorker } from './jobs/boss'
 import { createMailer } from './mail/mailer'
 import { createApp } from './app'
 import { createLogger, log, setProcessLogger } from './log/logger'
-import { isDatabaseUnavailable } from './db/client'
+import { createDb, isDatabaseUnavailable } from './db/client'
+import { startEvidenceOrphanSweep } from './modules/evidence/orphan-sweep'
+import { startEvidenceProcessingWorker } from './modules/evidence/processing-queue'
 import { objectStoreFromEnv } from './storage/object-store'
 
 export interface RunningServer {
@@ -43,6 +45,7 @@ export async function startServer(env: Env): Promise<RunningServer> {
   const boss = await startBoss(env.DATABASE_URL, { maintenanceIntervalSeconds: env.JOB_MAINTENANCE_INTERVAL_SECONDS })
   const mailer = createMailer({ smtpUrl: env.SMTP_URL, from: env.MAIL_FROM })
   const mailWorker = env.RUN_WORKERS ? await startMailWorker(boss, mailer, { pollingIntervalSeconds: env.MAIL_POLL_INTERVAL_SECONDS }) : undefined
+  const objectStore = objectStoreFromEnv(env)
   const handle = createApp({
     pool,
     boss,
@@ -55,9 +58,11 @@ export async function startServer(env: Env): Promise<RunningServer> {
     pruneSessions: true,
     trustProxy: env.TRUST_PROXY,
     logger,
-    objectStore: objectStoreFromEnv(env),
+    objectStore,
     mapTiles: env.MAP_TILE_URL && env.MAP_TILE_ATTRIBUTION ? { urlTemplate: env.MAP_TILE_URL, attribution: env.MAP_TILE_ATTRIBUTION } : undefined,
   })
+  const orphanSweep = env.RUN_WORKERS ? startEvidenceOrphanSweep({ db: createDb(pool), store: objectStore }) : undefined
+  const evidenceWorker = env.RUN_WORKERS ? await startEvidenceProcessingWorker({ boss, db: createDb(pool), objectStore }) : undefined
   const server: Server = await new Promise((resolve, reject) => {
     const s = handle.app.listen(env.PORT, env.HOST, () => resolve(s))
     s.once('error', reject)
@@ -71,7 +76,9 @@ export async function startServer(env: Env): Promise<RunningServer> {
       const closed = new Promise<void>((r) => server.close(() => r()))
       server.closeIdleConnections()
       await closed
+      orphanSweep?.stop()
       await mailWorker?.stop()
+      await evidenceWorker?.stop()
       await boss.stop({ graceful: true, wait: true, timeout: 5000 })
       handle.close()
       mailer.close()

@@ -41,6 +41,10 @@ const envSchema = z.object({
   S3_FORCE_PATH_STYLE: z.enum(['true', 'false']).default('true').transform((v) => v === 'true'),
   /** The largest file an upload may hold, in bytes (default 50 MB). */
   UPLOAD_MAX_BYTES: z.coerce.number().int().min(1024).max(10 * 1024 ** 3).default(50 * 1024 * 1024),
+  /** The largest evidence file a staff member may upload to a case [bytes] (default 2 GiB). */
+  EVIDENCE_MAX_BYTES_STAFF: z.coerce.number().int().min(1024).max(50 * 1024 ** 3).default(2 * 1024 ** 3),
+  /** The largest evidence file a complainant may upload to their report [bytes] (default 25 MiB). */
+  EVIDENCE_MAX_BYTES_COMPLAINANT: z.coerce.number().int().min(1024).max(50 * 1024 ** 3).default(25 * 1024 ** 2),
   SMTP_URL: url('SMTP_URL').refine((v) => /^smtps?:\/\//.test(v), 'SMTP_URL must start with smtp:// or smtps://'),
   MAIL_FROM: z.string().default('Quietband <no-reply@quietband.test>'),
   /** Folder where the local SMTP fake keeps messages; set only with the embedded fake. */

@@ -12,10 +12,17 @@ export interface ObjectStore {
   bucket: string
   /** The largest file an upload may hold [bytes] (UPLOAD_MAX_BYTES). */
   maxUploadBytes: number
+  /** The largest evidence file each kind of uploader may put on a case [bytes] (EVIDENCE_MAX_BYTES_*); absent, the defaults of the evidence module. */
+  evidenceMaxBytes?: EvidenceMaxBytes
 }
 
-export function createObjectStore(settings: S3Settings & { maxUploadBytes: number }): ObjectStore {
-  return { client: createS3Client(settings), bucket: settings.bucket, maxUploadBytes: settings.maxUploadBytes }
+export interface EvidenceMaxBytes {
+  staff: number
+  complainant: number
+}
+
+export function createObjectStore(settings: S3Settings & { maxUploadBytes: number; evidenceMaxBytes?: EvidenceMaxBytes }): ObjectStore {
+  return { client: createS3Client(settings), bucket: settings.bucket, maxUploadBytes: settings.maxUploadBytes, evidenceMaxBytes: settings.evidenceMaxBytes }
 }
 
 /** The store the configuration names (S3_* and UPLOAD_MAX_BYTES). */
@@ -28,5 +35,6 @@ export function objectStoreFromEnv(env: Env): ObjectStore {
     secretAccessKey: env.S3_SECRET_ACCESS_KEY,
     forcePathStyle: env.S3_FORCE_PATH_STYLE,
     maxUploadBytes: env.UPLOAD_MAX_BYTES,
+    evidenceMaxBytes: { staff: env.EVIDENCE_MAX_BYTES_STAFF, complainant: env.EVIDENCE_MAX_BYTES_COMPLAINANT },
   })
 }

@@ -201,26 +201,10 @@ export const registerVersionViewSchema = z.object({
 })
 export type RegisterVersionView = z.infer<typeof registerVersionViewSchema>
 
-/** An authorised station of a register version. */
-export const stationViewSchema = z.object({
+/** An authorised station of a register version: the row as imported, with its id and version. */
+export const stationViewSchema = stationDraftViewSchema.extend({
   id,
   registerVersion: z.number().int().min(1),
-  line: z.number().int(),
-  stationCode: z.string(),
-  licensee: z.string(),
-  service: z.string(),
-  latitudeDeg: z.number(),
-  longitudeDeg: z.number(),
-  antennaHeightM: z.number().nullable(),
-  lowFreqHz: z.number(),
-  highFreqHz: z.number(),
-  limit: limitSpecViewSchema,
-  /** With a conducted-power limit: the antenna gain and feeder loss the licence states. */
-  antennaGainDbi: z.number().nullable(),
-  feederLossDb: z.number().nullable(),
-  authorisedEirpDbm: z.number(),
-  validFrom: isoDate.nullable(),
-  validUntil: isoDate.nullable(),
 })
 export type StationView = z.infer<typeof stationViewSchema>
 

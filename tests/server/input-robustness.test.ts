@@ -274,6 +274,12 @@ const FUZZ: FuzzRow[] = [
   fixed('POST /api/station-register/uploads/:id/preview', () => `/api/station-register/uploads/${NO_SUCH_UPLOAD}/preview`, () => ({ delimiter: 'comma', mapping: { fields: {} } })),
   fixed('POST /api/station-register/uploads/:id/confirm', () => `/api/station-register/uploads/${NO_SUCH_UPLOAD}/confirm`, () => ({ delimiter: 'comma', mapping: { fields: {} } })),
   fixed('POST /api/station-register/candidates', () => '/api/station-register/candidates', () => ({ victimPosition: { latDeg: '48.1', lonDeg: '-31.4' }, lowFreqHz: '446 MHz', highFreqHz: '446.2 MHz' })),
+  // evidence: JSON where a multipart form is expected (this app has no file store), and one file nobody uploaded
+  fixed('POST /api/cases/:id/evidence', () => `/api/cases/${ids.mergeTargetId}/evidence`, () => ({ kind: 'photo' })),
+  complainantRow('POST /api/track/:token/evidence', { kind: 'photo' }),
+  complainantRow('POST /api/my/reports/:id/evidence', { kind: 'photo' }),
+  fixed('POST /api/evidence/:id/verify', () => `/api/evidence/${NO_SUCH_UPLOAD}/verify`, () => ({})),
+  fixed('POST /api/evidence/:id/remove', () => `/api/evidence/${NO_SUCH_UPLOAD}/remove`, () => ({ reason: 'Filed on the wrong case.' })),
   measurementRow('POST /api/cases/:id/measurements'),
   measurementRow('PATCH /api/measurements/:id'),
   measurementRow('POST /api/measurements/:id/corrections'),

@@ -161,6 +161,22 @@ const MATRIX: Row[] = [
   // a case's measurements: staff of its office read them; the assigned investigator or the supervisor record them while
   // the case is worked (the own new report: the unassigned investigator 403, the supervisor 409, the administrator 403)
   { route: 'GET /api/cases/:id/measurements', path: (ids) => `/api/cases/${ids.otherCaseId}/measurements`, expect: [401, 403, 404, 404, 200] },
+  // a case's evidence files: staff of its office upload and list (another office's case 404); the complainant through the
+  // tracking link or their account (another's report 404); one file's download, check, removal and custody: staff (none here: 404)
+  { route: 'POST /api/cases/:id/evidence', path: (ids) => `/api/cases/${ids.otherCaseId}/evidence`, body: { kind: 'photo' }, expect: [401, 403, 404, 404, 403] },
+  { route: 'GET /api/cases/:id/evidence', path: (ids) => `/api/cases/${ids.otherCaseId}/evidence`, expect: [401, 403, 404, 404, 403] },
+  { route: 'POST /api/track/:token/evidence', path: () => `/api/track/${'Z'.repeat(43)}/evidence`, body: { kind: 'photo' }, expect: [404, 404, 404, 404, 404] },
+  { route: 'GET /api/track/:token/evidence', path: (ids) => `/api/track/${ids.trackingToken}/evidence`, expect: [200, 200, 200, 200, 200] },
+  { route: 'POST /api/my/reports/:id/evidence', path: (ids) => `/api/my/reports/${ids.otherCaseId}/evidence`, body: { kind: 'photo' }, expect: [401, 404, 403, 403, 403] },
+  { route: 'GET /api/my/reports/:id/evidence', path: (ids) => `/api/my/reports/${ids.otherCaseId}/evidence`, expect: [401, 404, 403, 403, 403] },
+  { route: 'GET /api/evidence/:id/download', path: () => '/api/evidence/00000000-0000-4000-8000-000000000000/download', expect: [401, 403, 404, 404, 403] },
+  { route: 'POST /api/evidence/:id/verify', path: () => '/api/evidence/00000000-0000-4000-8000-000000000000/verify', body: {}, expect: [401, 403, 404, 404, 403] },
+  { route: 'POST /api/evidence/:id/remove', path: () => '/api/evidence/00000000-0000-4000-8000-000000000000/remove', body: { reason: 'Matrix check' }, expect: [401, 403, 404, 404, 403] },
+  { route: 'GET /api/evidence/:id/custody', path: () => '/api/evidence/00000000-0000-4000-8000-000000000000/custody', expect: [401, 403, 404, 404, 403] },
+  // a spectrum file's analysis (summary, display trace, spectrogram): staff of its office (own office 200 and another office 404: evidence-processing.test.ts)
+  { route: 'GET /api/evidence/:id/analysis', path: () => '/api/evidence/00000000-0000-4000-8000-000000000000/analysis', expect: [401, 403, 404, 404, 403] },
+  // a case's evidence bundle (ZIP of its files and manifest): staff of its office; another office's case is 404
+  { route: 'GET /api/cases/:id/evidence-bundle', path: (ids) => `/api/cases/${ids.otherCaseId}/evidence-bundle`, expect: [401, 403, 404, 404, 200] },
   {
     route: 'POST /api/cases/:id/measurements',
     path: (ids) => `/api/cases/${ids.ownCaseId}/measurements`,

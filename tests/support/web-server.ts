@@ -12,8 +12,9 @@ import { fileURLToPath } from 'node:url'
 import { inject } from 'vitest'
 import { testMailQueue } from './harness'
 import { createApp } from '../../server/app'
-import { createPool } from '../../server/db/client'
+import { createDb, createPool } from '../../server/db/client'
 import { startBoss, startMailWorker } from '../../server/jobs/boss'
+import { startEvidenceProcessingWorker } from '../../server/modules/evidence/processing-queue'
 import { createMailer } from '../../server/mail/mailer'
 import { startSmtpFake } from '../../ops/local/smtp-fake'
 import { freePort } from '../../ops/local/free-port'
@@ -42,6 +43,7 @@ export async function startWebServer(): Promise<RunningWeb> {
   const baseUrl = `http://127.0.0.1:${port}`
   const s3 = inject('s3')
   const objectStore = s3 && createObjectStore({ ...s3, region: 'us-east-1', forcePathStyle: true, maxUploadBytes: 50e6 })
+  await startEvidenceProcessingWorker({ boss, db: createDb(pool), objectStore }, { pollingIntervalSeconds: 0.5 })
   const handle = createApp({ objectStore, pool, boss, sessionSecret: 'e2e-session-secret-long-enough-0123456789', publicUrl: baseUrl, staticDir: WEB_DIST, mailboxDir, listenHost: '127.0.0.1', mailQueue: { queueName: mailQueueName, retryDelaySeconds: 1, retryLimit: 10 } })
   const server: Server = await new Promise((resolve, reject) => {
     const s = handle.app.listen(port, '127.0.0.1', () => resolve(s))

@@ -19,6 +19,7 @@ function serveTheCase(options: { abilities: CaseAbilities; changes?: Partial<Cas
   answer('get', '/api/cases/:id/findings', findingsResponse())
   answer('get', '/api/cases/:id/calculations', calculationsResponse([]))
   answer('get', '/api/cases/:id/measurements', measurementsResponse())
+  answer('get', '/api/cases/:id/evidence', { evidence: [] })
   return {
     transferOffices: answer('get', '/api/cases/:id/transfer-offices', transferOfficesResponse(options.otherOffices === false ? [] : undefined)),
   }
@@ -133,7 +134,9 @@ describe('the case page’s action panel', () => {
     answer('get', '/api/cases/:id/findings', findingsResponse())
     answer('get', '/api/cases/:id/calculations', calculationsResponse([]))
     answer('get', '/api/cases/:id/measurements', measurementsResponse())
+    answer('get', '/api/cases/:id/evidence', { evidence: [] })
   answer('get', '/api/cases/:id/measurements', measurementsResponse())
+  answer('get', '/api/cases/:id/evidence', { evidence: [] })
     answer('post', '/api/cases/:id/start-field-work', () =>
       apiError(409, { code: 'stale_version', message: 'The case was changed by someone else. Reload it and try again.' }),
     )

@@ -28,6 +28,7 @@ function serveCase(nearby: Parameters<typeof answer>[2]) {
   answer('get', '/api/cases/:id/findings', findingsResponseSchema.parse({ current: null, earlier: [] }))
   answer('get', '/api/cases/:id/calculations', calculationsResponseSchema.parse({ calculations: [] }))
   answer('get', '/api/cases/:id/measurements', measurementsResponseSchema.parse({ measurements: [], abilities: { record: true } }))
+  answer('get', '/api/cases/:id/evidence', { evidence: [] })
   answer('get', '/api/offices/:id/equipment', equipmentListResponseSchema.parse({ items: [], abilities: { manage: false } }))
   answer('get', '/api/region', regionMapResponse())
   return answer('get', '/api/cases/:id/nearby-cases', nearby)

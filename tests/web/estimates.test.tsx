@@ -50,6 +50,7 @@ function serveWorkedCase(calculations: CalculationView[] = []) {
   answer('get', '/api/cases/:id/findings', findingsResponseSchema.parse({ current: null, earlier: [] }))
   answer('get', '/api/cases/:id/calculations', calculationsResponseSchema.parse({ calculations }))
   answer('get', '/api/cases/:id/measurements', measurementsResponseSchema.parse({ measurements: [], abilities: { record: true } }))
+  answer('get', '/api/cases/:id/evidence', { evidence: [] })
   // the case page's measurement panel asks for the office's equipment
   answer('get', '/api/offices/:id/equipment', equipmentListResponseSchema.parse({ items: [], abilities: { manage: false } }))
 }

@@ -14,6 +14,7 @@ function serveTheCase() {
   answer('get', '/api/cases/:id', caseResponse({ ...assigned, abilities: abilities('proposeFinding', 'addInternalNote') }))
   answer('get', '/api/cases/:id/findings', findingsResponse())
   answer('get', '/api/cases/:id/measurements', measurementsResponse())
+  answer('get', '/api/cases/:id/evidence', { evidence: [] })
   answer(
     'get',
     '/api/cases/:id/calculations',

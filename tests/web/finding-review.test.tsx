@@ -14,6 +14,7 @@ function serve(status: 'finding_proposed' | 'closed', can: Parameters<typeof abi
   answer('get', '/api/cases/:id', caseResponse({ status, investigatorId: IDS.investigatorIlse, investigatorName: 'Ilse Brannock', abilities: abilities(...can) }))
   answer('get', '/api/cases/:id/calculations', calculationsResponse())
   answer('get', '/api/cases/:id/measurements', measurementsResponse())
+  answer('get', '/api/cases/:id/evidence', { evidence: [] })
   answer('get', '/api/region', regionMapResponse())
   answer(
     'get',

@@ -23,9 +23,8 @@ export const storedFiles = pgTable(
     contentType: text('content_type').notNull(),
     contentTypeSource: text('content_type_source', { enum: CONTENT_TYPE_SOURCES }).notNull(),
     purpose: text('purpose', { enum: STORED_FILE_PURPOSES }).notNull(),
-    uploadedBy: uuid('uploaded_by')
-      .notNull()
-      .references(() => users.id),
+    /** The staff member or signed-in person; null for a complainant using a case's tracking link. */
+    uploadedBy: uuid('uploaded_by').references(() => users.id),
     uploadedAt: timestamp('uploaded_at', { withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [

@@ -32,7 +32,7 @@ export const TRACKING_GUESSES_PER_HOUR_PER_ADDRESS = 20
  * this process's memory: a token has 256 random bits, so this is about load and noise, not
  * about guessing one (additions are counted in PostgreSQL, see addComplainantInformation).
  */
-function trackingGuessLimit() {
+export function trackingGuessLimit() {
   return rateLimit({
     windowMs: 60 * 60 * 1000,
     limit: TRACKING_GUESSES_PER_HOUR_PER_ADDRESS,

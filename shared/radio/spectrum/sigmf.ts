@@ -307,3 +307,117 @@ function optString(o: Record<string, unknown>, key: string, path: string): strin
   if (typeof v !== 'string') throw new SigmfError(`must be a string (got ${JSON.stringify(v)}).`, `${path}.${key}`)
   return v
 }
+
+/** The datatypes the block decoder reads (the common receiver formats). */
+export const SIGMF_BLOCK_DATATYPES = ['cf32_le', 'ci16_le', 'cu8'] as const
+
+export interface SigmfBlockDecoder {
+  /** Bytes per complex sample. */
+  readonly bytesPerSample: number
+  /** Complex samples decoded so far. */
+  readonly samplesDecoded: number
+  /**
+   * Decodes a block of the dataset (any length, split anywhere) into interleaved Float32 I/Q
+   * at ±1 full scale; bytes of a sample cut by the block's end wait for the next block.
+   */
+  decode(block: Uint8Array): Float32Array
+  /** Ends the dataset: SigmfError when it did not end on a whole sample. */
+  finish(): void
+}
+
+/**
+ * A dataset decoder that takes the data block by block (as it streams from storage), for
+ * `cf32_le`, `ci16_le` and `cu8` (eq. (1)–(3)); other datatypes are refused by name.
+ */
+export function createSigmfBlockDecoder(opts: { metadata: SigmfMetadata }): SigmfBlockDecoder {
+  const { metadata } = opts
+  const dt = metadata.datatype
+  if (!(SIGMF_BLOCK_DATATYPES as readonly string[]).includes(dt.text)) {
+    throw new SigmfError(
+      `'${dt.text}' is not read here: recordings must be ${SIGMF_BLOCK_DATATYPES.join(', ')} (complex, one channel).`,
+      'global.core:datatype',
+    )
+  }
+  if (metadata.numChannels !== 1) {
+    throw new SigmfError(`${metadata.numChannels} interleaved channels are not supported; split the recording into one channel per dataset.`, 'global.core:num_channels')
+  }
+  if (metadata.captures.some((c) => (c.headerBytes ?? 0) > 0)) {
+    throw new SigmfError('non-conforming datasets with header bytes are not supported.', 'captures[].core:header_bytes')
+  }
+  const bytesPerSample = 2 * dt.bytesPerComponent
+  const carry = new Uint8Array(bytesPerSample)
+  let carried = 0
+  let samplesDecoded = 0
+  return {
+    bytesPerSample,
+    get samplesDecoded() {
+      return samplesDecoded
+    },
+    decode(block) {
+      let start = 0
+      const parts: Float32Array[] = []
+      if (carried > 0) {
+        const need = Math.min(bytesPerSample - carried, block.byteLength)
+        carry.set(block.subarray(0, need), carried)
+        carried += need
+        start = need
+        if (carried < bytesPerSample) return new Float32Array(0)
+        parts.push(decodeComponents(carry, dt, 0, 2))
+        carried = 0
+      }
+      const whole = Math.floor((block.byteLength - start) / bytesPerSample)
+      const body = block.subarray(start, start + whole * bytesPerSample)
+      parts.push(decodeComponents(body, dt, 0, 2 * whole))
+      const rest = block.byteLength - start - whole * bytesPerSample
+      if (rest > 0) {
+        carry.set(block.subarray(block.byteLength - rest), 0)
+        carried = rest
+      }
+      const count = parts.reduce((s, p) => s + p.length, 0)
+      samplesDecoded += count / 2
+      if (parts.length === 1) return parts[0]
+      const out = new Float32Array(count)
+      let at = 0
+      for (const p of parts) {
+        out.set(p, at)
+        at += p.length
+      }
+      return out
+    },
+    finish() {
+      if (carried > 0) {
+        throw new SigmfError(
+          `dataset is not a whole number of ${dt.text} samples (${bytesPerSample} bytes each): ${carried} byte(s) left after ${samplesDecoded} samples; the file may be truncated.`,
+        )
+      }
+    },
+  }
+}
+
+/**
+ * Checks a dataset's length against its metadata before decoding: a whole number of samples,
+ * not empty, and every capture and annotation starting (and annotations ending) inside it.
+ * Returns the number of complex samples; SigmfError names the contradicting field.
+ */
+export function checkSigmfDataLength(opts: { metadata: SigmfMetadata; dataBytes: number }): number {
+  const { metadata, dataBytes } = opts
+  const bytesPerSample = 2 * metadata.datatype.bytesPerComponent * metadata.numChannels
+  if (!Number.isInteger(dataBytes) || dataBytes < 0) throw new SigmfError(`dataset length must be a whole number of bytes (got ${dataBytes}).`)
+  if (dataBytes % bytesPerSample !== 0) {
+    throw new SigmfError(`dataset of ${dataBytes} bytes is not a whole number of ${metadata.datatype.text} samples (${bytesPerSample} bytes each); the file may be truncated.`)
+  }
+  const sampleCount = dataBytes / bytesPerSample
+  if (sampleCount === 0) throw new SigmfError('dataset is empty.')
+  metadata.captures.forEach((c, i) => {
+    if (c.sampleStart >= sampleCount) {
+      throw new SigmfError(`starts at sample ${c.sampleStart}, but the dataset holds only ${sampleCount} samples: the metadata does not match the data.`, `captures[${i}].core:sample_start`)
+    }
+  })
+  metadata.annotations.forEach((a, i) => {
+    const end = a.sampleStart + (a.sampleCount ?? 0)
+    if (a.sampleStart >= sampleCount || end > sampleCount) {
+      throw new SigmfError(`covers samples up to ${end}, but the dataset holds only ${sampleCount} samples: the metadata does not match the data.`, `annotations[${i}]`)
+    }
+  })
+  return sampleCount
+}

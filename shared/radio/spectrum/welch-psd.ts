@@ -83,8 +83,19 @@ export interface WelchPsd {
 
 const MAX_SEGMENT_LENGTH = 2 ** 24
 
-/** Welch power spectrum of complex samples (see the file header for the equations). */
-export function welchPsd(opts: WelchPsdOptions): RadioResult<WelchPsd> {
+/** The checked settings of a Welch estimate (shared by `welchPsd` and the block-wise accumulator). */
+export interface WelchSettings {
+  sampleRateHz: number
+  centerFreqHz: number
+  segmentLength: number
+  overlapSamples: number
+  windowKind: WindowKind
+  detrend: Detrend
+  scaling: PsdScaling
+}
+
+/** Checks the options common to every Welch estimate; RangeError names the offending one. */
+export function welchSettings(opts: Omit<WelchPsdOptions, 'iq'>): WelchSettings {
   const sampleRateHz = requirePositive('sampleRateHz', opts.sampleRateHz)
   const centerFreqHz = requireFinite('centerFreqHz', opts.centerFreqHz ?? 0)
   const n = opts.segmentLength
@@ -99,6 +110,12 @@ export function welchPsd(opts: WelchPsdOptions): RadioResult<WelchPsd> {
   if (scaling !== 'density' && scaling !== 'spectrum') {
     throw new RangeError(`scaling must be 'density' or 'spectrum' (got ${String(scaling)}).`)
   }
+  return { sampleRateHz, centerFreqHz, segmentLength: n, overlapSamples: Math.floor(overlapFraction * n), windowKind, detrend, scaling }
+}
+
+/** Welch power spectrum of complex samples (see the file header for the equations). */
+export function welchPsd(opts: WelchPsdOptions): RadioResult<WelchPsd> {
+  const { sampleRateHz, centerFreqHz, segmentLength: n, overlapSamples, windowKind, detrend, scaling } = welchSettings(opts)
   const reference = levelReference(opts.fullScaleDbm)
   const sampleCount = iqSampleCount(opts.iq)
   if (sampleCount === 0) throw new RangeError('iq must not be empty.')
@@ -106,7 +123,6 @@ export function welchPsd(opts: WelchPsdOptions): RadioResult<WelchPsd> {
     throw new RangeError(`segmentLength ${n} is longer than the recording (${sampleCount} complex samples).`)
   }
 
-  const overlapSamples = Math.floor(overlapFraction * n)
   const step = n - overlapSamples
   const segmentCount = Math.floor((sampleCount - overlapSamples) / step) // Eq. (1) [1]
   const samplesUsed = (segmentCount - 1) * step + n
@@ -124,6 +140,30 @@ export function welchPsd(opts: WelchPsdOptions): RadioResult<WelchPsd> {
   const tailBad = firstNonFiniteSample({ iq: opts.iq, fromSample: samplesUsed })
   if (tailBad >= 0) throw new RangeError(`iq samples contain NaN or Infinity (first at complex sample ${tailBad}).`)
 
+  return welchFromSums({ acc, sampleRateHz, centerFreqHz, segmentLength: n, overlapSamples, segmentCount, samplesUsed, windowKind, detrend, scaling, reference, sumW, sumW2 })
+}
+
+/**
+ * The Welch result from the summed periodograms Σ_m |X_m[k]|² (natural FFT order): eq. (3)–(7).
+ * Shared by the one-shot `welchPsd` and the block-wise accumulator so both scale identically.
+ */
+export function welchFromSums(opts: {
+  acc: Float64Array
+  sampleRateHz: number
+  centerFreqHz: number
+  segmentLength: number
+  overlapSamples: number
+  segmentCount: number
+  samplesUsed: number
+  windowKind: WindowKind
+  detrend: Detrend
+  scaling: PsdScaling
+  reference: LevelReference
+  sumW: number
+  sumW2: number
+}): RadioResult<WelchPsd> {
+  const { acc, sampleRateHz, centerFreqHz, overlapSamples, segmentCount, samplesUsed, windowKind, detrend, scaling, reference, sumW, sumW2 } = opts
+  const n = opts.segmentLength
   const scale =
     scaling === 'density'
       ? 1 / (segmentCount * sampleRateHz * sumW2) // Eq. (3) [1/Hz]

@@ -32,6 +32,10 @@ export const caseKeys = {
   recompute: (calculationId: string) => [...caseKeys.all, 'recompute', calculationId] as const,
   /** The case's measurements. */
   measurements: (caseId: string) => [...caseKeys.all, 'measurements', caseId] as const,
+  /** The case's evidence files. */
+  evidence: (caseId: string) => [...caseKeys.all, 'evidence', caseId] as const,
+  /** One evidence file's chain of custody. */
+  custody: (evidenceId: string) => [...caseKeys.all, 'custody', evidenceId] as const,
 }
 
 /** The office's staff, for the case list's investigator filter. */
@@ -53,6 +57,8 @@ export const officeKeys = {
 export const trackingKeys = {
   myReports: () => ['my-reports'] as const,
   report: (via: 'token' | 'account', tokenOrId: string) => ['complainant-report', via, tokenOrId] as const,
+  /** The files the complainant put on that report. */
+  evidence: (via: 'token' | 'account', tokenOrId: string) => ['complainant-report', via, tokenOrId, 'evidence'] as const,
 }
 
 /** The public region map. */

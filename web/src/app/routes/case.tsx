@@ -11,6 +11,7 @@ import { CaseReportDetails } from '@/features/case-page/components/case-report-d
 import { CaseTimeline } from '@/features/case-page/components/case-timeline'
 import { FindingSummary } from '@/features/case-page/components/finding-summary'
 import { MeasurementsSection } from '@/features/measurements/components/measurements-section'
+import { EvidenceSection } from '@/features/evidence/components/evidence-section'
 import { Workbench } from '@/features/estimates/workbench/workbench'
 import { useNow } from '@/lib/use-now'
 import { isApiError } from '@/lib/api-client'
@@ -60,6 +61,7 @@ export function Component() {
       </div>
       {/* full width: the measurement form keeps its live levels beside the fields on a wide screen */}
       <MeasurementsSection caseId={detail.id} officeId={detail.officeId} casePoint={{ latDeg: detail.latDeg, lonDeg: detail.lonDeg }} />
+      <EvidenceSection caseId={detail.id} />
     </div>
   )
 }

@@ -11,6 +11,7 @@ import { serviceLabel } from '@/lib/service-label'
 import type { ComplainantReport, ReportSource } from '../api/get-complainant-report'
 import { AddInformationForm } from './add-information-form'
 import { EntriesList } from './entries-list'
+import { MyEvidence } from './my-evidence'
 import { StatusSteps } from './status-steps'
 import { WithdrawPanel } from './withdraw-panel'
 
@@ -61,6 +62,11 @@ export function ComplainantReportView({ source, report }: { source: ReportSource
       <Panel label="Messages and updates">
         <h2 className="mb-3 text-xl font-bold">Messages and updates</h2>
         <EntriesList entries={report.entries} />
+      </Panel>
+
+      <Panel label="Your files">
+        <h2 className="mb-3 text-xl font-bold">Your files</h2>
+        <MyEvidence source={source} />
       </Panel>
 
       {report.abilities.addInformation && (

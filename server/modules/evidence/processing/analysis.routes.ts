@@ -1,0 +1,16 @@
+import { Router } from 'express'
+import { idParamSchema } from '../../../../shared/schemas/ids'
+import type { ServiceContext } from '../../../context'
+import { actorOf, requireRole } from '../../../http/authenticate'
+import { evidenceNotFound, getEvidenceAnalysis } from './analysis.service'
+
+/** A spectrum evidence file's analysis (summary, display trace, spectrogram): staff of its office. */
+export function evidenceAnalysisRoutes(ctx: ServiceContext): Router {
+  const r = Router()
+  r.get('/evidence/:id/analysis', requireRole('investigator', 'supervisor'), async (req, res) => {
+    const parsed = idParamSchema.safeParse(req.params)
+    if (!parsed.success) throw evidenceNotFound()
+    res.json({ analysis: await getEvidenceAnalysis(ctx, actorOf(req), parsed.data.id) })
+  })
+  return r
+}

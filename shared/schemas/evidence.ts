@@ -1,0 +1,87 @@
+/**
+ * Evidence files on a case (/api/cases/:id/evidence, /api/track/:token/evidence,
+ * /api/my/reports/:id/evidence, /api/evidence/:id/…): the answers. A file's type is decided by
+ * the server from its content; sizes are bytes, hashes SHA-256 in lowercase hex.
+ */
+import { z } from 'zod'
+import {
+  CUSTODY_ACTIONS,
+  EVIDENCE_KINDS,
+  EVIDENCE_PROCESSING_STATES,
+  EVIDENCE_UPLOADER_ROLES,
+  VERIFICATION_OUTCOMES,
+} from '../domain/evidence'
+import { storableString } from './text'
+
+const instant = z.iso.datetime()
+const id = z.uuid()
+
+export const evidenceKindSchema = z.enum(EVIDENCE_KINDS)
+
+export const evidenceProcessingSchema = z.object({
+  state: z.enum(EVIDENCE_PROCESSING_STATES),
+  progress: z.number().min(0).max(1),
+  message: z.string().optional(),
+})
+
+export const evidenceAbilitiesSchema = z.object({
+  download: z.boolean(),
+  verify: z.boolean(),
+  remove: z.boolean(),
+})
+export type EvidenceAbilities = z.infer<typeof evidenceAbilitiesSchema>
+
+export const evidenceViewSchema = z.object({
+  id,
+  caseId: id,
+  kind: evidenceKindSchema,
+  /** The file's name as uploaded, cleaned of path separators and control characters. */
+  originalName: z.string(),
+  sizeBytes: z.number().int().min(1),
+  /** Decided from the content, never from the uploader's declaration. */
+  contentType: z.string(),
+  sha256: z.string().regex(/^[0-9a-f]{64}$/),
+  uploadedBy: z.object({
+    id: id.nullable(),
+    name: z.string(),
+    role: z.enum(EVIDENCE_UPLOADER_ROLES),
+  }),
+  uploadedAt: instant,
+  removed: z.object({ at: instant, by: z.string(), reason: z.string() }).nullable(),
+  verification: z.object({ at: instant, by: z.string(), outcome: z.enum(VERIFICATION_OUTCOMES) }).nullable(),
+  processing: evidenceProcessingSchema,
+  abilities: evidenceAbilitiesSchema,
+})
+export type EvidenceView = z.infer<typeof evidenceViewSchema>
+
+export const evidenceListResponseSchema = z.object({ evidence: z.array(evidenceViewSchema) })
+export type EvidenceListResponse = z.infer<typeof evidenceListResponseSchema>
+
+export const evidenceUploadResponseSchema = z.object({ evidence: evidenceViewSchema })
+
+export const custodyEntryViewSchema = z.object({
+  at: instant,
+  /** A staff name, 'Complainant', or 'Quietband' for automatic steps. */
+  actor: z.string(),
+  action: z.enum(CUSTODY_ACTIONS),
+  /** The client's address as the server saw it. */
+  from: z.string().nullable(),
+  detail: z.string().optional(),
+})
+export type CustodyEntryView = z.infer<typeof custodyEntryViewSchema>
+
+export const custodyListResponseSchema = z.object({ custody: z.array(custodyEntryViewSchema) })
+
+export const verifyEvidenceResponseSchema = z.object({
+  outcome: z.enum(VERIFICATION_OUTCOMES),
+  expectedSha256: z.string(),
+  actualSha256: z.string().nullable(),
+  evidence: evidenceViewSchema,
+})
+
+/** The form fields sent beside the file (multipart). */
+export const evidenceUploadFieldsSchema = z.strictObject({ kind: evidenceKindSchema })
+
+export const removeEvidenceRequestSchema = z.strictObject({
+  reason: storableString().trim().min(3, 'Say why the file is removed (at least 3 characters).').max(2000, 'A reason is at most 2000 characters.'),
+})
