@@ -6,6 +6,8 @@
  */
 import { z } from 'zod'
 import { EVIDENCE_PROCESSING_STATES } from '../domain/evidence'
+import { readWrittenNumber } from './number-with-unit'
+import { readQuantity, unitsOf } from './quantities'
 
 const instant = z.iso.datetime()
 
@@ -100,3 +102,72 @@ export const evidenceAnalysisViewSchema = z.object({
 export type EvidenceAnalysisView = z.infer<typeof evidenceAnalysisViewSchema>
 
 export const evidenceAnalysisResponseSchema = z.object({ analysis: evidenceAnalysisViewSchema })
+
+// ---- a band of a stored analysis (POST /api/evidence/:id/band) -------------------------------
+
+/** Highest frequency a band may name (above every trace the processing accepts) [Hz]. */
+const MAX_BAND_FREQUENCY_HZ = 1e12
+
+/**
+ * One edge of a band: a JSON number is read in hertz (the key's unit); text must carry its unit
+ * ("433.9 MHz"), read by the strict parser. Text without a unit is refused, not guessed.
+ */
+function bandEdge(label: string) {
+  return z.unknown().transform((input, ctx) => {
+    if (typeof input === 'string') {
+      const written = readWrittenNumber(input, { label, units: Object.fromEntries(unitsOf('frequency').map((u) => [u, 1])) })
+      if (written.ok && written.value.unit === null) {
+        ctx.addIssue({ code: 'custom', message: `Write the unit with ${label} (for example 433.9 MHz), or send a number of hertz.` })
+        return z.NEVER
+      }
+    }
+    const r = readQuantity(input, 'frequency', { label, min: 0, minExclusive: true, max: MAX_BAND_FREQUENCY_HZ, defaultUnit: 'Hz', example: '433.9 MHz' })
+    if (r.ok) return r.value
+    ctx.addIssue({ code: 'custom', message: r.message })
+    return z.NEVER
+  })
+}
+
+export const bandRequestSchema = z
+  .object({ lowFreqHz: bandEdge('the low edge of the band'), highFreqHz: bandEdge('the high edge of the band') })
+  .strict()
+  .superRefine((b, ctx) => {
+    if (!(b.highFreqHz > b.lowFreqHz)) ctx.addIssue({ code: 'custom', path: ['highFreqHz'], message: 'The high edge of the band must be above its low edge.' })
+  })
+export type BandRequest = z.infer<typeof bandRequestSchema>
+
+/**
+ * Channel power and occupied bandwidth of a band, computed on the stored DISPLAY trace (≤ 4,096
+ * points, min/max-decimated when the source had more): its resolution is `basis.binSpacingHz`.
+ * The channel power is in the analysis' level unit: exactly one of `channelPowerDbm` and
+ * `channelPowerDbfs` is set, or neither when the trace does not state its noise bandwidth.
+ */
+export const evidenceBandViewSchema = z.object({
+  evidenceId: z.uuid(),
+  lowFreqHz: z.number(),
+  highFreqHz: z.number(),
+  levelUnit: z.enum(['dBm', 'dBFS']),
+  channelPowerDbm: z.number().nullable(),
+  channelPowerDbfs: z.number().nullable(),
+  /** Why the channel power is missing, in words; null when it is given. */
+  channelPowerNote: z.string().nullable(),
+  occupiedBandwidthHz: z.number().min(0).nullable(),
+  occupiedLowerEdgeHz: z.number().nullable(),
+  occupiedUpperEdgeHz: z.number().nullable(),
+  betaPercent: z.number().nullable(),
+  basis: z.object({
+    trace: z.literal('display'),
+    pointCount: z.number().int().positive(),
+    pointsInBand: z.number().min(0),
+    decimated: z.boolean(),
+    sourcePointCount: z.number().int().positive(),
+    binSpacingHz: z.number().positive(),
+    enbwHz: z.number().positive().nullable(),
+  }),
+  warnings: z.array(z.string()),
+  methods: z.array(methodRefSchema),
+  libraryVersion: z.string(),
+})
+export type EvidenceBandView = z.infer<typeof evidenceBandViewSchema>
+
+export const evidenceBandResponseSchema = z.object({ band: evidenceBandViewSchema })

@@ -280,6 +280,7 @@ const FUZZ: FuzzRow[] = [
   complainantRow('POST /api/my/reports/:id/evidence', { kind: 'photo' }),
   fixed('POST /api/evidence/:id/verify', () => `/api/evidence/${NO_SUCH_UPLOAD}/verify`, () => ({})),
   fixed('POST /api/evidence/:id/remove', () => `/api/evidence/${NO_SUCH_UPLOAD}/remove`, () => ({ reason: 'Filed on the wrong case.' })),
+  fixed('POST /api/evidence/:id/band', () => `/api/evidence/${NO_SUCH_UPLOAD}/band`, () => ({ lowFreqHz: '101.5 MHz', highFreqHz: 102.5e6 })),
   measurementRow('POST /api/cases/:id/measurements'),
   measurementRow('PATCH /api/measurements/:id'),
   measurementRow('POST /api/measurements/:id/corrections'),

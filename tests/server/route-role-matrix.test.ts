@@ -175,6 +175,8 @@ const MATRIX: Row[] = [
   { route: 'GET /api/evidence/:id/custody', path: () => '/api/evidence/00000000-0000-4000-8000-000000000000/custody', expect: [401, 403, 404, 404, 403] },
   // a spectrum file's analysis (summary, display trace, spectrogram): staff of its office (own office 200 and another office 404: evidence-processing.test.ts)
   { route: 'GET /api/evidence/:id/analysis', path: () => '/api/evidence/00000000-0000-4000-8000-000000000000/analysis', expect: [401, 403, 404, 404, 403] },
+  // channel power and occupied bandwidth of a band of that analysis (own office 200: evidence-band.test.ts)
+  { route: 'POST /api/evidence/:id/band', path: () => '/api/evidence/00000000-0000-4000-8000-000000000000/band', body: { lowFreqHz: 101.5e6, highFreqHz: 102.5e6 }, expect: [401, 403, 404, 404, 403] },
   // a case's evidence bundle (ZIP of its files and manifest): staff of its office; another office's case is 404
   { route: 'GET /api/cases/:id/evidence-bundle', path: (ids) => `/api/cases/${ids.otherCaseId}/evidence-bundle`, expect: [401, 403, 404, 404, 200] },
   {

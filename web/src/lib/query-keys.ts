@@ -36,6 +36,8 @@ export const caseKeys = {
   evidence: (caseId: string) => [...caseKeys.all, 'evidence', caseId] as const,
   /** One evidence file's chain of custody. */
   custody: (evidenceId: string) => [...caseKeys.all, 'custody', evidenceId] as const,
+  /** One spectrum evidence file's analysis (summary, display trace, spectrogram). */
+  analysis: (evidenceId: string) => [...caseKeys.all, 'analysis', evidenceId] as const,
 }
 
 /** The office's staff, for the case list's investigator filter. */

@@ -4,6 +4,8 @@
  */
 export { LevelDistanceChart, ResidualChart } from './lazy-charts'
 export { BudgetBars } from './budget-bars'
+export { SpectrumChart } from './lazy-spectrum'
+export type { SpectrumChartProps, SpectrumTrace } from './spectrum-types'
 export type {
   BudgetBarRow,
   BudgetBarsProps,

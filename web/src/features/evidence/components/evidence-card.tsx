@@ -16,6 +16,7 @@ import { useCustody } from '../api/get-custody'
 import type { Evidence } from '../api/get-evidence'
 import { useRemoveEvidence } from '../api/remove-evidence'
 import { useVerifyEvidence } from '../api/verify-evidence'
+import { SpectrumView, hasSpectrum } from './spectrum-view'
 
 const when = (iso: string) => format(parseISO(iso), 'd MMM yyyy, HH:mm')
 
@@ -26,6 +27,8 @@ export function EvidenceCard({ e, caseId }: { e: Evidence; caseId: string }) {
   const [custodyOpen, setCustodyOpen] = useState(false)
   const [removing, setRemoving] = useState(false)
   const [copied, setCopied] = useState(false)
+  const [spectrumOpen, setSpectrumOpen] = useState(false)
+  const showsSpectrum = hasSpectrum(e) && e.abilities.download
   const verify = useVerifyEvidence(caseId)
   const processing = e.processing
   const busy = processing.state === 'queued' || processing.state === 'running'
@@ -109,11 +112,17 @@ export function EvidenceCard({ e, caseId }: { e: Evidence; caseId: string }) {
             Remove from the case
           </Button>
         )}
+        {showsSpectrum && (
+          <Button variant="secondary" className="w-full sm:w-auto" aria-expanded={spectrumOpen} onClick={() => setSpectrumOpen((o) => !o)}>
+            {spectrumOpen ? 'Hide the spectrum' : 'Show the spectrum'}
+          </Button>
+        )}
         <Button variant="quiet" className="w-full sm:w-auto" aria-expanded={custodyOpen} onClick={() => setCustodyOpen((o) => !o)}>
           {custodyOpen ? 'Hide custody log' : 'Custody log'}
         </Button>
       </div>
       {removing && <RemoveForm caseId={caseId} e={e} onClose={() => setRemoving(false)} />}
+      {showsSpectrum && spectrumOpen && <SpectrumView caseId={caseId} evidence={e} />}
       {custodyOpen && <CustodyLog evidenceId={e.id} />}
     </li>
   )

@@ -1,0 +1,93 @@
+/**
+ * "Save as a measurement": a band's channel power in dBm (a calibrated trace only) kept as a
+ * measurement of the case, with the time and place it was taken, which the file does not hold.
+ * The band's centre and width, the evidence file and how the figure was computed go with it.
+ */
+import { useState, type FormEvent } from 'react'
+import type { MeasurementContentInput } from '@shared/schemas/measurements'
+import { readQuantity } from '@shared/schemas/quantities'
+import type { EvidenceBandView } from '@shared/schemas/spectrum'
+import { Button } from '@/components/ui/button'
+import { QuantityField, emptyQuantity, type QuantityValue } from '@/components/ui/quantity-field'
+import { TextField } from '@/components/ui/text-field'
+import { isApiError } from '@/lib/api-client'
+import { useSaveBandMeasurement } from '../api/save-band-measurement'
+
+/** A datetime-local value as an ISO instant, or null when it is not a time. */
+function instantOf(v: string): string | null {
+  if (!/^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}(:\d{2})?$/.test(v)) return null
+  const d = new Date(v)
+  return Number.isNaN(d.getTime()) ? null : d.toISOString()
+}
+
+type Errors = { takenAt?: string; latDeg?: string; lonDeg?: string; form?: string }
+
+export function SaveBandForm({ caseId, fileName, band, channelPowerDbm }: { caseId: string; fileName: string; band: EvidenceBandView; channelPowerDbm: number }) {
+  const save = useSaveBandMeasurement(caseId)
+  const [takenAtLocal, setTakenAtLocal] = useState('')
+  const [lat, setLat] = useState<QuantityValue>(emptyQuantity('angle'))
+  const [lon, setLon] = useState<QuantityValue>(emptyQuantity('angle'))
+  const [errors, setErrors] = useState<Errors>({})
+  const [saved, setSaved] = useState(false)
+
+  const submit = (ev: FormEvent) => {
+    ev.preventDefault()
+    const takenAt = instantOf(takenAtLocal)
+    const la = readQuantity(`${lat.figure.trim()} ${lat.unit}`.trim(), 'angle', { label: 'the latitude', min: -90, max: 90 })
+    const lo = readQuantity(`${lon.figure.trim()} ${lon.unit}`.trim(), 'angle', { label: 'the longitude', min: -180, max: 180 })
+    const next: Errors = {}
+    if (!takenAt) next.takenAt = 'Enter the date and time the file was recorded.'
+    if (lat.figure.trim() === '') next.latDeg = 'Enter the latitude.'
+    else if (!la.ok) next.latDeg = la.message
+    if (lon.figure.trim() === '') next.lonDeg = 'Enter the longitude.'
+    else if (!lo.ok) next.lonDeg = lo.message
+    setErrors(next)
+    if (Object.keys(next).length > 0 || !takenAt || !la.ok || !lo.ok) return
+    const b = band.basis
+    const measurement: MeasurementContentInput = {
+      takenAt,
+      latDeg: la.value,
+      lonDeg: lo.value,
+      freqHz: `${(band.lowFreqHz + band.highFreqHz) / 2} Hz`,
+      measurementBandwidthHz: `${band.highFreqHz - band.lowFreqHz} Hz`,
+      reading: { unit: 'dBm', value: `${channelPowerDbm} dBm` },
+      evidenceFileId: band.evidenceId,
+      notes: `Channel power of ${fileName} from ${band.lowFreqHz} Hz to ${band.highFreqHz} Hz, computed on the display trace (${b.pointCount} points, ${b.binSpacingHz.toPrecision(4)} Hz apart${b.decimated ? `, reduced from ${b.sourcePointCount}` : ''}${b.enbwHz ? `, noise bandwidth ${b.enbwHz} Hz` : ''}); radio library ${band.libraryVersion}.`,
+    }
+    save.mutate(measurement, {
+      onSuccess: () => setSaved(true),
+      onError: (err) => {
+        if (!isApiError(err)) return setErrors({ form: 'The measurement could not be saved.' })
+        const byField: Errors = {}
+        const rest: string[] = []
+        for (const d of err.details) {
+          const key = d.path.replace(/^measurement\./, '')
+          if (key === 'takenAt' || key === 'latDeg' || key === 'lonDeg') byField[key] = d.message
+          else rest.push(d.message)
+        }
+        setErrors({ ...byField, ...(rest.length > 0 || Object.keys(byField).length === 0 ? { form: [err.message, ...rest].join(' ') } : {}) })
+      },
+    })
+  }
+
+  if (saved) return <p role="status" className="text-sm font-semibold text-ok">Saved as a measurement of the case.</p>
+  return (
+    <form onSubmit={submit} noValidate aria-label="Save as a measurement" className="flex flex-col gap-3 rounded-control border border-rule p-3">
+      <h4 className="font-semibold">Save as a measurement</h4>
+      <p className="text-sm">The file does not say when and where it was recorded: give both. The reading is the channel power in dBm over the band.</p>
+      <TextField label="Recorded at" name={`band-taken-${band.evidenceId}`} type="datetime-local" value={takenAtLocal} onChange={(e) => setTakenAtLocal(e.target.value)} error={errors.takenAt} />
+      <div className="grid grid-cols-1 gap-3 sm:grid-cols-2">
+        <QuantityField label="Latitude" name={`band-lat-${band.evidenceId}`} kind="angle" value={lat} onChange={setLat} error={errors.latDeg} hint="Decimal degrees, north positive (WGS 84)." />
+        <QuantityField label="Longitude" name={`band-lon-${band.evidenceId}`} kind="angle" value={lon} onChange={setLon} error={errors.lonDeg} hint="Decimal degrees, east positive (WGS 84)." />
+      </div>
+      {errors.form && (
+        <p role="alert" className="text-sm text-danger">
+          {errors.form}
+        </p>
+      )}
+      <Button type="submit" className="w-full sm:w-auto" disabled={save.isPending}>
+        {save.isPending ? 'Saving…' : 'Save as a measurement'}
+      </Button>
+    </form>
+  )
+}
