@@ -13,7 +13,7 @@
  */
 import pg from 'pg'
 import { prepareDatabase } from '../../server/db/roles'
-import { startCluster } from '../../tests/support/clusters'
+import { startCluster } from '../local/clusters'
 import { seedDemo } from '../seed-demo'
 import { DEMO_REGION_BOX } from '../demo-data/region'
 import { argValue, loadAverage, machineInfo, machineLine, percentile, postgresVersion, reportResult, signIn, startBenchServer, type QueryRecorder } from './support'

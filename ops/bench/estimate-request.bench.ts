@@ -16,7 +16,7 @@ import pg from 'pg'
 import { prepareDatabase } from '../../server/db/roles'
 import { CALCULATION_STATES } from '../../server/policy/calculation-policy'
 import { createNormalSource, createUniformSource, freeSpaceLossDb, geodesicDirect } from '../../shared/radio'
-import { startCluster } from '../../tests/support/clusters'
+import { startCluster } from '../local/clusters'
 import { seedDemo } from '../seed-demo'
 import { argValue, loadAverage, machineInfo, machineLine, percentile, postgresVersion, reportResult, signIn, startBenchServer } from './support'
 

@@ -11,7 +11,7 @@ import { afterAll, describe, expect, inject, it } from 'vitest'
 import { createPool } from '../../server/db/client'
 import { DEMO } from '../support/harness'
 import { newPage, SCREENSHOTS } from '../support/browser'
-import { runningApp, submitSignIn } from '../support/e2e'
+import { landedOnWork, runningApp, submitSignIn, workedCaseOfDemoInvestigator } from '../support/e2e'
 import { readZip } from '../support/zip-reader'
 import { bundleManifestSchema } from '../../shared/schemas/evidence-bundle'
 
@@ -21,26 +21,17 @@ afterAll(async () => {
   await pool.end()
 })
 
-async function workedCaseOfDemoInvestigator(): Promise<string> {
-  const { rows } = await pool.query<{ id: string }>(
-    `SELECT c.id FROM cases c JOIN users u ON u.id = c.investigator_id
-      WHERE u.email = $1 AND c.status IN ('assigned', 'field_work', 'returned') ORDER BY c.reference LIMIT 1`,
-    [DEMO.investigator],
-  )
-  if (!rows[0]) throw new Error('the demo seed has no case being worked by the demo investigator')
-  return rows[0].id
-}
 
 // a short trace with a unique line, so its hash is this run's own
 const TRACE = Buffer.from(['freqHz,levelDbm', ...Array.from({ length: 200 }, (_, i) => `${156_800_000 + i * 1250},${(-98 + (i % 9)).toFixed(1)}`), `# run ${crypto.randomUUID()}`].join('\n') + '\n')
 
 describe('evidence on a case', () => {
   it('the investigator uploads a CSV trace with its progress shown, and sees it listed with its hash, at 1440 and 390 px', async () => {
-    const caseId = await workedCaseOfDemoInvestigator()
+    const caseId = await workedCaseOfDemoInvestigator(pool)
     const { page, errors } = await newPage(app.browser)
     await page.setViewportSize({ width: 1440, height: 900 })
     await submitSignIn(page, app.web.baseUrl, DEMO.investigator)
-    await page.waitForURL(/\/work/, { timeout: 20_000 })
+    await landedOnWork(page)
     await page.goto(`${app.web.baseUrl}/cases/${caseId}`)
     const section = page.getByRole('region', { name: 'Evidence files' })
     await section.waitFor({ timeout: 20_000 })

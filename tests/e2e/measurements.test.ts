@@ -9,7 +9,7 @@ import { afterAll, describe, expect, inject, it } from 'vitest'
 import { createPool } from '../../server/db/client'
 import { DEMO } from '../support/harness'
 import { newPage, screenshot, SCREENSHOTS } from '../support/browser'
-import { runningApp, submitSignIn } from '../support/e2e'
+import { landedOnWork, runningApp, submitSignIn, workedCaseOfDemoInvestigator } from '../support/e2e'
 
 const app = runningApp()
 const pool = createPool(inject('databaseUrl'), 1)
@@ -17,24 +17,14 @@ afterAll(async () => {
   await pool.end()
 })
 
-/** A Harrowmere case being worked by the demo investigator (the demo seed assigns several). */
-async function workedCaseOfDemoInvestigator(): Promise<string> {
-  const { rows } = await pool.query<{ id: string }>(
-    `SELECT c.id FROM cases c JOIN users u ON u.id = c.investigator_id
-      WHERE u.email = $1 AND c.status IN ('assigned', 'field_work', 'returned') ORDER BY c.reference LIMIT 1`,
-    [DEMO.investigator],
-  )
-  if (!rows[0]) throw new Error('the demo seed has no case being worked by the demo investigator')
-  return rows[0].id
-}
 
 describe('measurements on a case', () => {
   it('the investigator records one with the levels shown live, and it reads at 1440 and 390 px', async () => {
-    const caseId = await workedCaseOfDemoInvestigator()
+    const caseId = await workedCaseOfDemoInvestigator(pool)
     const { page, errors } = await newPage(app.browser)
     await page.setViewportSize({ width: 1440, height: 900 })
     await submitSignIn(page, app.web.baseUrl, DEMO.investigator)
-    await page.waitForURL(/\/work/, { timeout: 20_000 })
+    await landedOnWork(page)
     await page.goto(`${app.web.baseUrl}/cases/${caseId}`)
     const section = page.getByRole('region', { name: 'Measurements' })
     await section.waitFor({ timeout: 20_000 })

@@ -16,7 +16,7 @@ import { prepareDatabase } from '../../server/db/roles'
 import { createS3Client } from '../../server/storage/s3'
 import { seedDemo } from '../../ops/seed-demo'
 import { startS3Fake, type S3Fake } from '../../ops/local/s3-fake'
-import { cleanEnv, reachableTempDir, ROOT, startCluster, type Cluster } from '../support/clusters'
+import { cleanEnv, reachableTempDir, ROOT, startCluster, type Cluster } from '../../ops/local/clusters'
 
 const run = promisify(execFile)
 process.env.AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED = 'true'

@@ -13,7 +13,7 @@ import { promisify } from 'node:util'
 import { afterEach, describe, expect, it } from 'vitest'
 import pg from 'pg'
 import { freePort } from '../../ops/local/free-port'
-import { cleanEnv, DB_SCRIPT, reachableTempDir } from '../support/clusters'
+import { cleanEnv, DB_SCRIPT, reachableTempDir } from '../../ops/local/clusters'
 
 const run = promisify(execFile)
 const cleanups: Array<() => void | Promise<void>> = []

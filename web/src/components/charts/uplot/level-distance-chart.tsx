@@ -17,7 +17,7 @@ export default function LevelDistanceChart(props: LevelDistanceChartProps) {
   const aligned = useMemo<uPlot.AlignedData>(() => [data.x, data.measured, data.model, data.upper, data.lower], [data])
   const key = [quantity, heightPx, curve?.label, band?.label, data.span?.minM, data.span?.maxM, data.marks.map((m) => `${m.label}@${m.distanceM}`).join()].join('|')
 
-  const ref = useUplot(
+  const { ref } = useUplot(
     (width) => ({
       width,
       height: heightPx,

@@ -11,7 +11,7 @@ export default function ResidualChart({ title, residuals, distanceRangeM, height
   const data = useMemo(() => residualChartData(residuals, distanceRangeM), [residuals, distanceRangeM])
   const aligned = useMemo<uPlot.AlignedData>(() => [data.x, data.residual], [data])
   const key = [heightPx, data.span?.minM, data.span?.maxM, data.halfRangeDb].join('|')
-  const ref = useUplot(
+  const { ref } = useUplot(
     (width) => ({
       width,
       height: heightPx,

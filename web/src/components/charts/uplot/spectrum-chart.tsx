@@ -4,14 +4,12 @@
  * frequency axis (it follows the zoom). Drag across the plot to zoom; "Reset the zoom" (or a
  * double click) shows the whole span. The cursor's frequency and level are read out in words.
  */
-import 'uplot/dist/uPlot.min.css'
-import './charts.css'
 import { useEffect, useId, useMemo, useRef, useState } from 'react'
 import uPlot from 'uplot'
 import { Button } from '@/components/ui/button'
 import type { SpectrumChartProps } from '../spectrum-types'
 import { SPECTROGRAM_RAMP, alignTraces, formatMhz, mhzTicks, spectrogramPixels } from '../lib/spectrum-data'
-import { CHART_COLOURS as C } from './use-uplot'
+import { CHART_COLOURS as C, useUplot } from './use-uplot'
 
 const SPECTROGRAM_HEIGHT_PX = 160
 
@@ -24,9 +22,7 @@ interface Readout {
 export default function SpectrumChart(props: SpectrumChartProps) {
   const { title, levelUnit, main, overlay, peaks, band, spectrogram, heightPx = 320 } = props
   const titleId = useId()
-  const plotRef = useRef<HTMLDivElement>(null)
   const specRef = useRef<HTMLCanvasElement>(null)
-  const plot = useRef<uPlot | null>(null)
   const [readout, setReadout] = useState<Readout | null>(null)
   const [zoomed, setZoomed] = useState(false)
 
@@ -50,9 +46,8 @@ export default function SpectrumChart(props: SpectrumChartProps) {
 
   const key = [levelUnit, heightPx, main.label, overlay?.label ?? '', aligned.x.length].join('|')
 
-  useEffect(() => {
-    const el = plotRef.current
-    if (!el) return
+  // made again when its shape changes (key); the band, peaks and image redraw in place
+  const makeOptions = (width: number): uPlot.Options => {
     const drawSpectrogram = (u: uPlot) => {
       const canvas = specRef.current
       const s = drawn.current.spectrogram
@@ -135,46 +130,28 @@ export default function SpectrumChart(props: SpectrumChartProps) {
       },
     }
     const axisStyle = { stroke: C.ink, grid: { stroke: C.grid, width: 1 }, ticks: { stroke: C.grid, width: 1 } }
-    const width = Math.max(280, el.clientWidth)
-    const u = new uPlot(
-      {
-        width,
-        height: heightPx,
-        legend: { live: false },
-        cursor: { drag: { x: true, y: false, setScale: true } },
-        // headroom above the highest level for the peak marks
-        scales: { x: { time: false }, y: { range: (_u, min, max) => [Math.floor(min - 2), Math.ceil(max + 0.25 * Math.max(10, max - min))] } },
-        axes: [
-          { ...axisStyle, label: 'Frequency (MHz)', values: (_u, splits) => mhzTicks(splits) },
-          { ...axisStyle, label: `Level (${levelUnit})`, size: 56 },
-        ],
-        series: [
-          { label: 'Frequency', value: (_u, v) => (v == null ? '' : formatMhz(v)) },
-          { label: main.label, stroke: C.model, width: 1.5, spanGaps: true, points: { show: false } },
-          { label: overlay?.label ?? 'Second file', show: !!overlay, stroke: C.measured, width: 1.5, spanGaps: true, points: { show: false } },
-        ],
-        plugins: [overlays],
-      },
-      [aligned.x, aligned.a, aligned.b] as uPlot.AlignedData,
-      el,
-    )
-    plot.current = u
-    const observer = new ResizeObserver(() => {
-      const w = Math.max(280, el.clientWidth)
-      if (w !== u.width) u.setSize({ width: w, height: u.height })
-    })
-    observer.observe(el)
-    return () => {
-      observer.disconnect()
-      u.destroy()
-      plot.current = null
+    return {
+      width,
+      height: heightPx,
+      legend: { live: false },
+      cursor: { drag: { x: true, y: false, setScale: true } },
+      // headroom above the highest level for the peak marks
+      scales: { x: { time: false }, y: { range: (_u, min, max) => [Math.floor(min - 2), Math.ceil(max + 0.25 * Math.max(10, max - min))] } },
+      axes: [
+        { ...axisStyle, label: 'Frequency (MHz)', values: (_u, splits) => mhzTicks(splits) },
+        { ...axisStyle, label: `Level (${levelUnit})`, size: 56 },
+      ],
+      series: [
+        { label: 'Frequency', value: (_u, v) => (v == null ? '' : formatMhz(v)) },
+        { label: main.label, stroke: C.model, width: 1.5, spanGaps: true, points: { show: false } },
+        { label: overlay?.label ?? 'Second file', show: !!overlay, stroke: C.measured, width: 1.5, spanGaps: true, points: { show: false } },
+      ],
+      plugins: [overlays],
     }
-    // the plot is made again when its shape changes (key); the band, peaks and image redraw in place
-  }, [key])
+  }
+  const plotData = useMemo(() => [aligned.x, aligned.a, aligned.b] as uPlot.AlignedData, [aligned])
+  const { ref: plotRef, plot } = useUplot(makeOptions, plotData, key)
 
-  useEffect(() => {
-    plot.current?.setData([aligned.x, aligned.a, aligned.b] as uPlot.AlignedData)
-  }, [aligned])
   useEffect(() => {
     plot.current?.redraw(false)
   }, [band, peaks, image])

@@ -8,7 +8,7 @@ import { useEffect, useRef } from 'react'
 import uPlot from 'uplot'
 import { formatDistanceTick, logDistanceSplits } from '../lib/chart-data'
 
-export function useUplot(makeOptions: (width: number) => uPlot.Options, data: uPlot.AlignedData, optionsKey: string) {
+export function useUplot(makeOptions: (width: number) => uPlot.Options, data: uPlot.AlignedData, optionsKey: string): { ref: React.RefObject<HTMLDivElement | null>; plot: React.RefObject<uPlot | null> } {
   const ref = useRef<HTMLDivElement>(null)
   const plot = useRef<uPlot | null>(null)
   const dataRef = useRef(data)
@@ -38,7 +38,7 @@ export function useUplot(makeOptions: (width: number) => uPlot.Options, data: uP
     plot.current?.setData(data)
   }, [data])
 
-  return ref
+  return { ref, plot }
 }
 
 /** The palette (styles.css) as canvas colours: canvas cannot read CSS variables. */

@@ -11,14 +11,9 @@ import { Button } from '@/components/ui/button'
 import { QuantityField, emptyQuantity, type QuantityValue } from '@/components/ui/quantity-field'
 import { TextField } from '@/components/ui/text-field'
 import { isApiError } from '@/lib/api-client'
+import { fromLocalInput } from '@/lib/local-time'
 import { useSaveBandMeasurement } from '../api/save-band-measurement'
 
-/** A datetime-local value as an ISO instant, or null when it is not a time. */
-function instantOf(v: string): string | null {
-  if (!/^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}(:\d{2})?$/.test(v)) return null
-  const d = new Date(v)
-  return Number.isNaN(d.getTime()) ? null : d.toISOString()
-}
 
 type Errors = { takenAt?: string; latDeg?: string; lonDeg?: string; form?: string }
 
@@ -32,7 +27,7 @@ export function SaveBandForm({ caseId, fileName, band, channelPowerDbm }: { case
 
   const submit = (ev: FormEvent) => {
     ev.preventDefault()
-    const takenAt = instantOf(takenAtLocal)
+    const takenAt = fromLocalInput(takenAtLocal)
     const la = readQuantity(`${lat.figure.trim()} ${lat.unit}`.trim(), 'angle', { label: 'the latitude', min: -90, max: 90 })
     const lo = readQuantity(`${lon.figure.trim()} ${lon.unit}`.trim(), 'angle', { label: 'the longitude', min: -180, max: 180 })
     const next: Errors = {}

@@ -4,6 +4,7 @@
  * (shared/measurements/derive.ts) — for display only: the server recomputes and stores its own.
  */
 import type { Detector, Polarisation, ReadingUnit } from '@shared/domain/equipment'
+import { fromLocalInput, toLocalInput } from '@/lib/local-time'
 import { deriveMeasurement, type DeriveAntenna, type DeriveEquipment, type DerivedMeasurement } from '@shared/measurements/derive'
 import { READING_QUANTITY, type EquipmentView, type MeasurementContentInput, type MeasurementView } from '@shared/schemas/measurements'
 import { readQuantity, withUnit } from '@shared/schemas/quantities'
@@ -35,18 +36,6 @@ export interface MeasurementFormState {
   bearing: QuantityValue
   bearingSigma: QuantityValue
   notes: string
-}
-
-const pad = (n: number) => String(n).padStart(2, '0')
-/** A time as a datetime-local value in the device's time zone. */
-export function toLocalInput(d: Date): string {
-  return `${d.getFullYear()}-${pad(d.getMonth() + 1)}-${pad(d.getDate())}T${pad(d.getHours())}:${pad(d.getMinutes())}`
-}
-/** A datetime-local value as an ISO instant, or null when it is not a time. */
-export function fromLocalInput(v: string): string | null {
-  if (!/^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}(:\d{2})?$/.test(v)) return null
-  const d = new Date(v)
-  return Number.isNaN(d.getTime()) ? null : d.toISOString()
 }
 
 /** The unit the reading field starts in for a kind of reading (its base unit). */

@@ -4,7 +4,7 @@ import fs from 'node:fs'
 import os from 'node:os'
 import path from 'node:path'
 import { fileURLToPath } from 'node:url'
-import { freePort } from '../../ops/local/free-port'
+import { freePort } from './free-port'
 
 export const ROOT = fileURLToPath(new URL('../..', import.meta.url))
 export const DB_SCRIPT = path.join(ROOT, 'ops', 'db.sh')
