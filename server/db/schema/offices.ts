@@ -18,12 +18,15 @@ export const offices = pgTable(
     targetP2Hours: integer('target_p2_hours').notNull().default(24),
     targetP3Hours: integer('target_p3_hours').notNull().default(72),
     targetP4Hours: integer('target_p4_hours').notNull().default(240),
+    /** The office's IANA time zone: its "today", "next 24 hours" and daily digest follow it (checked in the app with Intl). */
+    timeZone: text('time_zone').notNull().default('UTC'),
     createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [
     check('offices_lat_range', sql`${t.centreLatDeg} between -90 and 90`),
     check('offices_lon_range', sql`${t.centreLonDeg} between -180 and 180`),
     check('offices_area_polygon', sql`${t.area} is null or ${t.area}->>'type' in ('Polygon', 'MultiPolygon')`),
+    check('offices_time_zone_shape', sql`${t.timeZone} ~ '^[A-Za-z_]+(/[A-Za-z0-9_+-]+)*$'`),
     check('offices_targets_positive', sql`least(${t.targetP1Hours}, ${t.targetP2Hours}, ${t.targetP3Hours}, ${t.targetP4Hours}) > 0`),
   ],
 )

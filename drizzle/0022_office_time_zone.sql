@@ -1,0 +1,2 @@
+ALTER TABLE "offices" ADD COLUMN "time_zone" text DEFAULT 'UTC' NOT NULL;--> statement-breakpoint
+ALTER TABLE "offices" ADD CONSTRAINT "offices_time_zone_shape" CHECK ("offices"."time_zone" ~ '^[A-Za-z_]+(/[A-Za-z0-9_+-]+)*$');
