@@ -37,6 +37,13 @@ import { findingsRoutes } from './modules/findings/findings.routes'
 import { evidenceRoutes } from './modules/evidence/evidence.routes'
 import { evidenceBundleRoutes } from './modules/evidence-bundle/evidence-bundle.routes'
 import { evidenceAnalysisRoutes } from './modules/evidence/processing/analysis.routes'
+import { responsiblePartiesRoutes } from './modules/responsible-parties/responsible-parties.routes'
+import { followUpsRoutes } from './modules/follow-ups/follow-ups.routes'
+import { notificationsRoutes } from './modules/notifications/notifications.routes'
+import { caseFileRoutes } from './modules/case-file/case-file.routes'
+import { processDemoSigner, type CaseFileSigner } from './modules/case-file/case-file-signing'
+import { dashboardRoutes } from './modules/dashboard/dashboard.routes'
+import { savedViewsRoutes } from './modules/saved-views/saved-views.routes'
 
 export interface AppDeps {
   pool: pg.Pool
@@ -64,6 +71,8 @@ export interface AppDeps {
   objectStore?: ObjectStore
   /** A map tile server (MAP_TILE_URL, MAP_TILE_ATTRIBUTION); absent: the web draws the offline basemap. */
   mapTiles?: { urlTemplate: string; attribution: string }
+  /** Signs case files (CASE_FILE_P12_PATH); absent outside production: a DEMO certificate made on first use. */
+  caseFileSigner?: CaseFileSigner
 }
 
 export interface AppHandle {
@@ -82,6 +91,7 @@ export function createApp(deps: AppDeps): AppHandle {
     publicUrl: deps.publicUrl.replace(/\/$/, ''),
     mailQueue: deps.mailQueue ?? DEFAULT_MAIL_QUEUE_OPTIONS,
     objectStore: deps.objectStore,
+    caseFileSigner: deps.caseFileSigner ? () => deps.caseFileSigner : (deps.nodeEnv ?? process.env.NODE_ENV) === 'production' ? undefined : processDemoSigner,
     now: () => new Date(),
   }
   const app = express()
@@ -151,6 +161,12 @@ export function createApp(deps: AppDeps): AppHandle {
   api.use(evidenceRoutes(ctx))
   api.use(evidenceBundleRoutes(ctx))
   api.use(evidenceAnalysisRoutes(ctx))
+  api.use(responsiblePartiesRoutes(ctx))
+  api.use(followUpsRoutes(ctx))
+  api.use(notificationsRoutes(ctx))
+  api.use(caseFileRoutes(ctx))
+  api.use(dashboardRoutes(ctx))
+  api.use(savedViewsRoutes(ctx))
   api.use(mailboxRoutes({ dir: deps.mailboxDir, listenHost: deps.listenHost, nodeEnv: deps.nodeEnv ?? process.env.NODE_ENV, trustProxy: deps.trustProxy }))
   api.use(apiNotFound)
   app.use('/api', api)

@@ -7,14 +7,16 @@ import type { Server } from 'node:http'
 import type { Env } from './config/env'
 import { createPool } from './db/client'
 import { prepareDatabase } from './db/roles'
-import { startBoss, startMailWorker } from './jobs/boss'
+import { DEFAULT_MAIL_QUEUE_OPTIONS, startBoss, startMailWorker } from './jobs/boss'
 import { createMailer } from './mail/mailer'
 import { createApp } from './app'
 import { createLogger, log, setProcessLogger } from './log/logger'
 import { createDb, isDatabaseUnavailable } from './db/client'
 import { startEvidenceOrphanSweep } from './modules/evidence/orphan-sweep'
 import { startEvidenceProcessingWorker } from './modules/evidence/processing-queue'
+import { startDigestWorker } from './modules/follow-ups/digest-job'
 import { objectStoreFromEnv } from './storage/object-store'
+import { signerFromP12File } from './modules/case-file/case-file-signing'
 
 export interface RunningServer {
   url: string
@@ -37,6 +39,8 @@ export function guardProcess(): void {
 
 export async function startServer(env: Env): Promise<RunningServer> {
   guardProcess()
+  // the signing certificate is checked before anything starts: a bad one is a ConfigError naming the setting
+  const caseFileSigner = env.CASE_FILE_P12_PATH ? signerFromP12File(env.CASE_FILE_P12_PATH, env.CASE_FILE_P12_PASSPHRASE) : undefined
   const logger = createLogger({ level: env.LOG_LEVEL, format: env.LOG_FORMAT ?? (env.NODE_ENV === 'development' ? 'pretty' : 'json') })
   setProcessLogger(logger)
   // as the owner: migrations, the job queue's schema and the application's grants
@@ -60,9 +64,13 @@ export async function startServer(env: Env): Promise<RunningServer> {
     logger,
     objectStore,
     mapTiles: env.MAP_TILE_URL && env.MAP_TILE_ATTRIBUTION ? { urlTemplate: env.MAP_TILE_URL, attribution: env.MAP_TILE_ATTRIBUTION } : undefined,
+    caseFileSigner,
   })
-  const orphanSweep = env.RUN_WORKERS ? startEvidenceOrphanSweep({ db: createDb(pool), store: objectStore }) : undefined
+  if (caseFileSigner?.demo) logger.warn(`case files are signed with a DEMO certificate (${env.CASE_FILE_P12_PATH}): not for legal use`)
+  const orphanSweep = env.RUN_WORKERS ? startEvidenceOrphanSweep({ db: createDb(pool), store: objectStore, boss }) : undefined
   const evidenceWorker = env.RUN_WORKERS ? await startEvidenceProcessingWorker({ boss, db: createDb(pool), objectStore }) : undefined
+  // the offices' morning digest: an hourly check as a pg-boss job (modules/follow-ups/digest-job.ts)
+  const digestWorker = env.RUN_WORKERS ? await startDigestWorker({ pool, db: createDb(pool), boss, publicUrl: env.PUBLIC_URL.replace(/\/$/, ''), mailQueue: DEFAULT_MAIL_QUEUE_OPTIONS }) : undefined
   const server: Server = await new Promise((resolve, reject) => {
     const s = handle.app.listen(env.PORT, env.HOST, () => resolve(s))
     s.once('error', reject)
@@ -79,6 +87,7 @@ export async function startServer(env: Env): Promise<RunningServer> {
       orphanSweep?.stop()
       await mailWorker?.stop()
       await evidenceWorker?.stop()
+      await digestWorker?.stop()
       await boss.stop({ graceful: true, wait: true, timeout: 5000 })
       handle.close()
       mailer.close()

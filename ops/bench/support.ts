@@ -14,6 +14,7 @@ import PgBoss from 'pg-boss'
 import { createApp } from '../../server/app'
 import { createPool } from '../../server/db/client'
 import { MAIL_QUEUE } from '../../server/jobs/boss'
+import type { ObjectStore } from '../../server/storage/object-store'
 import { DEMO_PASSWORD } from '../seed-demo'
 import { optionValue } from '../command-line'
 
@@ -33,7 +34,7 @@ export interface QueryRecorder {
  * Quietband's app (createApp, as production wires it, without the e-mail worker) listening on
  * 127.0.0.1 on a free port. The pool can record the SQL it runs, for EXPLAIN of the same text.
  */
-export async function startBenchServer(databaseUrl: string, opts: { poolMax?: number; recorder?: QueryRecorder } = {}): Promise<BenchServer> {
+export async function startBenchServer(databaseUrl: string, opts: { poolMax?: number; recorder?: QueryRecorder; objectStore?: ObjectStore } = {}): Promise<BenchServer> {
   const pool = createPool(databaseUrl, opts.poolMax ?? 10)
   if (opts.recorder) recordQueries(pool, opts.recorder)
   // the list needs no job queue; one is still required by createApp, so a quiet one
@@ -41,7 +42,7 @@ export async function startBenchServer(databaseUrl: string, opts: { poolMax?: nu
   boss.on('error', (e) => console.error('job queue error:', e))
   await boss.start()
   await boss.createQueue(MAIL_QUEUE)
-  const handle = createApp({ pool, boss, sessionSecret: 'bench-session-secret-that-is-long-enough-0123', publicUrl: 'http://127.0.0.1' })
+  const handle = createApp({ pool, boss, sessionSecret: 'bench-session-secret-that-is-long-enough-0123', publicUrl: 'http://127.0.0.1', objectStore: opts.objectStore })
   const server: Server = await new Promise((resolve, reject) => {
     const s = handle.app.listen(0, '127.0.0.1', () => resolve(s))
     s.once('error', reject)

@@ -41,6 +41,7 @@ export interface Office {
   centreLatDeg: number
   centreLonDeg: number
   targetsHours: Record<Priority, number>
+  firstResponseHours: Record<Priority, number>
   investigators: { id: string; name: string }[]
   supervisor: { id: string; name: string } | null
 }
@@ -54,6 +55,7 @@ export const GENERATED_CASE_COLUMNS = [
   'address', 'latDeg', 'lonDeg', 'sinceDate', 'pattern', 'patternDetail', 'experience', 'description',
   'complainantName', 'complainantEmail', 'complainantPhone', 'complainantOrganisation', 'investigatorId',
   'mergedIntoCaseId', 'resolution', 'closingSummary', 'receivedAt', 'dueAt', 'closedAt', 'version',
+  'firstResponseDueAt', 'firstRespondedAt',
 ] as const satisfies readonly (keyof CaseInsert)[]
 
 export const GENERATED_EVENT_COLUMNS = ['caseId', 'at', 'actorUserId', 'actorLabel', 'kind', 'fromState', 'toState', 'body', 'visibility'] as const satisfies readonly (keyof EventInsert)[]
@@ -159,6 +161,9 @@ export function makeCase(d: Draw, offices: Office[], receivedAt: Date, now: Date
     closingSummary: resolution ? FINDINGS[resolution] : null,
     receivedAt,
     dueAt: new Date(receivedAt.getTime() + office.targetsHours[priority] * HOUR_MS),
+    firstResponseDueAt: new Date(receivedAt.getTime() + office.firstResponseHours[priority] * HOUR_MS),
+    // the first response is the triage step, when the case went through one (shared/domain/case-clocks.ts)
+    firstRespondedAt: events.find((e) => e.kind === 'triage')?.at ?? null,
     closedAt,
     version: steps.length + 1,
     events,

@@ -10,7 +10,7 @@ import { GENERATED_CASE_COLUMNS, GENERATED_EVENT_COLUMNS, type GeneratedCase, ty
 import { FIRST, LAST } from './tables'
 
 export async function loadOffices(client: pg.ClientBase): Promise<Office[]> {
-  const { rows } = await client.query(`SELECT id, name, centre_lat_deg, centre_lon_deg, target_p1_hours, target_p2_hours, target_p3_hours, target_p4_hours FROM offices ORDER BY name`)
+  const { rows } = await client.query(`SELECT id, name, centre_lat_deg, centre_lon_deg, target_p1_hours, target_p2_hours, target_p3_hours, target_p4_hours, first_response_p1_hours, first_response_p2_hours, first_response_p3_hours, first_response_p4_hours FROM offices ORDER BY name`)
   const staff = await client.query(`SELECT id, name, role, office_id FROM users WHERE role IN ('investigator','supervisor') AND active ORDER BY email`)
   return rows.map((o) => ({
     id: o.id,
@@ -18,6 +18,7 @@ export async function loadOffices(client: pg.ClientBase): Promise<Office[]> {
     centreLatDeg: o.centre_lat_deg,
     centreLonDeg: o.centre_lon_deg,
     targetsHours: { 1: o.target_p1_hours, 2: o.target_p2_hours, 3: o.target_p3_hours, 4: o.target_p4_hours },
+    firstResponseHours: { 1: o.first_response_p1_hours, 2: o.first_response_p2_hours, 3: o.first_response_p3_hours, 4: o.first_response_p4_hours },
     investigators: staff.rows.filter((u) => u.office_id === o.id && u.role === 'investigator').map((u) => ({ id: u.id, name: u.name })),
     supervisor: staff.rows.find((u) => u.office_id === o.id && u.role === 'supervisor') ?? null,
   }))

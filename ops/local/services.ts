@@ -11,6 +11,7 @@ import path from 'node:path'
 import { fileURLToPath } from 'node:url'
 import { startS3Fake } from './s3-fake'
 import { startSmtpFake } from './smtp-fake'
+import { ensureDemoP12 } from '../../server/modules/case-file/case-file-signing'
 
 export const ROOT = fileURLToPath(new URL('../..', import.meta.url))
 export const LOCAL_DIR = path.join(ROOT, '.local')
@@ -78,6 +79,12 @@ export async function ensureLocalServices(source: NodeJS.ProcessEnv = process.en
   }
 
   if (!source.SESSION_SECRET) env.SESSION_SECRET = sessionSecret()
+  if (!source.CASE_FILE_P12_PATH && source.NODE_ENV !== 'production') {
+    // case files are signed with a DEMO certificate generated once into a git-ignored file
+    const demo = ensureDemoP12(path.join(LOCAL_DIR, 'case-file-demo.p12'))
+    Object.assign(env, { CASE_FILE_P12_PATH: demo.path, CASE_FILE_P12_PASSPHRASE: demo.passphrase })
+    started.push('DEMO case-file signing certificate (.local/case-file-demo.p12; not for legal use)')
+  }
 
   return {
     env,

@@ -45,6 +45,8 @@ const envSchema = z.object({
   EVIDENCE_MAX_BYTES_STAFF: z.coerce.number().int().min(1024).max(50 * 1024 ** 3).default(2 * 1024 ** 3),
   /** The largest evidence file a complainant may upload to their report [bytes] (default 25 MiB). */
   EVIDENCE_MAX_BYTES_COMPLAINANT: z.coerce.number().int().min(1024).max(50 * 1024 ** 3).default(25 * 1024 ** 2),
+  /** Files a complainant may add to one case in an hour (default 20). */
+  EVIDENCE_COMPLAINANT_FILES_PER_HOUR: z.coerce.number().int().min(1).max(1000).default(20),
   SMTP_URL: url('SMTP_URL').refine((v) => /^smtps?:\/\//.test(v), 'SMTP_URL must start with smtp:// or smtps://'),
   MAIL_FROM: z.string().default('Quietband <no-reply@quietband.test>'),
   /** Folder where the local SMTP fake keeps messages; set only with the embedded fake. */
@@ -71,6 +73,14 @@ const envSchema = z.object({
     .string()
     .refine(isTileUrlTemplate, 'MAP_TILE_URL must be an http(s) URL template with {z}, {x} and {y}, e.g. https://tiles.example.org/{z}/{x}/{y}.png')
     .optional(),
+  /**
+   * The office's signing certificate and private key for case files (PDF), as a PKCS#12 file.
+   * Required in production; unset elsewhere, a DEMO certificate is used (npm start keeps one in
+   * .local). Checked at start: readable, passphrase right, in date, key matching the certificate.
+   */
+  CASE_FILE_P12_PATH: z.string().trim().min(1, 'CASE_FILE_P12_PATH must not be empty').optional(),
+  /** The PKCS#12's passphrase (empty when unset). */
+  CASE_FILE_P12_PASSPHRASE: z.string().default(''),
   /** The tile server's required credit (plain text); required with MAP_TILE_URL. */
   MAP_TILE_ATTRIBUTION: z.string().trim().min(1, 'MAP_TILE_ATTRIBUTION must not be empty').max(300).optional(),
 })
@@ -83,6 +93,10 @@ export class ConfigError extends Error {}
 export function loadEnv(source: NodeJS.ProcessEnv = process.env): Env {
   const parsed = envSchema
     .refine((e) => !e.MAP_TILE_URL || !!e.MAP_TILE_ATTRIBUTION, { path: ['MAP_TILE_ATTRIBUTION'], message: 'MAP_TILE_ATTRIBUTION is required with MAP_TILE_URL (the tile server’s credit)' })
+    .refine((e) => e.NODE_ENV !== 'production' || !!e.CASE_FILE_P12_PATH, {
+      path: ['CASE_FILE_P12_PATH'],
+      message: 'CASE_FILE_P12_PATH is required in production: the office’s PKCS#12 certificate that signs case files (a demo certificate is used only outside production)',
+    })
     .safeParse(source)
   if (parsed.success) return { ...parsed.data, MIGRATION_DATABASE_URL: parsed.data.MIGRATION_DATABASE_URL ?? parsed.data.DATABASE_URL }
   const lines = parsed.error.issues.map((i) => `  ${i.path.join('.')}: ${i.message}`)

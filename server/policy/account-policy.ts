@@ -35,5 +35,6 @@ export function accountAbilities(actor: Actor): AccountAbilities {
     // the register of the actor's own office (an administrator keeps every office's)
     readEquipment: actor.role === 'admin' || (actor.officeId !== null && mayReadEquipment(actor, actor.officeId)),
     manageEquipment: actor.role === 'admin' || (actor.officeId !== null && mayManageEquipment(actor, actor.officeId)),
+    readDashboard: can(actor, 'dashboard.read'),
   }
 }

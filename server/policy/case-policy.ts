@@ -5,6 +5,7 @@
  * 403 when the role or relation is wrong, and 409 when the state does not allow the move.
  */
 import { calculationAllowedIn, mayStoreCalculation } from './calculation-policy'
+import { mayIssueCaseFile } from './case-file-policy'
 import { CASE_MOVES, moveAllowedFrom, MOVES_REFUSED_WHILE_HOLDING_MERGED_REPORTS, type CaseMoveName, type CaseState, type Mover } from '../../shared/domain/case-lifecycle'
 import type { CaseAbilities } from '../../shared/schemas/views'
 import type { Actor } from './policy'
@@ -80,5 +81,6 @@ export function caseAbilities(actor: CaseActor, c: CaseAccess): CaseAbilities {
     addInternalNote: mayAddInternalNote(actor, c),
     messageComplainant: mayMessageComplainant(actor, c),
     storeCalculation: mayStoreCalculation(actor, c) && calculationAllowedIn(c.status),
+    issueCaseFile: mayIssueCaseFile(actor, c),
   }
 }

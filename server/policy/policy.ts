@@ -30,6 +30,7 @@ export type Action =
   | 'bandLimit.edit'
   | 'stationRegister.read'
   | 'stationRegister.import'
+  | 'dashboard.read'
 
 const STAFF: Role[] = ['investigator', 'supervisor']
 
@@ -48,6 +49,8 @@ const rules: Record<Action, (actor: Actor, resource?: OfficeScoped) => boolean> 
   // the licence register is national: every office's staff read it, administrators import new versions
   'stationRegister.read': (a) => a.role === 'admin' || STAFF.includes(a.role),
   'stationRegister.import': (a) => a.role === 'admin',
+  // the office as a whole: its supervisor; every office: an administrator
+  'dashboard.read': (a, r) => a.role === 'admin' || (a.role === 'supervisor' && (!r || sameOffice(a, r))),
 }
 
 function sameOffice(actor: Actor, resource?: OfficeScoped): boolean {

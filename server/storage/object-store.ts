@@ -14,6 +14,8 @@ export interface ObjectStore {
   maxUploadBytes: number
   /** The largest evidence file each kind of uploader may put on a case [bytes] (EVIDENCE_MAX_BYTES_*); absent, the defaults of the evidence module. */
   evidenceMaxBytes?: EvidenceMaxBytes
+  /** Files a complainant may add to one case in an hour (EVIDENCE_COMPLAINANT_FILES_PER_HOUR); absent, the evidence module's default. */
+  evidenceComplainantFilesPerHour?: number
 }
 
 export interface EvidenceMaxBytes {
@@ -21,8 +23,14 @@ export interface EvidenceMaxBytes {
   complainant: number
 }
 
-export function createObjectStore(settings: S3Settings & { maxUploadBytes: number; evidenceMaxBytes?: EvidenceMaxBytes }): ObjectStore {
-  return { client: createS3Client(settings), bucket: settings.bucket, maxUploadBytes: settings.maxUploadBytes, evidenceMaxBytes: settings.evidenceMaxBytes }
+export function createObjectStore(settings: S3Settings & { maxUploadBytes: number; evidenceMaxBytes?: EvidenceMaxBytes; evidenceComplainantFilesPerHour?: number }): ObjectStore {
+  return {
+    client: createS3Client(settings),
+    bucket: settings.bucket,
+    maxUploadBytes: settings.maxUploadBytes,
+    evidenceMaxBytes: settings.evidenceMaxBytes,
+    evidenceComplainantFilesPerHour: settings.evidenceComplainantFilesPerHour,
+  }
 }
 
 /** The store the configuration names (S3_* and UPLOAD_MAX_BYTES). */
@@ -36,5 +44,6 @@ export function objectStoreFromEnv(env: Env): ObjectStore {
     forcePathStyle: env.S3_FORCE_PATH_STYLE,
     maxUploadBytes: env.UPLOAD_MAX_BYTES,
     evidenceMaxBytes: { staff: env.EVIDENCE_MAX_BYTES_STAFF, complainant: env.EVIDENCE_MAX_BYTES_COMPLAINANT },
+    evidenceComplainantFilesPerHour: env.EVIDENCE_COMPLAINANT_FILES_PER_HOUR,
   })
 }

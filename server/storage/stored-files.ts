@@ -132,8 +132,11 @@ async function putStream(store: ObjectStore, body: Readable, purpose: StoredFile
   const upload = new Upload({
     client: store.client,
     params: { Bucket: store.bucket, Key: objectKey, Body: source, ContentType: contentType },
+    // 3 parts in flight (lib-storage defaults to 4): an upload through the app keeps up with
+    // one straight to the store (ops/bench/evidence-upload.bench.ts) and holds at most about
+    // (3 + 1) × 5 MiB of the file in memory
     partSize: 5 * 1024 * 1024,
-    queueSize: 2,
+    queueSize: 3,
     leavePartsOnError: false,
   })
   // a failure of the source (too large, a broken request) ends the upload too

@@ -56,3 +56,10 @@ export interface EvidenceProcessing {
   progress: number
   message?: string
 }
+
+/** How an image's thumbnail ended (server/modules/evidence/thumbnails): made, or refused with a reason. */
+export const THUMBNAIL_STATES = ['done', 'failed'] as const
+export type ThumbnailState = (typeof THUMBNAIL_STATES)[number]
+
+/** The image types (as decided from the content) that get a thumbnail. */
+export const THUMBNAIL_SOURCE_TYPES: readonly string[] = ['image/jpeg', 'image/png', 'image/webp']

@@ -53,13 +53,20 @@ export const OCCURRENCE_LABELS: Record<OccurrencePattern, string> = {
 
 export const PRIORITIES = [1, 2, 3, 4] as const
 export type Priority = (typeof PRIORITIES)[number]
-/** The words of each priority: `short` beside the figure (badges, options, e-mails), `long` where there is room. */
+/**
+ * The words of each priority, which people see as a harm class: `short` is the class's name
+ * (badges, options, e-mails), `long` says what it covers where there is room. Stored values,
+ * the `priority` API parameter and the CSV keep the figures 1–4; people read the names.
+ */
 export const PRIORITY_LABELS: Record<Priority, { short: string; long: string }> = {
-  1: { short: 'Safety of life', long: 'Safety-of-life service endangered (aeronautical, maritime distress and safety, radionavigation, public protection)' },
-  2: { short: 'Outage', long: 'Outage of a licensed service' },
-  3: { short: 'Degradation', long: 'Degradation of a licensed service' },
-  4: { short: 'Licence-exempt', long: 'Licence-exempt use and nuisance' },
+  1: { short: 'Safety of life', long: 'A safety-of-life service is endangered (aeronautical, maritime distress and safety, radionavigation, public protection)' },
+  2: { short: 'Service lost', long: 'A licensed service cannot be used at all' },
+  3: { short: 'Service degraded', long: 'A licensed service works, but worse' },
+  4: { short: 'Nuisance', long: 'Licence-exempt use, or a nuisance that stops no service' },
 }
+
+/** A harm class named for a sentence: "Safety of life (class 1)". */
+export const harmClassText = (p: Priority) => `${PRIORITY_LABELS[p].short} (class ${p})`
 
 /**
  * The priority a new report suggests: 1 for a safety service; otherwise licence-exempt use

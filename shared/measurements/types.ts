@@ -44,5 +44,8 @@ export interface DerivedLevels {
   antennaGainDbi?: number
 }
 export type DerivedKey = keyof DerivedLevels
-/** The library step behind each derived level. */
-export type DerivedMethods = Partial<Record<DerivedKey, MethodRef>>
+/**
+ * The library step behind each derived level; `reading` names how the reading itself was
+ * obtained when the server computed it (a band's channel power over an evidence file's trace).
+ */
+export type DerivedMethods = Partial<Record<DerivedKey | 'reading', MethodRef>>

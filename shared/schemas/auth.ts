@@ -90,6 +90,8 @@ export const accountAbilitiesSchema = z.object({
   readEquipment: z.boolean(),
   /** Adds and edits items of that register (every change is kept). */
   manageEquipment: z.boolean(),
+  /** Reads the dashboard: their office's (a supervisor) or every office's (an administrator). */
+  readDashboard: z.boolean(),
 })
 export type AccountAbilities = z.infer<typeof accountAbilitiesSchema>
 export type AccountAbility = keyof AccountAbilities
@@ -109,6 +111,7 @@ export const NO_ACCOUNT_ABILITIES: AccountAbilities = {
   importStationRegister: false,
   readEquipment: false,
   manageEquipment: false,
+  readDashboard: false,
 }
 
 /** A signed-in session: the user and what the account may do (sign-in, confirmation, password, /api/me). */

@@ -191,6 +191,16 @@ export const caseListQuerySchema = z.object({
   investigatorId: z.union([z.uuid(), z.literal('me'), z.literal('none')]).optional(),
   overdue: z.enum(['true', 'false']).optional().transform((v) => (v === undefined ? undefined : v === 'true')),
   open: z.enum(['true', 'false']).optional().transform((v) => (v === undefined ? undefined : v === 'true')),
+  /** The resolution clock falls due within DUE_SOON_HOURS and is not overdue yet (shared/domain/case-clocks.ts). */
+  dueSoon: z.literal('true').optional().transform((v) => (v === undefined ? undefined : true)),
+  /** Overdue (or not) on the first-response clock. */
+  firstResponseOverdue: z.enum(['true', 'false']).optional().transform((v) => (v === undefined ? undefined : v === 'true')),
+  /** Received since the start of today in the case's office time zone. */
+  receivedToday: z.literal('true').optional().transform((v) => (v === undefined ? undefined : true)),
+  /** Closed within the last this many days (24-hour days back from now). */
+  closedInLastDays: numberWithUnit(wholeNumber('the days since closing', 1, 366)),
+  /** First answered within the last this many days. */
+  respondedInLastDays: numberWithUnit(wholeNumber('the days since the first response', 1, 366)),
   freqFromHz: frequencyFilter('the lowest frequency'),
   freqToHz: frequencyFilter('the highest frequency'),
   q: storableString().trim().max(100).optional(),

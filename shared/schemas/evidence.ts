@@ -50,6 +50,18 @@ export const evidenceViewSchema = z.object({
   removed: z.object({ at: instant, by: z.string(), reason: z.string() }).nullable(),
   verification: z.object({ at: instant, by: z.string(), outcome: z.enum(VERIFICATION_OUTCOMES) }).nullable(),
   processing: evidenceProcessingSchema,
+  /**
+   * A photo's thumbnail (GET /api/evidence/:id/thumbnail): being made, made (its size in pixels),
+   * or refused with the reason; null or absent for a file that gets none.
+   */
+  thumbnail: z
+    .discriminatedUnion('state', [
+      z.object({ state: z.literal('pending') }),
+      z.object({ state: z.literal('done'), widthPx: z.number().int().min(1), heightPx: z.number().int().min(1) }),
+      z.object({ state: z.literal('failed'), message: z.string() }),
+    ])
+    .nullable()
+    .optional(),
   abilities: evidenceAbilitiesSchema,
 })
 export type EvidenceView = z.infer<typeof evidenceViewSchema>

@@ -33,12 +33,14 @@ const blankIsMissing = (v: unknown) => (typeof v === 'string' && v.trim() === ''
 
 const POSITION_FIELDS = ['sourceLatDeg', 'sourceLonDeg']
 
-export const EVIDENCE_NOT_YET_MESSAGE = 'Evidence files cannot be linked yet: evidence uploads come in a later release. Send an empty list.'
+/** Most evidence files one finding links (a case's captures, photos and documents). */
+export const MAX_FINDING_EVIDENCE = 100
 
 /**
  * POST /api/cases/:id/propose-finding. The source position is optional, but both of its
- * coordinates or neither; the calculations must be records of the same case (checked by the
- * server, which answers 400 naming the ids that are not).
+ * coordinates or neither; the calculations must be records of the same case, and the evidence
+ * files files of the same case that were not removed (checked by the server, which answers 400
+ * naming the ids that are not).
  */
 export const proposeFindingSchema = z
   .object({
@@ -55,8 +57,9 @@ export const proposeFindingSchema = z
       .refine((ids) => new Set(ids).size === ids.length, { message: 'A calculation is linked twice.' })
       .default([]),
     evidenceIds: z
-      .array(z.string(), { message: EVIDENCE_NOT_YET_MESSAGE })
-      .refine((ids) => ids.length === 0, { message: EVIDENCE_NOT_YET_MESSAGE })
+      .array(z.uuid({ message: 'Not a valid evidence file id.' }), { message: 'Send the linked evidence files as a list of ids.' })
+      .refine((ids) => ids.length <= MAX_FINDING_EVIDENCE, { message: `Link at most ${MAX_FINDING_EVIDENCE} evidence files.` })
+      .refine((ids) => new Set(ids).size === ids.length, { message: 'An evidence file is linked twice.' })
       .default([]),
     recommendedAction: z.enum(RECOMMENDED_ACTIONS, { message: 'Choose the recommended action.' }),
     complianceDeadline: z.preprocess(
@@ -109,6 +112,17 @@ export const findingReviewSchema = z.object({
   comments: z.string().nullable(),
 })
 
+/** An evidence file a finding links, as the review shows it (a file removed later stays listed, marked). */
+export const findingEvidenceSchema = z.object({
+  id,
+  /** The file's name as shown on the case. */
+  name: z.string(),
+  /** SHA-256 of the file as received, lowercase hex. */
+  sha256: z.string().regex(/^[0-9a-f]{64}$/),
+  removed: z.boolean(),
+})
+export type FindingEvidence = z.infer<typeof findingEvidenceSchema>
+
 /** One proposal of a finding, with the stored calculations it links (outputs, interval, warnings, methods, library version). */
 export const findingViewSchema = z.object({
   id,
@@ -125,6 +139,8 @@ export const findingViewSchema = z.object({
   summary: z.string(),
   calculations: z.array(calculationViewSchema),
   evidenceIds: z.array(z.string()),
+  /** The linked evidence files, in the order linked. */
+  evidence: z.array(findingEvidenceSchema),
   review: findingReviewSchema.nullable(),
 })
 export type FindingView = z.infer<typeof findingViewSchema>

@@ -147,7 +147,7 @@ export const measurementContentSchema = z
     }),
     bearingSigmaDeg: quantity('angle', { label: 'the bearing’s σ', optional: true, min: 0, minExclusive: true, max: 180, example: '5', minExclusiveMessage: 'Enter the bearing’s σ above 0°.' }),
     notes: optionalText('the notes', 4000),
-    /** An evidence file (a spectrum capture); uploads come later, the id is kept as sent. */
+    /** The case's evidence file the reading comes from: the server checks it is a file of the same case, not removed. */
     evidenceFileId: id.optional(),
   })
   .superRefine((m, ctx) => {

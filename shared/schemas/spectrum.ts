@@ -11,7 +11,8 @@ import { readQuantity, unitsOf } from './quantities'
 
 const instant = z.iso.datetime()
 
-export const SPECTRUM_SOURCE_KINDS = ['sigmf_archive', 'trace_csv', 'trace_json'] as const
+/** `sigmf_files`: a SigMF recording uploaded as its two files (.sigmf-meta and .sigmf-data). */
+export const SPECTRUM_SOURCE_KINDS = ['sigmf_archive', 'sigmf_files', 'trace_csv', 'trace_json'] as const
 
 export const spectrumPeakSchema = z.object({
   freqHz: z.number(),

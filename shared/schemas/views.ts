@@ -45,6 +45,8 @@ export const caseAbilitiesSchema = z.object({
   messageComplainant: z.boolean(),
   /** Run and store calculations (the workbench): the assigned investigator or the office supervisor while the case is worked. */
   storeCalculation: z.boolean(),
+  /** Issue the signed case file (PDF): staff of the case's office and administrators, in any state. */
+  issueCaseFile: z.boolean(),
 })
 export type CaseAbilities = z.infer<typeof caseAbilitiesSchema>
 
@@ -210,6 +212,10 @@ export const officeViewSchema = z.object({
   centreLonDeg: z.number(),
   /** Response target per priority, in hours. */
   responseTargetsHours: responseTargetsHoursSchema,
+  /** First-response target per priority, in hours (shared/domain/case-clocks.ts). */
+  firstResponseTargetsHours: responseTargetsHoursSchema,
+  /** The office's IANA time zone ("today" and "next 24 hours" on the dashboard follow it). */
+  timeZone: z.string(),
   /** What the viewer may do with this office (computed by the policy). */
   abilities: z.object({ setResponseTargets: z.boolean() }),
 })

@@ -80,7 +80,7 @@ describe('a report from the public to its closing', () => {
     await sup.getByRole('link', { name: reference }).first().waitFor(T)
     await screenshot(sup, 'flow-3-new-reports')
     await openCase(sup, reference)
-    await sup.getByLabel('Priority', { exact: true }).selectOption('2')
+    await sup.getByLabel('Harm class', { exact: true }).selectOption('2')
     await sup.getByRole('button', { name: 'Set priority' }).click()
     await sup.getByRole('radio', { name: /Marta Ferreira/ }).waitFor(T)
     await sup.getByRole('radio', { name: /Marta Ferreira/ }).check()

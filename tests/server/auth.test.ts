@@ -48,8 +48,8 @@ describe('sign-in', () => {
   })
 
   it.each([
-    ['admin', { readCases: true, manageUsers: true, manageOffices: true, readBandLimits: true, manageBandLimits: true, readStationRegister: true, importStationRegister: true, readEquipment: true, manageEquipment: true }],
-    ['supervisor', { runOfficeQueue: true, readCases: true, readBandLimits: true, manageBandLimits: true, readStationRegister: true, readEquipment: true, manageEquipment: true }],
+    ['admin', { readCases: true, manageUsers: true, manageOffices: true, readBandLimits: true, manageBandLimits: true, readStationRegister: true, importStationRegister: true, readEquipment: true, manageEquipment: true, readDashboard: true }],
+    ['supervisor', { runOfficeQueue: true, readCases: true, readBandLimits: true, manageBandLimits: true, readStationRegister: true, readEquipment: true, manageEquipment: true, readDashboard: true }],
     ['investigator', { workAssignedCases: true, readCases: true, readBandLimits: true, readStationRegister: true, readEquipment: true }],
     ['complainant', { reportAsAccount: true, followOwnReports: true }],
   ] as const)('tells the signed-in %s what their account may do, and nothing more', async (role, allowed) => {

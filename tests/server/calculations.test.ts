@@ -11,6 +11,8 @@ import { fileURLToPath } from 'node:url'
 import { promisify } from 'node:util'
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
 import pg from 'pg'
+import { createHash, randomUUID } from 'node:crypto'
+import { insertEvidence } from '../../server/modules/evidence/evidence.repo'
 import geographiclib from 'geographiclib-geodesic'
 import { complianceVerdictOutputSchema, eirpFitOutputSchema, eirpSinglePointOutputSchema } from '../../shared/calculations'
 import { assessCompliance, BAND_LIMITS, createPropagationModel, eirpFromMeasurement, RADIO_LIBRARY_VERSION } from '../../shared/radio'
@@ -410,6 +412,32 @@ describe('calculations built on stored measurements, estimates and stations', ()
     const j = complianceVerdictOutputSchema.parse(judged.outputs.value)
     expect(j.marginDb).toBeCloseTo(v.eirpDbm - 17, 9) // margin = EIRP − limit, by hand
     expect(judged.references.eirpCalculation).toMatchObject({ id: fitted.id, kind: 'eirp_fit', eirpDbm: v.eirpDbm })
+  })
+
+  it('lists the evidence files its measurements were taken from, each once, and none for measurements without one', async () => {
+    const evidenceRow = async (name: string) =>
+      (
+        await insertEvidence(
+          t.services.db,
+          { objectKey: `calc-test/${randomUUID()}`, originalName: name, sizeBytes: 1, sha256: createHash('sha256').update(randomUUID()).digest('hex'), contentType: 'text/csv', contentTypeSource: 'sniffed', purpose: 'evidence', uploadedBy: null },
+          { caseId: worked.id, kind: 'spectrum_capture', uploaderRole: 'complainant', uploaderUserId: null, displayName: name, submittedNameJson: JSON.stringify(name) },
+        )
+      ).id
+    const a = await evidenceRow('north-pier.csv')
+    const b = await evidenceRow('south-pier.csv')
+    const l0 = createPropagationModel({ kind: 'free-space', freqHz: 433.92e6 }).lossDb(1).value.lossDb
+    const ms = []
+    for (const [i, [d, file]] of ([[100, a], [300, b], [1000, a], [3000, undefined]] as const).entries()) {
+      const g = geographiclib.Geodesic.WGS84.Direct(SOURCE.latDeg, SOURCE.lonDeg, 90 * i, d)
+      ms.push(await addMeasurement(investigator, worked.id, { latDeg: String(g.lat2), lonDeg: String(g.lon2), reading: { unit: 'dBm', value: String(20 - l0 - 30 * Math.log10(d)) }, ...(file ? { evidenceFileId: file } : {}) }))
+    }
+    const fit = await store(investigator, worked.id, { kind: 'eirp_fit', inputs: { readings: { source: 'measurements', measurementIds: ms.map((m) => m.id), sourcePosition: SOURCE }, exponent: { kind: 'free' }, refDistanceM: '1 m' } }).expect(201)
+    const fitted = calculationResponseSchema.parse(fit.body).calculation
+    expect(fitted.evidenceIds).toEqual([a, b])
+    const row = (await owner.query<{ evidence_ids: string[] }>(`SELECT evidence_ids FROM calculations WHERE id = $1`, [fitted.id])).rows[0]!
+    expect(row.evidence_ids).toEqual([a, b])
+    const single = await store(investigator, worked.id, { kind: 'eirp_single_point', inputs: { measurementId: ms[3]!.id, sourcePosition: SOURCE, model: { kind: 'free-space', freqHz: 433.92e6 } } }).expect(201)
+    expect(calculationResponseSchema.parse(single.body).calculation.evidenceIds).toEqual([])
   })
 
   it('judges against an authorised station’s licence and keeps the station with its register version', async () => {

@@ -1,8 +1,10 @@
 /**
  * The processing of spectrum evidence: a SigMF archive (a tar of .sigmf-meta and cf32_le
  * .sigmf-data, a seeded tone, a burst and noise) and a CSV trace are stored in the S3 fake,
- * then analysed by the processing function directly and through the queue; malformed files
- * end as recorded failures with their reason; GET /api/evidence/:id/analysis answers staff of
+ * then analysed by the processing function directly and through the queue; the same recording
+ * uploaded as its two files (either order, or at once) is paired and analysed on its dataset;
+ * malformed files end as recorded failures with their reason; the sweep queues again what a
+ * crash left unprocessed; GET /api/evidence/:id/analysis answers staff of
  * the office (view schema checked) and 404 to another office.
  */
 import fs from 'node:fs'
@@ -15,13 +17,14 @@ import { createObjectStore, type ObjectStore } from '../../server/storage/object
 import { storeStream } from '../../server/storage/stored-files'
 import { evidenceFiles } from '../../server/db/schema'
 import { runEvidenceProcessing } from '../../server/modules/evidence/processing/process-evidence'
-import { findAnalysis } from '../../server/modules/evidence/processing/analyses.repo'
-import { queueEvidenceProcessing, startEvidenceProcessingWorker, type EvidenceProcessingWorker } from '../../server/modules/evidence/processing-queue'
+import { findAnalysis, markAnalysisQueued } from '../../server/modules/evidence/processing/analyses.repo'
+import { requeueStrandedProcessing } from '../../server/modules/evidence/processing-sweep'
+import { EVIDENCE_PROCESSING_QUEUE, queueEvidenceProcessing, startEvidenceProcessingWorker, type EvidenceProcessingWorker } from '../../server/modules/evidence/processing-queue'
 import { evidenceAnalysisResponseSchema } from '../../shared/schemas/spectrum'
 import { RADIO_LIBRARY_VERSION } from '../../shared/radio'
 import { createNormalSource, createUniformSource } from '../../shared/radio/uncertainty/prng'
 import { createTestContext, type TestContext } from '../support/harness'
-import { makeCase, makeOffice, makeUser, signIn, type TestCase, type TestUser } from '../support/factories'
+import { makeCase, makeOffice, makeUser, signIn, type Agent, type TestCase, type TestUser } from '../support/factories'
 
 let fake: S3Fake
 let store: ObjectStore
@@ -285,7 +288,7 @@ describe('other layouts', () => {
   it('refuses SigMF metadata uploaded alone, saying what to upload', async () => {
     const id = await addEvidence(sigmfMeta(), 'r.sigmf-meta', 'application/json', 'iq_recording')
     await runEvidenceProcessing(deps(), id)
-    expect((await findAnalysis(t.services.db, id))!.message).toMatch(/SigMF metadata without its samples: upload the recording as a SigMF archive/)
+    expect((await findAnalysis(t.services.db, id))!.message).toMatch(/SigMF metadata without its samples: add its dataset \(the \.sigmf-data file of the same name\) to the case as an I\/Q recording, or upload the recording as a SigMF archive/)
   })
 })
 
@@ -398,5 +401,156 @@ describe('through the queue', () => {
     const a = await findAnalysis(t.services.db, good)
     expect(a?.state).toBe('done')
     expect(a?.summary?.peaks[0]?.freqHz).toBe(CENTER_HZ + TONE_OFFSET_HZ)
+  })
+})
+
+describe('a SigMF recording uploaded as its two files (.sigmf-meta + .sigmf-data)', () => {
+  let worker: EvidenceProcessingWorker
+  let agent: Agent
+  beforeAll(async () => {
+    worker = await startEvidenceProcessingWorker({ boss: t.boss, db: t.services.db, objectStore: store }, { pollingIntervalSeconds: 0.5 })
+    agent = await signIn(t, staff)
+  })
+  afterAll(async () => {
+    await worker?.stop()
+  })
+
+  const upload = async (name: string, body: Buffer) => {
+    const res = await agent.post(`/api/cases/${worked.id}/evidence`).field('kind', 'iq_recording').attach('file', body, name)
+    expect(res.status).toBe(201)
+    return res.body.evidence as { id: string; processing: { state: string; message?: string } }
+  }
+  const processingOf = async (id: string) => (await t.pool.query('SELECT processing FROM evidence_files WHERE id = $1', [id])).rows[0].processing as { state: string; message?: string }
+  const settled = async (id: string) => {
+    const deadline = Date.now() + 20_000
+    while (Date.now() < deadline && !['done', 'failed'].includes((await findAnalysis(t.services.db, id))?.state ?? '')) await new Promise((r) => setTimeout(r, 200))
+    return (await findAnalysis(t.services.db, id))!
+  }
+  /** The same checks as the archive's: the tone at its frequency and level [D]. */
+  const expectTone = (a: Awaited<ReturnType<typeof settled>>) => {
+    expect(a.message).toBeNull()
+    expect(a.state).toBe('done')
+    expect(a.summary!.source).toBe('sigmf_files')
+    expect(a.summary!.recording).toMatchObject({ datatype: 'cf32_le', sampleRateHz: FS_HZ, centerFreqHz: CENTER_HZ, sampleCount: SAMPLES, annotationsCount: 1 })
+    expect(a.summary!.peaks[0]!.freqHz).toBe(CENTER_HZ + TONE_OFFSET_HZ)
+    expect(Math.abs(a.summary!.peaks[0]!.levelDbm - -20)).toBeLessThan(0.1)
+    expect(a.summary!.peaks[1]!.freqHz).toBe(CENTER_HZ + BURST_OFFSET_HZ)
+    expect(a.spectrogram!.rowCount).toBe(256)
+  }
+
+  it('metadata first: it waits for its dataset (shown on the list), then the pair is analysed on the dataset', async () => {
+    const meta = await upload('pair-a.sigmf-meta', sigmfMeta())
+    expect(meta.processing.state).toBe('none')
+    expect(meta.processing.message).toMatch(/Waiting for its dataset "pair-a\.sigmf-data"/)
+    expect(await findAnalysis(t.services.db, meta.id)).toBeUndefined()
+    const list = await agent.get(`/api/cases/${worked.id}/evidence`).expect(200)
+    expect(list.body.evidence.find((e: { id: string }) => e.id === meta.id).processing.message).toMatch(/Waiting for its dataset/)
+
+    const data = await upload('pair-a.sigmf-data', toneRecording())
+    expectTone(await settled(data.id))
+    expect((await processingOf(data.id)).state).toBe('done')
+    expect((await processingOf(meta.id)).message).toMatch(/Read together with its dataset "pair-a\.sigmf-data"/)
+    expect(await findAnalysis(t.services.db, meta.id)).toBeUndefined()
+  })
+
+  it('dataset first: it waits for its metadata, then the pair is analysed', async () => {
+    const data = await upload('pair-b.sigmf-data', toneRecording())
+    expect(data.processing.state).toBe('none')
+    expect(data.processing.message).toMatch(/Waiting for its metadata "pair-b\.sigmf-meta"/)
+    await upload('pair-b.sigmf-meta', sigmfMeta())
+    expectTone(await settled(data.id))
+  })
+
+  it('both in one batch (sent at once): analysed once both are recorded', async () => {
+    const [meta, data] = await Promise.all([upload('pair-c.sigmf-meta', sigmfMeta()), upload('pair-c.sigmf-data', toneRecording())])
+    expectTone(await settled(data.id))
+    expect((await processingOf(meta.id)).message).toMatch(/Read together with/)
+  })
+
+  it('does not pair files of another name', async () => {
+    const data = await upload('pair-d.sigmf-data', toneRecording())
+    await upload('pair-e.sigmf-meta', sigmfMeta())
+    expect((await processingOf(data.id)).message).toMatch(/Waiting for its metadata "pair-d\.sigmf-meta"/)
+    expect(await findAnalysis(t.services.db, data.id)).toBeUndefined()
+  })
+
+  const short = () => toneRecording().subarray(0, 8 * 4096)
+  const bad: { name: string; meta: () => Buffer; data: () => Buffer; message: RegExp }[] = [
+    { name: 'metadata that contradicts the data length', meta: () => sigmfMeta(), data: short, message: /annotations\[0\]: covers samples up to 131072, but the dataset holds only 4096 samples/ },
+    { name: 'an unknown datatype', meta: () => sigmfMeta({ 'core:datatype': 'cq7_le' }), data: short, message: /The SigMF recording cannot be read: global\.core:datatype: 'cq7_le' is not a SigMF dataset format/ },
+    { name: 'data not a whole number of samples', meta: () => sigmfMeta({}, []), data: () => short().subarray(0, 8 * 4096 - 3), message: /not a whole number of cf32_le samples \(8 bytes each\)/ },
+    { name: 'metadata that is not JSON SigMF', meta: () => Buffer.from('{"global": 3}'), data: short, message: /The SigMF recording cannot be read/ },
+  ]
+  bad.forEach((c, i) => {
+    it(`records a clear failure on the dataset for ${c.name}`, async () => {
+      await upload(`bad-${i}.sigmf-meta`, c.meta())
+      const data = await upload(`bad-${i}.sigmf-data`, c.data())
+      const a = await settled(data.id)
+      expect(a.state).toBe('failed')
+      expect(a.message).toMatch(c.message)
+      expect(a.summary).toBeNull()
+      expect((await processingOf(data.id)).message).toBe(a.message)
+    })
+  })
+
+  it('refuses a dataset processed without its metadata, saying what to add', async () => {
+    const id = await addEvidence(short(), 'lone.sigmf-data', 'application/octet-stream', 'iq_recording')
+    await runEvidenceProcessing(deps(), id)
+    expect((await findAnalysis(t.services.db, id))!.message).toMatch(/no metadata file on the case: Waiting for its metadata "lone\.sigmf-meta"/)
+  })
+})
+
+describe('the processing sweep (work a crash left undone)', () => {
+  let worker: EvidenceProcessingWorker
+  beforeAll(async () => {
+    worker = await startEvidenceProcessingWorker({ boss: t.boss, db: t.services.db, objectStore: store }, { pollingIntervalSeconds: 0.5 })
+  })
+  afterAll(async () => {
+    await worker?.stop()
+  })
+  const archive = () => tar([{ name: 's.sigmf-meta', body: sigmfMeta() }, { name: 's.sigmf-data', body: toneRecording() }])
+  const later = () => new Date(Date.now() + 11 * 60 * 1000)
+  const done = async (id: string) => {
+    const deadline = Date.now() + 20_000
+    while (Date.now() < deadline && (await findAnalysis(t.services.db, id))?.state !== 'done') await new Promise((r) => setTimeout(r, 200))
+    return findAnalysis(t.services.db, id)
+  }
+
+  it('queues a file with no analysis row again (its row committed, its job never sent), and it is processed', async () => {
+    const id = await addEvidence(archive(), 'crashed.sigmf', 'application/x-tar', 'iq_recording')
+    expect(await findAnalysis(t.services.db, id)).toBeUndefined()
+    // too young: its upload may still be queuing it
+    expect((await requeueStrandedProcessing({ db: t.services.db, boss: t.boss })).analyses).not.toContain(id)
+    const swept = await requeueStrandedProcessing({ db: t.services.db, boss: t.boss, now: later() })
+    expect(swept.analyses).toContain(id)
+    const a = await done(id)
+    expect(a?.state).toBe('done')
+    expect(a?.summary?.peaks[0]?.freqHz).toBe(CENTER_HZ + TONE_OFFSET_HZ)
+  })
+
+  it('queues again an analysis left queued past the job expiry with no live job, but not one whose job is still waiting', async () => {
+    const lost = await addEvidence(archive(), 'lost.sigmf', 'application/x-tar', 'iq_recording')
+    const waiting = await addEvidence(archive(), 'waiting.sigmf', 'application/x-tar', 'iq_recording')
+    const fresh = await addEvidence(archive(), 'fresh.sigmf', 'application/x-tar', 'iq_recording')
+    for (const id of [lost, waiting, fresh]) await markAnalysisQueued(t.services.db, id)
+    // a live job for `waiting`: sent to start in an hour, so no worker takes it during the test
+    await t.boss.send(EVIDENCE_PROCESSING_QUEUE, { evidenceId: waiting }, { startAfter: 3600 })
+    await t.pool.query(`UPDATE evidence_analyses SET updated_at = now() - interval '1 hour' WHERE evidence_id = ANY($1)`, [[lost, waiting]])
+    const swept = await requeueStrandedProcessing({ db: t.services.db, boss: t.boss, now: later() })
+    expect(swept.analyses).toContain(lost)
+    expect(swept.analyses).not.toContain(waiting)
+    expect(swept.analyses).not.toContain(fresh)
+    expect((await done(lost))?.state).toBe('done')
+    expect((await findAnalysis(t.services.db, waiting))?.state).toBe('queued')
+  })
+
+  it('leaves alone a SigMF half still waiting for its partner, and files already processed', async () => {
+    const half = await addEvidence(toneRecording().subarray(0, 4096 * 8), 'alone.sigmf-data', 'application/octet-stream', 'iq_recording')
+    const swept = await requeueStrandedProcessing({ db: t.services.db, boss: t.boss, now: later() })
+    expect(swept.analyses).not.toContain(half)
+    expect((await t.pool.query('SELECT processing FROM evidence_files WHERE id = $1', [half])).rows[0].processing.message).toMatch(/Waiting for its metadata "alone\.sigmf-meta"/)
+    // nothing of what is done or failed comes back
+    const { rows } = await t.pool.query(`SELECT evidence_id FROM evidence_analyses WHERE state IN ('done', 'failed')`)
+    for (const r of rows) expect(swept.analyses).not.toContain(r.evidence_id)
   })
 })

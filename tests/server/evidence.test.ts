@@ -2,7 +2,8 @@
  * Evidence files on a case, against the local S3 fake: a large upload streamed into the store
  * with the hash of its bytes; the store down, too large, refused content, empty files and odd
  * names; who sees what (another office's staff and another complainant: 404); downloads,
- * integrity checks and removals in the chain of custody; the orphan sweep.
+ * integrity checks and removals in the chain of custody; the orphan sweep; a complainant's
+ * limits (no file on a closed case, so many files per case per hour).
  */
 import crypto from 'node:crypto'
 import fs from 'node:fs'
@@ -129,8 +130,8 @@ describe('uploading evidence', () => {
     // raw samples carry no signature: kept as octet-stream, whatever was declared
     expect(evidence.contentType).toBe('application/octet-stream')
     expect(evidence.uploadedBy).toMatchObject({ id: worked.investigator!.id, role: 'staff', name: worked.investigator!.name })
-    // a recording is queued for processing (no worker runs in this file)
-    expect(evidence.processing).toEqual({ state: 'queued', progress: 0 })
+    // half of a two-file SigMF recording: it waits for its metadata before it is queued (no worker runs in this file)
+    expect(evidence.processing).toEqual({ state: 'none', progress: 0, message: expect.stringMatching(/^Waiting for its metadata "capture-433\.sigmf-meta"/) })
     const key = await objectKeyOf(evidence.id)
     expect(key.startsWith('evidence/')).toBe(true)
     expect(sha256(await storedBytes(key))).toBe(expected)
@@ -335,5 +336,71 @@ describe('the orphan sweep', () => {
     // everything else this store held is still there, and each of it has its row
     expect(left.sort()).toEqual(before.filter((k) => k !== planted).sort())
     expect(left.every((k) => recorded.has(k))).toBe(true)
+  })
+})
+
+describe('complainant upload limits', () => {
+  let limited: TestContext
+  let office: Awaited<ReturnType<typeof makeOffice>>
+  beforeAll(async () => {
+    // the same store, configured for 3 complainant files per case per hour
+    limited = await createTestContext({
+      objectStore: createObjectStore({ ...fake, region: 'us-east-1', forcePathStyle: true, maxUploadBytes: 64 * 1024, evidenceMaxBytes: { staff: 60 * MiB, complainant: 1 * MiB }, evidenceComplainantFilesPerHour: 3 }),
+    })
+    office = await makeOffice(limited)
+  }, 60_000)
+  afterAll(async () => {
+    await limited?.close()
+  })
+
+  it('refuses a file on a closed case by the tracking link (409 case_closed), storing nothing', async () => {
+    const closed = await makeCase(t, { office: worked.office, state: 'closed' })
+    const before = await counts()
+    const keys = await evidenceKeys()
+    const res = await uploadTo(request.agent(t.app), `/api/track/${closed.trackingToken}/evidence`, 'document', CSV, 'late.csv', 'text/csv')
+    expect(res.status).toBe(409)
+    expect(res.body.error.code).toBe('case_closed')
+    expect(res.body.error.message).toMatch(/This report is closed, so no more files can be added to it/)
+    expect(await counts()).toEqual(before)
+    expect(await evidenceKeys()).toEqual(keys)
+    // staff of the office still add files to the closed case's record
+    await uploadTo(await signIn(t, closed.supervisor!), `/api/cases/${closed.id}/evidence`, 'document', CSV, 'after-close.csv', 'text/csv').expect(201)
+  })
+
+  it('refuses a file on a report the signed-in complainant withdrew (closed): 409', async () => {
+    const filed = await ownerAgent.post('/api/reports').set('X-Forwarded-For', uniqueAddress()).send(validReport({ email: owner.email, ...reportNear(worked.office) })).expect(201)
+    const id = (await t.pool.query(`SELECT id FROM cases WHERE reference = $1`, [filed.body.reference])).rows[0].id
+    await uploadTo(ownerAgent, `/api/my/reports/${id}/evidence`, 'document', CSV, 'before.csv', 'text/csv').expect(201)
+    await ownerAgent.post(`/api/my/reports/${id}/withdraw`).send({ reason: 'It stopped.' }).expect(200)
+    const res = await uploadTo(ownerAgent, `/api/my/reports/${id}/evidence`, 'document', CSV, 'after.csv', 'text/csv')
+    expect(res.status).toBe(409)
+    expect(res.body.error.code).toBe('case_closed')
+  })
+
+  it('holds a complainant to the configured files per case per hour (429 too_many_files); staff and other cases are not held', async () => {
+    const c = await makeCase(limited, { office })
+    const track = (name: string) => uploadTo(request.agent(limited.app), `/api/track/${c.trackingToken}/evidence`, 'document', CSV, name, 'text/csv')
+    for (const n of [1, 2, 3]) await track(`part-${n}.csv`).expect(201)
+    const before = await counts(limited)
+    const res = await track('part-4.csv')
+    expect(res.status).toBe(429)
+    expect(res.body.error.code).toBe('too_many_files')
+    expect(res.body.error.message).toMatch(/3 files have been added to this report in the last hour, the most we take/)
+    expect(await counts(limited)).toEqual(before)
+    // staff of the office are not held by it, and another case's complainant has their own count
+    await uploadTo(await signIn(limited, await makeUser(limited, { role: 'investigator', office })), `/api/cases/${c.id}/evidence`, 'document', CSV, 'staff.csv', 'text/csv').expect(201)
+    const other = await makeCase(limited, { office })
+    await uploadTo(request.agent(limited.app), `/api/track/${other.trackingToken}/evidence`, 'document', CSV, 'other.csv', 'text/csv').expect(201)
+  })
+
+  it('keeps to the limit when uploads arrive at once (counted under the case lock)', async () => {
+    const c = await makeCase(limited, { office })
+    const track = (name: string) => uploadTo(request.agent(limited.app), `/api/track/${c.trackingToken}/evidence`, 'document', CSV, name, 'text/csv')
+    await track('one.csv').expect(201)
+    await track('two.csv').expect(201)
+    const statuses = (await Promise.all([track('a.csv'), track('b.csv'), track('c.csv')])).map((r) => r.status).sort()
+    expect(statuses).toEqual([201, 429, 429])
+    const { rows } = await limited.pool.query(`SELECT count(*)::int AS n FROM evidence_files WHERE case_id = $1`, [c.id])
+    expect(rows[0].n).toBe(3)
   })
 })

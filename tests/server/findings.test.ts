@@ -1,11 +1,14 @@
 /**
  * Findings are structured records: proposing one writes the finding row, moves the case, adds
  * the timeline event and queues the supervisors' e-mails in one transaction; a finding links
- * only its own case's calculations (else 400 naming the bad ids, nothing written); the table
- * is append-only; each proposal is a new row and the latest is the current one.
+ * only its own case's calculations and its own case's evidence files that were not removed
+ * (else 400 naming the bad ids, nothing written); the table is append-only; each proposal is a
+ * new row and the latest is the current one.
  */
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
 import pg from 'pg'
+import { createHash, randomUUID } from 'node:crypto'
+import { insertEvidence } from '../../server/modules/evidence/evidence.repo'
 import { findingsResponseSchema } from '../../shared/schemas/findings'
 import { createTestContext, type TestContext } from '../support/harness'
 import { makeCase, makeOffice, signIn, type Agent, type TestCase } from '../support/factories'
@@ -52,6 +55,17 @@ async function storeEirp(agent: Agent, caseId: string) {
   const res = await agent.post(`/api/cases/${caseId}/calculations`).send({ kind: 'eirp_single_point', inputs: eirpInputs })
   expect(res.status, JSON.stringify(res.body)).toBe(201)
   return res.body.calculation as { id: string; outputs: unknown; warnings: string[]; methods: { id: string }[]; libraryVersion: string }
+}
+
+/** An evidence file row on the case (no object is read here: only its name and hash are shown). */
+async function addEvidenceRow(c: TestCase, name: string): Promise<{ id: string; sha256: string }> {
+  const sha256 = createHash('sha256').update(`${name} ${randomUUID()}`).digest('hex')
+  const e = await insertEvidence(
+    t.services.db,
+    { objectKey: `evidence/${randomUUID()}`, originalName: name, sizeBytes: 10, sha256, contentType: 'text/csv', contentTypeSource: 'sniffed', purpose: 'evidence', uploadedBy: c.investigator!.id },
+    { caseId: c.id, kind: 'spectrum_capture', uploaderRole: 'staff', uploaderUserId: c.investigator!.id, displayName: name, submittedNameJson: JSON.stringify(name) },
+  )
+  return { id: e.id, sha256 }
 }
 
 async function propose(agent: Agent, c: TestCase, body: Record<string, unknown>) {
@@ -146,7 +160,8 @@ describe('proposing a structured finding', () => {
     )
     expect(res.status).toBe(400)
     const paths = (res.body.error.details as { path: string }[]).map((d) => d.path).sort()
-    expect(paths).toEqual(['authorisedStationId', 'complianceDeadline', 'evidenceIds', 'recommendedAction', 'sourceDescription', 'sourceLonDeg'].sort())
+    // an evidence id that is no uuid is named by its place in the list, as a calculation id is
+    expect(paths).toEqual(['authorisedStationId', 'complianceDeadline', 'evidenceIds.0', 'recommendedAction', 'sourceDescription', 'sourceLonDeg'].sort())
     const again = await propose(inv, c, proposal({ sourceLonDeg: '' }))
     expect(again.status).toBe(400)
     expect((again.body.error.details as { path: string }[]).map((d) => d.path)).toEqual(['sourceLonDeg'])
@@ -162,6 +177,57 @@ describe('proposing a structured finding', () => {
     const stranger = await makeCase(t, { office: otherOffice, state: 'field_work' })
     expect((await (await signIn(t, stranger.investigator!)).get(`/api/cases/${c.id}/findings`)).status).toBe(404)
     expect(await findingCount(c.id)).toBe(0)
+  })
+})
+
+describe('evidence files on a finding', () => {
+  it('keeps the case’s own files in the order linked and shows each with its name and hash', async () => {
+    const office = await makeOffice(t)
+    const c = await makeCase(t, { office, state: 'field_work' })
+    const inv = await signIn(t, c.investigator!)
+    const trace = await addEvidenceRow(c, 'harbour-trace.csv')
+    const photo = await addEvidenceRow(c, 'mast.jpg')
+    const res = await propose(inv, c, proposal({ evidenceIds: [photo.id, trace.id] }))
+    expect(res.status, JSON.stringify(res.body)).toBe(200)
+    const row = (await db().query(`SELECT evidence_ids FROM findings WHERE case_id = $1`, [c.id])).rows[0]
+    expect(row.evidence_ids).toEqual([photo.id, trace.id])
+
+    // removed after the proposal: still listed (the record keeps what it rested on), marked
+    const sup = await signIn(t, c.supervisor!)
+    expect((await sup.post(`/api/evidence/${photo.id}/remove`).send({ reason: 'Wrong mast photographed.' })).status).toBe(200)
+    const read = await sup.get(`/api/cases/${c.id}/findings`)
+    const parsed = findingsResponseSchema.parse(read.body)
+    expect(parsed).toEqual(read.body)
+    expect(parsed.current!.evidenceIds).toEqual([photo.id, trace.id])
+    expect(parsed.current!.evidence).toEqual([
+      { id: photo.id, name: 'mast.jpg', sha256: photo.sha256, removed: true },
+      { id: trace.id, name: 'harbour-trace.csv', sha256: trace.sha256, removed: false },
+    ])
+  })
+
+  it('refuses another case’s file, an unknown id and a removed file with a 400 naming each, and writes nothing', async () => {
+    const office = await makeOffice(t)
+    const c = await makeCase(t, { office, state: 'field_work' })
+    const other = await makeCase(t, { office, state: 'field_work' })
+    const inv = await signIn(t, c.investigator!)
+    const own = await addEvidenceRow(c, 'own.csv')
+    const gone = await addEvidenceRow(c, 'gone.csv')
+    const foreign = await addEvidenceRow(other, 'foreign.csv')
+    const unknown = '00000000-0000-4000-8000-00000000e0e0'
+    expect((await (await signIn(t, c.supervisor!)).post(`/api/evidence/${gone.id}/remove`).send({ reason: 'Uploaded by mistake.' })).status).toBe(200)
+    const before = await statusOf(c.id)
+    const res = await propose(inv, c, proposal({ evidenceIds: [own.id, foreign.id, gone.id, unknown] }))
+    expect(res.status).toBe(400)
+    expect(res.body.error.code).toBe('validation_failed')
+    const details = res.body.error.details as { path: string; message: string }[]
+    expect(details.map((d) => d.path)).toEqual(['evidenceIds'])
+    const message = details[0]!.message
+    expect(message).toContain(`Not evidence files of this case: ${foreign.id}, ${unknown}.`)
+    expect(message).toContain(`Removed from the case, so not linkable: ${gone.id} (gone.csv).`)
+    expect(message).not.toContain(own.id)
+    expect(await statusOf(c.id)).toEqual(before)
+    expect(await findingCount(c.id)).toBe(0)
+    expect(await proposeEvents(c.id)).toBe(0)
   })
 })
 

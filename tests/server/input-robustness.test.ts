@@ -14,6 +14,7 @@ import { makeBandLimit, makeOffice, makeUser, reportNear, signIn, type TestUser 
 import type { Office } from '../../server/db/schema'
 import { addEquipment } from '../../server/modules/equipment/equipment.service'
 import { recordMeasurement } from '../../server/modules/measurements/measurements.service'
+import { addFollowUp, moveFollowUp } from '../../server/modules/follow-ups/follow-ups.service'
 import { equipmentContentSchema, measurementContentSchema } from '../../shared/schemas/measurements'
 
 type Who = 'anonymous' | 'complainant' | 'investigator' | 'supervisor' | 'admin'
@@ -240,6 +241,36 @@ function measurementRow(route: 'POST /api/cases/:id/measurements' | 'PATCH /api/
   }
 }
 
+/** A case's enforcement records (responsible party, notices, replies, follow-ups) on a case of the own office. */
+function enforcementRow(sub: 'responsible-party' | 'notices' | 'party-replies' | 'follow-ups', body: Record<string, unknown>): FuzzRow {
+  let caseId: string | undefined
+  return {
+    route: `POST /api/cases/:id/${sub}`,
+    async path() {
+      caseId ??= (await fileHere()).id
+      return `/api/cases/${caseId}/${sub}`
+    },
+    base: async () => body,
+  }
+}
+
+/** A follow-up move on a fresh follow-up of the own office (confirmed first when the move is a reopening). */
+function followUpMoveRow(move: 'confirm' | 'escalate' | 'reopen'): FuzzRow {
+  let id: string | undefined
+  return {
+    route: `POST /api/follow-ups/:id/${move}`,
+    async path(renew) {
+      if (!id || renew) {
+        const caseId = (await fileHere()).id
+        id = (await addFollowUp(t.services, ACCOUNT.supervisor.actor, caseId, { dueOn: '2099-01-05', expected: 'Fuzz follow-up' })).id
+        if (move === 'reopen') await moveFollowUp(t.services, ACCOUNT.supervisor.actor, id, 'confirm', { version: 1, note: 'Fuzz confirm' })
+      }
+      return `/api/follow-ups/${id}/${move}`
+    },
+    base: async () => ({ version: move === 'reopen' ? 2 : 1, note: 'Fuzz note' }),
+  }
+}
+
 const fixed = (route: string, path: () => string, body: () => Record<string, unknown>): FuzzRow => ({
   route,
   path: async () => path(),
@@ -259,6 +290,8 @@ const FUZZ: FuzzRow[] = [
   fixed('PATCH /api/admin/users/:id', () => `/api/admin/users/${ids.throwawayUserId}`, () => ({ active: true })),
   // the office's own targets: no single odd field below makes a valid set, so nothing changes
   fixed('PUT /api/offices/:id/response-targets', () => `/api/offices/${ids.ownOfficeId}/response-targets`, () => ({ p1: 4, p2: 24, p3: 72, p4: 240 })),
+  fixed('PUT /api/offices/:id/first-response-targets', () => `/api/offices/${ids.ownOfficeId}/first-response-targets`, () => ({ p1: 1, p2: 8, p3: 24, p4: 72 })),
+  fixed('PUT /api/offices/:id/time-zone', () => `/api/offices/${ids.ownOfficeId}/time-zone`, () => ({ timeZone: 'Atlantic/Azores' })),
   fixed('POST /api/reports', () => '/api/reports', () => validReport(reportNear(ownOffice)) as unknown as Record<string, unknown>),
   complainantRow('POST /api/track/:token/information', { body: 'Still there at night.' }),
   complainantRow('POST /api/track/:token/withdraw', { reason: 'It stopped.' }),
@@ -281,6 +314,10 @@ const FUZZ: FuzzRow[] = [
   fixed('POST /api/evidence/:id/verify', () => `/api/evidence/${NO_SUCH_UPLOAD}/verify`, () => ({})),
   fixed('POST /api/evidence/:id/remove', () => `/api/evidence/${NO_SUCH_UPLOAD}/remove`, () => ({ reason: 'Filed on the wrong case.' })),
   fixed('POST /api/evidence/:id/band', () => `/api/evidence/${NO_SUCH_UPLOAD}/band`, () => ({ lowFreqHz: '101.5 MHz', highFreqHz: 102.5e6 })),
+  fixed('POST /api/evidence/:id/band-measurement', () => `/api/evidence/${NO_SUCH_UPLOAD}/band-measurement`, () => ({ lowFreqHz: '101.5 MHz', highFreqHz: '102.5 MHz', takenAt: '2026-12-01T10:00:00Z', latDeg: '48.1', lonDeg: '-31.4' })),
+  // a person's saved views of the case list (several succeed: names then repeat, and the cap answers 409)
+  fixed('POST /api/me/saved-views', () => '/api/me/saved-views', () => ({ name: 'Fuzz view', listQuery: 'open=true' })),
+  fixed('DELETE /api/me/saved-views/:id', () => `/api/me/saved-views/${NO_SUCH_UPLOAD}`, () => ({})),
   measurementRow('POST /api/cases/:id/measurements'),
   measurementRow('PATCH /api/measurements/:id'),
   measurementRow('POST /api/measurements/:id/corrections'),
@@ -295,6 +332,13 @@ const FUZZ: FuzzRow[] = [
   caseRow('return-finding', 'finding_proposed', () => ({ reason: 'More work' })),
   caseRow('close', 'finding_proposed', () => ({ resolution: 'source_corrected', reason: 'Fixed' })),
   caseRow('reopen', 'closed', () => ({ reason: 'Back again' })),
+  enforcementRow('responsible-party', { name: 'Fuzz party', phone: '+00 555 0100' }),
+  enforcementRow('notices', { servedOn: '2026-01-05', method: 'email', summary: 'Fuzz notice' }),
+  enforcementRow('party-replies', { receivedOn: '2026-01-05', summary: 'Fuzz reply' }),
+  enforcementRow('follow-ups', { dueOn: '2099-01-05', expected: 'Fuzz follow-up' }),
+  followUpMoveRow('confirm'),
+  followUpMoveRow('escalate'),
+  followUpMoveRow('reopen'),
 ]
 
 async function agentFor(who: Who): Promise<Agent> {
@@ -380,6 +424,15 @@ describe('odd ids in paths', () => {
     'POST /api/cases/:id/measurements',
     'PATCH /api/measurements/:id',
     'POST /api/measurements/:id/corrections',
+    'GET /api/cases/:id/responsible-party',
+    'POST /api/cases/:id/responsible-party',
+    'POST /api/cases/:id/notices',
+    'POST /api/cases/:id/party-replies',
+    'GET /api/cases/:id/follow-ups',
+    'POST /api/cases/:id/follow-ups',
+    'POST /api/follow-ups/:id/confirm',
+    'POST /api/follow-ups/:id/escalate',
+    'POST /api/follow-ups/:id/reopen',
   ]
 
   it('answer 400 or 404 with the one error body, never 500, to anyone', async () => {

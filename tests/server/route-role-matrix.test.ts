@@ -63,6 +63,13 @@ const MATRIX: Row[] = [
   { route: 'GET /api/offices', expect: [401, 403, 200, 200, 200] },
   { route: 'GET /api/offices/:id', path: (ids) => `/api/offices/${ids.otherOfficeId}`, expect: [401, 403, 404, 404, 200] },
   { route: 'PUT /api/offices/:id/response-targets', path: (ids) => `/api/offices/${ids.otherOfficeId}/response-targets`, body: { p1: 4, p2: 24, p3: 72, p4: 240 }, expect: [401, 403, 403, 404, 200] },
+  { route: 'PUT /api/offices/:id/first-response-targets', path: (ids) => `/api/offices/${ids.otherOfficeId}/first-response-targets`, body: { p1: 1, p2: 8, p3: 24, p4: 72 }, expect: [401, 403, 403, 404, 200] },
+  { route: 'GET /api/dashboard', expect: [401, 403, 403, 200, 200] },
+  { route: 'PUT /api/offices/:id/time-zone', path: (ids) => `/api/offices/${ids.otherOfficeId}/time-zone`, body: { timeZone: 'UTC' }, expect: [401, 403, 403, 404, 200] },
+  // a person's own saved views of the case list (staff); another person's id is not found
+  { route: 'GET /api/me/saved-views', expect: [401, 403, 200, 200, 200] },
+  { route: 'POST /api/me/saved-views', body: { name: '', listQuery: 'open=true' }, expect: [401, 403, 400, 400, 400] },
+  { route: 'DELETE /api/me/saved-views/:id', path: () => '/api/me/saved-views/00000000-0000-4000-8000-000000000000', expect: [401, 403, 404, 404, 404] },
   // the region map (outline, coast, offices' points and areas) is public: the report form needs it
   { route: 'GET /api/region', expect: [200, 200, 200, 200, 200] },
   // served only to loopback connections of a loopback development server with no proxy declared;
@@ -173,12 +180,23 @@ const MATRIX: Row[] = [
   { route: 'POST /api/evidence/:id/verify', path: () => '/api/evidence/00000000-0000-4000-8000-000000000000/verify', body: {}, expect: [401, 403, 404, 404, 403] },
   { route: 'POST /api/evidence/:id/remove', path: () => '/api/evidence/00000000-0000-4000-8000-000000000000/remove', body: { reason: 'Matrix check' }, expect: [401, 403, 404, 404, 403] },
   { route: 'GET /api/evidence/:id/custody', path: () => '/api/evidence/00000000-0000-4000-8000-000000000000/custody', expect: [401, 403, 404, 404, 403] },
+  // a photo's thumbnail: whoever may see the file, the complainant included for their own uploads (own office 200, another office 404: evidence-thumbnails.test.ts)
+  { route: 'GET /api/evidence/:id/thumbnail', path: () => '/api/evidence/00000000-0000-4000-8000-000000000000/thumbnail', expect: [401, 404, 404, 404, 403] },
   // a spectrum file's analysis (summary, display trace, spectrogram): staff of its office (own office 200 and another office 404: evidence-processing.test.ts)
   { route: 'GET /api/evidence/:id/analysis', path: () => '/api/evidence/00000000-0000-4000-8000-000000000000/analysis', expect: [401, 403, 404, 404, 403] },
   // channel power and occupied bandwidth of a band of that analysis (own office 200: evidence-band.test.ts)
   { route: 'POST /api/evidence/:id/band', path: () => '/api/evidence/00000000-0000-4000-8000-000000000000/band', body: { lowFreqHz: 101.5e6, highFreqHz: 102.5e6 }, expect: [401, 403, 404, 404, 403] },
+  // that band's channel power kept as a measurement, computed by the server (own office 201, removed file 409, unassigned investigator 403: evidence-band.test.ts)
+  {
+    route: 'POST /api/evidence/:id/band-measurement',
+    path: () => '/api/evidence/00000000-0000-4000-8000-000000000000/band-measurement',
+    body: { lowFreqHz: 101.5e6, highFreqHz: 102.5e6, takenAt: '2026-11-20T09:00:00.000Z', latDeg: 48.1, lonDeg: -31.35 },
+    expect: [401, 403, 404, 404, 403],
+  },
   // a case's evidence bundle (ZIP of its files and manifest): staff of its office; another office's case is 404
   { route: 'GET /api/cases/:id/evidence-bundle', path: (ids) => `/api/cases/${ids.otherCaseId}/evidence-bundle`, expect: [401, 403, 404, 404, 200] },
+  // a case's signed case file (PDF), recorded on its timeline: staff of its office and administrators; another office's case is 404
+  { route: 'GET /api/cases/:id/case-file', path: (ids) => `/api/cases/${ids.otherCaseId}/case-file`, expect: [401, 403, 404, 404, 200] },
   {
     route: 'POST /api/cases/:id/measurements',
     path: (ids) => `/api/cases/${ids.ownCaseId}/measurements`,
@@ -197,6 +215,20 @@ const MATRIX: Row[] = [
     body: { measurement: { takenAt: '2026-01-05T10:00:00Z', latDeg: '51', lonDeg: '-1', freqHz: '433.92 MHz', reading: { unit: 'dBm', value: '-60' } } },
     expect: [401, 403, 404, 404, 404],
   },
+  // the responsible party, notices and replies: staff of the case's office record (another office 404); administrators read only (403 to record)
+  { route: 'GET /api/cases/:id/responsible-party', path: (ids) => `/api/cases/${ids.otherCaseId}/responsible-party`, expect: [401, 403, 404, 404, 200] },
+  { route: 'POST /api/cases/:id/responsible-party', path: (ids) => `/api/cases/${ids.otherCaseId}/responsible-party`, body: { name: 'Matrix party', phone: '+00 555 0100' }, expect: [401, 403, 404, 404, 403] },
+  { route: 'POST /api/cases/:id/notices', path: (ids) => `/api/cases/${ids.otherCaseId}/notices`, body: { servedOn: '2026-01-05', method: 'email', summary: 'Matrix notice' }, expect: [401, 403, 404, 404, 403] },
+  { route: 'POST /api/cases/:id/party-replies', path: (ids) => `/api/cases/${ids.otherCaseId}/party-replies`, body: { receivedOn: '2026-01-05', summary: 'Matrix reply' }, expect: [401, 403, 404, 404, 403] },
+  // follow-ups: the same; their moves answer 404 for a follow-up outside the office (own office: follow-ups.test.ts); the due list is the actor's own
+  { route: 'GET /api/cases/:id/follow-ups', path: (ids) => `/api/cases/${ids.otherCaseId}/follow-ups`, expect: [401, 403, 404, 404, 200] },
+  { route: 'POST /api/cases/:id/follow-ups', path: (ids) => `/api/cases/${ids.otherCaseId}/follow-ups`, body: { dueOn: '2099-01-05', expected: 'Matrix follow-up' }, expect: [401, 403, 404, 404, 403] },
+  { route: 'POST /api/follow-ups/:id/confirm', path: () => '/api/follow-ups/00000000-0000-4000-8000-000000000000/confirm', body: { version: 1, note: 'Matrix note' }, expect: [401, 403, 404, 404, 404] },
+  { route: 'POST /api/follow-ups/:id/escalate', path: () => '/api/follow-ups/00000000-0000-4000-8000-000000000000/escalate', body: { version: 1, note: 'Matrix note' }, expect: [401, 403, 404, 404, 404] },
+  { route: 'POST /api/follow-ups/:id/reopen', path: () => '/api/follow-ups/00000000-0000-4000-8000-000000000000/reopen', body: { version: 1, note: 'Matrix note' }, expect: [401, 403, 404, 404, 404] },
+  { route: 'GET /api/follow-ups/due', expect: [401, 403, 200, 200, 200] },
+  // what Quietband e-mails the signed-in person (every role)
+  { route: 'GET /api/me/emails', expect: [401, 200, 200, 200, 200] },
 ]
 
 let t: TestContext

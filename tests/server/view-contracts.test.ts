@@ -28,6 +28,7 @@ import { caseVersion, fileReport, validReport } from '../support/cases'
 import { makeOffice, makeUser, reportNear, signIn, type Agent, type TestUser } from '../support/factories'
 import type { Office } from '../../server/db/schema'
 import { findingsResponseSchema } from '../../shared/schemas/findings'
+import { caseFollowUpsResponseSchema, dueFollowUpsResponseSchema, followUpViewSchema, myEmailsResponseSchema, responsiblePartyResponseSchema } from '../../shared/schemas/follow-ups'
 
 let t: TestContext
 let office: Office
@@ -119,6 +120,23 @@ describe('the answers of the API fit their view schemas', () => {
     expectFits(myReportsResponseSchema, mine)
     expect(mine.body.reports.length).toBeGreaterThan(0)
     expectFits(complainantReportResponseSchema, await complainant.get(`/api/my/reports/${mine.body.reports[0].id}`))
+  })
+
+  it('the responsible party, notices, replies, follow-ups and their moves, the due list and the e-mails a person gets', async () => {
+    const f = await fileHere()
+    const today = new Date().toISOString().slice(0, 10)
+    const party = await supervisor.post(`/api/cases/${f.id}/responsible-party`).send({ name: 'Harbour boat club', email: 'club@boatclub.example' })
+    expectFits(responsiblePartyResponseSchema, party, 201)
+    const notice = await supervisor.post(`/api/cases/${f.id}/notices`).send({ servedOn: today, method: 'in_person', reference: 'N-1', summary: 'Switch the amplifier off.' })
+    expectFits(responsiblePartyResponseSchema, notice, 201)
+    expectFits(responsiblePartyResponseSchema, await supervisor.post(`/api/cases/${f.id}/party-replies`).send({ receivedOn: today, noticeId: notice.body.notices[0].id, summary: 'Done.' }), 201)
+    expectFits(responsiblePartyResponseSchema, await supervisor.get(`/api/cases/${f.id}/responsible-party`))
+    const added = await supervisor.post(`/api/cases/${f.id}/follow-ups`).send({ dueOn: '2099-01-05', expected: 'Replace the amplifier' })
+    expectFits(z.object({ followUp: followUpViewSchema }), added, 201)
+    expectFits(z.object({ followUp: followUpViewSchema }), await supervisor.post(`/api/follow-ups/${added.body.followUp.id}/escalate`).send({ version: 1, note: 'No answer.' }))
+    expectFits(caseFollowUpsResponseSchema, await supervisor.get(`/api/cases/${f.id}/follow-ups`))
+    expectFits(dueFollowUpsResponseSchema, await investigator.get('/api/follow-ups/due'))
+    expectFits(myEmailsResponseSchema, await investigator.get('/api/me/emails'))
   })
 
   it('who is signed in, for an account and for an anonymous visitor', async () => {

@@ -61,6 +61,7 @@ export function findingView(changes: Partial<FindingView> = {}): FindingView {
     summary: 'The amplifier oscillates when the mast heater runs.',
     calculations: [calculationView()],
     evidenceIds: [],
+    evidence: [],
     review: null,
     ...changes,
   })

@@ -144,6 +144,8 @@ export function office(changes: Partial<OfficeView> = {}): OfficeView {
     centreLatDeg: 48.1,
     centreLonDeg: -31.4,
     responseTargetsHours: { p1: 4, p2: 48, p3: 168, p4: 336 },
+    firstResponseTargetsHours: { p1: 1, p2: 8, p3: 24, p4: 72 },
+    timeZone: 'Atlantic/Azores',
     abilities: { setResponseTargets: false },
     ...changes,
   })

@@ -12,6 +12,7 @@ import { renderPage } from '../support/web-render'
 function serveTheList(options: { total?: number } = {}) {
   answer('get', '/api/offices', officesResponse())
   answer('get', '/api/staff', staffResponse())
+  answer('get', '/api/me/saved-views', { views: [] })
   return answer('get', '/api/cases', (request) => {
     const page = Number(request.url.searchParams.get('page') ?? 1)
     return casePage([caseListItem()], { page, total: options.total ?? 1 })
@@ -21,6 +22,8 @@ function serveTheList(options: { total?: number } = {}) {
 async function openTheList(url: string) {
   const page = renderPage({ url, routes: [{ path: paths.cases.path, Component: CasesPage }] })
   await screen.findByRole('table', { name: /^Cases\./ })
+  // the filters sit in a drawer above the results
+  await page.user.click(screen.getByRole('button', { name: /^Filters/ }))
   return page
 }
 
@@ -40,7 +43,7 @@ describe('the case list’s filters', () => {
     await user.type(screen.getByRole('searchbox', { name: 'Search' }), 'harbour')
     await user.click(screen.getByRole('checkbox', { name: CASE_STATE_LABELS.assigned }))
     await user.click(screen.getByRole('checkbox', { name: CASE_STATE_LABELS.field_work }))
-    await user.click(screen.getByRole('checkbox', { name: /^P1 / }))
+    await user.click(screen.getByRole('checkbox', { name: 'Safety of life' }))
     await user.selectOptions(screen.getByRole('combobox', { name: 'Service' }), 'maritime')
     await user.selectOptions(screen.getByRole('combobox', { name: 'Investigator' }), 'Ilse Brannock')
     await user.selectOptions(screen.getByRole('combobox', { name: 'Open or closed' }), 'Open only')
@@ -83,9 +86,9 @@ describe('the case list’s filters', () => {
     expect(screen.getByRole('searchbox', { name: 'Search' })).toHaveValue('mast')
     expect(screen.getByRole('checkbox', { name: CASE_STATE_LABELS.returned })).toBeChecked()
     expect(screen.getByRole('checkbox', { name: CASE_STATE_LABELS.assigned })).not.toBeChecked()
-    expect(screen.getByRole('checkbox', { name: /^P1 / })).toBeChecked()
-    expect(screen.getByRole('checkbox', { name: /^P2 / })).toBeChecked()
-    expect(screen.getByRole('checkbox', { name: /^P3 / })).not.toBeChecked()
+    expect(screen.getByRole('checkbox', { name: 'Safety of life' })).toBeChecked()
+    expect(screen.getByRole('checkbox', { name: 'Service lost' })).toBeChecked()
+    expect(screen.getByRole('checkbox', { name: 'Service degraded' })).not.toBeChecked()
     expect(screen.getByRole('combobox', { name: 'Service' })).toHaveValue('amateur')
     expect(screen.getByRole('combobox', { name: 'Overdue' })).toHaveValue('true')
     expect(screen.getByRole('combobox', { name: 'Open or closed' })).toHaveValue('')

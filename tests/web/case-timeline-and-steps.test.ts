@@ -30,7 +30,7 @@ describe('timeline lanes', () => {
   })
 
   it('names the facts a move stored', () => {
-    expect(eventTitle(ev('triage', 'internal', { priority: 1 }))).toBe('Priority set to P1')
+    expect(eventTitle(ev('triage', 'internal', { priority: 1 }))).toBe('Harm class set: Safety of life')
     expect(eventTitle(ev('assign', 'internal', { investigatorName: 'Marta Ferreira' }))).toBe('Assigned to Marta Ferreira')
     expect(eventTitle(ev('calculation_stored', 'internal', { calculationKind: 'eirp_fit' }))).toBe('Calculation stored')
     expect(eventTitle(ev('close', 'internal', { resolution: 'source_corrected' }))).toBe('Approved and closed: Source found and corrected')

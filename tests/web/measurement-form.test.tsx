@@ -61,6 +61,7 @@ function Page() {
 
 async function openTheForm() {
   answer('get', `/api/cases/${CASE_ID}/measurements`, measurementsResponseSchema.parse({ measurements: [], abilities: { record: true } }))
+  answer('get', `/api/cases/${CASE_ID}/evidence`, { evidence: [] })
   answer('get', `/api/offices/${OFFICE_ID}/equipment`, EQUIPMENT)
   const page = renderPage({ url: '/m', routes: [{ path: '/m', Component: Page }] })
   await page.user.click(await screen.findByRole('button', { name: 'Record a measurement' }))
@@ -204,6 +205,7 @@ describe('the measurement list', () => {
     const used = stored({ id: '00000000-0000-4000-8000-0000000000a1', usedByCalculations: 1, abilities: { edit: false, correct: true } })
     const old = stored({ id: '00000000-0000-4000-8000-0000000000a2', supersededById: '00000000-0000-4000-8000-0000000000a3', abilities: { edit: false, correct: false } })
     answer('get', `/api/cases/${CASE_ID}/measurements`, measurementsResponseSchema.parse({ measurements: [old, used], abilities: { record: true } }))
+    answer('get', `/api/cases/${CASE_ID}/evidence`, { evidence: [] })
     answer('get', `/api/offices/${OFFICE_ID}/equipment`, EQUIPMENT)
     const sent = answer('post', `/api/measurements/${used.id}/corrections`, { measurement: { ...used, id: '00000000-0000-4000-8000-0000000000a4', supersedesId: used.id } }, { status: 201 })
     const { user } = renderPage({ url: '/m', routes: [{ path: '/m', Component: Page }] })

@@ -163,7 +163,7 @@ describe('the spectrum view', () => {
         },
       })
     })
-    const saved = answer('post', `/api/cases/${CASE_ID}/measurements`, {}, { status: 201 })
+    const saved = answer('post', `/api/evidence/${FILE_ID}/band-measurement`, {}, { status: 201 })
     const { user } = renderPage({ url: '/', routes: [{ path: '/', Component: () => <EvidenceSection caseId={CASE_ID} /> }] })
     await user.click(await screen.findByRole('button', { name: 'Show the spectrum' }))
     await user.type(await screen.findByLabelText('Low edge'), '433.9')
@@ -181,17 +181,14 @@ describe('the spectrum view', () => {
     await user.type(within(form).getByLabelText('Longitude'), '-31.35')
     await user.click(within(form).getByRole('button', { name: 'Save as a measurement' }))
     expect(await screen.findByText('Saved as a measurement of the case.')).toBeTruthy()
-    const body = saved[0]!.body as { measurement: Record<string, unknown> }
-    expect(body.measurement).toMatchObject({
+    // only the band's edges and when and where are sent: the server computes the level itself
+    expect(saved[0]!.body).toEqual({
+      lowFreqHz: 433_900_000,
+      highFreqHz: 433_950_000,
       takenAt: new Date('2026-11-20T09:00').toISOString(),
       latDeg: 48.1,
       lonDeg: -31.35,
-      freqHz: '433925000 Hz',
-      measurementBandwidthHz: '50000 Hz',
-      reading: { unit: 'dBm', value: '-40.5 dBm' },
-      evidenceFileId: FILE_ID,
     })
-    expect(body.measurement.notes).toMatch(/computed on the display trace \(101 points/)
   })
 
   it('overlays another processed file of the case when picked, and offers no measurement for a dBFS recording', async () => {

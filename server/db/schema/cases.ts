@@ -61,8 +61,12 @@ export const cases = pgTable(
     resolution: text('resolution', { enum: RESOLUTIONS }),
     closingSummary: text('closing_summary'),
     receivedAt: timestamp('received_at', { withTimezone: true }).notNull().defaultNow(),
-    /** Response target: received_at + the office's target hours for the priority. */
+    /** Resolution target: received_at + the office's target hours for the priority. */
     dueAt: timestamp('due_at', { withTimezone: true }).notNull(),
+    /** First-response target: received_at + the office's first-response hours for the priority. */
+    firstResponseDueAt: timestamp('first_response_due_at', { withTimezone: true }).notNull(),
+    /** The first response: the priority set at triage or a first message to the complainant, whichever came first. */
+    firstRespondedAt: timestamp('first_responded_at', { withTimezone: true }),
     closedAt: timestamp('closed_at', { withTimezone: true }),
     version: integer('version').notNull().default(1),
     updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
@@ -92,6 +96,12 @@ export const cases = pgTable(
     // overdue (server/modules/cases/due.ts): the resolution clock runs and its due time has
     // passed; with the office, a supervisor's overdue count is an index-only scan too
     index('cases_due_open_idx').on(t.dueAt, t.officeId).where(sql`${t.status} not in ${sqlList(CASE_CLOCKS.resolution.stopsIn)}`),
+    // first response overdue: its clock runs (not closed, no first response yet) and its due time has passed
+    index('cases_first_response_open_idx').on(t.firstResponseDueAt, t.officeId).where(sql`${t.status} not in ${sqlList(CASE_CLOCKS.firstResponse.stopsIn)} and ${t.firstRespondedAt} is null`),
+    // the dashboard's performance windows (closed / first answered in the last days), time first
+    // so one office's window and every office's are both a range scan
+    index('cases_closed_window_idx').on(t.closedAt, t.officeId).where(sql`${t.closedAt} is not null`),
+    index('cases_responded_window_idx').on(t.firstRespondedAt, t.officeId).where(sql`${t.firstRespondedAt} is not null`),
     index('cases_complainant_user_idx').on(t.complainantUserId),
     index('cases_complainant_email_idx').on(t.complainantEmail),
     // the reports merged into a case (checked before closing it at triage and when it is merged)

@@ -13,7 +13,12 @@ export const offices = pgTable(
     centreLonDeg: doublePrecision('centre_lon_deg').notNull(),
     /** The office's area on the map (GeoJSON Polygon or MultiPolygon, shared/schemas/region.ts); none yet: null. */
     area: jsonb('area').$type<AreaGeometry>(),
-    /** Response targets per priority, in hours (office-configurable). */
+    /** First-response targets per priority, in hours (office-configurable; shared/domain/case-clocks.ts). */
+    firstResponseP1Hours: integer('first_response_p1_hours').notNull().default(1),
+    firstResponseP2Hours: integer('first_response_p2_hours').notNull().default(8),
+    firstResponseP3Hours: integer('first_response_p3_hours').notNull().default(24),
+    firstResponseP4Hours: integer('first_response_p4_hours').notNull().default(72),
+    /** Resolution (closing) targets per priority, in hours (office-configurable). */
     targetP1Hours: integer('target_p1_hours').notNull().default(4),
     targetP2Hours: integer('target_p2_hours').notNull().default(24),
     targetP3Hours: integer('target_p3_hours').notNull().default(72),
@@ -27,6 +32,7 @@ export const offices = pgTable(
     check('offices_lon_range', sql`${t.centreLonDeg} between -180 and 180`),
     check('offices_area_polygon', sql`${t.area} is null or ${t.area}->>'type' in ('Polygon', 'MultiPolygon')`),
     check('offices_time_zone_shape', sql`${t.timeZone} ~ '^[A-Za-z_]+(/[A-Za-z0-9_+-]+)*$'`),
+    check('offices_first_response_targets_positive', sql`least(${t.firstResponseP1Hours}, ${t.firstResponseP2Hours}, ${t.firstResponseP3Hours}, ${t.firstResponseP4Hours}) > 0`),
     check('offices_targets_positive', sql`least(${t.targetP1Hours}, ${t.targetP2Hours}, ${t.targetP3Hours}, ${t.targetP4Hours}) > 0`),
   ],
 )

@@ -12,7 +12,7 @@ import type { Db } from '../../db/client'
 import type { CalculationRow } from '../../db/schema'
 import { badRequest } from '../../http/errors'
 import { findBandLimitByKey } from '../band-limits/band-limits.repo'
-import { measurementReferencesForCase } from '../measurements/measurement-references'
+import { measurementReferencesWithEvidence } from '../measurements/measurement-references'
 import { stationReferences } from '../stations/station-references'
 import { calculationsOfCaseByIds } from './calculations.repo'
 
@@ -32,17 +32,20 @@ export function calculationReferenceOf(r: Pick<CalculationRow, 'id' | 'kind' | '
 
 const unique = (xs: readonly string[] | undefined) => [...new Set(xs ?? [])]
 
-/** Reads every reference the request names; refuses (400 `calculation_refused`, as a kind refuses) naming each one missing. */
-export async function prefetchReferences(db: Db, caseId: string, input: NewCalculation): Promise<{ lookup: ReferenceLookup; measurementIds: string[] }> {
+/**
+ * Reads every reference the request names; refuses (400 `calculation_refused`, as a kind refuses)
+ * naming each one missing. `evidenceIds` are the evidence files the named measurements were taken from.
+ */
+export async function prefetchReferences(db: Db, caseId: string, input: NewCalculation): Promise<{ lookup: ReferenceLookup; measurementIds: string[]; evidenceIds: string[] }> {
   const named = namedReferences(input)
   const bandKeys = unique(named.bandLimitKeys)
   const measurementIds = unique(named.measurementIds)
   const stationIds = unique(named.stationIds)
   const calculationIds = unique(named.calculationIds)
 
-  const [bandRows, measurements, stations, calcRows] = await Promise.all([
+  const [bandRows, measured, stations, calcRows] = await Promise.all([
     Promise.all(bandKeys.map((k) => findBandLimitByKey(db, k))),
-    measurementIds.length ? measurementReferencesForCase(db, caseId, measurementIds) : Promise.resolve([]),
+    measurementIds.length ? measurementReferencesWithEvidence(db, caseId, measurementIds) : Promise.resolve({ references: [], evidenceIds: [] }),
     stationIds.length ? stationReferences(db, stationIds) : Promise.resolve([]),
     calculationsOfCaseByIds(db, caseId, calculationIds),
   ])
@@ -50,7 +53,7 @@ export async function prefetchReferences(db: Db, caseId: string, input: NewCalcu
   for (const row of bandRows) {
     if (row) bandLimits.set(row.key, { key: row.key, title: row.title, spec: row.spec, citation: row.citation, verified: row.verified, statusNote: row.statusNote, version: row.version })
   }
-  const measurementById = new Map(measurements.map((m) => [m.id, m]))
+  const measurementById = new Map(measured.references.map((m) => [m.id, m]))
   const stationById = new Map(stations.map((s) => [s.id, s]))
   const calcById = new Map(calcRows.map((r) => [r.id, r]))
 
@@ -70,6 +73,7 @@ export async function prefetchReferences(db: Db, caseId: string, input: NewCalcu
 
   return {
     measurementIds,
+    evidenceIds: measured.evidenceIds,
     lookup: {
       bandLimit: (key) => bandLimits.get(key),
       measurement: (id) => measurementById.get(id),

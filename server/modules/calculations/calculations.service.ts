@@ -27,11 +27,11 @@ export const calculationNotFound = () => notFound('calculation_not_found', 'No s
  * The references a calculation names, read from the office's registers and the case as they are
  * now (the record keeps a copy, so later edits of a register never change it).
  */
-async function registerReferences(db: Db, caseId: string, input: NewCalculation): Promise<{ lookup: ReferenceLookup; measurementIds: string[] }> {
-  const { lookup, measurementIds } = await prefetchReferences(db, caseId, input)
+async function registerReferences(db: Db, caseId: string, input: NewCalculation): Promise<{ lookup: ReferenceLookup; measurementIds: string[]; evidenceIds: string[] }> {
+  const { lookup, measurementIds, evidenceIds } = await prefetchReferences(db, caseId, input)
   // candidate sources: the licence register's stations overlapping the interference (server/modules/stations)
   const candidates = input.kind === 'candidate_sources' ? await candidateSourcesLookup(db, input.inputs) : {}
-  return { lookup: { ...lookup, ...candidates }, measurementIds }
+  return { lookup: { ...lookup, ...candidates }, measurementIds, evidenceIds }
 }
 
 /** Runs a calculation on the case and stores it as a record, with an internal timeline event. */
@@ -59,6 +59,8 @@ export async function storeCalculation(ctx: ServiceContext, actor: Actor, caseId
       authorUserId: actor.id,
       referenceCopies: result.references,
       measurementIds: named.measurementIds,
+      // the evidence files the measurements it used were taken from
+      evidenceIds: named.evidenceIds,
     })
     const name = (await findUserById(db, actor.id))?.name ?? 'Unknown user'
     await appendEvent(db, {

@@ -8,7 +8,7 @@ import { PRIORITIES } from '../../../shared/domain/services'
 import type { CaseListQuery } from '../../../shared/schemas/cases'
 import type { Db } from '../../db/client'
 import { cases, offices, users } from '../../db/schema'
-import { clockRunsSql, notOverdueSql, overdueSql } from './due'
+import { clockRunsSql, dueSoonSql, notOverdueSql, overdueSql } from './due'
 
 /** The offices whose cases a query may return: one, or all (an administrator). */
 export type OfficeScope = { officeId: string } | { all: true }
@@ -38,11 +38,33 @@ function filters(scope: OfficeScope, q: CaseListQuery, me: string, now: Date): S
   if (q.open === false) where.push(sql`not ${clockRunsSql('resolution')}`)
   if (q.overdue === true) where.push(overdueSql('resolution', now))
   if (q.overdue === false) where.push(notOverdueSql('resolution', now))
+  if (q.dueSoon) where.push(dueSoonSql('resolution', now))
+  if (q.firstResponseOverdue === true) where.push(overdueSql('firstResponse', now))
+  if (q.firstResponseOverdue === false) where.push(notOverdueSql('firstResponse', now))
+  if (q.receivedToday) where.push(receivedTodaySql(now))
+  if (q.closedInLastDays !== undefined) where.push(sql`${cases.closedAt} >= ${daysBefore(now, q.closedInLastDays)}::timestamptz`)
+  if (q.respondedInLastDays !== undefined) where.push(sql`${cases.firstRespondedAt} >= ${daysBefore(now, q.respondedInLastDays)}::timestamptz`)
   // a case's range overlaps the asked range
   if (q.freqToHz !== undefined) where.push(lte(cases.freqLowHz, q.freqToHz))
   if (q.freqFromHz !== undefined) where.push(gte(cases.freqHighHz, q.freqFromHz))
   if (q.q) where.push(sql`${cases.searchText} like ${'%' + q.q.toLowerCase().replace(/[\\%_]/g, (m) => '\\' + m) + '%'}`)
   return and(...where)
+}
+
+/** `now` minus whole 24-hour days, as an ISO instant (the dashboard's performance windows). */
+export function daysBefore(now: Date, days: number): string {
+  return new Date(now.getTime() - days * 86_400_000).toISOString()
+}
+
+/**
+ * Received today: from the last midnight in the case's office time zone (offices.time_zone, IANA;
+ * PostgreSQL's tz database does the daylight-saving arithmetic) up to `now`.
+ */
+export function receivedTodaySql(now: Date): SQL<boolean> {
+  const at = now.toISOString()
+  // a local day began at most 25 hours ago (a day with a clock change back): a cheap, index-friendly bound first
+  const earliest = new Date(now.getTime() - 25 * 3_600_000).toISOString()
+  return sql<boolean>`(${cases.receivedAt} <= ${at}::timestamptz and ${cases.receivedAt} >= ${earliest}::timestamptz and ${cases.receivedAt} >= (select date_trunc('day', ${at}::timestamptz at time zone o.time_zone) at time zone o.time_zone from ${offices} o where o.id = ${cases.officeId}))`
 }
 
 function rowColumns(now: Date) {

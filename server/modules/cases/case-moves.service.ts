@@ -26,9 +26,10 @@ import { mayMakeMove, type CaseActor } from '../../policy/case-policy'
 import { findOffice } from '../offices/offices.repo'
 import { activeStaffOf, findUserById } from '../users/users.repo'
 import { recordFinding } from '../findings/findings.service'
+import { followUpFromApprovedFinding } from '../follow-ups/follow-ups.service'
 import { loadVisibleCase, staleVersion } from './case-access'
 import { appendEvent, lockCase, lockCasesInIdOrder, mergedReportsOf, repointMergedReports, updateCaseIfVersion, type NewCase } from './cases.repo'
-import { CLOCK_COLUMNS, dueAtFor } from './due'
+import { dueTimesFor } from './due'
 import { issueTrackingLink } from './tracking-tokens'
 
 interface MoveScope {
@@ -105,12 +106,15 @@ async function makeMove(
 
 const caseLink = (ctx: ServiceContext, id: string) => `${ctx.publicUrl}/cases/${id}`
 
-/** Sets (or confirms) the priority; the response target follows it. */
+/**
+ * Sets (or confirms) the priority; both targets follow it. The first triage is the case's first
+ * response (unless a message to the complainant came before it).
+ */
 export function triageCase(ctx: ServiceContext, actor: CaseActor, caseId: string, input: { version: number; priority: Priority; note?: string }) {
-  return makeMove(ctx, actor, caseId, 'triage', input.version, async ({ c, db }) => {
+  return makeMove(ctx, actor, caseId, 'triage', input.version, async ({ c, db, now }) => {
     const office = await findOffice(db, c.officeId)
     return {
-      changes: { priority: input.priority, dueAt: dueAtFor(c.receivedAt, input.priority, CLOCK_COLUMNS.resolution.targetsHours(office!)) },
+      changes: { priority: input.priority, ...dueTimesFor(c.receivedAt, input.priority, office!), firstRespondedAt: c.firstRespondedAt ?? now },
       body: input.note ?? null,
       data: { priority: input.priority, suggestedPriority: c.suggestedPriority },
     }
@@ -145,7 +149,7 @@ export function transferCase(ctx: ServiceContext, actor: CaseActor, caseId: stri
       throw badRequest('validation_failed', 'Some fields need attention.', [{ path: 'officeId', message: 'Choose another office.' }])
     }
     return {
-      changes: { officeId: o.id, investigatorId: null, dueAt: dueAtFor(c.receivedAt, c.priority, CLOCK_COLUMNS.resolution.targetsHours(o)) },
+      changes: { officeId: o.id, investigatorId: null, ...dueTimesFor(c.receivedAt, c.priority, o) },
       body: input.reason,
       data: { fromOfficeId: c.officeId, toOfficeId: o.id, toOfficeName: o.name },
     }
@@ -274,7 +278,17 @@ export function returnFinding(ctx: ServiceContext, actor: CaseActor, caseId: str
 
 /** Approves the finding and closes the case with a resolution and a summary for the complainant. */
 export function closeCase(ctx: ServiceContext, actor: CaseActor, caseId: string, input: { version: number; resolution: Resolution; reason: string }) {
-  return makeMove(ctx, actor, caseId, 'close', input.version, async (s) => closing(input.resolution, input.reason, s))
+  return makeMove(ctx, actor, caseId, 'close', input.version, async (s) => {
+    const plan = closing(input.resolution, input.reason, s)
+    return {
+      ...plan,
+      after: async (u) => {
+        await plan.after?.(u)
+        // the approved finding's compliance deadline becomes a follow-up (the move's policy allowed a supervisor only)
+        if (actor.role !== 'tracking_link') await followUpFromApprovedFinding(s.db, u, { id: actor.id, name: s.actorName }, s.now)
+      },
+    }
+  })
 }
 
 /** Returns a closed case to work (to its investigator, or to triage) and tells the complainant. */

@@ -5,9 +5,10 @@ import { forbidden, HttpError } from '../../http/errors'
 import { queueMail } from '../../jobs/boss'
 import { informationRequestedMail, messageToComplainantMail } from '../../mail/case-templates'
 import { mayAddComplainantInformation, mayAddInternalNote, mayMessageComplainant, type CaseActor } from '../../policy/case-policy'
-import { findUserById } from '../users/users.repo'
+import { activeStaffOf, findUserById } from '../users/users.repo'
+import { complainantAddedInformationMail } from '../../mail/notification-templates'
 import { loadVisibleCase } from './case-access'
-import { appendEvent, countEventsSince, lockCase } from './cases.repo'
+import { appendEvent, countEventsSince, lockCase, recordFirstResponse } from './cases.repo'
 import { issueTrackingLink } from './tracking-tokens'
 
 /** An internal note (staff only) or a message to the complainant (shown and e-mailed). */
@@ -23,8 +24,11 @@ export async function addCaseNote(
     if (!allowed || actor.role === 'tracking_link') throw forbidden(input.visibility === 'internal' ? 'Only staff of this office can add notes.' : 'Only the supervisor or the assigned investigator can write to the complainant while the case is open.')
     const name = (await findUserById(db, actor.id))?.name ?? 'Unknown user'
     const kind = input.visibility === 'internal' ? 'note' : input.requestsInformation ? 'information_requested' : 'message'
-    await appendEvent(db, { caseId: c.id, at: ctx.now(), actorUserId: actor.id, actorLabel: name, kind, body: input.body, visibility: input.visibility })
+    const at = ctx.now()
+    await appendEvent(db, { caseId: c.id, at, actorUserId: actor.id, actorLabel: name, kind, body: input.body, visibility: input.visibility })
     if (input.visibility === 'complainant') {
+      // a first message to the complainant is the case's first response (case-clocks.ts)
+      await recordFirstResponse(db, c.id, at)
       const link = await issueTrackingLink(db, ctx.publicUrl, c.id)
       const mail = input.requestsInformation ? informationRequestedMail(c, input.body, link) : messageToComplainantMail(c, input.body, link)
       await queueMail(ctx.boss, client, mail, ctx.mailQueue)
@@ -41,7 +45,7 @@ export const ADDITIONS_PER_HOUR_PER_CASE = 10
  * case's row lock, so the limit holds across app processes and parallel requests.
  */
 export async function addComplainantInformation(ctx: ServiceContext, actor: CaseActor, caseId: string, body: string): Promise<void> {
-  await withTransaction(ctx.pool, async ({ db }) => {
+  await withTransaction(ctx.pool, async ({ db, client }) => {
     const c = await loadVisibleCase(db, actor, caseId)
     if (!mayAddComplainantInformation(actor, c)) throw forbidden()
     await lockCase(db, c.id)
@@ -62,5 +66,11 @@ export async function addComplainantInformation(ctx: ServiceContext, actor: Case
       body,
       visibility: 'complainant',
     })
+    // the loop closes: the assigned investigator hears of it, or the office's supervisors when none is assigned
+    const investigator = c.investigatorId ? await findUserById(db, c.investigatorId) : undefined
+    const recipients = investigator?.active ? [investigator] : await activeStaffOf(db, c.officeId, 'supervisor')
+    for (const to of recipients) {
+      await queueMail(ctx.boss, client, complainantAddedInformationMail(to, c, `${ctx.publicUrl}/cases/${c.id}`, { unassigned: !investigator?.active }), ctx.mailQueue)
+    }
   })
 }

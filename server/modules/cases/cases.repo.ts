@@ -85,6 +85,14 @@ export async function updateCaseIfVersion(db: Db, id: string, version: number, c
   return row
 }
 
+/**
+ * Records the case's first response (a first message to the complainant) unless it has one:
+ * the first-response clock stops. Not a change of state, so the version stays.
+ */
+export async function recordFirstResponse(db: Db, id: string, at: Date): Promise<void> {
+  await db.update(cases).set({ firstRespondedAt: at }).where(and(eq(cases.id, id), isNull(cases.firstRespondedAt)))
+}
+
 /** The reports merged into a case (closed as its duplicates), oldest first. */
 export async function mergedReportsOf(db: Db, caseId: string): Promise<{ id: string; reference: string }[]> {
   return db.select({ id: cases.id, reference: cases.reference }).from(cases).where(eq(cases.mergedIntoCaseId, caseId)).orderBy(asc(cases.receivedAt), asc(cases.id))

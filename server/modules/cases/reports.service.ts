@@ -15,7 +15,7 @@ import { reportReceivedMail, safetyReportMail } from '../../mail/case-templates'
 import { allOffices as officesAll } from '../offices/offices.repo'
 import { activeStaffOf } from '../users/users.repo'
 import { appendEvent, confirmedComplainantOf, insertCase, nextCaseReference } from './cases.repo'
-import { CLOCK_COLUMNS, dueAtFor } from './due'
+import { dueTimesFor } from './due'
 import { issueTrackingLink } from './tracking-tokens'
 
 /**
@@ -55,7 +55,6 @@ export async function submitReport(ctx: ServiceContext, report: Report, signedIn
             message: `The place you gave is ${farKm} km from our nearest field office (${office.name}), outside the area we cover. We have filed your report there all the same. If the latitude or longitude is wrong, add the right place on your tracking page.`,
           },
         ]
-  const targets = CLOCK_COLUMNS.resolution.targetsHours(office)
 
   return withTransaction(ctx.pool, async ({ db, client }) => {
     const now = ctx.now()
@@ -84,7 +83,7 @@ export async function submitReport(ctx: ServiceContext, report: Report, signedIn
         complainantOrganisation: report.organisation ?? null,
         complainantUserId: signedIn?.role === 'complainant' ? signedIn.id : await confirmedComplainantOf(db, report.email),
         receivedAt: now,
-        dueAt: dueAtFor(now, priority, targets),
+        ...dueTimesFor(now, priority, office),
       })
     await appendEvent(db, { caseId: c.id, at: now, actorUserId: signedIn?.id ?? null, actorLabel: 'Complainant', kind: 'received', toState: 'received', visibility: 'complainant', data: { officeName: office.name } })
     await appendEvent(db, {

@@ -5,9 +5,40 @@
  * intake.
  */
 import { CUSTODY_ACTION_LABELS, EVIDENCE_KIND_LABELS } from '../../../shared/domain/evidence'
-import type { BundleCheck, BundleManifest } from '../../../shared/schemas/evidence-bundle'
+import type { BundleCheck, BundleManifest, ManifestFile } from '../../../shared/schemas/evidence-bundle'
+import type { EvidenceCustodyRow } from '../../db/schema'
+import type { BundledFileRow } from './evidence-bundle.repo'
 
 export type { BundleCheck, BundleManifest, ManifestFile } from '../../../shared/schemas/evidence-bundle'
+
+/** What the manifest says of a file before it is bundled: everything but its place in the ZIP and the check. */
+export type ManifestEntry = Omit<ManifestFile, 'path' | 'check'>
+
+/**
+ * The manifest's entry for each kept evidence file (in the given order), with its custody log:
+ * the evidence bundle adds each file's place and check, the case file prints them as they are.
+ */
+export function manifestEntries(files: readonly BundledFileRow[], custody: readonly EvidenceCustodyRow[]): ManifestEntry[] {
+  return files.map((f) => ({
+    evidenceId: f.evidenceId,
+    name: f.displayName,
+    kind: f.kind,
+    sizeBytes: f.sizeBytes,
+    contentType: f.contentType,
+    sha256: f.sha256,
+    uploadedBy: { name: f.uploaderName ?? 'Complainant', role: f.uploaderRole },
+    uploadedAt: f.uploadedAt.toISOString(),
+    custody: custody
+      .filter((e) => e.evidenceId === f.evidenceId)
+      .map((e) => ({ at: e.at.toISOString(), actor: e.actorLabel, action: e.action, from: e.clientAddress, detail: e.detail })),
+  }))
+}
+
+/** A bundled file's manifest entry: the entry with its place in the ZIP and the check, in the manifest's key order. */
+export function bundledFile(entry: ManifestEntry, path: string | null, check: ManifestFile['check']): ManifestFile {
+  const { custody, ...rest } = entry
+  return { path, ...rest, check, custody }
+}
 
 const CHECK_WORDS: Record<BundleCheck, string> = {
   match: 'matches the hash taken at intake',

@@ -15,7 +15,7 @@ import type { Actor } from '../../policy/policy'
 import { readStoredObject, storageUnavailable } from '../../storage/stored-files'
 import { loadVisibleCase } from '../cases/case-access'
 import { findUserById } from '../users/users.repo'
-import { manifestText, type BundleCheck, type BundleManifest, type ManifestFile } from './bundle-manifest'
+import { bundledFile, manifestEntries, manifestText, type BundleCheck, type BundleManifest, type ManifestFile } from './bundle-manifest'
 import { appendCustody } from '../evidence/evidence.repo'
 import { custodyOfEvidence, keptEvidenceOfCase, type BundledFileRow } from './evidence-bundle.repo'
 
@@ -91,6 +91,7 @@ async function writeBundle(
   archive.on('warning', (e) => log().warn(`evidence bundle of ${o.c.reference}: ${e.message}`))
   archive.pipe(o.out)
 
+  const entries = manifestEntries(o.files, o.custody)
   const manifestFiles: ManifestFile[] = []
   const bundled: { evidenceId: string; outcome: BundleCheck }[] = []
   try {
@@ -120,21 +121,7 @@ async function writeBundle(
         check = { outcome: computed === f.sha256 && tap.bytes === f.sizeBytes ? 'match' : 'mismatch', computedSha256: computed, bytesRead: tap.bytes }
         bundled.push({ evidenceId: f.evidenceId, outcome: check.outcome })
       }
-      manifestFiles.push({
-        path: body ? path : null,
-        evidenceId: f.evidenceId,
-        name: f.displayName,
-        kind: f.kind,
-        sizeBytes: f.sizeBytes,
-        contentType: f.contentType,
-        sha256: f.sha256,
-        uploadedBy: { name: f.uploaderName ?? 'Complainant', role: f.uploaderRole },
-        uploadedAt: f.uploadedAt.toISOString(),
-        check,
-        custody: o.custody
-          .filter((e) => e.evidenceId === f.evidenceId)
-          .map((e) => ({ at: e.at.toISOString(), actor: e.actorLabel, action: e.action, from: e.clientAddress, detail: e.detail })),
-      })
+      manifestFiles.push(bundledFile(entries[i]!, body ? path : null, check))
     }
     if (gone) return
     const manifest: BundleManifest = {

@@ -1,9 +1,19 @@
 /** Evidence files and custody entries as the API answers them (shared/schemas/evidence.ts). */
+import { THUMBNAIL_SOURCE_TYPES } from '../../../shared/domain/evidence'
 import type { CustodyEntryView, EvidenceAbilities, EvidenceView } from '../../../shared/schemas/evidence'
-import type { EvidenceCustodyRow } from '../../db/schema'
+import type { EvidenceCustodyRow, EvidenceThumbnailRow } from '../../db/schema'
 import type { EvidenceRecord } from './evidence.repo'
 
-export function presentEvidence(e: EvidenceRecord, abilities: EvidenceAbilities): EvidenceView {
+function presentThumbnail(e: EvidenceRecord, t: EvidenceThumbnailRow | undefined): EvidenceView['thumbnail'] {
+  if (!THUMBNAIL_SOURCE_TYPES.includes(e.file.contentType)) return null
+  if (t?.state === 'done' && t.widthPx && t.heightPx) return { state: 'done', widthPx: t.widthPx, heightPx: t.heightPx }
+  if (t?.state === 'failed') return { state: 'failed', message: t.message ?? 'No thumbnail could be made.' }
+  // a removed file is not swept for a lost job: it is not shown as waiting for one
+  return e.removedAt ? null : { state: 'pending' }
+}
+
+/** `thumbnail`: the file's thumbnail row, if one was looked up (an image without one is shown as pending). */
+export function presentEvidence(e: EvidenceRecord, abilities: EvidenceAbilities, thumbnail?: EvidenceThumbnailRow): EvidenceView {
   return {
     id: e.id,
     caseId: e.caseId,
@@ -21,6 +31,7 @@ export function presentEvidence(e: EvidenceRecord, abilities: EvidenceAbilities)
     removed: e.removedAt ? { at: e.removedAt.toISOString(), by: e.removedByName ?? 'Unknown user', reason: e.removedReason ?? '' } : null,
     verification: e.verifiedAt && e.verificationOutcome ? { at: e.verifiedAt.toISOString(), by: e.verifiedByName ?? 'Unknown user', outcome: e.verificationOutcome } : null,
     processing: { state: e.processing.state, progress: Math.min(1, Math.max(0, e.processing.progress)), ...(e.processing.message !== undefined ? { message: e.processing.message } : {}) },
+    thumbnail: presentThumbnail(e, thumbnail),
     abilities,
   }
 }

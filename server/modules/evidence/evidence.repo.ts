@@ -1,5 +1,5 @@
 /** The queries of evidence files and their custody log. */
-import { and, asc, eq, inArray, isNull, sql } from 'drizzle-orm'
+import { and, asc, count, eq, gt, inArray, isNull, sql } from 'drizzle-orm'
 import { alias } from 'drizzle-orm/pg-core'
 import type { CustodyAction, EvidenceUploaderRole, VerificationOutcome } from '../../../shared/domain/evidence'
 import type { Db } from '../../db/client'
@@ -104,4 +104,13 @@ export async function knownObjectKeys(db: Db, keys: string[]): Promise<Set<strin
   if (keys.length === 0) return new Set()
   const rows = await db.select({ key: storedFiles.objectKey }).from(storedFiles).where(inArray(storedFiles.objectKey, keys))
   return new Set(rows.map((r) => r.key))
+}
+
+/** How many files the complainant added to the case since `since` (removed ones included: they were added). */
+export async function countComplainantUploadsSince(db: Db, caseId: string, since: Date): Promise<number> {
+  const [r] = await db
+    .select({ n: count() })
+    .from(evidenceFiles)
+    .where(and(eq(evidenceFiles.caseId, caseId), eq(evidenceFiles.uploaderRole, 'complainant'), gt(evidenceFiles.uploadedAt, since)))
+  return r!.n
 }

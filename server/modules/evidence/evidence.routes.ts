@@ -13,6 +13,7 @@ import { caseIdForToken } from '../cases/tracking-tokens'
 import { trackingGuessLimit } from '../cases/public.routes'
 import { downloadEvidence, evidenceCustodyLog, evidenceNotFound, listEvidence, removeEvidence, uploadEvidence, verifyEvidence } from './evidence.service'
 import { attachmentDisposition } from './file-names'
+import { openEvidenceThumbnail } from './thumbnails/thumbnail.service'
 
 const tokenParam = z.object({ token: z.string() })
 
@@ -80,6 +81,16 @@ export function evidenceRoutes(ctx: ServiceContext): Router {
   r.post('/evidence/:id/remove', staff, async (req, res) => {
     const evidence = await removeEvidence(ctx, actorOf(req), evidenceIdOf(req.params), req.body, from(req))
     res.json({ evidence })
+  })
+  // a photo's thumbnail: whoever may see the file (no custody entry: see thumbnail.service.ts)
+  r.get('/evidence/:id/thumbnail', requireRole('investigator', 'supervisor', 'complainant'), async (req, res) => {
+    const th = await openEvidenceThumbnail(ctx, actorOf(req), evidenceIdOf(req.params))
+    res.status(200)
+    res.setHeader('Content-Type', th.contentType)
+    res.setHeader('Content-Length', String(th.sizeBytes))
+    res.setHeader('X-Content-Type-Options', 'nosniff')
+    res.setHeader('Cache-Control', 'private, max-age=300')
+    await pipeline(th.body, res)
   })
   r.get('/evidence/:id/custody', staff, async (req, res) => {
     res.json({ custody: await evidenceCustodyLog(ctx, actorOf(req), evidenceIdOf(req.params)) })

@@ -6,7 +6,7 @@
  */
 import type { Readable } from 'node:stream'
 import type { Request, Response } from 'express'
-import { PROCESSED_EVIDENCE_KINDS, type EvidenceKind, type VerificationOutcome } from '../../../shared/domain/evidence'
+import { type EvidenceKind, type VerificationOutcome } from '../../../shared/domain/evidence'
 import { evidenceUploadFieldsSchema, removeEvidenceRequestSchema, type EvidenceView, type CustodyEntryView } from '../../../shared/schemas/evidence'
 import type { ServiceContext } from '../../context'
 import { withTransaction, type Db } from '../../db/client'
@@ -20,12 +20,13 @@ import type { ObjectStore } from '../../storage/object-store'
 import { hashStoredObject, INSPECTED_HEAD_BYTES, readStoredObject, receiveUpload, removeObject, requireStore, storedFileValues } from '../../storage/stored-files'
 import { findUserById } from '../users/users.repo'
 import { loadVisibleCase } from '../cases/case-access'
-import { appendEvent, findCase } from '../cases/cases.repo'
+import { appendEvent, findCase, lockCase } from '../cases/cases.repo'
 import { contentTypeOf } from './content-check'
-import { appendCustody, custodyOf, evidenceOfCase, findEvidence, insertEvidence, markEvidenceRemoved, recordVerification, type EvidenceRecord } from './evidence.repo'
+import { appendCustody, countComplainantUploadsSince, custodyOf, evidenceOfCase, findEvidence, insertEvidence, markEvidenceRemoved, recordVerification, type EvidenceRecord } from './evidence.repo'
 import { cleanFileName, submittedNameRecord } from './file-names'
 import { presentCustody, presentEvidence } from './evidence.present'
-import { queueEvidenceProcessing } from './processing-queue'
+import { startEvidenceProcessing } from './start-processing'
+import { findThumbnail, thumbnailsOf } from './thumbnails/thumbnails.repo'
 
 /** The largest file a staff member may upload when the configuration does not say (2 GiB). */
 export const DEFAULT_EVIDENCE_MAX_BYTES_STAFF = 2 * 1024 ** 3
@@ -46,6 +47,25 @@ async function actorLabel(db: Db, actor: CaseActor, c: CaseRow): Promise<{ userI
 function uploadLimit(store: ObjectStore, staff: boolean): number {
   const limits = store.evidenceMaxBytes
   return staff ? (limits?.staff ?? DEFAULT_EVIDENCE_MAX_BYTES_STAFF) : (limits?.complainant ?? DEFAULT_EVIDENCE_MAX_BYTES_COMPLAINANT)
+}
+
+/** Files a complainant may add to one case in an hour when the configuration does not say (abuse limit; common practice, no source). */
+export const DEFAULT_COMPLAINANT_FILES_PER_HOUR = 20
+
+/**
+ * A complainant adds no file to a closed case (409) nor more than the hourly limit to one case
+ * (429). Counted in PostgreSQL like the complainant's other additions: checked before the file
+ * is received (nothing is stored for a refusal), and again under the case's row lock in the
+ * upload's transaction, so parallel uploads and several app processes keep to it.
+ */
+async function checkComplainantMayAddFile(ctx: ServiceContext, db: Db, c: CaseRow, perHour: number): Promise<void> {
+  if (c.status === 'closed') {
+    throw conflict('case_closed', 'This report is closed, so no more files can be added to it. If the interference is back, file a new report; the office can reopen this one.')
+  }
+  const hourAgo = new Date(ctx.now().getTime() - 60 * 60 * 1000)
+  if ((await countComplainantUploadsSince(db, c.id, hourAgo)) >= perHour) {
+    throw new HttpError(429, 'too_many_files', `${perHour} files have been added to this report in the last hour, the most we take. Please wait an hour before adding more.`)
+  }
 }
 
 /** The `kind` field, which must come before the file (its content is judged by it). */
@@ -69,6 +89,8 @@ export async function uploadEvidence(ctx: ServiceContext, actor: CaseActor, case
   if (!mayUploadEvidence(actor, c)) throw forbidden('Only staff of this office and the report\'s complainant can add files to it.')
   if (!req.is('multipart/form-data')) throw badRequest('not_multipart', 'Send the file as a multipart form: the field "kind", then the field "file".')
   const staff = isCaseStaff(actor, c)
+  const perHour = ctx.objectStore?.evidenceComplainantFilesPerHour ?? DEFAULT_COMPLAINANT_FILES_PER_HOUR
+  if (!staff) await checkComplainantMayAddFile(ctx, ctx.db, c, perHour)
   const store = requireStore(ctx.objectStore)
   const limited: ObjectStore = { ...store, maxUploadBytes: uploadLimit(store, staff) }
   const received = await receiveUpload(limited, req, res, {
@@ -78,11 +100,16 @@ export async function uploadEvidence(ctx: ServiceContext, actor: CaseActor, case
   const who = await actorLabel(ctx.db, actor, c)
   let id: string
   let kind: EvidenceKind
+  let displayName: string
   try {
     const fields = parseWith(evidenceUploadFieldsSchema, received.fields)
     kind = fields.kind
-    const displayName = cleanFileName(received.originalName)
+    displayName = cleanFileName(received.originalName)
     id = await withTransaction(ctx.pool, async ({ db }) => {
+      if (!staff) {
+        const locked = await lockCase(db, c.id)
+        await checkComplainantMayAddFile(ctx, db, locked ?? c, perHour)
+      }
       const row = await insertEvidence(
         db,
         storedFileValues(received.put, { originalName: displayName, contentType: received.declaredType, purpose: 'evidence', uploadedBy: who.userId }),
@@ -113,13 +140,12 @@ export async function uploadEvidence(ctx: ServiceContext, actor: CaseActor, case
     await removeObject(store, received.put.objectKey)
     throw e
   }
-  if (PROCESSED_EVIDENCE_KINDS.includes(kind)) {
-    try {
-      await queueEvidenceProcessing(ctx, id)
-    } catch (e) {
-      // the file is stored and recorded; its processing can be queued again
-      log().error(`evidence ${id}: could not queue its processing: ${(e as Error)?.message ?? String(e)}`)
-    }
+  try {
+    // after the commit: a crash in between leaves the file for the sweep to queue (processing-sweep.ts)
+    await startEvidenceProcessing(ctx, { id, caseId: c.id, kind, displayName, contentType: received.put.sniffedType ?? received.declaredType })
+  } catch (e) {
+    // the file is stored and recorded; its processing can be queued again
+    log().error(`evidence ${id}: could not queue its processing: ${(e as Error)?.message ?? String(e)}`)
   }
   const record = (await findEvidence(ctx.db, id))!
   return presentEvidence(record, evidenceAbilities(actor, c, record))
@@ -130,11 +156,13 @@ export async function listEvidence(ctx: ServiceContext, actor: CaseActor, caseId
   const c = await loadVisibleCase(ctx.db, actor, caseId)
   if (!mayUploadEvidence(actor, c)) throw forbidden('Only staff of this office and the report\'s complainant can see its files.')
   const records = isCaseStaff(actor, c) ? await evidenceOfCase(ctx.db, c.id) : await evidenceOfCase(ctx.db, c.id, { uploaderRole: 'complainant', removed: false })
-  return records.filter((e) => maySeeEvidence(actor, c, e)).map((e) => presentEvidence(e, evidenceAbilities(actor, c, e)))
+  const seen = records.filter((e) => maySeeEvidence(actor, c, e))
+  const thumbnails = await thumbnailsOf(ctx.db, seen.map((e) => e.id))
+  return seen.map((e) => presentEvidence(e, evidenceAbilities(actor, c, e), thumbnails.get(e.id)))
 }
 
 /** Loads a file and its case for the actor; 404 when either is outside what they may see. */
-async function loadVisibleEvidence(db: Db, actor: CaseActor, evidenceId: string): Promise<{ e: EvidenceRecord; c: CaseRow }> {
+export async function loadVisibleEvidence(db: Db, actor: CaseActor, evidenceId: string): Promise<{ e: EvidenceRecord; c: CaseRow }> {
   const e = await findEvidence(db, evidenceId)
   if (!e) throw evidenceNotFound()
   const c = await findCase(db, e.caseId)
@@ -206,7 +234,7 @@ export async function verifyEvidence(ctx: ServiceContext, actor: CaseActor, evid
     }
   })
   const record = (await findEvidence(ctx.db, e.id))!
-  return { outcome, expectedSha256: e.file.sha256, actualSha256: actual, evidence: presentEvidence(record, evidenceAbilities(actor, c, record)) }
+  return { outcome, expectedSha256: e.file.sha256, actualSha256: actual, evidence: presentEvidence(record, evidenceAbilities(actor, c, record), await findThumbnail(ctx.db, e.id)) }
 }
 
 /** Removes a file from the case (the office's supervisor, with a reason): the row is marked, the object kept. */
@@ -232,7 +260,7 @@ export async function removeEvidence(ctx: ServiceContext, actor: CaseActor, evid
     })
   })
   const record = (await findEvidence(ctx.db, e.id))!
-  return presentEvidence(record, evidenceAbilities(actor, c, record))
+  return presentEvidence(record, evidenceAbilities(actor, c, record), await findThumbnail(ctx.db, e.id))
 }
 
 /** A file's chain of custody, oldest first (staff of the office). */

@@ -4,13 +4,16 @@
  * stopped in between) is removed once it is older than an hour, so an upload still writing
  * its row is never touched. Each removal is logged. Runs on an interval in every serving
  * process (a removal is idempotent); incomplete multipart uploads are the bucket's lifecycle
- * rule's to clear, not this sweep's.
+ * rule's to clear, not this sweep's. Each run then queues again the processing a crash left
+ * undone (processing-sweep.ts).
  */
+import type PgBoss from 'pg-boss'
 import type { Db } from '../../db/client'
 import { log } from '../../log/logger'
 import type { ObjectStore } from '../../storage/object-store'
 import { listStoredObjects, removeObject } from '../../storage/stored-files'
 import { knownObjectKeys } from './evidence.repo'
+import { requeueStrandedProcessing } from './processing-sweep'
 
 /** Objects younger than this are left alone (an upload may still be writing its row). */
 export const ORPHAN_MIN_AGE_MS = 60 * 60 * 1000
@@ -37,8 +40,11 @@ export async function sweepEvidenceOrphans(deps: { db: Db; store: ObjectStore | 
   return removed
 }
 
-/** Starts the sweep on an interval (first run after one interval); `stop` ends it. */
-export function startEvidenceOrphanSweep(deps: { db: Db; store: ObjectStore | undefined }, intervalMs = ORPHAN_SWEEP_INTERVAL_MS): { stop(): void } {
+/**
+ * Starts the sweep on an interval (first run after one interval); `stop` ends it. With the job
+ * queue given, each run also queues again the processing a crash left undone (processing-sweep.ts).
+ */
+export function startEvidenceOrphanSweep(deps: { db: Db; store: ObjectStore | undefined; boss?: PgBoss }, intervalMs = ORPHAN_SWEEP_INTERVAL_MS): { stop(): void } {
   if (!deps.store) return { stop() {} }
   let running = false
   const timer = setInterval(() => {
@@ -46,6 +52,8 @@ export function startEvidenceOrphanSweep(deps: { db: Db; store: ObjectStore | un
     running = true
     sweepEvidenceOrphans(deps)
       .catch((e: unknown) => log().warn(`evidence orphan sweep failed (will try again): ${(e as Error)?.message ?? String(e)}`))
+      .then(() => (deps.boss ? requeueStrandedProcessing({ db: deps.db, boss: deps.boss }) : undefined))
+      .catch((e: unknown) => log().warn(`evidence processing sweep failed (will try again): ${(e as Error)?.message ?? String(e)}`))
       .finally(() => {
         running = false
       })

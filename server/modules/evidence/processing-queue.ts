@@ -12,6 +12,7 @@ import { log } from '../../log/logger'
 import type { ObjectStore } from '../../storage/object-store'
 import { runEvidenceProcessing } from './processing/process-evidence'
 import { markAnalysisQueued } from './processing/analyses.repo'
+import { runEvidenceThumbnail } from './thumbnails/make-thumbnail'
 
 export const EVIDENCE_PROCESSING_QUEUE = 'evidence-processing'
 
@@ -20,6 +21,8 @@ export const EVIDENCE_PROCESSING_EXPIRE_SECONDS = 15 * 60
 
 interface EvidenceJob {
   evidenceId: string
+  /** Absent: the spectrum analysis; 'thumbnail': an image's thumbnail (thumbnails/make-thumbnail.ts). */
+  task?: 'thumbnail'
 }
 
 /** Creates the queue (idempotent: pg-boss ignores an existing one). */
@@ -28,7 +31,7 @@ export async function createEvidenceProcessingQueue(boss: PgBoss, queueName = EV
 }
 
 /** Marks the file's analysis queued and sends the job. */
-export async function queueEvidenceProcessing(ctx: ServiceContext, evidenceId: string): Promise<void> {
+export async function queueEvidenceProcessing(ctx: Pick<ServiceContext, 'db' | 'boss'>, evidenceId: string): Promise<void> {
   await createEvidenceProcessingQueue(ctx.boss)
   await markAnalysisQueued(ctx.db, evidenceId)
   await ctx.boss.send(EVIDENCE_PROCESSING_QUEUE, { evidenceId } satisfies EvidenceJob, {
@@ -36,6 +39,12 @@ export async function queueEvidenceProcessing(ctx: ServiceContext, evidenceId: s
     retryLimit: 0,
     expireInSeconds: EVIDENCE_PROCESSING_EXPIRE_SECONDS,
   })
+}
+
+/** Sends the job that makes an image's thumbnail (same queue and worker as the analyses). */
+export async function queueEvidenceThumbnail(ctx: Pick<ServiceContext, 'boss'>, evidenceId: string): Promise<void> {
+  await createEvidenceProcessingQueue(ctx.boss)
+  await ctx.boss.send(EVIDENCE_PROCESSING_QUEUE, { evidenceId, task: 'thumbnail' } satisfies EvidenceJob, { retryLimit: 0, expireInSeconds: EVIDENCE_PROCESSING_EXPIRE_SECONDS })
 }
 
 export interface EvidenceProcessingWorker {
@@ -55,7 +64,8 @@ export async function startEvidenceProcessingWorker(
   await deps.boss.work<EvidenceJob>(queue, { batchSize: 1, pollingIntervalSeconds: opts.pollingIntervalSeconds ?? 2 }, async ([job]) => {
     if (!job) return
     try {
-      await runEvidenceProcessing({ db: deps.db, objectStore: deps.objectStore }, job.data.evidenceId)
+      if (job.data.task === 'thumbnail') await runEvidenceThumbnail({ db: deps.db, objectStore: deps.objectStore }, job.data.evidenceId)
+      else await runEvidenceProcessing({ db: deps.db, objectStore: deps.objectStore }, job.data.evidenceId)
     } catch (err) {
       // the outcome could not even be recorded (database away): pg-boss marks the job failed
       log().error({ err, jobId: job.id }, 'evidence processing worker error')

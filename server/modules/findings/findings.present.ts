@@ -1,10 +1,15 @@
 /** Findings as the API answers them (shared/schemas/findings.ts). */
 import { RECOMMENDED_ACTION_LABELS } from '../../../shared/domain/findings'
-import type { FindingReview, FindingView } from '../../../shared/schemas/findings'
+import type { FindingEvidence, FindingReview, FindingView } from '../../../shared/schemas/findings'
 import type { CalculationView } from '../../../shared/schemas/views'
 import type { FindingWithAuthor } from './findings.repo'
 
-export function presentFinding(r: FindingWithAuthor, calculations: ReadonlyMap<string, CalculationView>, review: FindingReview | null): FindingView {
+export function presentFinding(
+  r: FindingWithAuthor,
+  calculations: ReadonlyMap<string, CalculationView>,
+  evidence: ReadonlyMap<string, FindingEvidence>,
+  review: FindingReview | null,
+): FindingView {
   return {
     id: r.id,
     caseId: r.caseId,
@@ -21,6 +26,8 @@ export function presentFinding(r: FindingWithAuthor, calculations: ReadonlyMap<s
     // in the order the investigator linked them; a record is never removed, so every id resolves
     calculations: r.calculationIds.flatMap((id) => calculations.get(id) ?? []),
     evidenceIds: r.evidenceIds,
+    // the case's files, removed ones included (an evidence row is never deleted), in the order linked
+    evidence: r.evidenceIds.flatMap((id) => evidence.get(id) ?? []),
     review,
   }
 }

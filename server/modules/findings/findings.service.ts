@@ -15,22 +15,31 @@ import { loadVisibleCase } from '../cases/case-access'
 import { timelineOf, type CaseEventRow } from '../cases/cases.repo'
 import { calculationsOfCase } from '../calculations/calculations.repo'
 import { presentCalculation } from '../calculations/calculations.present'
+import { evidenceOfCase } from '../evidence/evidence.repo'
 import { calculationIdsOfCase, findingsOfCase, insertFinding } from './findings.repo'
 import { presentFinding } from './findings.present'
 
 /**
  * Writes the finding row of a proposal. Called inside the move's transaction, after the move
- * has been allowed: a calculation that is not a record of the same case is a 400 naming every
- * such id, and the whole move (state, timeline, e-mails) is then rolled back.
+ * has been allowed: a calculation that is not a record of the same case, or an evidence file
+ * that is not a file of the same case or was removed from it, is a 400 naming every such id,
+ * and the whole move (state, timeline, e-mails) is then rolled back.
  */
 export async function recordFinding(db: Db, c: CaseRow, authorUserId: string, input: ProposeFinding): Promise<FindingRow> {
   const own = new Set(await calculationIdsOfCase(db, c.id, input.calculationIds))
   const bad = input.calculationIds.filter((id) => !own.has(id))
-  if (bad.length > 0) {
-    throw badRequest('validation_failed', 'Some fields need attention.', [
-      { path: 'calculationIds', message: `Not calculations of this case: ${bad.join(', ')}. Link only records stored on this case.` },
-    ])
+  const problems: { path: string; message: string }[] = []
+  if (bad.length > 0) problems.push({ path: 'calculationIds', message: `Not calculations of this case: ${bad.join(', ')}. Link only records stored on this case.` })
+  if (input.evidenceIds.length > 0) {
+    const files = new Map((await evidenceOfCase(db, c.id)).map((e) => [e.id, e]))
+    const foreign = input.evidenceIds.filter((id) => !files.has(id))
+    const removed = input.evidenceIds.filter((id) => files.get(id)?.removedAt)
+    const words: string[] = []
+    if (foreign.length > 0) words.push(`Not evidence files of this case: ${foreign.join(', ')}.`)
+    if (removed.length > 0) words.push(`Removed from the case, so not linkable: ${removed.map((id) => `${id} (${files.get(id)!.displayName})`).join(', ')}.`)
+    if (words.length > 0) problems.push({ path: 'evidenceIds', message: `${words.join(' ')} Link only files on this case.` })
   }
+  if (problems.length > 0) throw badRequest('validation_failed', 'Some fields need attention.', problems)
   return insertFinding(db, {
     caseId: c.id,
     authorUserId,
@@ -72,9 +81,10 @@ export async function listFindings(ctx: ServiceContext, actor: CaseActor, caseId
   if (!mayReadFindings(actor, c)) throw forbidden('Only staff of the case\u2019s office can read its findings.')
   const rows = await findingsOfCase(ctx.db, c.id)
   if (rows.length === 0) return { current: null, earlier: [] }
-  const [calcs, timeline] = await Promise.all([calculationsOfCase(ctx.db, c.id), timelineOf(ctx.db, c.id)])
+  const [calcs, timeline, files] = await Promise.all([calculationsOfCase(ctx.db, c.id), timelineOf(ctx.db, c.id), evidenceOfCase(ctx.db, c.id)])
   const byId = new Map(calcs.map((r) => [r.id, presentCalculation(r)]))
+  const evidence = new Map(files.map((e) => [e.id, { id: e.id, name: e.displayName, sha256: e.file.sha256, removed: e.removedAt !== null }]))
   const reviews = reviewsByFinding(timeline)
-  const views = rows.map((r) => presentFinding(r, byId, reviews.get(r.id) ?? null))
+  const views = rows.map((r) => presentFinding(r, byId, evidence, reviews.get(r.id) ?? null))
   return { current: views[0]!, earlier: views.slice(1) }
 }

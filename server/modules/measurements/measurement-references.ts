@@ -39,10 +39,16 @@ export function toMeasurementReference(m: MeasurementRow): MeasurementReference 
  * not measurements of this case are left out: the caller reports them as unknown).
  */
 export async function measurementReferencesForCase(db: Db, caseId: string, ids: readonly string[]): Promise<MeasurementReference[]> {
+  return (await measurementReferencesWithEvidence(db, caseId, ids)).references
+}
+
+/** The same reference copies, and the evidence files those measurements were taken from (each once, in the same order). */
+export async function measurementReferencesWithEvidence(db: Db, caseId: string, ids: readonly string[]): Promise<{ references: MeasurementReference[]; evidenceIds: string[] }> {
   const rows = await measurementRowsOfCase(db, caseId, ids)
   const byId = new Map(rows.map((r) => [r.id, r]))
-  return ids.flatMap((id) => {
-    const r = byId.get(id)
-    return r ? [toMeasurementReference(r)] : []
-  })
+  const found = ids.flatMap((id) => byId.get(id) ?? [])
+  return {
+    references: found.map(toMeasurementReference),
+    evidenceIds: [...new Set(found.flatMap((r) => (r.evidenceFileId ? [r.evidenceFileId] : [])))],
+  }
 }

@@ -6,7 +6,7 @@
  * afterwards a correction is a new measurement that supersedes it, and the old one stays.
  */
 import { deriveMeasurement, type DeriveAntenna, type DeriveEquipment } from '../../../shared/measurements/derive'
-import { RADIO_LIBRARY_VERSION } from '../../../shared/radio'
+import { RADIO_LIBRARY_VERSION, type MethodRef } from '../../../shared/radio'
 import type { MeasurementContent, MeasurementView } from '../../../shared/schemas/measurements'
 import type { ServiceContext } from '../../context'
 import { withTransaction, type Db } from '../../db/client'
@@ -17,6 +17,7 @@ import type { Actor } from '../../policy/policy'
 import { loadVisibleCase } from '../cases/case-access'
 import { appendEvent } from '../cases/cases.repo'
 import { equipmentOfOfficeByIds } from '../equipment/equipment.repo'
+import { findEvidence } from '../evidence/evidence.repo'
 import { findUserById } from '../users/users.repo'
 import {
   calculationsUsingMeasurement,
@@ -47,14 +48,44 @@ function abilitiesFor(actor: Actor, c: CaseRow, m: Pick<MeasurementWithAuthor, '
   return { edit: writable && m.usedByCalculations === 0, correct: writable }
 }
 
+/**
+ * How the server itself obtained the reading (a band's channel power computed from an evidence
+ * file's trace): the method is kept beside the derived levels' methods, under `reading`, and
+ * the warnings of that computation go first in the measurement's warnings.
+ */
+export interface ComputedReading {
+  method: MethodRef
+  warnings: string[]
+}
+
+/**
+ * Whether the named evidence file may be linked: a file of the same case that was not removed.
+ * A link the measurement already had stays allowed on an edit or a correction, even when the
+ * file has since been removed (the record keeps what it was made from).
+ */
+async function evidenceProblem(db: Db, c: CaseRow, evidenceFileId: string | undefined, alreadyLinked: string | null): Promise<string | null> {
+  if (evidenceFileId === undefined || evidenceFileId === alreadyLinked) return null
+  const e = await findEvidence(db, evidenceFileId)
+  if (!e || e.caseId !== c.id) return `There is no evidence file ${evidenceFileId} on this case.`
+  if (e.removedAt) return `The evidence file ${e.displayName} was removed from the case and cannot be linked.`
+  return null
+}
+
 /** The register items the measurement names, and the derived levels; a 400 lists every problem. */
-async function derivedRow(db: Db, c: CaseRow, m: MeasurementContent): Promise<Omit<NewMeasurementRow, 'caseId' | 'officeId' | 'authorUserId' | 'supersedesId'>> {
+async function derivedRow(
+  db: Db,
+  c: CaseRow,
+  m: MeasurementContent,
+  opts: { linkedEvidenceId?: string | null; computed?: ComputedReading } = {},
+): Promise<Omit<NewMeasurementRow, 'caseId' | 'officeId' | 'authorUserId' | 'supersedesId'>> {
   const antennaId = m.antenna.source === 'register' ? m.antenna.equipmentId : undefined
   const wanted = [antennaId, m.instrumentId].filter((x): x is string => x !== undefined)
   const items = new Map((await equipmentOfOfficeByIds(db, c.officeId, wanted)).map((e) => [e.id, e as DeriveEquipment]))
   const problems: { path: string; message: string }[] = []
   if (antennaId && !items.has(antennaId)) problems.push({ path: 'measurement.antenna.equipmentId', message: 'No such antenna in the office’s register.' })
   if (m.instrumentId && !items.has(m.instrumentId)) problems.push({ path: 'measurement.instrumentId', message: 'No such instrument in the office’s register.' })
+  const evidence = await evidenceProblem(db, c, m.evidenceFileId, opts.linkedEvidenceId ?? null)
+  if (evidence) problems.push({ path: 'measurement.evidenceFileId', message: evidence })
   if (problems.length > 0) throw badRequest('validation_failed', 'Some fields need attention.', problems)
 
   const antenna: DeriveAntenna = m.antenna.source === 'register' ? { source: 'register', item: items.get(m.antenna.equipmentId)! } : m.antenna
@@ -93,8 +124,8 @@ async function derivedRow(db: Db, c: CaseRow, m: MeasurementContent): Promise<Om
     notes: m.notes,
     evidenceFileId: m.evidenceFileId ?? null,
     derived: d.derived,
-    methods: d.methods,
-    warnings: d.warnings,
+    methods: opts.computed ? { reading: opts.computed.method, ...d.methods } : d.methods,
+    warnings: opts.computed ? [...opts.computed.warnings, ...d.warnings] : d.warnings,
     equipmentCopies: d.equipmentCopies,
     libraryVersion: RADIO_LIBRARY_VERSION,
   }
@@ -137,17 +168,21 @@ export async function listMeasurements(ctx: ServiceContext, actor: Actor, caseId
   }
 }
 
-/** Records a measurement on the case; the author is the session's user, the times the database's. */
-export async function recordMeasurement(ctx: ServiceContext, actor: Actor, caseId: string, content: MeasurementContent): Promise<MeasurementView> {
+/**
+ * Records a measurement on the case; the author is the session's user, the times the database's.
+ * `computed` is given when the server computed the reading itself (see ComputedReading).
+ */
+export async function recordMeasurement(ctx: ServiceContext, actor: Actor, caseId: string, content: MeasurementContent, computed?: ComputedReading): Promise<MeasurementView> {
   return withTransaction(ctx.pool, async ({ db }) => {
     const c = await writableCase(db, actor, caseId)
-    const row = await insertMeasurement(db, { ...(await derivedRow(db, c, content)), caseId: c.id, officeId: c.officeId, authorUserId: actor.id, supersedesId: null })
+    const values = await derivedRow(db, c, content, computed ? { computed } : {})
+    const row = await insertMeasurement(db, { ...values, caseId: c.id, officeId: c.officeId, authorUserId: actor.id, supersedesId: null })
     await appendEvent(db, {
       caseId: c.id,
       actorUserId: actor.id,
       actorLabel: await authorName(db, actor),
       kind: 'measurement_recorded',
-      body: 'Recorded a measurement.',
+      body: computed ? 'Recorded a measurement computed from an evidence file.' : 'Recorded a measurement.',
       visibility: 'internal',
       data: { measurementId: row.id },
     })
@@ -163,7 +198,7 @@ export async function editMeasurement(ctx: ServiceContext, actor: Actor, measure
     if (m.supersededById) throw superseded()
     if (m.usedByCalculations > 0) throw inUse()
     if (m.version !== patch.version) throw staleMeasurement()
-    const values = await derivedRow(db, c, patch.measurement)
+    const values = await derivedRow(db, c, patch.measurement, { linkedEvidenceId: m.evidenceFileId })
     const row = await updateMeasurementIfVersion(db, m.id, patch.version, values)
     if (!row) throw (await calculationsUsingMeasurement(db, m.id)) > 0 ? inUse() : staleMeasurement()
     return presentOne(db, actor, c, row.id)
@@ -176,7 +211,7 @@ export async function correctMeasurement(ctx: ServiceContext, actor: Actor, meas
     const { m } = await visibleMeasurement(db, actor, measurementId)
     const c = await writableCase(db, actor, m.caseId)
     if (m.supersededById) throw superseded()
-    const values = await derivedRow(db, c, content)
+    const values = await derivedRow(db, c, content, { linkedEvidenceId: m.evidenceFileId })
     let row
     try {
       row = await insertMeasurement(db, { ...values, caseId: c.id, officeId: c.officeId, authorUserId: actor.id, supersedesId: m.id })

@@ -37,6 +37,29 @@ export async function setOfficeTargets(db: Db, officeId: string, t: TargetsHours
   return o
 }
 
+/**
+ * Sets an office's first-response targets and moves the first-response due times of its cases
+ * whose first-response clock still runs.
+ */
+export async function setOfficeFirstResponseTargets(db: Db, officeId: string, t: TargetsHours): Promise<Office | undefined> {
+  const [o] = await db
+    .update(offices)
+    .set({ firstResponseP1Hours: t[1], firstResponseP2Hours: t[2], firstResponseP3Hours: t[3], firstResponseP4Hours: t[4] })
+    .where(eq(offices.id, officeId))
+    .returning()
+  await db
+    .update(cases)
+    .set({ firstResponseDueAt: dueAtSql(t) })
+    .where(and(eq(cases.officeId, officeId), clockRunsSql('firstResponse')))
+  return o
+}
+
+/** Sets an office's time zone (a canonical IANA name, checked by the service's schema). */
+export async function setOfficeTimeZone(db: Db, officeId: string, timeZone: string): Promise<Office | undefined> {
+  const [o] = await db.update(offices).set({ timeZone }).where(eq(offices.id, officeId)).returning()
+  return o
+}
+
 /** Every office (report routing). */
 export function allOffices(db: Db): Promise<Office[]> {
   return db.select().from(offices)

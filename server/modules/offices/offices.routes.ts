@@ -4,7 +4,8 @@ import { actorOf, requireRole } from '../../http/authenticate'
 import { parseWith } from '../../http/validate'
 import { idParamSchema } from '../../../shared/schemas/ids'
 import { responseTargetsSchema } from '../../../shared/schemas/auth'
-import { getOffice, listOffices, setResponseTargets } from './offices.service'
+import { officeTimeZoneSchema } from '../../../shared/schemas/offices'
+import { getOffice, listOffices, setFirstResponseTargets, setResponseTargets, setTimeZone } from './offices.service'
 
 const idParam = idParamSchema
 
@@ -21,6 +22,14 @@ export function officesRoutes(ctx: ServiceContext): Router {
   r.put('/offices/:id/response-targets', requireRole('supervisor', 'admin'), async (req, res) => {
     const { id } = parseWith(idParam, req.params)
     res.json({ office: await setResponseTargets(ctx, actorOf(req), id, parseWith(responseTargetsSchema, req.body)) })
+  })
+  r.put('/offices/:id/first-response-targets', requireRole('supervisor', 'admin'), async (req, res) => {
+    const { id } = parseWith(idParam, req.params)
+    res.json({ office: await setFirstResponseTargets(ctx, actorOf(req), id, parseWith(responseTargetsSchema, req.body)) })
+  })
+  r.put('/offices/:id/time-zone', requireRole('supervisor', 'admin'), async (req, res) => {
+    const { id } = parseWith(idParam, req.params)
+    res.json({ office: await setTimeZone(ctx, actorOf(req), id, parseWith(officeTimeZoneSchema, req.body).timeZone) })
   })
   return r
 }

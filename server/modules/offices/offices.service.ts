@@ -4,7 +4,7 @@ import type { Office } from '../../db/schema'
 import { forbidden, notFound } from '../../http/errors'
 import { can, officeScope, type Actor } from '../../policy/policy'
 import type { OfficeView } from '../../../shared/schemas/views'
-import { findOffice, listOffices as listOfficeRows, setOfficeTargets } from './offices.repo'
+import { findOffice, listOffices as listOfficeRows, setOfficeFirstResponseTargets, setOfficeTargets, setOfficeTimeZone } from './offices.repo'
 
 export function presentOffice(o: Office, actor: Actor): OfficeView {
   return {
@@ -14,6 +14,8 @@ export function presentOffice(o: Office, actor: Actor): OfficeView {
     centreLatDeg: o.centreLatDeg,
     centreLonDeg: o.centreLonDeg,
     responseTargetsHours: { p1: o.targetP1Hours, p2: o.targetP2Hours, p3: o.targetP3Hours, p4: o.targetP4Hours },
+    firstResponseTargetsHours: { p1: o.firstResponseP1Hours, p2: o.firstResponseP2Hours, p3: o.firstResponseP3Hours, p4: o.firstResponseP4Hours },
+    timeZone: o.timeZone,
     abilities: { setResponseTargets: can(actor, 'office.configure', { officeId: o.id }) },
   }
 }
@@ -46,4 +48,25 @@ export async function setResponseTargets(ctx: ServiceContext, actor: Actor, offi
     const o = await setOfficeTargets(db, officeId, { 1: t.p1, 2: t.p2, 3: t.p3, 4: t.p4 })
     return presentOffice(o!, actor)
   })
+}
+
+/**
+ * Sets an office's first-response targets (hours per priority). The first-response due times of
+ * its cases still waiting for a first response follow.
+ */
+export async function setFirstResponseTargets(ctx: ServiceContext, actor: Actor, officeId: string, t: { p1: number; p2: number; p3: number; p4: number }): Promise<OfficeView> {
+  const current = await getOffice(ctx, actor, officeId)
+  if (!can(actor, 'office.configure', { officeId: current.id })) throw forbidden('Only the office’s supervisor or an administrator can change its targets.')
+  return withTransaction(ctx.pool, async ({ db }) => {
+    const o = await setOfficeFirstResponseTargets(db, officeId, { 1: t.p1, 2: t.p2, 3: t.p3, 4: t.p4 })
+    return presentOffice(o!, actor)
+  })
+}
+
+/** Sets an office's time zone: its "today" on the dashboard and its digest follow it. */
+export async function setTimeZone(ctx: ServiceContext, actor: Actor, officeId: string, timeZone: string): Promise<OfficeView> {
+  const current = await getOffice(ctx, actor, officeId)
+  if (!can(actor, 'office.configure', { officeId: current.id })) throw forbidden('Only the office’s supervisor or an administrator can change its time zone.')
+  const o = await setOfficeTimeZone(ctx.db, officeId, timeZone)
+  return presentOffice(o!, actor)
 }

@@ -29,10 +29,19 @@ export interface LocalMaximum {
   rightBaseIndex: number
 }
 
-/** Every local maximum of a sequence of levels with its prominence, in index order. */
+/**
+ * Every local maximum of a sequence of levels with its prominence, in index order.
+ *
+ * The walks of Eq. (2) are done for all samples at once, in O(n): one pass from each side
+ * keeps a stack of the samples not yet passed by a higher one, each with the lowest sample of
+ * its stretch, so a trace of a million points (a sloping signal skirt holds thousands of small
+ * maxima whose walks would each cross the whole skirt) costs two linear passes.
+ */
 export function localMaximaWithProminence(levelDb: ArrayLike<number>): LocalMaximum[] {
   const n = levelDb.length
   const out: LocalMaximum[] = []
+  const left = lowestUntilHigher(levelDb, -1)
+  const right = lowestUntilHigher(levelDb, 1)
   let i = 1
   while (i < n - 1) {
     if (levelDb[i - 1] < levelDb[i]) {
@@ -40,7 +49,12 @@ export function localMaximaWithProminence(levelDb: ArrayLike<number>): LocalMaxi
       while (ahead < n - 1 && levelDb[ahead] === levelDb[i]) ahead++
       if (levelDb[ahead] < levelDb[i]) {
         const index = (i + ahead - 1) >> 1 // Eq. (1) [index]
-        out.push({ index, ...prominenceAt(levelDb, index) })
+        out.push({
+          index,
+          prominenceDb: levelDb[index] - Math.max(left.minDb[index], right.minDb[index]), // Eq. (3) [dB]
+          leftBaseIndex: left.minIndex[index],
+          rightBaseIndex: right.minIndex[index],
+        })
         i = ahead
         continue
       }
@@ -50,25 +64,43 @@ export function localMaximaWithProminence(levelDb: ArrayLike<number>): LocalMaxi
   return out
 }
 
-function prominenceAt(levelDb: ArrayLike<number>, peak: number) {
-  const top = levelDb[peak]
-  let leftBaseIndex = peak
-  let leftMin = top
-  for (let j = peak - 1; j >= 0 && levelDb[j] <= top; j--) {
-    if (levelDb[j] < leftMin) {
-      leftMin = levelDb[j] // Eq. (2) [dB]
-      leftBaseIndex = j
+/**
+ * Eq. (2) for every sample p: walking from p in `direction` (−1 left, +1 right) while samples
+ * are ≤ level[p], the lowest sample met (p itself included) and its index — the one nearest to
+ * p when several are equally low, as a step-by-step walk that moves the base only on a strictly
+ * lower sample finds it.
+ */
+function lowestUntilHigher(levelDb: ArrayLike<number>, direction: -1 | 1): { minDb: Float64Array; minIndex: Int32Array } {
+  const n = levelDb.length
+  const minDb = new Float64Array(n)
+  const minIndex = new Int32Array(n)
+  // stack entries: a sample not yet passed by a higher one, with the lowest sample of the
+  // stretch between it and the entry below it (that stretch's walk result)
+  const stackAt = new Int32Array(n)
+  const stackMin = new Float64Array(n)
+  const stackMinAt = new Int32Array(n)
+  let top = 0
+  for (let step = 0; step < n; step++) {
+    const p = direction === 1 ? n - 1 - step : step
+    const v = levelDb[p]
+    let lowest = v
+    let lowestAt = p
+    // entries the walk from p passes over (≤ v), nearest first: their stretches join p's
+    while (top > 0 && levelDb[stackAt[top - 1]] <= v) {
+      top--
+      if (stackMin[top] < lowest) {
+        lowest = stackMin[top] // Eq. (2) [dB]
+        lowestAt = stackMinAt[top]
+      }
     }
+    stackAt[top] = p
+    stackMin[top] = lowest
+    stackMinAt[top] = lowestAt
+    top++
+    minDb[p] = lowest
+    minIndex[p] = lowestAt
   }
-  let rightBaseIndex = peak
-  let rightMin = top
-  for (let j = peak + 1; j < levelDb.length && levelDb[j] <= top; j++) {
-    if (levelDb[j] < rightMin) {
-      rightMin = levelDb[j] // Eq. (2) [dB]
-      rightBaseIndex = j
-    }
-  }
-  return { prominenceDb: top - Math.max(leftMin, rightMin), leftBaseIndex, rightBaseIndex } // Eq. (3) [dB]
+  return { minDb, minIndex }
 }
 
 export interface TracePeak {

@@ -51,24 +51,168 @@ export interface ParseTraceCsvOptions {
 
 const NUMBER = /^[+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?$/
 
+/**
+ * The lines of a text one at a time, with 1-based line numbers; lines end at CRLF, LF or CR.
+ * One pass over the text, no array of lines (a trace of a million points is read without a
+ * second copy of it). `next()` gives content lines only: trimmed, blank lines and '#' comments
+ * skipped; `nextRaw()` gives every line as a range [start, end) of the text.
+ */
+class Lines {
+  private at: number
+  lineNumber = 0
+  start = 0
+  end = 0
+  constructor(readonly text: string) {
+    this.at = text.charCodeAt(0) === 0xfeff ? 1 : 0 // a byte-order mark is not content
+  }
+
+  nextRaw(): boolean {
+    const t = this.text
+    const len = t.length
+    // what follows the last line break, if anything, is the last line
+    if (this.at >= len) return false
+    let end = this.at
+    let c = 0
+    while (end < len) {
+      c = t.charCodeAt(end)
+      if (c === 10 || c === 13) break
+      end++
+    }
+    this.start = this.at
+    this.end = end
+    this.lineNumber++
+    this.at = end < len ? end + (c === 13 && t.charCodeAt(end + 1) === 10 ? 2 : 1) : len
+    return true
+  }
+
+  /** The line just read by nextRaw, trimmed; undefined for a blank or comment line. */
+  content(): { text: string; lineNumber: number } | undefined {
+    const line = this.text.slice(this.start, this.end).trim()
+    return line !== '' && line.charCodeAt(0) !== 35 ? { text: line, lineNumber: this.lineNumber } : undefined // 35 = '#'
+  }
+
+  next(): { text: string; lineNumber: number } | undefined {
+    while (this.nextRaw()) {
+      const c = this.content()
+      if (c) return c
+    }
+    return undefined
+  }
+}
+
+const isAsciiSpace = (c: number) => c === 32 || c === 9 || c === 11 || c === 12
+const isDigit = (c: number) => c >= 48 && c <= 57
+
+/** 10^0 … 10^22: every one exactly representable as a double. */
+const POW10 = Array.from({ length: 23 }, (_, k) => 10 ** k)
+/** The value of the last number `numberEnd` read, or NaN when it must be converted from its text. */
+let quickValue = NaN
+
+/**
+ * End of a number matching NUMBER that starts at `i` (before `end`), or −1 when the text there
+ * is not one — the same grammar as the NUMBER pattern, read character by character. Sets
+ * `quickValue` to its value when the digits form an integer below 2^53 and the decimal
+ * exponent is within ±22: then mantissa × or ÷ 10^k is one correctly rounded operation on
+ * exact doubles, so it equals Number(text) (W. D. Clinger, "How to read floating point
+ * numbers accurately", PLDI 1990 — the fast path, common practice); otherwise NaN.
+ */
+function numberEnd(t: string, i: number, end: number): number {
+  let c = t.charCodeAt(i)
+  const negative = c === 45
+  if (c === 43 || c === 45) c = t.charCodeAt(++i) // + −
+  let digits = 0
+  let mantissa = 0
+  let scale = 0
+  while (i < end && isDigit(c)) {
+    digits++
+    mantissa = mantissa * 10 + (c - 48)
+    c = t.charCodeAt(++i)
+  }
+  if (i < end && c === 46) {
+    // '.'
+    c = t.charCodeAt(++i)
+    while (i < end && isDigit(c)) {
+      digits++
+      mantissa = mantissa * 10 + (c - 48)
+      scale--
+      c = t.charCodeAt(++i)
+    }
+  }
+  if (digits === 0) return -1
+  if (i < end && (c === 101 || c === 69)) {
+    // e E
+    c = t.charCodeAt(++i)
+    const expNegative = c === 45
+    if (i < end && (c === 43 || c === 45)) c = t.charCodeAt(++i)
+    let expDigits = 0
+    let exp = 0
+    while (i < end && isDigit(c)) {
+      expDigits++
+      if (exp < 1e6) exp = exp * 10 + (c - 48)
+      c = t.charCodeAt(++i)
+    }
+    if (expDigits === 0) return -1
+    scale += expNegative ? -exp : exp
+  }
+  if (mantissa <= Number.MAX_SAFE_INTEGER && scale >= -22 && scale <= 22) {
+    const v = scale >= 0 ? mantissa * POW10[scale] : mantissa / POW10[-scale]
+    quickValue = negative ? -v : v
+  } else {
+    quickValue = NaN
+  }
+  return i
+}
+
+/** A row read by the quick path: where its two numbers are in the text. */
+const plain = { f0: 0, f1: 0, l0: 0, l1: 0, fValue: NaN, lValue: NaN }
+
+/**
+ * The common row, `number<sep>number` with ASCII spaces around the fields and nothing else,
+ * read in place (fills `plain`); false for anything else — blank, comment, quoted, a third
+ * field, a trailing separator, an error — which the general path then reads, so every row
+ * gives the same numbers and the same errors either way.
+ */
+function readPlainRow(t: string, start: number, end: number, sep: number): boolean {
+  let i = start
+  while (i < end && isAsciiSpace(t.charCodeAt(i))) i++
+  const f1 = i < end ? numberEnd(t, i, end) : -1
+  if (f1 < 0) return false
+  plain.f0 = i
+  plain.f1 = f1
+  plain.fValue = quickValue
+  i = f1
+  while (i < end && isAsciiSpace(t.charCodeAt(i))) i++
+  if (i >= end || t.charCodeAt(i) !== sep) return false
+  i++
+  while (i < end && isAsciiSpace(t.charCodeAt(i))) i++
+  const l1 = i < end ? numberEnd(t, i, end) : -1
+  if (l1 < 0) return false
+  plain.l0 = i
+  plain.l1 = l1
+  plain.lValue = quickValue
+  i = l1
+  while (i < end && isAsciiSpace(t.charCodeAt(i))) i++
+  return i === end
+}
+
 /** Parses trace CSV text into frequencies [Hz] and levels [dBm]; throws TraceCsvError with the line number. */
 export function parseTraceCsv(opts: ParseTraceCsvOptions): ParsedTrace {
   const text = opts?.csvText
   if (typeof text !== 'string') throw new TraceCsvError('trace CSV must be text.')
   const impedanceOhm = requirePositive('impedanceOhm', opts.impedanceOhm ?? 50)
-  const lines = text.replace(/^\uFEFF/, '').split(/\r\n|\n|\r/)
-  const content = lines.map((raw, idx) => ({ text: raw.trim(), lineNumber: idx + 1 })).filter((l) => l.text !== '' && !l.text.startsWith('#'))
-  if (content.length === 0) throw new TraceCsvError('the trace CSV is empty.')
+  const lines = new Lines(text)
+  const first = lines.next()
+  if (!first) throw new TraceCsvError('the trace CSV is empty.')
 
-  const separator: ',' | ';' = content[0].text.includes(';') ? ';' : ','
-  const firstFields = splitRow(content[0].text, separator)
+  const separator: ',' | ';' = first.text.includes(';') ? ';' : ','
+  const firstFields = splitRow(first.text, separator)
   const hasHeader = !NUMBER.test(firstFields[0] ?? '')
   const warnings: string[] = []
   let freqUnit: FreqUnit | undefined = opts.defaultFreqUnit
   let levelUnit: LevelUnit | undefined = opts.defaultLevelUnit
   let headerLine: number | undefined
   if (hasHeader) {
-    headerLine = content[0].lineNumber
+    headerLine = first.lineNumber
     if (firstFields.length !== 2) {
       throw new TraceCsvError(`the header has ${firstFields.length} columns; expected 2 (frequency, level).`, headerLine)
     }
@@ -84,28 +228,57 @@ export function parseTraceCsv(opts: ParseTraceCsvOptions): ParsedTrace {
     warnings.push('No level unit in the header or options: dBm assumed.')
   }
 
+  const unit = freqUnit
+  const freqScale = FREQ_SCALE[unit]
+  const levelsInDbm = levelUnit === 'dBm'
+  const sepCode = separator.charCodeAt(0)
   const freqHz: number[] = []
   const levelDbm: number[] = []
-  for (const line of hasHeader ? content.slice(1) : content) {
-    const fields = splitRow(line.text, separator)
-    if (separator === ';' && fields.some((f) => /^[+-]?\d+,\d+$/.test(f))) {
-      throw new TraceCsvError('decimal commas are not supported; use a decimal point.', line.lineNumber)
-    }
-    if (fields.length !== 2) {
-      throw new TraceCsvError(`expected 2 columns (frequency${separator} level), found ${fields.length}: '${line.text}'.`, line.lineNumber)
-    }
-    const [f, l] = fields
-    if (!NUMBER.test(f)) throw new TraceCsvError(`frequency '${f}' is not a number.`, line.lineNumber)
-    if (!NUMBER.test(l)) throw new TraceCsvError(`level '${l}' is not a number.`, line.lineNumber)
-    const fHz = Number(f) * FREQ_SCALE[freqUnit] // Eq. (1) [Hz]
-    const lDbm = levelUnit === 'dBm' ? Number(l) : dbuvToDbm({ voltageDbuv: Number(l), impedanceOhm }) // Eq. (2) [dBm]
-    if (!Number.isFinite(fHz) || !Number.isFinite(lDbm)) throw new TraceCsvError('value out of range.', line.lineNumber)
-    if (fHz < 0) throw new TraceCsvError(`frequency ${f} ${freqUnit} is negative.`, line.lineNumber)
-    if (freqHz.length > 0 && !(fHz > freqHz[freqHz.length - 1])) {
-      throw new TraceCsvError(`frequency ${f} ${freqUnit} does not increase on the row before; rows must be in ascending frequency.`, line.lineNumber)
+  let prevHz = -Infinity
+  const addRow = (f: string, fValue: number, lValue: number, lineNumber: number) => {
+    const fHz = fValue * freqScale // Eq. (1) [Hz]
+    const lDbm = levelsInDbm ? lValue : dbuvToDbm({ voltageDbuv: lValue, impedanceOhm }) // Eq. (2) [dBm]
+    if (!Number.isFinite(fHz) || !Number.isFinite(lDbm)) throw new TraceCsvError('value out of range.', lineNumber)
+    if (fHz < 0) throw new TraceCsvError(`frequency ${f} ${unit} is negative.`, lineNumber)
+    if (freqHz.length > 0 && !(fHz > prevHz)) {
+      throw new TraceCsvError(`frequency ${f} ${unit} does not increase on the row before; rows must be in ascending frequency.`, lineNumber)
     }
     freqHz.push(fHz)
     levelDbm.push(lDbm)
+    prevHz = fHz
+  }
+  const readRow = (row: string, lineNumber: number) => {
+    const fields = splitRow(row, separator)
+    if (separator === ';' && fields.some((x) => /^[+-]?\d+,\d+$/.test(x))) {
+      throw new TraceCsvError('decimal commas are not supported; use a decimal point.', lineNumber)
+    }
+    if (fields.length !== 2) {
+      throw new TraceCsvError(`expected 2 columns (frequency${separator} level), found ${fields.length}: '${row}'.`, lineNumber)
+    }
+    const [f, l] = fields
+    if (!NUMBER.test(f)) throw new TraceCsvError(`frequency '${f}' is not a number.`, lineNumber)
+    if (!NUMBER.test(l)) throw new TraceCsvError(`level '${l}' is not a number.`, lineNumber)
+    addRow(f, Number(f), Number(l), lineNumber)
+  }
+
+  if (!hasHeader) readRow(first.text, first.lineNumber)
+  while (lines.nextRaw()) {
+    if (readPlainRow(text, lines.start, lines.end, sepCode)) {
+      const fValue = Number.isNaN(plain.fValue) ? Number(text.slice(plain.f0, plain.f1)) : plain.fValue
+      const lValue = Number.isNaN(plain.lValue) ? Number(text.slice(plain.l0, plain.l1)) : plain.lValue
+      const fHz = fValue * freqScale
+      // the quick path adds in line; anything to refuse goes through addRow for its message
+      if (levelsInDbm && fHz >= 0 && fHz > prevHz && Number.isFinite(fHz) && Number.isFinite(lValue)) {
+        freqHz.push(fHz) // Eq. (1) [Hz]
+        levelDbm.push(lValue)
+        prevHz = fHz
+      } else {
+        addRow(text.slice(plain.f0, plain.f1), fValue, lValue, lines.lineNumber)
+      }
+      continue
+    }
+    const row = lines.content()
+    if (row) readRow(row.text, row.lineNumber)
   }
   if (freqHz.length === 0) throw new TraceCsvError('the trace CSV has a header but no data rows.')
   return { freqHz, levelDbm, freqUnit, levelUnit, separator, headerLine, warnings }

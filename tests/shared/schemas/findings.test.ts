@@ -1,6 +1,6 @@
-/** The proposal's contract: strict numbers, both coordinates or neither, no past deadline, evidence not yet. */
+/** The proposal's contract: strict numbers, both coordinates or neither, no past deadline, evidence files by id. */
 import { describe, expect, it } from 'vitest'
-import { earliestDeadline, EVIDENCE_NOT_YET_MESSAGE, proposeFindingSchema } from '../../../shared/schemas/findings'
+import { earliestDeadline, proposeFindingSchema } from '../../../shared/schemas/findings'
 
 const good = { version: 3, sourceDescription: 'Masthead amplifier', recommendedAction: 'advise_operator', summary: 'It oscillates.' }
 const problems = (body: Record<string, unknown>) => {
@@ -43,8 +43,12 @@ describe('proposeFindingSchema', () => {
     expect(proposeFindingSchema.parse({ ...good, complianceDeadline: '' }).complianceDeadline).toBeUndefined()
   })
 
-  it('accepts only an empty evidence list for now', () => {
-    expect(problems({ ...good, evidenceIds: ['00000000-0000-4000-8000-000000000000'] }).evidenceIds).toBe(EVIDENCE_NOT_YET_MESSAGE)
+  it('takes evidence files as ids (the server checks they are files of the case), each once', () => {
+    const id = '00000000-0000-4000-8000-000000000000'
+    expect(proposeFindingSchema.parse({ ...good, evidenceIds: [id] }).evidenceIds).toEqual([id])
+    expect(problems({ ...good, evidenceIds: [id, id] }).evidenceIds).toBe('An evidence file is linked twice.')
+    expect(problems({ ...good, evidenceIds: ['capture.csv'] }).evidenceIds).toBe('Not a valid evidence file id.')
+    expect(problems({ ...good, evidenceIds: 'capture.csv' }).evidenceIds).toBe('Send the linked evidence files as a list of ids.')
   })
 
   it('refuses an unknown action, a calculation linked twice and a station id that is no id', () => {

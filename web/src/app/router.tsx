@@ -31,9 +31,19 @@ export const routes: RouteObject[] = [
           { path: paths.track.path, lazy: () => import('./routes/track') },
           { path: paths.trackReport.path, lazy: () => import('./routes/track-token') },
           { path: paths.devMailbox.path, lazy: () => import('./routes/dev-mailbox') },
+          // every signed-in person (the page asks them to sign in otherwise)
+          { path: paths.myEmails.path, lazy: () => import('./routes/my-emails') },
           {
             element: <RequireAbility anyOf={['workAssignedCases', 'runOfficeQueue']} />,
             children: [{ path: paths.work.path, lazy: () => import('./routes/work') }],
+          },
+          {
+            element: <RequireAbility anyOf={['runOfficeQueue']} />,
+            children: [{ path: paths.officeSettings.path, lazy: () => import('./routes/office-settings') }],
+          },
+          {
+            element: <RequireAbility anyOf={['readDashboard']} />,
+            children: [{ path: paths.dashboard.path, lazy: () => import('./routes/dashboard') }],
           },
           {
             // Administrators read every office's cases; the server gives them no moves.

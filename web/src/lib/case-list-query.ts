@@ -39,6 +39,8 @@ const positiveInt = (value: string | null, fallback: number, max: number): numbe
   return Number.isInteger(n) && n >= 1 && n <= max ? n : fallback
 }
 
+const days = (value: string | null): number | null => (value === null ? null : positiveInt(value, 0, 366) || null)
+
 /** Reads the list state from the page's search params; anything invalid falls back to the default. */
 export function parseListState(params: URLSearchParams): CaseListState {
   const d = DEFAULT_LIST_STATE
@@ -58,6 +60,11 @@ export function parseListState(params: URLSearchParams): CaseListState {
     investigatorId: investigator && (investigator === 'me' || investigator === 'none' || UUID.test(investigator)) ? investigator : null,
     overdue: bool(params.get('overdue')),
     open: bool(params.get('open')),
+    dueSoon: params.get('dueSoon') === 'true',
+    firstResponseOverdue: bool(params.get('firstResponseOverdue')),
+    receivedToday: params.get('receivedToday') === 'true',
+    closedInLastDays: days(params.get('closedInLastDays')),
+    respondedInLastDays: days(params.get('respondedInLastDays')),
     freqFrom: nonNegative(params.get('freqFrom')),
     freqTo: nonNegative(params.get('freqTo')),
     freqUnit: oneOf(params.get('freqUnit'), FREQUENCY_UNIT_OPTIONS) ?? d.freqUnit,

@@ -25,6 +25,12 @@ export interface CaseListState {
   investigatorId: string | null
   overdue: boolean | null
   open: boolean | null
+  /** The dashboard's figures: due within 24 h, first response overdue, received today (office time), windows in days. */
+  dueSoon: boolean
+  firstResponseOverdue: boolean | null
+  receivedToday: boolean
+  closedInLastDays: number | null
+  respondedInLastDays: number | null
   /** Frequency filter in `freqUnit` (as typed); the API gets Hz. */
   freqFrom: number | null
   freqTo: number | null
@@ -44,13 +50,18 @@ export const DEFAULT_LIST_STATE: CaseListState = {
   investigatorId: null,
   overdue: null,
   open: null,
+  dueSoon: false,
+  firstResponseOverdue: null,
+  receivedToday: false,
+  closedInLastDays: null,
+  respondedInLastDays: null,
   freqFrom: null,
   freqTo: null,
   freqUnit: 'MHz',
   q: '',
 }
 
-/** The filters the page URL and the API spell alike (status, priority, service, office, investigator, overdue, open). */
+/** The filters the page URL and the API spell alike (status, priority, service, office, investigator, overdue, open, the dashboard's). */
 export function setChoiceFilters(p: URLSearchParams, state: CaseListState): void {
   if (state.status.length) p.set('status', state.status.join(','))
   if (state.priority.length) p.set('priority', state.priority.join(','))
@@ -59,6 +70,11 @@ export function setChoiceFilters(p: URLSearchParams, state: CaseListState): void
   if (state.investigatorId) p.set('investigatorId', state.investigatorId)
   if (state.overdue !== null) p.set('overdue', String(state.overdue))
   if (state.open !== null) p.set('open', String(state.open))
+  if (state.dueSoon) p.set('dueSoon', 'true')
+  if (state.firstResponseOverdue !== null) p.set('firstResponseOverdue', String(state.firstResponseOverdue))
+  if (state.receivedToday) p.set('receivedToday', 'true')
+  if (state.closedInLastDays !== null) p.set('closedInLastDays', String(state.closedInLastDays))
+  if (state.respondedInLastDays !== null) p.set('respondedInLastDays', String(state.respondedInLastDays))
 }
 
 /** Writes the state as search params, leaving out whatever equals the default. */
@@ -88,6 +104,11 @@ export function hasFilters(state: CaseListState): boolean {
     state.investigatorId !== null ||
     state.overdue !== null ||
     state.open !== null ||
+    state.dueSoon ||
+    state.firstResponseOverdue !== null ||
+    state.receivedToday ||
+    state.closedInLastDays !== null ||
+    state.respondedInLastDays !== null ||
     state.freqFrom !== null ||
     state.freqTo !== null
   )

@@ -25,6 +25,10 @@ export const paths = {
   trackReport: { path: '/track/:token', href: (token: string) => `/track/${encodeURIComponent(token)}` },
   devMailbox: page('/dev/mailbox'),
   work: page('/work'),
+  /** The supervisor's own office: its targets and time zone. */
+  officeSettings: page('/office/settings'),
+  /** The office at a glance (supervisors: their office; administrators: every office, or one by `officeId`). */
+  dashboard: { path: '/dashboard', href: (officeId?: string | null) => `/dashboard${query('officeId', officeId)}` },
   /** The case list; `filters` are written to the query as the list itself writes them (defaults left out). */
   cases: {
     path: '/cases',
@@ -47,4 +51,6 @@ export const paths = {
   calculator: page('/calculator'),
   myReports: page('/my-reports'),
   myReport: { path: '/my-reports/:id', href: (reportId: string) => `/my-reports/${encodeURIComponent(reportId)}` },
+  /** What Quietband e-mails the signed-in person (every role). */
+  myEmails: page('/account/emails'),
 } as const

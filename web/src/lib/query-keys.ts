@@ -10,6 +10,8 @@ import { listStateToSearchParams, type CaseListState } from './case-list-state'
 /** The signed-in user and their abilities (GET /api/me); kept when another user signs in. */
 export const meKeys = {
   all: ['me'] as const,
+  /** The person's own saved views of the case list. */
+  savedViews: () => ['me', 'saved-views'] as const,
 }
 
 /** Cases: the list (any filters), one case, and what a case's moves offer to choose from. */
@@ -48,6 +50,12 @@ export const staffKeys = {
 /** Every account, for administrators. */
 export const userKeys = {
   all: ['admin', 'users'] as const,
+}
+
+/** The dashboard, per office filter ('all': every office in the viewer's scope). */
+export const dashboardKeys = {
+  all: ['dashboard'] as const,
+  view: (officeId: string | null) => [...dashboardKeys.all, officeId ?? 'all'] as const,
 }
 
 /** The field offices and their response targets. */
@@ -93,4 +101,20 @@ export const equipmentKeys = {
   all: ['equipment'] as const,
   list: (officeId: string) => [...equipmentKeys.all, 'list', officeId] as const,
   history: (equipmentId: string) => [...equipmentKeys.all, 'history', equipmentId] as const,
+}
+
+/**
+ * A case's enforcement records: the responsible party with its notices and replies, and the
+ * follow-ups. Under `caseKeys.all`, so a case move (closing creates a follow-up) refreshes them.
+ */
+export const enforcementKeys = {
+  party: (caseId: string) => [...caseKeys.all, 'responsible-party', caseId] as const,
+  followUps: (caseId: string) => [...caseKeys.all, 'follow-ups', caseId] as const,
+  /** The viewer's follow-ups due today or overdue (the queue). */
+  due: () => [...caseKeys.all, 'follow-ups-due'] as const,
+}
+
+/** What Quietband e-mails the signed-in person. */
+export const notificationKeys = {
+  myEmails: () => ['my-emails'] as const,
 }

@@ -10,6 +10,7 @@
  * Every refusal is an EvidenceProcessingError (or the library's SigmfError / TraceCsvError /
  * the tar reader's TarError) whose message says what is wrong with the file.
  */
+import { availableParallelism } from 'node:os'
 import {
   channelPower,
   CHANNEL_POWER_METHOD,
@@ -36,6 +37,7 @@ import {
 import type { MethodRef } from '../../../../shared/radio/types'
 import type { DisplayTraceView, SpectrogramView, SpectrumSummary } from '../../../../shared/schemas/spectrum'
 import { readTar, type TarMemberSink } from './tar-reader'
+import { createParallelWelchAccumulator } from './parallel-welch'
 
 export class EvidenceProcessingError extends Error {
   constructor(message: string) {
@@ -65,11 +67,13 @@ export interface AnalyseOptions {
 export const PSD_SEGMENT_LENGTH = 4096
 export const SPECTROGRAM_COLUMNS = 512
 export const SPECTROGRAM_MAX_ROWS = 256
+/** From this many complex samples (32 MiB of cf32) the summary PSD runs on every core (parallel-welch.ts). */
+export const PARALLEL_WELCH_MIN_SAMPLES = 2 ** 22
 const MAX_META_BYTES = 4 * 1024 * 1024
 const MAX_TRACE_BYTES = 32 * 1024 * 1024
 const DEFAULT_MAX_DATA_BYTES = 4 * 1024 * 1024 * 1024
 
-type SourceKind = 'sigmf_archive' | 'trace_csv' | 'trace_json'
+type SourceKind = 'sigmf_archive' | 'sigmf_files' | 'trace_csv' | 'trace_json'
 
 /** What the file is, from its stored content type (decided from its content on upload) and name. */
 export function spectrumSourceOf(contentType: string, originalName: string): SourceKind {
@@ -119,7 +123,7 @@ function analyseTraceJson(text: string): SpectrumAnalysis {
   }
   const o = (typeof doc === 'object' && doc !== null ? doc : {}) as Record<string, unknown>
   if ('global' in o && 'captures' in o) {
-    throw new EvidenceProcessingError('This is SigMF metadata without its samples: upload the recording as a SigMF archive (.sigmf) holding both the .sigmf-meta and the .sigmf-data file.')
+    throw new EvidenceProcessingError('This is SigMF metadata without its samples: add its dataset (the .sigmf-data file of the same name) to the case as an I/Q recording, or upload the recording as a SigMF archive (.sigmf) holding both files.')
   }
   const freqHz = o.freqHz
   const levelDbm = o.levelDbm
@@ -188,8 +192,14 @@ async function analyseSigmfArchive(opts: AnalyseOptions): Promise<SpectrumAnalys
 
 const largestPowerOfTwoAtMost = (n: number) => 2 ** Math.floor(Math.log2(n))
 
-/** The sink that reads a `.sigmf-data` member into the accumulators. */
-function recordingSink(metadata: SigmfMetadata, dataBytes: number, onProgress: AnalyseOptions['onProgress'], done: (r: SpectrumAnalysis) => void): TarMemberSink {
+/** The sink that reads a `.sigmf-data` member (or a dataset uploaded on its own: `source` 'sigmf_files') into the accumulators. */
+export function recordingSink(
+  metadata: SigmfMetadata,
+  dataBytes: number,
+  onProgress: AnalyseOptions['onProgress'],
+  done: (r: SpectrumAnalysis) => void,
+  source: 'sigmf_archive' | 'sigmf_files' = 'sigmf_archive',
+): TarMemberSink {
   const sampleCount = checkSigmfDataLength({ metadata, dataBytes })
   const sampleRateHz = metadata.sampleRateHz
   if (sampleRateHz === undefined) throw new EvidenceProcessingError('global.core:sample_rate is missing from the metadata: the recording cannot be analysed without its sample rate.')
@@ -205,7 +215,9 @@ function recordingSink(metadata: SigmfMetadata, dataBytes: number, onProgress: A
   // at least 8 segments for the summary PSD; 2 for the spectrogram
   const segmentLength = Math.min(PSD_SEGMENT_LENGTH, largestPowerOfTwoAtMost(sampleCount / 8))
   const columns = Math.min(SPECTROGRAM_COLUMNS, largestPowerOfTwoAtMost(sampleCount / 2))
-  const welch = createWelchAccumulator({ sampleRateHz, centerFreqHz, segmentLength, overlapFraction: 0.5, window: 'hann' })
+  const welchOpts = { sampleRateHz, centerFreqHz, segmentLength, overlapFraction: 0.5, window: 'hann' as const }
+  const parallel = sampleCount >= PARALLEL_WELCH_MIN_SAMPLES && availableParallelism() > 1 ? createParallelWelchAccumulator({ ...welchOpts, sampleCount }) : undefined
+  const welch = parallel ?? createWelchAccumulator(welchOpts)
   const spectro = createSpectrogramAccumulator({ sampleRateHz, centerFreqHz, segmentLength: columns, maxRows: SPECTROGRAM_MAX_ROWS })
   let readBytes = 0
   let reported = 0
@@ -215,6 +227,7 @@ function recordingSink(metadata: SigmfMetadata, dataBytes: number, onProgress: A
       if (iq.length > 0) {
         welch.push(iq)
         spectro.push(iq)
+        await parallel?.ready() // read on only as fast as the workers keep up
       }
       readBytes += chunk.length
       const progress = (0.95 * readBytes) / dataBytes
@@ -223,9 +236,9 @@ function recordingSink(metadata: SigmfMetadata, dataBytes: number, onProgress: A
         await onProgress(progress)
       }
     },
-    end() {
+    async end() {
       decoder.finish()
-      const psd = welch.result()
+      const psd = await welch.result()
       const trace = psdAsTrace(psd.value)
       const levelUnit = trace.levelUnit
       done({
@@ -233,7 +246,7 @@ function recordingSink(metadata: SigmfMetadata, dataBytes: number, onProgress: A
           trace,
           enbwHz: trace.enbwHz,
           levelUnit,
-          source: 'sigmf_archive',
+          source,
           recording: {
             datatype: metadata.datatype.text,
             sampleRateHz,

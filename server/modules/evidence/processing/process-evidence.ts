@@ -16,6 +16,8 @@ import { findEvidence } from '../evidence.repo'
 import { markAnalysisRunning, recordAnalysisDone, recordAnalysisFailed, recordAnalysisProgress } from './analyses.repo'
 import { analyseSpectrumFile, EvidenceProcessingError } from './analyse-spectrum'
 import { TarError } from './tar-reader'
+import { sigmfMemberOf, sigmfPartnerOf } from '../sigmf-pairs'
+import { analyseSigmfDataset } from './sigmf-pair-analysis'
 
 export interface ProcessingDeps {
   db: Db
@@ -39,14 +41,22 @@ export async function runEvidenceProcessing(deps: ProcessingDeps, evidenceId: st
     log().warn(`evidence processing: no evidence file ${evidenceId}`)
     return
   }
+  // one half of a two-file SigMF recording: the analysis is the dataset's (sigmf-pairs.ts)
+  const member = sigmfMemberOf(evidence.displayName)
+  const datasetId = member?.part === 'meta' ? await sigmfPartnerOf(deps.db, evidence.caseId, member) : undefined
+  if (datasetId) return runEvidenceProcessing(deps, datasetId)
   await markAnalysisRunning(deps.db, evidenceId)
   try {
-    const result = await analyseSpectrumFile({
-      open: async () => (await readStoredObject(deps.objectStore, evidence.file.objectKey)) as Readable & AsyncIterable<Uint8Array>,
-      originalName: evidence.file.originalName,
-      contentType: evidence.file.contentType,
-      onProgress: (p) => recordAnalysisProgress(deps.db, evidenceId, Math.min(1, Math.max(0, p))),
-    })
+    const onProgress = (p: number) => recordAnalysisProgress(deps.db, evidenceId, Math.min(1, Math.max(0, p)))
+    const result =
+      member?.part === 'data'
+        ? await analyseSigmfDataset(deps, evidence, onProgress)
+        : await analyseSpectrumFile({
+            open: async () => (await readStoredObject(deps.objectStore, evidence.file.objectKey)) as Readable & AsyncIterable<Uint8Array>,
+            originalName: evidence.file.originalName,
+            contentType: evidence.file.contentType,
+            onProgress,
+          })
     await recordAnalysisDone(deps.db, evidenceId, { ...result, libraryVersion: RADIO_LIBRARY_VERSION })
   } catch (err) {
     const message = failureMessage(err)

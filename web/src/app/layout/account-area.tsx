@@ -1,7 +1,9 @@
 /** Who is signed in (name, role, office) and the way out. */
 import type { SessionUser } from '@shared/schemas/auth'
 import { ROLE_LABELS } from '@shared/domain/roles'
+import { Link } from 'react-router-dom'
 import { useSignOut } from '@/features/auth/api/sign-out'
+import { paths } from '@/lib/paths'
 
 export function AccountArea({ user }: { user: SessionUser }) {
   const signOut = useSignOut()
@@ -12,6 +14,11 @@ export function AccountArea({ user }: { user: SessionUser }) {
         <p className="text-paper/80">
           {ROLE_LABELS[user.role]}
           {user.officeName && <> · {user.officeName}</>}
+        </p>
+        <p>
+          <Link to={paths.myEmails.href()} className="text-paper underline">
+            E-mails you get
+          </Link>
         </p>
       </div>
       <button

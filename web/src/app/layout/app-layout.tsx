@@ -1,5 +1,5 @@
 /** The frame around every page: header with nav and account, the page, the caution footer. */
-import { Outlet, ScrollRestoration, useNavigation } from 'react-router-dom'
+import { Outlet, ScrollRestoration, useMatches, useNavigation } from 'react-router-dom'
 import { EstimateCaution } from '@/components/cautions/estimate-caution'
 import { useAbilities, useMe } from '@/features/auth/api/get-me'
 import { AccountArea } from './account-area'
@@ -12,6 +12,8 @@ export function AppLayout() {
   const user = me.data ?? null
   const abilities = useAbilities().data
   const navigating = useNavigation().state === 'loading'
+  // lists use the whole width of the screen (a route says so with `handle = { wide: true }`)
+  const wide = useMatches().some((m) => (m.handle as { wide?: boolean } | undefined)?.wide === true)
   return (
     <>
       <SkipLink />
@@ -30,7 +32,7 @@ export function AppLayout() {
           )}
         </div>
       </header>
-      <main id="main" tabIndex={-1} className="mx-auto w-full max-w-page flex-1 px-4 py-8 focus:outline-none">
+      <main id="main" tabIndex={-1} className={`mx-auto w-full flex-1 px-4 py-8 focus:outline-none ${wide ? 'max-w-none lg:px-8' : 'max-w-page'}`}>
         <Outlet />
       </main>
       <Footer />

@@ -22,6 +22,8 @@ export function navItemsFor(abilities: AccountAbilities | null): NavItem[] {
   const items: NavItem[] = []
   if (abilities.followOwnReports) items.push({ label: 'My reports', to: paths.myReports.href() })
   if (abilities.reportAsAccount) items.push({ label: 'Report interference', to: paths.report.href() })
+  // the office at a glance comes first for those who run it
+  if (abilities.readDashboard) items.push({ label: 'Dashboard', to: paths.dashboard.href() })
   if (abilities.runOfficeQueue) items.push({ label: 'Office queue', to: paths.work.href() })
   else if (abilities.workAssignedCases) items.push({ label: 'My cases', to: paths.work.href() })
   if (abilities.manageUsers) items.push({ label: 'Users', to: paths.adminUsers.href() })

@@ -6,12 +6,15 @@ import { PageHeader } from '@/components/ui/page-header'
 import { QueryError } from '@/components/ui/query-error'
 import { useCase } from '@/features/case-page/api/get-case'
 import { CaseActionsPanel } from '@/features/case-page/components/case-actions-panel'
+import { CaseFileButton } from '@/features/case-page/components/case-file-button'
 import { CaseHeader } from '@/features/case-page/components/case-header'
 import { CaseReportDetails } from '@/features/case-page/components/case-report-details'
 import { CaseTimeline } from '@/features/case-page/components/case-timeline'
 import { FindingSummary } from '@/features/case-page/components/finding-summary'
 import { MeasurementsSection } from '@/features/measurements/components/measurements-section'
 import { EvidenceSection } from '@/features/evidence/components/evidence-section'
+import { ResponsiblePartySection } from '@/features/follow-ups/components/responsible-party-section'
+import { FollowUpsSection } from '@/features/follow-ups/components/follow-ups-section'
 import { Workbench } from '@/features/estimates/workbench/workbench'
 import { useNow } from '@/lib/use-now'
 import { isApiError } from '@/lib/api-client'
@@ -44,9 +47,12 @@ export function Component() {
 
   return (
     <div className="flex flex-col gap-6">
-      <p>
-        <Link to={paths.cases.href()}>Back to the case list</Link>
-      </p>
+      <div className="flex flex-col gap-3 sm:flex-row sm:items-start sm:justify-between">
+        <p>
+          <Link to={paths.cases.href()}>Back to the case list</Link>
+        </p>
+        <CaseFileButton detail={detail} />
+      </div>
       <CaseHeader detail={detail} now={now} />
       <Workbench detail={detail} />
       <div className="grid items-start gap-6 lg:grid-cols-[minmax(0,1fr)_26rem]">
@@ -62,6 +68,10 @@ export function Component() {
       {/* full width: the measurement form keeps its live levels beside the fields on a wide screen */}
       <MeasurementsSection caseId={detail.id} officeId={detail.officeId} casePoint={{ latDeg: detail.latDeg, lonDeg: detail.lonDeg }} />
       <EvidenceSection caseId={detail.id} />
+      <div className="grid items-start gap-6 lg:grid-cols-2">
+        <ResponsiblePartySection caseId={detail.id} />
+        <FollowUpsSection caseId={detail.id} />
+      </div>
     </div>
   )
 }

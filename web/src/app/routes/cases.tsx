@@ -6,6 +6,9 @@ import { useOffices } from '@/features/offices/api/get-offices'
 
 const NONE: { id: string; name: string }[] = []
 
+/** The list takes the whole width of the screen. */
+export const handle = { wide: true }
+
 export function Component() {
   const offices = useOffices()
   const staff = useStaff()

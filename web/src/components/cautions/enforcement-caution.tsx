@@ -1,10 +1,11 @@
+import { ENFORCEMENT_CAUTION } from '@shared/domain/cautions'
+
 /**
  * The caution shown wherever a finding is read: a finding that rests on an estimate supports,
  * and does not replace, the regulator's procedure; enforcement follows local codes and
  * licensed practice.
  */
-export const ENFORCEMENT_CAUTION =
-  'A finding that rests on an estimate must follow local codes and licensed practice before any enforcement step: the estimate supports, and does not replace, the legal procedure and a qualified engineer\u2019s judgement.'
+export { ENFORCEMENT_CAUTION }
 
 export function EnforcementCaution() {
   return (

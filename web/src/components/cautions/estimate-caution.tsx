@@ -1,14 +1,11 @@
+import { CAUTION_LINES } from '@shared/domain/cautions'
 import { Sign } from '../ui/sign'
 
 /**
  * The product's standing caution. The footer shows it on every page; result screens show the
  * inline form beside their numbers.
  */
-export const CAUTION_LINES = [
-  "Estimates support, and do not replace, the regulator's legal procedure and the judgement of a qualified engineer.",
-  "Measurements follow your office's calibrated procedures.",
-  'RF exposure figures are screening values; local codes and licensed practice govern.',
-] as const
+export { CAUTION_LINES }
 
 export function EstimateCaution({ variant = 'inline' }: { variant?: 'inline' | 'footer' }) {
   if (variant === 'footer') {

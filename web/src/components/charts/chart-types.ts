@@ -80,3 +80,20 @@ export interface BudgetBarsProps {
   expandedUncertaintyDb?: number
   coverageFactor?: number
 }
+
+/** One group of bars of a performance chart (a priority): hours, null where nothing happened. */
+export interface PerformanceGroup {
+  label: string
+  medianHours: number | null
+  p90Hours: number | null
+  /** The target the office sets for the group, in hours; null when offices differ. */
+  targetHours: number | null
+}
+
+export interface PerformanceChartProps {
+  /** The chart's title and accessible name. */
+  title: string
+  groups: PerformanceGroup[]
+  /** Height of the plot [CSS px]; default 220. The width follows the container. */
+  heightPx?: number
+}

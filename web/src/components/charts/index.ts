@@ -2,7 +2,7 @@
  * Charts: uPlot, loaded only where a chart shows (LevelDistanceChart and ResidualChart are
  * lazy); BudgetBars is plain HTML. Import from here.
  */
-export { LevelDistanceChart, ResidualChart } from './lazy-charts'
+export { LevelDistanceChart, PerformanceChart, ResidualChart } from './lazy-charts'
 export { BudgetBars } from './budget-bars'
 export { SpectrumChart } from './lazy-spectrum'
 export type { SpectrumChartProps, SpectrumTrace } from './spectrum-types'
@@ -15,6 +15,8 @@ export type {
   LevelDistanceChartProps,
   LevelPoint,
   LevelQuantity,
+  PerformanceChartProps,
+  PerformanceGroup,
   ResidualChartProps,
   ResidualPoint,
 } from './chart-types'

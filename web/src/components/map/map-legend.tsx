@@ -1,4 +1,5 @@
 /** The map's key: one row per layer shown, its symbol (shape and colour) and its name. */
+import { PRIORITIES, PRIORITY_LABELS } from '@shared/domain/services'
 import type { FieldMapProps } from './map-types'
 import { symbolSvg, type SymbolKind } from './lib/symbols'
 
@@ -20,7 +21,13 @@ export function legendEntries(p: Omit<FieldMapProps, 'offices' | 'label'> & { of
   if (p.estimatedSource) out.push({ kind: 'source', label: p.estimatedSource.label ?? 'Estimated source' })
   if (p.estimatedSource?.ellipse) out.push({ kind: 'ellipse', label: '95 % confidence ellipse' })
   if (p.candidateStations?.length) out.push({ kind: 'station', label: n(p.candidateStations.length, 'candidate station', 'candidate stations') })
-  if (p.nearbyCases?.length) out.push({ kind: 'nearbyCase', label: n(p.nearbyCases.length, 'nearby case', 'nearby cases') })
+  const noun = p.casesNoun ?? { one: 'nearby case', many: 'nearby cases' }
+  const plain = p.nearbyCases?.filter((c) => !c.priority) ?? []
+  if (plain.length) out.push({ kind: 'nearbyCase', label: n(plain.length, noun.one, noun.many) })
+  for (const level of PRIORITIES) {
+    const count = p.nearbyCases?.filter((c) => c.priority === level).length ?? 0
+    if (count) out.push({ kind: `harm${level}`, label: `${n(count, noun.one, noun.many)}: ${PRIORITY_LABELS[level].short}` })
+  }
   return out
 }
 

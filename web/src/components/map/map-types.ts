@@ -3,6 +3,7 @@
  * (WGS 84), lengths in metres, bearings in degrees clockwise from true north.
  */
 import type { AreaGeometry } from '@shared/schemas/region'
+import type { Priority } from '@shared/domain/services'
 
 /** A position in decimal degrees (WGS 84), north and east positive. */
 export interface MapPoint {
@@ -65,11 +66,13 @@ export interface MapOffice {
   area?: AreaGeometry | null
 }
 
-/** Another case near this one. */
+/** Another case near this one (or, with `priority`, a case drawn by its harm class). */
 export interface MapNearbyCase {
   id: string
   at: MapPoint
   label: string
+  /** Draw the case with its harm class's shape (the priority badge's) instead of a plain ring. */
+  priority?: Priority
 }
 
 export interface FieldMapProps {
@@ -83,6 +86,8 @@ export interface FieldMapProps {
   /** Offices with their areas; 'region' takes the offices of the public region map (GET /api/region). */
   offices?: MapOffice[] | 'region'
   nearbyCases?: MapNearbyCase[]
+  /** What the legend calls the cases; default "nearby case(s)". */
+  casesNoun?: { one: string; many: string }
   /**
    * Pick mode: a click or tap on the map calls this with the position, rounded to 4 decimals
    * (≈ 11 m). Typed coordinates stay the keyboard way to set a position; show them as `victim`.

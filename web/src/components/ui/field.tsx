@@ -18,11 +18,11 @@ export const controlAria = (id: string, hint?: string, error?: string) => ({
 
 /** Border of a text control: thicker and red while it holds an error. */
 export const controlClass = (error?: string) =>
-  `rounded-control border bg-surface px-3 py-2 text-ink ${error ? 'border-2 border-danger' : 'border-field'}`
+  `min-w-0 max-w-full rounded-control border bg-surface px-3 py-2 text-ink ${error ? 'border-2 border-danger' : 'border-field'}`
 
 export function Field({ id, label, hint, error, children }: { id: string; label: string; hint?: string; error?: string; children: ReactNode }) {
   return (
-    <div className="flex flex-col gap-1">
+    <div className="flex min-w-0 flex-col gap-1">
       <label htmlFor={id} className="font-semibold">
         {label}
       </label>

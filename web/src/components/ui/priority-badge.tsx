@@ -1,15 +1,17 @@
 /**
- * Case priority, shown as colour + shape + words so it reads in sunlight, in greyscale print
- * and for colour-blind readers alike. The more urgent, the more points the shape has to it:
- * P1 a solid diamond, P2 a solid triangle, P3 an open square, P4 an open circle.
+ * A case's harm class (its priority), shown as weight + shape + name so it reads in sunlight,
+ * in greyscale print and for colour-blind readers alike. The greater the harm, the heavier the
+ * mark: safety of life is a filled plate with a solid diamond, service lost a heavy outline with
+ * a solid triangle, service degraded a thin outline with an open square, a nuisance a dashed
+ * outline with an open circle. The figure 1–4 stays in the data, never on the badge.
  */
 import { PRIORITY_LABELS, type Priority } from '@shared/domain/services'
 
-const COLOUR: Record<Priority, string> = {
-  1: 'text-priority-1 border-priority-1',
-  2: 'text-priority-2 border-priority-2',
-  3: 'text-priority-3 border-priority-3',
-  4: 'text-priority-4 border-priority-4',
+const PLATE: Record<Priority, string> = {
+  1: 'border-2 border-priority-1 bg-priority-1 text-surface',
+  2: 'border-2 border-priority-2 bg-surface text-priority-2',
+  3: 'border border-priority-3 bg-surface text-priority-3',
+  4: 'border border-dashed border-priority-4 bg-surface text-priority-4',
 }
 
 export function PriorityShape({ level, sizePx = 14 }: { level: Priority; sizePx?: number }) {
@@ -23,16 +25,12 @@ export function PriorityShape({ level, sizePx = 14 }: { level: Priority; sizePx?
   )
 }
 
-/** Compact badge: shape, "P1" in figures type, and the short label. */
+/** Compact badge: the class's shape and name on a plate as heavy as the harm. */
 export function PriorityBadge({ level }: { level: Priority }) {
   return (
-    <span
-      title={PRIORITY_LABELS[level].long}
-      className={`inline-flex items-center gap-1.5 rounded-sm border bg-surface px-2 py-0.5 text-sm font-semibold ${COLOUR[level]}`}
-    >
+    <span title={`Harm class ${level}: ${PRIORITY_LABELS[level].long}`} className={`inline-flex items-center gap-1.5 rounded-sm px-2 py-0.5 text-sm font-semibold whitespace-nowrap ${PLATE[level]}`}>
       <PriorityShape level={level} />
-      <span className="font-mono">P{level}</span>
-      <span className="text-ink">{PRIORITY_LABELS[level].short}</span>
+      <span>{PRIORITY_LABELS[level].short}</span>
     </span>
   )
 }

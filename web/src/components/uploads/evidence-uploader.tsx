@@ -154,14 +154,15 @@ export function EvidenceUploader({
           id={`${baseId}-input`}
           type="file"
           multiple
-          className="sr-only"
+          className="peer sr-only"
           aria-label={title}
           onChange={(e) => {
             add(e.target.files)
             e.target.value = ''
           }}
         />
-        <label htmlFor={`${baseId}-input`} className={buttonClass('primary', 'w-full cursor-pointer sm:w-auto')}>
+        {/* the input is hidden; its label is the button, and shows the focus ring the input has */}
+        <label htmlFor={`${baseId}-input`} className={buttonClass('primary', 'w-full cursor-pointer sm:w-auto peer-focus-visible:outline-3 peer-focus-visible:outline-offset-2 peer-focus-visible:outline-signal peer-focus-visible:outline-solid')}>
           {title}
         </label>
         <p className="text-sm text-ink-muted">or drop files here. Several at once is fine.</p>

@@ -149,7 +149,7 @@ export default function LeafletFieldMap(props: Props) {
             </Marker>
           ))}
           {nearbyCases?.map((c) => (
-            <Marker key={c.id} position={ll(c.at)} icon={icon('nearbyCase', c.label, 20)} interactive={interactive} keyboard={false}>
+            <Marker key={c.id} position={ll(c.at)} icon={icon(c.priority ? `harm${c.priority}` : 'nearbyCase', c.label, 20)} interactive={interactive} keyboard={false}>
               <Tooltip direction="top" className="qb-map-label">{c.label}</Tooltip>
             </Marker>
           ))}

@@ -10,14 +10,19 @@ export const MAP_COLOURS = {
   surface: '#ffffff',
   sea: '#dcebef', // signal-soft
   office: '#0e5a6e', // signal
-  measurement: '#a84b00', // priority-2
+  measurement: '#a84b00', // a map-only amber
   source: '#a3201a', // danger
-  station: '#2b5ca6', // priority-3
-  nearby: '#586270', // priority-4
+  station: '#2b5ca6', // a map-only blue
+  nearby: '#586270', // a map-only slate
   field: '#7a838d',
+  // a case's harm class, as its badge draws it (styles.css --color-priority-1…4)
+  harm1: '#7a1f45',
+  harm2: '#18212b',
+  harm3: '#0e5a6e',
+  harm4: '#4a5562',
 } as const
 
-export type SymbolKind = 'victim' | 'measurement' | 'bearing' | 'source' | 'ellipse' | 'station' | 'office' | 'officeArea' | 'nearbyCase' | 'region'
+export type SymbolKind = 'victim' | 'measurement' | 'bearing' | 'source' | 'ellipse' | 'station' | 'office' | 'officeArea' | 'nearbyCase' | 'region' | 'harm1' | 'harm2' | 'harm3' | 'harm4'
 
 const C = MAP_COLOURS
 const svg = (size: number, body: string) => `<svg xmlns="http://www.w3.org/2000/svg" width="${size}" height="${size}" viewBox="-12 -12 24 24" aria-hidden="true" focusable="false">${body}</svg>`
@@ -43,6 +48,15 @@ export function symbolSvg(kind: SymbolKind, size = 24): string {
       return svg(size, `<rect x="-9" y="-7" width="18" height="14" fill="${C.office}" fill-opacity="0.06" stroke="${C.office}" stroke-width="2" stroke-dasharray="4 3"/>`)
     case 'nearbyCase': // a hollow ring
       return svg(size, `<circle r="6" fill="${C.surface}" stroke="${C.nearby}" stroke-width="3"/>`)
+    // a case by harm class: the badge's shapes, heavier for greater harm (components/ui/priority-badge)
+    case 'harm1': // a filled diamond
+      return svg(size, `<path d="M0 -9L9 0L0 9L-9 0Z" fill="${C.harm1}" stroke="${C.surface}" stroke-width="2"/>`)
+    case 'harm2': // a filled triangle
+      return svg(size, `<path d="M0 -8.5L8.5 7H-8.5Z" fill="${C.harm2}" stroke="${C.surface}" stroke-width="2" stroke-linejoin="round"/>`)
+    case 'harm3': // an open square
+      return svg(size, `<rect x="-6" y="-6" width="12" height="12" fill="${C.surface}" stroke="${C.harm3}" stroke-width="3"/>`)
+    case 'harm4': // an open circle
+      return svg(size, `<circle r="6" fill="${C.surface}" stroke="${C.harm4}" stroke-width="2.5"/>`)
     case 'region':
       return svg(size, `<path d="M-10 -6H10V6H-10Z" fill="${C.paper}" stroke="${C.ink}" stroke-width="2.5"/>`)
   }

@@ -12,6 +12,7 @@ import {
 import { format, parseISO } from 'date-fns'
 import { ROLE_LABELS } from '@shared/domain/roles'
 import { SortableTh, TableFrame } from '@/components/ui/table'
+import { useTableWidth } from '@/lib/use-media-query'
 import type { AdminUser } from '../api/get-users'
 
 const features = tableFeatures({
@@ -43,7 +44,34 @@ export interface UsersTableProps {
   onSetActive: (user: AdminUser, active: boolean) => void
 }
 
-export function UsersTable({ users, currentUserId, pendingUserId, onSetActive }: UsersTableProps) {
+export function UsersTable(props: UsersTableProps) {
+  // under 640 px each account is a card (a seven-column table cannot fit a phone)
+  return useTableWidth() ? <UsersGrid {...props} /> : <UserCards {...props} />
+}
+
+function UserCards({ users, currentUserId, pendingUserId, onSetActive }: UsersTableProps) {
+  const sorted = [...users].sort((a, b) => a.name.localeCompare(b.name))
+  return (
+    <ul aria-label="Users" className="flex flex-col gap-2">
+      {sorted.map((u) => (
+        <li key={u.id} className={`flex flex-col gap-1 rounded-panel border border-rule px-3 py-2 ${u.active ? 'bg-surface' : 'bg-paper text-ink-muted'}`}>
+          <p className="font-semibold">{u.name}</p>
+          <EmailAddress email={u.email} />
+          <p className="text-sm">
+            {ROLE_LABELS[u.role]}
+            {u.officeName ? ` · ${u.officeName}` : ''}
+          </p>
+          <div className="flex flex-wrap items-center justify-between gap-2">
+            <ActiveState active={u.active} />
+            <RowAction user={u} isSelf={u.id === currentUserId} pending={pendingUserId === u.id} onSetActive={onSetActive} />
+          </div>
+        </li>
+      ))}
+    </ul>
+  )
+}
+
+function UsersGrid({ users, currentUserId, pendingUserId, onSetActive }: UsersTableProps) {
   const table = useTable({ features, columns, data: users, initialState: { sorting: [{ id: 'name', desc: false }] } })
 
   const head = table.getHeaderGroups().map((group) => (

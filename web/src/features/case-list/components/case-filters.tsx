@@ -24,7 +24,7 @@ export interface CaseFiltersProps {
 }
 
 const STATUS_OPTIONS = CASE_STATES.map((s) => ({ value: s, label: CASE_STATE_LABELS[s] }))
-const PRIORITY_OPTIONS = PRIORITIES.map((p) => ({ value: String(p), label: `P${p} ${PRIORITY_LABELS[p].short}` }))
+const PRIORITY_OPTIONS = PRIORITIES.map((p) => ({ value: String(p), label: PRIORITY_LABELS[p].short }))
 const SERVICE_OPTIONS = [{ value: '', label: 'Any service' }, ...AFFECTED_SERVICES.map((s) => ({ value: s, label: serviceShortLabel(s) }))]
 const YES_NO_ANY = (yes: string, no: string) => [
   { value: '', label: 'Either' },
@@ -86,7 +86,7 @@ export function CaseFilters({ state, onApply, offices, investigators }: CaseFilt
         <fieldset className="flex flex-col gap-1 md:col-span-2">
           <legend className="font-semibold">Frequency range</legend>
           <p className="text-sm text-ink-muted">Cases whose range overlaps this one.</p>
-          <div className="grid grid-cols-[1fr_1fr_6rem] gap-3">
+          <div className="grid grid-cols-2 gap-3 sm:grid-cols-[1fr_1fr_6rem]">
             <TextField label="Frequency from" name="freqFrom" id="filter-freq-from" inputMode="decimal" defaultValue={state.freqFrom ?? ''} />
             <TextField label="Frequency to" name="freqTo" id="filter-freq-to" inputMode="decimal" defaultValue={state.freqTo ?? ''} />
             <SelectField label="Unit" id="filter-freq-unit" name="freqUnit" options={FREQUENCY_UNIT_OPTIONS.map((u) => ({ value: u, label: u }))} defaultValue={state.freqUnit} />
@@ -95,7 +95,7 @@ export function CaseFilters({ state, onApply, offices, investigators }: CaseFilt
       </div>
       <div className="grid gap-4 lg:grid-cols-[3fr_1fr]">
         <ChoiceGroup legend="Status" name="status" type="checkbox" options={STATUS_OPTIONS} defaultChecked={state.status} columns={4} />
-        <ChoiceGroup legend="Priority" name="priority" type="checkbox" options={PRIORITY_OPTIONS} defaultChecked={state.priority.map(String)} />
+        <ChoiceGroup legend="Harm class" name="priority" type="checkbox" options={PRIORITY_OPTIONS} defaultChecked={state.priority.map(String)} />
       </div>
       <div className="flex flex-wrap items-center gap-4">
         <Button type="submit">Apply filters</Button>

@@ -30,7 +30,7 @@ const reference = helper.accessor('reference', {
     </Link>
   ),
 })
-const priority = helper.accessor('priority', { id: 'priority', header: 'Priority', sortDescFirst: false, cell: (c) => <PriorityBadge level={c.getValue()} /> })
+const priority = helper.accessor('priority', { id: 'priority', header: 'Harm', sortDescFirst: false, cell: (c) => <PriorityBadge level={c.getValue()} /> })
 const status = helper.accessor('statusLabel', { id: 'status', header: 'Status' })
 const service = helper.accessor('service', { id: 'service', header: 'Service', cell: (c) => serviceShortLabel(c.getValue()) })
 const frequency = helper.accessor('freqLowHz', {

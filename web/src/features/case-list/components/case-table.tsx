@@ -40,7 +40,7 @@ export function CaseTable({ items, sort, dir, onSort, showOffice, caption }: Cas
   const head = table.getHeaderGroups().map((group) => (
     <tr key={group.id}>
       {group.headers.map((header) => (
-        <SortableTh key={header.id} column={header.column} className="px-3 py-2 whitespace-nowrap">
+        <SortableTh key={header.id} column={header.column} className="px-3 py-1.5 whitespace-nowrap">
           <table.FlexRender header={header} />
         </SortableTh>
       ))}
@@ -52,7 +52,7 @@ export function CaseTable({ items, sort, dir, onSort, showOffice, caption }: Cas
       {table.getRowModel().rows.map((row) => (
         <tr key={row.id} className={`border-b border-rule last:border-b-0 ${row.original.overdue ? 'border-l-4 border-l-danger bg-danger-soft' : ''}`}>
           {row.getAllCells().map((cell) => (
-            <td key={cell.id} className={`px-3 py-2 align-top ${NOWRAP_COLUMNS.has(cell.column.id) ? 'whitespace-nowrap' : ''}`}>
+            <td key={cell.id} className={`px-3 py-1.5 align-top text-sm ${NOWRAP_COLUMNS.has(cell.column.id) ? 'whitespace-nowrap' : ''}`}>
               <table.FlexRender cell={cell} />
             </td>
           ))}

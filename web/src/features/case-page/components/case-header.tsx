@@ -50,19 +50,18 @@ export function CaseHeader({ detail, now }: { detail: CaseDetail; now: Date }) {
         <Fact term="Received">
           <time dateTime={detail.receivedAt}>{format(parseISO(detail.receivedAt), 'd MMM yyyy, HH:mm')}</time>
         </Fact>
-        <div className="md:col-span-2">
-          <Fact term="Response">
-            <ResponseMeter status={detail.status} receivedAt={detail.receivedAt} dueAt={detail.dueAt} closedAt={detail.closedAt} now={now} />
-          </Fact>
-        </div>
+        <Fact term="Response" className="md:col-span-2">
+          <ResponseMeter status={detail.status} receivedAt={detail.receivedAt} dueAt={detail.dueAt} closedAt={detail.closedAt} now={now} />
+        </Fact>
       </dl>
     </header>
   )
 }
 
-function Fact({ term, children }: { term: string; children: ReactNode }) {
+// a <dl> may hold only <dt>/<dd> groups wrapped in one <div> each: no other wrapper around a Fact
+function Fact({ term, children, className = '' }: { term: string; children: ReactNode; className?: string }) {
   return (
-    <div className="flex flex-col">
+    <div className={`flex flex-col ${className}`}>
       <dt className="text-sm font-semibold text-ink-muted">{term}</dt>
       <dd>{children}</dd>
     </div>

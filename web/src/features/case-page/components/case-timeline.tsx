@@ -34,7 +34,8 @@ export function CaseTimeline({ events }: { events: TimelineEvent[] }) {
                   {e.actor} · <time dateTime={e.at} className="font-mono">{format(parseISO(e.at), 'd MMM yyyy, HH:mm')}</time>
                 </span>
               </div>
-              {body && <p className="mt-1 whitespace-pre-wrap">{body}</p>}
+              {/* a long token (a SHA-256, a link) wraps rather than widening the page */}
+              {body && <p className="mt-1 whitespace-pre-wrap [overflow-wrap:anywhere]">{body}</p>}
             </li>
           )
         })}

@@ -1,10 +1,11 @@
 /**
  * The investigator's finding: the source, where it is and whose it is, the stored calculations
- * it rests on, the recommended action and its deadline, and a summary. Checked by the server's
+ * and the case's evidence files it rests on, the recommended action and its deadline, and a summary. Checked by the server's
  * own schema as it is typed; the server's answer (a calculation of another case, say) is put
  * beside the field it concerns.
  */
 import { zodResolver } from '@hookform/resolvers/zod'
+import { useState } from 'react'
 import { useForm } from 'react-hook-form'
 import { RECOMMENDED_ACTIONS, RECOMMENDED_ACTION_LABELS } from '@shared/domain/findings'
 import { earliestDeadline, PROPOSE_FINDING_FIELDS, proposeFindingSchema, type ProposeFindingInput } from '@shared/schemas/findings'
@@ -14,6 +15,7 @@ import { FieldError } from '@/components/ui/field'
 import { SelectField } from '@/components/ui/select-field'
 import { TextAreaField } from '@/components/ui/text-area-field'
 import { TextField } from '@/components/ui/text-field'
+import { linkableEvidence, shortHash, useCaseEvidence } from '@/lib/case-evidence'
 import { useCaseCalculations } from '../api/get-case-calculations'
 import { useProposeFinding } from '../api/propose-finding'
 import { ActionForm } from './action-form'
@@ -32,6 +34,9 @@ export function ProposeFindingForm() {
   const action = useCaseActionForm()
   const caseId = action.detail.id
   const calculations = useCaseCalculations(caseId)
+  const evidence = useCaseEvidence(caseId)
+  // the files picked (kept outside the form's values: a single check box would give a string, not a list)
+  const [evidenceIds, setEvidenceIds] = useState<string[]>([])
   const form = useForm<FindingFields>({
     // the server's schema; the version here only satisfies it, the current one is sent
     resolver: zodResolver(proposeFindingSchema) as never,
@@ -52,13 +57,14 @@ export function ProposeFindingForm() {
   const e = form.formState.errors
   const onSubmit = form.handleSubmit(() =>
     action.run({
-      send: (version) => propose.mutateAsync({ ...form.getValues(), version }),
+      send: (version) => propose.mutateAsync({ ...form.getValues(), evidenceIds, version }),
       success: 'Finding proposed. Your supervisor has been asked to review it.',
       setFieldError: form.setError,
       fields: PROPOSE_FINDING_FIELDS,
     }),
   )
   const calcs = calculations.data ?? []
+  const files = linkableEvidence(evidence.data?.evidence)
   return (
     <ActionForm
       id="propose-finding"
@@ -107,7 +113,39 @@ export function ProposeFindingForm() {
           error={e.calculationIds?.message ?? e.calculationIds?.root?.message}
         />
       )}
-      <p className="text-sm text-ink-muted">Evidence files cannot be linked yet: evidence uploads come later.</p>
+      {evidence.isPending ? (
+        <p className="text-sm text-ink-muted">Loading the case’s evidence files…</p>
+      ) : evidence.isError ? (
+        <p className="text-sm text-danger">The case’s evidence files could not be loaded; you can still propose without linking any.</p>
+      ) : files.length === 0 ? (
+        <div>
+          <p className="font-semibold">Evidence files</p>
+          <p className="text-sm text-ink-muted">No evidence files are on this case.</p>
+          <FieldError id="field-evidenceIds-error" message={e.evidenceIds?.message} />
+        </div>
+      ) : (
+        <ChoiceGroup
+          legend="Evidence files the finding rests on"
+          name="evidenceIds"
+          type="checkbox"
+          hint="Files of this case; the supervisor sees each with its name and hash."
+          options={files.map((f) => ({
+            value: f.id,
+            label: (
+              <span className="break-all">
+                {f.originalName} <span className="font-mono text-sm text-ink-muted">SHA-256 {shortHash(f.sha256)}…</span>
+              </span>
+            ),
+          }))}
+          inputProps={{
+            onChange: (ev) => {
+              const { value, checked } = ev.currentTarget
+              setEvidenceIds((ids) => (checked ? [...ids.filter((x) => x !== value), value] : ids.filter((x) => x !== value)))
+            },
+          }}
+          error={e.evidenceIds?.message ?? e.evidenceIds?.root?.message}
+        />
+      )}
       <EnforcementCaution />
       <SelectField label="Recommended action" id="finding-action" options={ACTION_OPTIONS} error={e.recommendedAction?.message} {...form.register('recommendedAction')} />
       <TextField

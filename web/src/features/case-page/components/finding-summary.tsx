@@ -1,7 +1,8 @@
 /**
  * The case's finding as the supervisor reviews it (and as everyone on the case reads it, also
  * after closing): the source, its position on the map, the recommended action, the linked
- * calculations with their numbers, intervals, every warning, methods and library version,
+ * calculations with their numbers, intervals, every warning, methods and library version, the
+ * linked evidence files by name and hash,
  * then the earlier proposals with the supervisor's answers. Cautions stand beside it.
  */
 import { format, parseISO } from 'date-fns'
@@ -9,6 +10,7 @@ import { EnforcementCaution } from '@/components/cautions/enforcement-caution'
 import { EstimateCaution } from '@/components/cautions/estimate-caution'
 import { FieldMap } from '@/components/map'
 import { QueryError } from '@/components/ui/query-error'
+import { shortHash } from '@/lib/case-evidence'
 import { formatLatLonDeg } from '@/lib/coordinates'
 import type { CaseDetail } from '../api/get-case'
 import { useFindings, type FindingView } from '../api/get-findings'
@@ -60,6 +62,22 @@ function FindingDetails({ finding, detail, withMap }: { finding: FindingView; de
             <LinkedCalculation key={c.id} calc={c} />
           ))}
         </div>
+      )}
+      <h3 className="font-semibold">Evidence files it rests on</h3>
+      {finding.evidence.length === 0 ? (
+        <p className="text-ink-muted">No evidence files linked.</p>
+      ) : (
+        <ul aria-label="Linked evidence files" className="flex flex-col gap-1">
+          {finding.evidence.map((f) => (
+            <li key={f.id} className="flex flex-wrap items-baseline gap-x-3 break-all">
+              <span className="font-semibold">{f.name}</span>
+              <span className="font-mono text-sm" title={`SHA-256 ${f.sha256}`}>
+                SHA-256 {shortHash(f.sha256)}…
+              </span>
+              {f.removed && <span className="rounded-control border border-field px-2 py-0.5 text-sm font-semibold">Removed from the case since</span>}
+            </li>
+          ))}
+        </ul>
       )}
       {finding.review && (
         <p className="rounded-control border-l-4 border-rule bg-paper px-3 py-2 text-sm">

@@ -22,13 +22,13 @@ export function TriageForm() {
   const triage = useTriageCase(detail.id)
   const options = PRIORITIES.map((p) => ({
     value: String(p),
-    label: `P${p} ${PRIORITY_LABELS[p].short}${p === detail.suggestedPriority ? ' (suggested)' : ''}`,
+    label: `${PRIORITY_LABELS[p].short}${p === detail.suggestedPriority ? ' (suggested)' : ''}`,
   }))
 
   const onSubmit = form.handleSubmit((v) =>
     action.run({
       send: (version) => triage.mutateAsync({ ...v, version }),
-      success: `Priority set to P${v.priority} ${PRIORITY_LABELS[v.priority as Priority].short}.`,
+      success: `Harm class set: ${PRIORITY_LABELS[v.priority as Priority].short}.`,
       setFieldError: form.setError,
       fields: ['priority', 'note'],
       after: () => form.reset({ priority: v.priority, note: '' }),
@@ -39,14 +39,14 @@ export function TriageForm() {
     <ActionForm
       id="triage"
       title={detail.status === 'received' ? 'Set the priority' : 'Change the priority'}
-      intro={<p>Suggested from the report: P{detail.suggestedPriority} {PRIORITY_LABELS[detail.suggestedPriority].short}. The response target follows the priority.</p>}
+      intro={<p>Suggested from the report: {PRIORITY_LABELS[detail.suggestedPriority].short}. The response target follows the harm class.</p>}
       submitLabel="Set priority"
       pendingLabel="Setting priority…"
       submitting={form.formState.isSubmitting}
       onSubmit={onSubmit}
       action={action}
     >
-      <SelectField label="Priority" options={options} error={form.formState.errors.priority?.message} {...form.register('priority', { valueAsNumber: true })} />
+      <SelectField label="Harm class" options={options} error={form.formState.errors.priority?.message} {...form.register('priority', { valueAsNumber: true })} />
       <TextAreaField label="Triage note (optional, internal)" rows={2} error={form.formState.errors.note?.message} {...form.register('note')} />
     </ActionForm>
   )

@@ -10,8 +10,9 @@ export const evidencePath = (caseId: string) => `/api/cases/${encodeURIComponent
 
 export const getEvidence = (caseId: string, signal?: AbortSignal) => api.read(evidenceListResponseSchema, evidencePath(caseId), signal)
 
-/** True while a file waits for or is in its processing job. */
-export const anyProcessing = (list: Evidence[] | undefined) => (list ?? []).some((e) => e.processing.state === 'queued' || e.processing.state === 'running')
+/** True while a file waits for or is in its processing job, or a photo waits for its thumbnail. */
+export const anyProcessing = (list: Evidence[] | undefined) =>
+  (list ?? []).some((e) => e.processing.state === 'queued' || e.processing.state === 'running' || e.thumbnail?.state === 'pending')
 
 /** How often the list is read again while something is processing [ms]. */
 export const PROCESSING_POLL_MS = 2000

@@ -1,19 +1,20 @@
 /**
- * POST /api/cases/:id/measurements — a band's channel power (a trace in dBm only) kept as a
- * measurement of the case, linked to its evidence file. The server derives the levels itself.
+ * POST /api/evidence/:id/band-measurement — a band of a processed trace in dBm kept as a
+ * measurement of the case. The page sends the band's edges and when and where the file was
+ * recorded; the server computes the channel power itself and stores it, linked to the file.
  */
 import { useMutation, useQueryClient } from '@tanstack/react-query'
-import type { MeasurementContentInput, MeasurementView } from '@shared/schemas/measurements'
+import type { BandMeasurementRequestInput, BandMeasurementResponse } from '@shared/schemas/band-measurement'
 import { api } from '@/lib/api-client'
 import { caseKeys } from '@/lib/query-keys'
 
-export const saveBandMeasurement = (caseId: string, measurement: MeasurementContentInput) =>
-  api.post<{ measurement: MeasurementView }>(`/api/cases/${encodeURIComponent(caseId)}/measurements`, { measurement })
+export const saveBandMeasurement = (evidenceId: string, request: BandMeasurementRequestInput) =>
+  api.post<BandMeasurementResponse>(`/api/evidence/${encodeURIComponent(evidenceId)}/band-measurement`, request)
 
-export function useSaveBandMeasurement(caseId: string) {
+export function useSaveBandMeasurement(caseId: string, evidenceId: string) {
   const queryClient = useQueryClient()
   return useMutation({
-    mutationFn: (measurement: MeasurementContentInput) => saveBandMeasurement(caseId, measurement),
+    mutationFn: (request: BandMeasurementRequestInput) => saveBandMeasurement(evidenceId, request),
     onSuccess: () => Promise.all([queryClient.invalidateQueries({ queryKey: caseKeys.measurements(caseId) }), queryClient.invalidateQueries({ queryKey: caseKeys.detail(caseId) })]),
   })
 }

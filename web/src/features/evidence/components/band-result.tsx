@@ -8,7 +8,7 @@ import { EstimateCaution } from '@/components/cautions/estimate-caution'
 import { SaveBandForm } from './save-band-form'
 import { hzWords, mhz } from './spectrum-format'
 
-export function BandResult({ caseId, fileName, result }: { caseId: string; fileName: string; result: EvidenceBandView }) {
+export function BandResult({ caseId, result }: { caseId: string; result: EvidenceBandView }) {
   const channelPower = result.channelPowerDbm ?? result.channelPowerDbfs
   return (
     <div aria-live="polite" className="flex flex-col gap-2">
@@ -41,7 +41,7 @@ export function BandResult({ caseId, fileName, result }: { caseId: string; fileN
         </ul>
       )}
       {result.channelPowerDbm !== null ? (
-        <SaveBandForm key={`${result.lowFreqHz}-${result.highFreqHz}`} caseId={caseId} fileName={fileName} band={result} channelPowerDbm={result.channelPowerDbm} />
+        <SaveBandForm key={`${result.lowFreqHz}-${result.highFreqHz}`} caseId={caseId} band={result} />
       ) : (
         <p className="text-sm text-ink-muted">
           {result.levelUnit === 'dBFS'

@@ -43,6 +43,19 @@ export function EvidenceCard({ e, caseId }: { e: Evidence; caseId: string }) {
         <h3 className={`min-w-0 break-all font-semibold ${e.removed ? 'text-ink-muted line-through' : ''}`}>{e.originalName}</h3>
         <span className="text-sm font-semibold">{EVIDENCE_KIND_LABELS[e.kind]}</span>
       </div>
+      {e.thumbnail?.state === 'done' && (
+        // a thumbnail made by the server; viewing it is not a download of the evidence
+        <img
+          src={`/api/evidence/${encodeURIComponent(e.id)}/thumbnail`}
+          alt={`Thumbnail of the photo ${e.originalName}`}
+          loading="lazy"
+          decoding="async"
+          width={e.thumbnail.widthPx}
+          height={e.thumbnail.heightPx}
+          className="h-auto max-h-48 w-auto max-w-full self-start rounded-control border border-rule object-contain"
+        />
+      )}
+      {e.thumbnail?.state === 'failed' && <p className="text-sm text-ink-muted">{e.thumbnail.message}</p>}
       <dl className="grid grid-cols-[7rem_minmax(0,1fr)] gap-x-4 gap-y-1 text-sm sm:grid-cols-[8rem_minmax(0,1fr)_8rem_minmax(0,1fr)]">
         <dt className="font-semibold">Size</dt>
         <dd>{formatBytes(e.sizeBytes)}</dd>

@@ -1,10 +1,12 @@
 /**
  * "Save as a measurement": a band's channel power in dBm (a calibrated trace only) kept as a
  * measurement of the case, with the time and place it was taken, which the file does not hold.
- * The band's centre and width, the evidence file and how the figure was computed go with it.
+ * Only the band's edges and the time and place are sent: the server computes the channel power
+ * again itself and stores it with the band's centre and width, the evidence file, the method,
+ * its basis and the radio library version. The figure shown here is never sent.
  */
 import { useState, type FormEvent } from 'react'
-import type { MeasurementContentInput } from '@shared/schemas/measurements'
+import type { BandMeasurementRequestInput } from '@shared/schemas/band-measurement'
 import { readQuantity } from '@shared/schemas/quantities'
 import type { EvidenceBandView } from '@shared/schemas/spectrum'
 import { Button } from '@/components/ui/button'
@@ -17,8 +19,8 @@ import { useSaveBandMeasurement } from '../api/save-band-measurement'
 
 type Errors = { takenAt?: string; latDeg?: string; lonDeg?: string; form?: string }
 
-export function SaveBandForm({ caseId, fileName, band, channelPowerDbm }: { caseId: string; fileName: string; band: EvidenceBandView; channelPowerDbm: number }) {
-  const save = useSaveBandMeasurement(caseId)
+export function SaveBandForm({ caseId, band }: { caseId: string; band: EvidenceBandView }) {
+  const save = useSaveBandMeasurement(caseId, band.evidenceId)
   const [takenAtLocal, setTakenAtLocal] = useState('')
   const [lat, setLat] = useState<QuantityValue>(emptyQuantity('angle'))
   const [lon, setLon] = useState<QuantityValue>(emptyQuantity('angle'))
@@ -38,18 +40,8 @@ export function SaveBandForm({ caseId, fileName, band, channelPowerDbm }: { case
     else if (!lo.ok) next.lonDeg = lo.message
     setErrors(next)
     if (Object.keys(next).length > 0 || !takenAt || !la.ok || !lo.ok) return
-    const b = band.basis
-    const measurement: MeasurementContentInput = {
-      takenAt,
-      latDeg: la.value,
-      lonDeg: lo.value,
-      freqHz: `${(band.lowFreqHz + band.highFreqHz) / 2} Hz`,
-      measurementBandwidthHz: `${band.highFreqHz - band.lowFreqHz} Hz`,
-      reading: { unit: 'dBm', value: `${channelPowerDbm} dBm` },
-      evidenceFileId: band.evidenceId,
-      notes: `Channel power of ${fileName} from ${band.lowFreqHz} Hz to ${band.highFreqHz} Hz, computed on the display trace (${b.pointCount} points, ${b.binSpacingHz.toPrecision(4)} Hz apart${b.decimated ? `, reduced from ${b.sourcePointCount}` : ''}${b.enbwHz ? `, noise bandwidth ${b.enbwHz} Hz` : ''}); radio library ${band.libraryVersion}.`,
-    }
-    save.mutate(measurement, {
+    const request: BandMeasurementRequestInput = { lowFreqHz: band.lowFreqHz, highFreqHz: band.highFreqHz, takenAt, latDeg: la.value, lonDeg: lo.value }
+    save.mutate(request, {
       onSuccess: () => setSaved(true),
       onError: (err) => {
         if (!isApiError(err)) return setErrors({ form: 'The measurement could not be saved.' })
@@ -69,7 +61,7 @@ export function SaveBandForm({ caseId, fileName, band, channelPowerDbm }: { case
   return (
     <form onSubmit={submit} noValidate aria-label="Save as a measurement" className="flex flex-col gap-3 rounded-control border border-rule p-3">
       <h4 className="font-semibold">Save as a measurement</h4>
-      <p className="text-sm">The file does not say when and where it was recorded: give both. The reading is the channel power in dBm over the band.</p>
+      <p className="text-sm">The file does not say when and where it was recorded: give both. The reading is the channel power in dBm over the band, computed again by the server from the stored trace.</p>
       <TextField label="Recorded at" name={`band-taken-${band.evidenceId}`} type="datetime-local" value={takenAtLocal} onChange={(e) => setTakenAtLocal(e.target.value)} error={errors.takenAt} />
       <div className="grid grid-cols-1 gap-3 sm:grid-cols-2">
         <QuantityField label="Latitude" name={`band-lat-${band.evidenceId}`} kind="angle" value={lat} onChange={setLat} error={errors.latDeg} hint="Decimal degrees, north positive (WGS 84)." />

@@ -142,7 +142,7 @@ export function SpectrumView({ caseId, evidence }: { caseId: string; evidence: E
         </Button>
       </form>
 
-      {result && <BandResult caseId={caseId} fileName={evidence.originalName} result={result} />}
+      {result && <BandResult caseId={caseId} result={result} />}
     </section>
   )
 }

@@ -17,7 +17,20 @@ function antennaText(m: Measurement): string {
   return 'None given'
 }
 
-export function MeasurementCard({ m, number, onEdit, onCorrect }: { m: Measurement; number: number; onEdit: () => void; onCorrect: () => void }) {
+export function MeasurementCard({
+  m,
+  number,
+  evidenceName,
+  onEdit,
+  onCorrect,
+}: {
+  m: Measurement
+  number: number
+  /** The linked evidence file's name, when the case's files could be read. */
+  evidenceName?: string
+  onEdit: () => void
+  onCorrect: () => void
+}) {
   const superseded = m.supersededById !== null
   const headingId = `measurement-${m.id}`
   const taken = new Date(m.takenAt).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short' })
@@ -32,6 +45,7 @@ export function MeasurementCard({ m, number, onEdit, onCorrect }: { m: Measureme
   if (settings.length) details.push(['Settings', settings.join(', ')])
   if (m.cableLossDb !== null || m.preampGainDb !== null) details.push(['Chain', [m.cableLossDb !== null && `cable ${m.cableLossDb} dB`, m.preampGainDb !== null && `preamplifier ${m.preampGainDb} dB`].filter(Boolean).join(', ')])
   if (m.bearingDeg !== null) details.push(['Bearing', `${m.bearingDeg}° true${m.bearingSigmaDeg !== null ? ` (σ ${m.bearingSigmaDeg}°)` : ''}`])
+  if (m.evidenceFileId) details.push(['Evidence file', evidenceName ?? `File ${m.evidenceFileId.slice(0, 8)}… (its name could not be read)`])
   if (m.notes) details.push(['Notes', m.notes])
   details.push(['Recorded by', `${m.author}, version ${m.version}${m.usedByCalculations > 0 ? ` · used by ${m.usedByCalculations} calculation${m.usedByCalculations > 1 ? 's' : ''}` : ''}`])
 

@@ -14,6 +14,7 @@ import { SelectField } from '@/components/ui/select-field'
 import { SubmitButton } from '@/components/ui/submit-button'
 import { TextAreaField } from '@/components/ui/text-area-field'
 import { TextField } from '@/components/ui/text-field'
+import { shortHash, useCaseEvidence } from '@/lib/case-evidence'
 import { fieldIssues, unplacedIssues } from '@/lib/field-issues'
 import { formProblem } from '@/lib/form-errors'
 import type { Measurement } from '../api/get-measurements'
@@ -49,10 +50,11 @@ const PATHS_OF: Record<keyof MeasurementFormState, string[]> = {
   bearing: ['bearingDeg', 'bearingSigmaDeg'],
   bearingSigma: ['bearingSigmaDeg'],
   notes: ['notes'],
+  evidenceFileId: ['evidenceFileId'],
 }
 
 /** Fields of the form, by the path the server's messages name. */
-const PLACED = ['takenAt', 'latDeg', 'lonDeg', 'heightM', 'freqHz', 'measurementBandwidthHz', 'rbwHz', 'detector', 'reading', 'antenna', 'instrumentId', 'cableLossDb', 'preampGainDb', 'polarisation', 'bearingDeg', 'bearingSigmaDeg', 'notes']
+const PLACED = ['takenAt', 'latDeg', 'lonDeg', 'heightM', 'freqHz', 'measurementBandwidthHz', 'rbwHz', 'detector', 'reading', 'antenna', 'instrumentId', 'cableLossDb', 'preampGainDb', 'polarisation', 'bearingDeg', 'bearingSigmaDeg', 'notes', 'evidenceFileId']
 
 export function MeasurementForm({
   caseId,
@@ -78,6 +80,9 @@ export function MeasurementForm({
   }
   const live = useMemo(() => liveLevels(s, equipment), [s, equipment])
   const issues = fieldIssues(save.error, 'measurement')
+  const evidence = useCaseEvidence(caseId)
+  // the case's files that were not removed, and the one already linked (kept on an edit even if removed since)
+  const files = (evidence.data?.evidence ?? []).filter((f) => f.removed === null || f.id === s.evidenceFileId)
   const antennas = equipment.filter((e) => e.type === 'antenna')
   const instruments = equipment.filter((e) => INSTRUMENT_TYPES.includes(e.type))
 
@@ -230,6 +235,19 @@ export function MeasurementForm({
             </div>
           </fieldset>
 
+          <SelectField
+            label="Evidence file (optional)"
+            name="evidenceFileId"
+            value={s.evidenceFileId}
+            onChange={(e) => set('evidenceFileId', e.target.value)}
+            options={[
+              { value: '', label: 'None' },
+              ...(s.evidenceFileId && !files.some((f) => f.id === s.evidenceFileId) ? [{ value: s.evidenceFileId, label: 'The file linked now' }] : []),
+              ...files.map((f) => ({ value: f.id, label: `${f.originalName} (SHA-256 ${shortHash(f.sha256)}…)${f.removed ? ' — removed from the case' : ''}` })),
+            ]}
+            hint={evidence.isError ? 'The case’s evidence files could not be loaded.' : 'The capture or file of the case this reading comes from.'}
+            error={sel('evidenceFileId')}
+          />
           <TextAreaField label="Notes" name="notes" rows={3} value={s.notes} onChange={(e) => set('notes', e.target.value)} error={sel('notes')} />
         </div>
         <aside className="flex flex-col gap-3 @4xl:sticky @4xl:top-4">

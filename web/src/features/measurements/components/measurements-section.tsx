@@ -8,6 +8,7 @@ import { EstimateCaution } from '@/components/cautions/estimate-caution'
 import { Button } from '@/components/ui/button'
 import { Loading } from '@/components/ui/loading'
 import { QueryError } from '@/components/ui/query-error'
+import { useCaseEvidence } from '@/lib/case-evidence'
 import { useMeasurements } from '../api/get-measurements'
 import { useOfficeEquipment } from '../api/get-office-equipment'
 import { MeasurementCard } from './measurement-card'
@@ -15,6 +16,8 @@ import { MeasurementForm, type FormMode } from './measurement-form'
 
 export function MeasurementsSection({ caseId, officeId, casePoint }: { caseId: string; officeId: string; casePoint: { latDeg: number; lonDeg: number } }) {
   const list = useMeasurements(caseId)
+  const evidence = useCaseEvidence(caseId)
+  const fileNames = new Map((evidence.data?.evidence ?? []).map((f) => [f.id, f.originalName]))
   const [mode, setMode] = useState<FormMode | null>(null)
   const equipment = useOfficeEquipment(officeId, mode !== null)
   const open = (m: FormMode) => {
@@ -49,7 +52,7 @@ export function MeasurementsSection({ caseId, officeId, casePoint }: { caseId: s
           <EstimateCaution />
           <ol aria-label="Measurements, by the time they were taken" className="flex flex-col gap-3">
             {measurements.map((m, i) => (
-              <MeasurementCard key={m.id} m={m} number={i + 1} onEdit={() => open({ kind: 'edit', measurement: m })} onCorrect={() => open({ kind: 'correct', measurement: m })} />
+              <MeasurementCard key={m.id} m={m} number={i + 1} evidenceName={m.evidenceFileId ? fileNames.get(m.evidenceFileId) : undefined} onEdit={() => open({ kind: 'edit', measurement: m })} onCorrect={() => open({ kind: 'correct', measurement: m })} />
             ))}
           </ol>
         </>

@@ -36,6 +36,8 @@ export interface MeasurementFormState {
   bearing: QuantityValue
   bearingSigma: QuantityValue
   notes: string
+  /** The case's evidence file the reading comes from ('' for none). */
+  evidenceFileId: string
 }
 
 /** The unit the reading field starts in for a kind of reading (its base unit). */
@@ -63,6 +65,7 @@ export function emptyForm(now: Date): MeasurementFormState {
     bearing: { figure: '', unit: '°' },
     bearingSigma: { figure: '', unit: '°' },
     notes: '',
+    evidenceFileId: '',
   }
 }
 
@@ -90,6 +93,7 @@ export function formFrom(m: MeasurementView): MeasurementFormState {
     bearing: baseFigure(m.bearingDeg, '°'),
     bearingSigma: baseFigure(m.bearingSigmaDeg, '°'),
     notes: m.notes ?? '',
+    evidenceFileId: m.evidenceFileId ?? '',
   }
 }
 
@@ -123,6 +127,7 @@ export function toRequest(s: MeasurementFormState): MeasurementContentInput {
     bearingDeg: opt(s.bearing),
     bearingSigmaDeg: opt(s.bearingSigma),
     notes: s.notes || null,
+    evidenceFileId: s.evidenceFileId || undefined,
   }
 }
 

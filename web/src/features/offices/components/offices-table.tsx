@@ -1,6 +1,6 @@
 /** Offices with their region, centre and response targets (hours per priority). */
 import { PriorityShape } from '@/components/ui/priority-badge'
-import { PRIORITIES, type Priority } from '@shared/domain/services'
+import { PRIORITIES, PRIORITY_LABELS, type Priority } from '@shared/domain/services'
 import { TableFrame } from '@/components/ui/table'
 import type { Office } from '../api/get-offices'
 
@@ -19,7 +19,7 @@ export function OfficesTable({ offices }: { offices: Office[] }) {
             <span className={SHAPE_COLOUR[level]}>
               <PriorityShape level={level} />
             </span>
-            P{level} target
+            {PRIORITY_LABELS[level].short}: target
           </span>
         </th>
       ))}

@@ -1,12 +1,14 @@
 /**
- * An office's response targets, one figure of hours per priority. Changing them moves the due
- * time of the office's open cases.
+ * One of an office's two targets (shared/domain/case-clocks.ts), one figure of hours per harm
+ * class: first response or resolution. Changing them moves the due times of the office's cases
+ * whose clock still runs.
  */
 import { useState } from 'react'
 import { useForm } from 'react-hook-form'
 import { zodResolver } from '@hookform/resolvers/zod'
 import { responseTargetsSchema } from '@shared/schemas/auth'
 import { PRIORITIES, PRIORITY_LABELS, type Priority } from '@shared/domain/services'
+import type { CaseClockName } from '@shared/domain/case-clocks'
 import { TextField } from '@/components/ui/text-field'
 import { SubmitButton } from '@/components/ui/submit-button'
 import { FormAlert } from '@/components/ui/form-alert'
@@ -16,29 +18,35 @@ import { useSetResponseTargets, type ResponseTargets } from '../api/set-response
 
 const key = (p: Priority) => `p${p}` as const
 
-export function ResponseTargetsForm({ office }: { office: Office }) {
+const WORDS: Record<CaseClockName, { name: string; saved: string }> = {
+  firstResponse: { name: 'First-response targets', saved: 'Saved. Cases still waiting for a first response now follow these targets.' },
+  resolution: { name: 'Resolution targets', saved: "Saved. Due times of the office's open cases now follow these targets." },
+}
+
+export function ResponseTargetsForm({ office, clock }: { office: Office; clock: CaseClockName }) {
   const save = useSetResponseTargets()
   const [problem, setProblem] = useState<FormProblem | null>(null)
   const [saved, setSaved] = useState(false)
-  const form = useForm<ResponseTargets>({ resolver: zodResolver(responseTargetsSchema), defaultValues: office.responseTargetsHours })
+  const form = useForm<ResponseTargets>({ resolver: zodResolver(responseTargetsSchema), defaultValues: clock === 'firstResponse' ? office.firstResponseTargetsHours : office.responseTargetsHours })
   const onSubmit = form.handleSubmit(async (targets) => {
     setProblem(null)
     setSaved(false)
     try {
-      await save.mutateAsync({ officeId: office.id, targets })
+      await save.mutateAsync({ officeId: office.id, clock, targets })
       setSaved(true)
     } catch (error) {
       if (!applyFieldErrors({ error, setError: form.setError, fields: ['p1', 'p2', 'p3', 'p4'] })) setProblem(formProblem(error))
     }
   })
   return (
-    <form noValidate onSubmit={onSubmit} aria-label={`Response targets of ${office.name}`} className="flex flex-col gap-4">
+    <form noValidate onSubmit={onSubmit} aria-label={`${WORDS[clock].name} of ${office.name}`} className="flex flex-col gap-4">
+      <h3 className="font-bold">{WORDS[clock].name}</h3>
       <div className="grid gap-4 sm:grid-cols-4">
         {PRIORITIES.map((p) => (
           <TextField
             key={p}
-            id={`targets-${office.id}-${key(p)}`}
-            label={`P${p} ${PRIORITY_LABELS[p].short} (hours)`}
+            id={`targets-${clock}-${office.id}-${key(p)}`}
+            label={`${PRIORITY_LABELS[p].short} (hours)`}
             type="number"
             min={1}
             step={1}
@@ -51,12 +59,12 @@ export function ResponseTargetsForm({ office }: { office: Office }) {
       <FormAlert problem={problem} />
       {saved && (
         <p role="status" className="text-sm">
-          Saved. Due times of the office's open cases now follow these targets.
+          {WORDS[clock].saved}
         </p>
       )}
       <div>
         <SubmitButton submitting={form.formState.isSubmitting} pendingLabel="Saving…" variant="secondary">
-          Save response targets
+          Save {WORDS[clock].name.toLowerCase()}
         </SubmitButton>
       </div>
     </form>
