@@ -11,7 +11,7 @@
  * (major: a method's meaning or inputs change; minor: a method is added; patch: a correction
  * that moves a number). Stored results carry it next to their method id.
  */
-export const RADIO_LIBRARY_VERSION = '2.2.0'
+export const RADIO_LIBRARY_VERSION = '2.3.0'
 
 export * from './types'
 export * from './constants'

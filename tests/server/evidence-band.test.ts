@@ -244,6 +244,19 @@ describe('POST /api/evidence/:id/band-measurement', () => {
     noEnbw = await addEvidence(bandCase.id, Buffer.from('Frequency (MHz),Level (dBm)\n' + VARIED_FREQ_HZ.map((f, i) => `${f / 1e6},${VARIED_LEVEL_DBM[i]}`).join('\n')), 'no-rbw.csv', 'text/csv', 'spectrum_capture')
   })
 
+  it('reads the noise bandwidth a CSV trace states on an "# ENBW:" line, and stores the same channel power as the JSON trace', async () => {
+    const csv = `# ENBW: ${VARIED_ENBW_HZ / 1e3} kHz\nFrequency (MHz),Level (dBm)\n` + VARIED_FREQ_HZ.map((f, i) => `${f / 1e6},${VARIED_LEVEL_DBM[i]}`).join('\n')
+    const withEnbw = await addEvidence(bandCase.id, Buffer.from(csv), 'with-enbw.csv', 'text/csv', 'spectrum_capture')
+    const agent = await signIn(t, assigned)
+    const fromCsv = await agent.post(`/api/evidence/${withEnbw}/band-measurement`).send({ ...BAND, ...whenWhere })
+    expect(fromCsv.status, fromCsv.text).toBe(201)
+    // the same points summed by hand, as in the JSON case below (common practice, no source)
+    let sumMw = 0
+    for (const l of VARIED_LEVEL_DBM.slice(31, 51)) sumMw += Math.pow(10, l / 10)
+    expect(fromCsv.body.measurement.reading.value).toBeCloseTo(10 * Math.log10(sumMw), 9)
+    expect(fromCsv.body.band.basis.enbwHz).toBe(VARIED_ENBW_HZ)
+  })
+
   it(`stores the band's channel power as the reading, equal to the in-band points summed by hand: ${cite('Keysight Application Note 150, Spectrum Analysis Basics, ch. 5', '14-1')} [D]`, async () => {
     const agent = await signIn(t, assigned)
     // a page that sends its own level, frequency and method: none of them is read

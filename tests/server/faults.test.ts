@@ -24,6 +24,7 @@ import { seedDemo, DEMO_PASSWORD } from '../../ops/seed-demo'
 import { freePort } from '../../ops/local/free-port'
 import { startSmtpFake, type SmtpFake } from '../../ops/local/smtp-fake'
 import { uniqueAddress } from '../support/harness'
+import { ensureDemoP12 } from '../../server/modules/case-file/case-file-signing'
 import { validReport } from '../support/cases'
 
 const ROOT = fileURLToPath(new URL('../..', import.meta.url))
@@ -64,8 +65,12 @@ interface App {
   alive(): boolean
 }
 
+/** Production requires the office's signing certificate: a demo one, made once for this file. */
+let caseFileP12: { path: string; passphrase: string } | undefined
+
 /** Starts `server/index.ts` as production does, configured only through its environment. */
 async function startApp(extra: Record<string, string> = {}): Promise<App> {
+  caseFileP12 ??= ensureDemoP12(path.join(fs.mkdtempSync(path.join(os.tmpdir(), 'qb-faults-')), 'case-file.p12'))
   const port = await freePort()
   const url = `http://127.0.0.1:${port}`
   const env: NodeJS.ProcessEnv = {
@@ -85,6 +90,8 @@ async function startApp(extra: Record<string, string> = {}): Promise<App> {
     S3_SECRET_ACCESS_KEY: 'unused',
     SMTP_URL: relay.url,
     TRUST_PROXY: '1',
+    CASE_FILE_P12_PATH: caseFileP12.path,
+    CASE_FILE_P12_PASSPHRASE: caseFileP12.passphrase,
     ...extra,
   }
   const proc = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], { cwd: ROOT, env, stdio: ['ignore', 'pipe', 'pipe'] })

@@ -12,6 +12,7 @@ import {
   type ResponsiblePartyResponse,
 } from '../../shared/schemas/follow-ups'
 import { MAIL_KINDS, mailKindWhen, mailKindsFor } from '../../shared/domain/mail-kinds'
+import { answer } from './msw-server'
 
 export const FU_CASE_ID = '0b6f1c2e-5d3a-4e8b-9c71-2a4f6e8d0c13'
 
@@ -65,4 +66,10 @@ export function myEmails(role: MyEmailsResponse['role'], address = 'ilse.marrow@
     address,
     kinds: mailKindsFor(role).map((k) => ({ kind: k, when: mailKindWhen(k, role), account: 'account' in MAIL_KINDS[k] })),
   })
+}
+
+/** The case page's enforcement sections with nothing recorded yet: for tests of the case page's other parts. */
+export function answerNoEnforcementRecords(): void {
+  answer('get', '/api/cases/:id/follow-ups', caseFollowUps({ followUps: [] }))
+  answer('get', '/api/cases/:id/responsible-party', partyResponse({ current: null, earlier: [] }))
 }

@@ -8,6 +8,7 @@ import { measurementsResponse } from '../support/msw-measurements'
 import { abilities, caseResponse, IDS, investigatorsResponse, mergeCandidatesResponse, transferOfficesResponse } from '../support/msw-views'
 import { renderPage } from '../support/web-render'
 import { calculationsResponse, findingsResponse } from '../support/msw-findings'
+import { answerNoEnforcementRecords } from '../support/msw-follow-ups'
 
 const CASE_URL = `/cases/${IDS.case}`
 
@@ -20,6 +21,7 @@ function serveTheCase(options: { abilities: CaseAbilities; changes?: Partial<Cas
   answer('get', '/api/cases/:id/calculations', calculationsResponse([]))
   answer('get', '/api/cases/:id/measurements', measurementsResponse())
   answer('get', '/api/cases/:id/evidence', { evidence: [] })
+  answerNoEnforcementRecords()
   return {
     transferOffices: answer('get', '/api/cases/:id/transfer-offices', transferOfficesResponse(options.otherOffices === false ? [] : undefined)),
   }
@@ -135,8 +137,10 @@ describe('the case page’s action panel', () => {
     answer('get', '/api/cases/:id/calculations', calculationsResponse([]))
     answer('get', '/api/cases/:id/measurements', measurementsResponse())
     answer('get', '/api/cases/:id/evidence', { evidence: [] })
+    answerNoEnforcementRecords()
   answer('get', '/api/cases/:id/measurements', measurementsResponse())
   answer('get', '/api/cases/:id/evidence', { evidence: [] })
+  answerNoEnforcementRecords()
     answer('post', '/api/cases/:id/start-field-work', () =>
       apiError(409, { code: 'stale_version', message: 'The case was changed by someone else. Reload it and try again.' }),
     )

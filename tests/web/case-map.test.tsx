@@ -14,6 +14,7 @@ import { paths } from '@/lib/paths'
 import { answer, apiError } from '../support/msw-server'
 import { abilities, caseResponse, IDS, regionMapResponse } from '../support/msw-views'
 import { renderPage } from '../support/web-render'
+import { answerNoEnforcementRecords } from '../support/msw-follow-ups'
 
 const NEARBY = nearbyCasesResponseSchema.parse({
   cases: [
@@ -29,6 +30,7 @@ function serveCase(nearby: Parameters<typeof answer>[2]) {
   answer('get', '/api/cases/:id/calculations', calculationsResponseSchema.parse({ calculations: [] }))
   answer('get', '/api/cases/:id/measurements', measurementsResponseSchema.parse({ measurements: [], abilities: { record: true } }))
   answer('get', '/api/cases/:id/evidence', { evidence: [] })
+  answerNoEnforcementRecords()
   answer('get', '/api/offices/:id/equipment', equipmentListResponseSchema.parse({ items: [], abilities: { manage: false } }))
   answer('get', '/api/region', regionMapResponse())
   return answer('get', '/api/cases/:id/nearby-cases', nearby)

@@ -18,6 +18,7 @@ import { paths } from '@/lib/paths'
 import { answer, apiError } from '../support/msw-server'
 import { abilities, caseResponse, IDS } from '../support/msw-views'
 import { renderPage } from '../support/web-render'
+import { answerNoEnforcementRecords } from '../support/msw-follow-ups'
 
 const calculatorRoutes = [{ path: paths.calculator.path, Component: CalculatorPage }]
 const STATION_ID = '5d6e7f80-91a2-4b3c-8d4e-5f6a7b8c9d0e'
@@ -51,6 +52,7 @@ function serveWorkedCase(calculations: CalculationView[] = []) {
   answer('get', '/api/cases/:id/calculations', calculationsResponseSchema.parse({ calculations }))
   answer('get', '/api/cases/:id/measurements', measurementsResponseSchema.parse({ measurements: [], abilities: { record: true } }))
   answer('get', '/api/cases/:id/evidence', { evidence: [] })
+  answerNoEnforcementRecords()
   // the case page's measurement panel asks for the office's equipment
   answer('get', '/api/offices/:id/equipment', equipmentListResponseSchema.parse({ items: [], abilities: { manage: false } }))
 }

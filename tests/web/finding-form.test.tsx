@@ -7,6 +7,7 @@ import { measurementsResponse } from '../support/msw-measurements'
 import { abilities, caseResponse, IDS } from '../support/msw-views'
 import { calculationsResponse, calculationView, FINDING_IDS, findingsResponse } from '../support/msw-findings'
 import { renderPage } from '../support/web-render'
+import { answerNoEnforcementRecords } from '../support/msw-follow-ups'
 
 const assigned = { status: 'field_work', investigatorId: IDS.investigatorIlse, investigatorName: 'Ilse Brannock', version: 4 } as const
 
@@ -15,6 +16,7 @@ function serveTheCase() {
   answer('get', '/api/cases/:id/findings', findingsResponse())
   answer('get', '/api/cases/:id/measurements', measurementsResponse())
   answer('get', '/api/cases/:id/evidence', { evidence: [] })
+  answerNoEnforcementRecords()
   answer(
     'get',
     '/api/cases/:id/calculations',

@@ -7,6 +7,7 @@ import { measurementsResponse } from '../support/msw-measurements'
 import { abilities, caseResponse, IDS, regionMapResponse } from '../support/msw-views'
 import { calculationsResponse, FINDING_IDS, findingsResponse, findingView } from '../support/msw-findings'
 import { renderPage } from '../support/web-render'
+import { answerNoEnforcementRecords } from '../support/msw-follow-ups'
 
 const WARNING = 'The distance is inside the near field of a large antenna; the estimate may be high.'
 
@@ -15,6 +16,7 @@ function serve(status: 'finding_proposed' | 'closed', can: Parameters<typeof abi
   answer('get', '/api/cases/:id/calculations', calculationsResponse())
   answer('get', '/api/cases/:id/measurements', measurementsResponse())
   answer('get', '/api/cases/:id/evidence', { evidence: [] })
+  answerNoEnforcementRecords()
   answer('get', '/api/region', regionMapResponse())
   answer(
     'get',

@@ -3,7 +3,10 @@
  *
  * Document: a generic format of the library's own (no standard): one optional header line
  * that may carry units ('Hz', 'kHz', 'MHz', 'GHz'; 'dBm', 'dBuV', 'dBµV'), comma or semicolon
- * separators, decimal point, blank lines and '#' comment lines ignored. Levels in dBµV are
+ * separators, decimal point, blank lines and '#' comment lines ignored, except one comment line
+ * before the data that states the bandwidth the levels were read in: `# ENBW: 10 kHz` (the noise
+ * bandwidth) or `# RBW: 10 kHz` (the analyser's resolution bandwidth, then taken as the noise
+ * bandwidth with a warning). Levels in dBµV are
  * converted to dBm across the receiver impedance (default 50 Ω) with units.ts (register 2-6, 2-7 in CHECK-VALUES.md).
  * The `Eq. (n)` tags refer to the list below.
  *
@@ -36,7 +39,38 @@ export interface ParsedTrace {
   separator: ',' | ';'
   /** 1-based line number of the header, when there is one. */
   headerLine?: number
+  /** The noise bandwidth the levels were read in, from an `# ENBW:` or `# RBW:` line [Hz]; null when none. */
+  noiseBandwidthHz: number | null
+  /** Which line stated it: 'ENBW' exactly, or 'RBW' taken as the noise bandwidth. */
+  noiseBandwidthFrom: 'ENBW' | 'RBW' | null
   warnings: string[]
+}
+
+const BANDWIDTH_LINE = /^#\s*(ENBW|RBW)\b/i
+const BANDWIDTH_VALUE = /^#\s*(ENBW|RBW)\s*[:=]\s*([+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?)\s*(Hz|kHz|MHz|GHz)\s*$/i
+
+/**
+ * The bandwidth stated by a comment line before the first data row (`# ENBW: 10 kHz`,
+ * `# RBW = 9.1 kHz`). A line that names ENBW or RBW but cannot be read, a second one, or a
+ * bandwidth that is not positive is an error naming its line: a wrong bandwidth would scale
+ * every channel power computed from the trace.
+ */
+export function readTraceBandwidth(text: string): { hz: number; from: 'ENBW' | 'RBW'; lineNumber: number } | null {
+  const lines = new Lines(text)
+  let found: { hz: number; from: 'ENBW' | 'RBW'; lineNumber: number } | null = null
+  while (lines.nextRaw()) {
+    const line = text.slice(lines.start, lines.end).trim()
+    if (line === '') continue
+    if (line.charCodeAt(0) !== 35) break // the first content line ends the preamble
+    if (!BANDWIDTH_LINE.test(line)) continue
+    const m = BANDWIDTH_VALUE.exec(line)
+    if (!m) throw new TraceCsvError(`'${line}' does not read as a bandwidth; write e.g. '# RBW: 10 kHz' (Hz, kHz, MHz or GHz).`, lines.lineNumber)
+    if (found) throw new TraceCsvError(`a second bandwidth line; line ${found.lineNumber} already states one.`, lines.lineNumber)
+    const hz = Number(m[2]) * FREQ_SCALE[({ hz: 'Hz', khz: 'kHz', mhz: 'MHz', ghz: 'GHz' } as const)[m[3]!.toLowerCase() as 'hz' | 'khz' | 'mhz' | 'ghz']] // Eq. (1) [Hz]
+    if (!(hz > 0) || !Number.isFinite(hz)) throw new TraceCsvError(`the bandwidth must be a positive number of hertz.`, lines.lineNumber)
+    found = { hz, from: m[1]!.toUpperCase() as 'ENBW' | 'RBW', lineNumber: lines.lineNumber }
+  }
+  return found
 }
 
 export interface ParseTraceCsvOptions {
@@ -114,7 +148,7 @@ let quickValue = NaN
  * `quickValue` to its value when the digits form an integer below 2^53 and the decimal
  * exponent is within ±22: then mantissa × or ÷ 10^k is one correctly rounded operation on
  * exact doubles, so it equals Number(text) (W. D. Clinger, "How to read floating point
- * numbers accurately", PLDI 1990 — the fast path, common practice); otherwise NaN.
+ * numbers accurately", PLDI 1990 [M] — the fast path, common practice); otherwise NaN.
  */
 function numberEnd(t: string, i: number, end: number): number {
   let c = t.charCodeAt(i)
@@ -208,6 +242,12 @@ export function parseTraceCsv(opts: ParseTraceCsvOptions): ParsedTrace {
   const firstFields = splitRow(first.text, separator)
   const hasHeader = !NUMBER.test(firstFields[0] ?? '')
   const warnings: string[] = []
+  const bandwidth = readTraceBandwidth(text)
+  if (bandwidth?.from === 'RBW') {
+    warnings.push(
+      `The resolution bandwidth on line ${bandwidth.lineNumber} is taken as the noise bandwidth; an analyser's RBW filter usually passes a few per cent more noise power than its RBW (see its data sheet), so a channel power may read slightly high.`,
+    )
+  }
   let freqUnit: FreqUnit | undefined = opts.defaultFreqUnit
   let levelUnit: LevelUnit | undefined = opts.defaultLevelUnit
   let headerLine: number | undefined
@@ -281,7 +321,7 @@ export function parseTraceCsv(opts: ParseTraceCsvOptions): ParsedTrace {
     if (row) readRow(row.text, row.lineNumber)
   }
   if (freqHz.length === 0) throw new TraceCsvError('the trace CSV has a header but no data rows.')
-  return { freqHz, levelDbm, freqUnit, levelUnit, separator, headerLine, warnings }
+  return { freqHz, levelDbm, freqUnit, levelUnit, separator, headerLine, noiseBandwidthHz: bandwidth?.hz ?? null, noiseBandwidthFrom: bandwidth?.from ?? null, warnings }
 }
 
 function splitRow(text: string, separator: string): string[] {

@@ -108,7 +108,7 @@ async function readText(source: AsyncIterable<Uint8Array>, maxBytes: number): Pr
 function analyseTraceCsv(text: string): SpectrumAnalysis {
   const parsed = parseTraceCsv({ csvText: text })
   return {
-    summary: summarise({ trace: parsed, enbwHz: null, levelUnit: 'dBm', source: 'trace_csv', recording: null, warnings: parsed.warnings, methods: [] }),
+    summary: summarise({ trace: parsed, enbwHz: parsed.noiseBandwidthHz, levelUnit: 'dBm', source: 'trace_csv', recording: null, warnings: parsed.warnings, methods: [] }),
     displayTrace: displayTraceOf(parsed),
     spectrogram: null,
   }

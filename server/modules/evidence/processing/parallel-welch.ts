@@ -188,8 +188,13 @@ export function createParallelWelchAccumulator(opts: ParallelWelchOptions): Para
   let firstOpenRange = 0
   let finished = false
   const { sumW, sumW2 } = windowSums(windowSamples({ kind: settings.windowKind, length: n }))
+  const forget = () =>
+    ws.forEach((p) => {
+      p.handlers.delete(jobId)
+      post(p, { type: 'abort', jobId })
+    })
 
-  return {
+  const accumulator: ParallelWelchAccumulator = {
     workerCount,
     get samplesPushed() {
       return pushed
@@ -226,6 +231,7 @@ export function createParallelWelchAccumulator(opts: ParallelWelchOptions): Para
     async result() {
       if (finished) throw new Error('result() was already asked for.')
       finished = true
+      abandoned.unregister(accumulator)
       ws.forEach((p) => post(p, { type: 'finish', jobId }))
       await new Promise<void>((resolve) => {
         settle = () => {
@@ -238,7 +244,7 @@ export function createParallelWelchAccumulator(opts: ParallelWelchOptions): Para
       let failed: Extract<WorkerReply, { type: 'failed' }> | undefined
       for (const r of replies) if (r?.type === 'failed' && (!failed || r.atSample < failed.atSample)) failed = r
       if (failed) {
-        ws.forEach((p) => post(p, { type: 'abort', jobId }))
+        forget()
         throw failed.isRangeError ? new RangeError(failed.message) : new Error(failed.message)
       }
       const acc = new Float64Array(n)
@@ -269,10 +275,13 @@ export function createParallelWelchAccumulator(opts: ParallelWelchOptions): Para
     },
     abort() {
       finished = true
-      ws.forEach((p) => {
-        p.handlers.delete(jobId)
-        post(p, { type: 'abort', jobId })
-      })
+      abandoned.unregister(accumulator)
+      forget()
     },
   }
+  // an estimate dropped unfinished (the file failed half-way) is forgotten by the workers too
+  abandoned.register(accumulator, forget, accumulator)
+  return accumulator
 }
+
+const abandoned = new FinalizationRegistry<() => void>((forget) => forget())

@@ -104,3 +104,37 @@ describe('parseTraceCsv with bad input', () => {
     expect(() => parseTraceCsv({ csvText: '1,2\n', impedanceOhm: 0 })).toThrow(RangeError)
   })
 })
+
+describe('parseTraceCsv: the bandwidth a trace states', () => {
+  const rows = 'Frequency (MHz),Level (dBm)\n446.000,-90\n446.010,-60\n446.020,-90\n'
+
+  it('reads an ENBW line before the data as the noise bandwidth, in the unit it names', () => {
+    const parsed = parseTraceCsv({ csvText: `# exported 2026-12-01\n# ENBW: 9.5 kHz\n${rows}` })
+    expect(parsed.noiseBandwidthHz).toBe(9500)
+    expect(parsed.noiseBandwidthFrom).toBe('ENBW')
+    expect(parsed.warnings.join(' ')).not.toMatch(/resolution bandwidth/)
+    expect(parsed.freqHz).toEqual([446e6, 446.01e6, 446.02e6])
+  })
+
+  it('takes an RBW line as the noise bandwidth, and says so', () => {
+    const parsed = parseTraceCsv({ csvText: `#RBW = 10 kHz\n${rows}` })
+    expect(parsed.noiseBandwidthHz).toBe(10_000)
+    expect(parsed.noiseBandwidthFrom).toBe('RBW')
+    expect(parsed.warnings.join(' ')).toMatch(/resolution bandwidth on line 1 is taken as the noise bandwidth/)
+  })
+
+  it('states no bandwidth when the file has none, and ignores one written after the data starts', () => {
+    expect(parseTraceCsv({ csvText: rows }).noiseBandwidthHz).toBeNull()
+    expect(parseTraceCsv({ csvText: `${rows}# RBW: 10 kHz\n` }).noiseBandwidthHz).toBeNull()
+  })
+
+  it.each([
+    ['# RBW: ten kHz', /line 1: .*does not read as a bandwidth/],
+    ['# RBW: 10', /line 1: .*does not read as a bandwidth/],
+    ['# ENBW: 0 Hz', /line 1: the bandwidth must be a positive number/],
+    ['# RBW: 10 kHz\n# ENBW: 9 kHz', /line 2: a second bandwidth line; line 1 already states one/],
+  ])('refuses %j with the line named', (preamble, message) => {
+    expect(() => parseTraceCsv({ csvText: `${preamble}\n${rows}` })).toThrow(TraceCsvError)
+    expect(() => parseTraceCsv({ csvText: `${preamble}\n${rows}` })).toThrow(message)
+  })
+})
