@@ -1,7 +1,10 @@
 /**
- * Demo cases for the invented Vellmark Coast region: ten complaints told through the real
+ * Demo cases for the invented Vellmark Coast region: eleven complaints told through the real
  * services (submitReport, triageCase, assignCase, …), so every timeline, tracking link and
- * queued e-mail is the one the product itself would write. The services run on the story's
+ * queued e-mail is the one the product itself would write. One closed Harrowmere case keeps an
+ * enforcement record: its finding's compliance deadline became a follow-up that has passed
+ * unconfirmed (overdue on the dashboard and the investigator's queue), a notice served by
+ * registered post, the owner's reply, and a second follow-up confirmed. The services run on the story's
  * clock (ServiceContext.now), so received, due and closed times and every timeline entry
  * agree with the story; nothing is rewritten afterwards. Nothing here is a real place,
  * person, licensee or station. Called by seedDemo right after the offices and staff exist.
@@ -11,6 +14,8 @@ import PgBoss from 'pg-boss'
 import type { Resolution } from '../shared/domain/case-lifecycle'
 import type { Priority } from '../shared/domain/services'
 import type { RecommendedAction } from '../shared/domain/findings'
+import type { NoticeMethod } from '../shared/domain/follow-ups'
+import { followUpInputSchema, followUpMoveInputSchema, noticeInputSchema, replyInputSchema, responsiblePartyInputSchema } from '../shared/schemas/follow-ups'
 import { reportSchema, type ReportInput } from '../shared/schemas/cases'
 import type { SessionUser } from '../shared/schemas/auth'
 import type { ServiceContext } from '../server/context'
@@ -20,6 +25,8 @@ import type { Actor } from '../server/policy/policy'
 import { submitReport } from '../server/modules/cases/reports.service'
 import { assignCase, closeCase, dismissReport, proposeFinding, returnFinding, startFieldWork, triageCase } from '../server/modules/cases/case-moves.service'
 import { addCaseNote } from '../server/modules/cases/case-notes.service'
+import { addFollowUp, moveFollowUp } from '../server/modules/follow-ups/follow-ups.service'
+import { recordNotice, recordReply, recordResponsibleParty } from '../server/modules/responsible-parties/responsible-parties.service'
 import { DEMO_REGION_BOX } from './demo-data/region'
 
 /** The demo region's bounding box (every demo and generated location lies inside it). */
@@ -29,11 +36,24 @@ type Step =
   | { move: 'triage'; priority: Priority; note?: string }
   | { move: 'assign'; investigator: string }
   | { move: 'startFieldWork' }
-  | { move: 'proposeFinding'; reason: string; source: string; action: RecommendedAction; operator?: string }
+  | { move: 'proposeFinding'; reason: string; source: string; action: RecommendedAction; operator?: string; complianceDays?: number }
   | { move: 'returnFinding'; reason: string }
   | { move: 'close'; resolution: Resolution; reason: string }
   | { move: 'dismiss'; resolution: 'no_interference_found' | 'referred'; reason: string }
   | { move: 'note'; by: 'supervisor' | 'investigator'; visibility: 'internal' | 'complainant'; body: string; requestsInformation?: boolean }
+
+/**
+ * The enforcement record kept after a closing, each entry so many hours after it: the party
+ * responsible for the source, a notice served on it, its reply, a follow-up added by staff and
+ * confirmed. Written by the responsible-party and follow-up services, as staff would.
+ */
+type EnforcementStep = { hoursAfterClosing: number; by: 'supervisor' | 'investigator' } & (
+  | { record: 'party'; name: string; address?: string; email?: string; phone?: string }
+  | { record: 'notice'; method: NoticeMethod; reference?: string; summary: string }
+  | { record: 'reply'; summary: string }
+  | { record: 'followUp'; dueInDays: number; expected: string }
+  | { record: 'confirmFollowUp'; note: string }
+)
 
 export interface DemoCase {
   /** The office the location must route to (checked while seeding). */
@@ -48,6 +68,8 @@ export interface DemoCase {
   /** When a closed story says it was closed. */
   closedHoursAgo?: number
   steps: Step[]
+  /** Kept after the closing (a closed story only). */
+  enforcement?: EnforcementStep[]
 }
 
 export const DEMO_CASES: readonly DemoCase[] = [
@@ -365,6 +387,61 @@ export const DEMO_CASES: readonly DemoCase[] = [
     },
     steps: [],
   },
+  {
+    office: 'Harrowmere',
+    receivedHoursAgo: 336,
+    startedDaysBefore: 10,
+    closedHoursAgo: 240,
+    report: {
+      name: 'Tamsin Oyelaran-Reid',
+      email: 'tamsin.or@example.test',
+      service: 'broadcasting',
+      frequencyFrom: 88,
+      frequencyTo: 108,
+      frequencyUnit: 'MHz',
+      address: '9 Lanthorn Street, Harrowmere',
+      latDeg: 48.09,
+      lonDeg: -31.41,
+      pattern: 'certain_hours',
+      patternDetail: 'Every day from dawn to dusk',
+      experience: 'degradation',
+      description:
+        'Since the spring FM radio in our street is drowned in a rough buzz during the day. At night it is clear. Three neighbours on Lanthorn Street hear the same on their kitchen radios.',
+    },
+    steps: [
+      { move: 'triage', priority: 3 },
+      { move: 'assign', investigator: 'm.ferreira@quietband.test' },
+      { move: 'startFieldWork' },
+      {
+        move: 'proposeFinding',
+        source: 'Battery charger of the rooftop solar system at 11 Lanthorn Street',
+        operator: 'Owner of 11 Lanthorn Street',
+        action: 'formal_warning',
+        complianceDays: 7,
+        reason:
+          'Walked the street with a portable receiver: the buzz peaks under the roof of 11 Lanthorn Street and stops when its solar battery charger is switched off. The charger carries no conformity marking. The owner must replace it with a compliant unit within 7 days.',
+      },
+      {
+        move: 'close',
+        resolution: 'enforcement_action',
+        reason: 'We found the source: a battery charger at a house in your street. Its owner has been formally told to replace it within 7 days, and we follow that up.',
+      },
+    ],
+    enforcement: [
+      { hoursAfterClosing: 2, by: 'investigator', record: 'party', name: 'Owen Pascoe-Marr (owner, 11 Lanthorn Street)', address: '11 Lanthorn Street, Harrowmere', phone: '+00 41 555 0187' },
+      {
+        hoursAfterClosing: 3,
+        by: 'investigator',
+        record: 'notice',
+        method: 'registered_post',
+        reference: 'RP 5520 1187 HM',
+        summary: 'Formal warning: replace the solar battery charger with a compliant unit within 7 days of the finding; keep it switched off until then.',
+      },
+      { hoursAfterClosing: 70, by: 'investigator', record: 'reply', summary: 'Letter from the owner: a replacement charger is on order; the old one stays switched off at night only.' },
+      { hoursAfterClosing: 72, by: 'investigator', record: 'followUp', dueInDays: 2, expected: 'Send the order confirmation of the replacement charger' },
+      { hoursAfterClosing: 100, by: 'investigator', record: 'confirmFollowUp', note: 'Order confirmation received by e-mail and filed.' },
+    ],
+  },
 ]
 
 /**
@@ -397,6 +474,47 @@ async function loadStaff(pool: pg.Pool): Promise<Map<string, Staff>> {
       },
     ]),
   )
+}
+
+/** The day (YYYY-MM-DD, UTC) of an instant. */
+const dayOf = (at: Date) => at.toISOString().slice(0, 10)
+
+/**
+ * Writes a closed story's enforcement record through the services, each entry at its hour
+ * after the closing (the inputs are parsed with the API's own schemas).
+ */
+async function seedEnforcement(
+  ctx: ServiceContext,
+  caseId: string,
+  steps: readonly EnforcementStep[],
+  o: { closedAt: Date; supervisor: Actor; investigator: Actor; setClock: (at: Date) => void },
+): Promise<void> {
+  let lastFollowUp: { id: string; version: number } | undefined
+  for (const step of steps) {
+    const at = new Date(o.closedAt.getTime() + step.hoursAfterClosing * 3600_000)
+    o.setClock(at)
+    const actor = step.by === 'supervisor' ? o.supervisor : o.investigator
+    switch (step.record) {
+      case 'party':
+        await recordResponsibleParty(ctx, actor, caseId, responsiblePartyInputSchema.parse({ name: step.name, address: step.address, email: step.email, phone: step.phone }))
+        break
+      case 'notice':
+        await recordNotice(ctx, actor, caseId, noticeInputSchema.parse({ servedOn: dayOf(at), method: step.method, reference: step.reference, summary: step.summary }))
+        break
+      case 'reply':
+        await recordReply(ctx, actor, caseId, replyInputSchema.parse({ receivedOn: dayOf(at), summary: step.summary }))
+        break
+      case 'followUp': {
+        const f = await addFollowUp(ctx, actor, caseId, followUpInputSchema.parse({ dueOn: dayOf(new Date(at.getTime() + step.dueInDays * 86_400_000)), expected: step.expected }))
+        lastFollowUp = { id: f.id, version: f.version }
+        break
+      }
+      case 'confirmFollowUp':
+        if (!lastFollowUp) throw new Error('demo enforcement: confirm a follow-up added before')
+        await moveFollowUp(ctx, actor, lastFollowUp.id, 'confirm', followUpMoveInputSchema.parse({ version: lastFollowUp.version, note: step.note }))
+        break
+    }
+  }
 }
 
 /** Files the demo cases and takes each through its story. Returns their references. */
@@ -456,6 +574,8 @@ export async function seedDemoCases(pool: pg.Pool, opts: { publicUrl?: string; n
                 sourceDescription: step.source,
                 operator: step.operator,
                 recommendedAction: step.action,
+                // a day of the story's clock (the seeder writes history, so the day may have passed since)
+                complianceDeadline: step.complianceDays !== undefined ? new Date(storyClock.getTime() + step.complianceDays * 86_400_000).toISOString().slice(0, 10) : undefined,
                 calculationIds: [],
                 evidenceIds: [],
               })
@@ -478,6 +598,17 @@ export async function seedDemoCases(pool: pg.Pool, opts: { publicUrl?: string; n
             })
             break
         }
+      }
+      if (story.enforcement) {
+        if (story.closedHoursAgo === undefined) throw new Error(`demo case at ${story.report.address}: enforcement records follow a closing`)
+        await seedEnforcement(ctx, filed.caseId, story.enforcement, {
+          closedAt: new Date(endAt),
+          supervisor,
+          investigator: investigator ?? supervisor,
+          setClock: (at) => {
+            storyClock = at
+          },
+        })
       }
       references.push(filed.reference)
     }

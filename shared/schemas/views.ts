@@ -91,6 +91,10 @@ export const caseDetailSchema = z.object({
   dueAt: instant,
   closedAt: instant.nullable(),
   overdue: z.boolean(),
+  /** The first-response clock (shared/domain/case-clocks.ts): its due time, the moment it stopped (null while none), overdue on it now. */
+  firstResponseDueAt: instant,
+  firstRespondedAt: instant.nullable(),
+  firstResponseOverdue: z.boolean(),
   abilities: caseAbilitiesSchema,
   timeline: z.array(timelineEventSchema),
 })

@@ -1,8 +1,11 @@
 /**
  * In Chromium: a supervisor opens the dashboard from the main navigation, follows a figure to
- * the filtered case list (which shows the same count), opens a case; the page fits 1440 px and
- * 390 px; an administrator narrows the dashboard to one office.
+ * the filtered case list (which shows the same count), opens a case and downloads its case file
+ * from the case page (the PDF's text, read with pdf-parse, holds the case's reference); the
+ * page fits 1440 px and 390 px; an administrator narrows the dashboard to one office.
  */
+import fs from 'node:fs'
+import { PDFParse } from 'pdf-parse'
 import { describe, expect, it } from 'vitest'
 import type { Page } from 'playwright-core'
 import { DEMO } from '../support/harness'
@@ -44,6 +47,18 @@ describe('the dashboard', () => {
     await firstCase.click()
     await page.waitForURL(/\/cases\/[0-9a-f-]{36}$/, { timeout: 20_000 })
     await page.getByRole('heading', { level: 1, name: new RegExp(reference) }).waitFor({ timeout: 20_000 })
+
+    // its case file, downloaded from the case page: the PDF's text (pdf-parse) holds the case's reference
+    const [download] = await Promise.all([page.waitForEvent('download', { timeout: 30_000 }), page.getByRole('button', { name: 'Case file (PDF)' }).click()])
+    expect(download.suggestedFilename()).toMatch(new RegExp(`^${reference}-CF\\d+\\.pdf$`))
+    const parser = new PDFParse({ data: new Uint8Array(fs.readFileSync(await download.path())) })
+    try {
+      const text = (await parser.getText()).text.replace(/\s+/g, ' ')
+      expect(text).toContain(`Case file — ${reference}`)
+    } finally {
+      await parser.destroy()
+    }
+    await expect.poll(() => page.getByText(/Saved .*\.pdf · SHA-256/).count(), { timeout: 10_000 }).toBe(1)
 
     // a dashboard-only filter shows on the list, and can be removed there
     await page.goBack()

@@ -34,10 +34,13 @@ import { eventTitle } from '../../shared/domain/timeline-titles'
 import { bundleManifestSchema } from '../../shared/schemas/evidence-bundle'
 import { evidenceUploadResponseSchema } from '../../shared/schemas/evidence'
 import { findingsResponseSchema } from '../../shared/schemas/findings'
+import { caseFollowUpsResponseSchema, responsiblePartyResponseSchema } from '../../shared/schemas/follow-ups'
+import { NOTICE_METHOD_LABELS, FOLLOW_UP_STATE_LABELS } from '../../shared/domain/follow-ups'
 import { caseResponseSchema } from '../../shared/schemas/views'
 import { createTestContext, type TestContext } from '../support/harness'
 import { makeCase, makeOffice, makeUser, signIn, type Agent, type TestCase } from '../support/factories'
 import { readZip } from '../support/zip-reader'
+import { dayFromToday } from '../support/follow-ups'
 import { FREE_SPACE_FIELD_ROWS } from '../fixtures/radio/propagation-free-space'
 
 let fake: S3Fake
@@ -64,6 +67,17 @@ const eirpInputs = {
   measurementContributions: [{ name: 'antenna calibration', distribution: { kind: 'normal', expandedUncertainty: '1.5 dB', coverageFactor: 2 } }],
 }
 const CLOSING = 'Warning issued; the club replaced the amplifier within 7 days.'
+
+/** The enforcement record the worked case gets (dates relative to today, as the server refuses notices served in the future and deadlines in the past). */
+const PARTY_FIRST = { name: 'Harbour boat club', address: '2 Quayside Road' }
+const PARTY = { name: 'Harbour Boat Club (secretary)', address: '2 Quayside Road, Harrowmere', phone: '+00 555 0142' }
+const NOTICES = [
+  { servedOn: dayFromToday(-3), method: 'registered_post', reference: 'RP-4471-HB', summary: 'Replace the masthead amplifier within 7 days.' },
+  { servedOn: dayFromToday(-1), method: 'in_person', servedBy: 'Night-shift investigator', summary: 'Reminder handed to the club secretary at the quay.' },
+] as const
+const REPLY = { receivedOn: dayFromToday(-1), summary: 'The club has ordered a new amplifier and will fit it on Saturday.' }
+const STAFF_FOLLOW_UP = { dueOn: dayFromToday(10), expected: 'Send the invoice of the replacement amplifier' }
+const CONFIRM_NOTE = 'Saw the new amplifier fitted; the hiss is gone.'
 
 /** supertest collects a binary answer into a Buffer with this parser. */
 const binary = (res: Response, cb: (err: Error | null, body: Buffer) => void) => {
@@ -115,6 +129,28 @@ beforeAll(async () => {
   expect(proposed.status, JSON.stringify(proposed.body)).toBe(200)
   const closed = await supervisor.post(`/api/cases/${worked.id}/close`).send({ version: await versionOf(worked.id), resolution: 'enforcement_action', reason: CLOSING })
   expect(closed.status, JSON.stringify(closed.body)).toBe(200)
+
+  // the enforcement record, through the routes the case page uses: the party (changed once),
+  // two notices (one with the photo as proof of posting), a reply, a follow-up added by staff,
+  // and the finding's follow-up confirmed by the supervisor
+  const evidenceId = evidenceUploadResponseSchema.parse(up.body).evidence.id
+  for (const party of [PARTY_FIRST, PARTY]) {
+    const r = await investigator.post(`/api/cases/${worked.id}/responsible-party`).send(party)
+    expect(r.status, JSON.stringify(r.body)).toBe(201)
+  }
+  for (const notice of [{ ...NOTICES[0], evidenceId }, NOTICES[1]]) {
+    const r = await investigator.post(`/api/cases/${worked.id}/notices`).send(notice)
+    expect(r.status, JSON.stringify(r.body)).toBe(201)
+  }
+  const party = responsiblePartyResponseSchema.parse((await investigator.get(`/api/cases/${worked.id}/responsible-party`)).body)
+  const posted = party.notices.find((n) => n.method === 'registered_post')!
+  const reply = await investigator.post(`/api/cases/${worked.id}/party-replies`).send({ ...REPLY, noticeId: posted.id })
+  expect(reply.status, JSON.stringify(reply.body)).toBe(201)
+  const added = await investigator.post(`/api/cases/${worked.id}/follow-ups`).send(STAFF_FOLLOW_UP)
+  expect(added.status, JSON.stringify(added.body)).toBe(201)
+  const fromFinding = caseFollowUpsResponseSchema.parse((await supervisor.get(`/api/cases/${worked.id}/follow-ups`)).body).followUps.find((f) => f.source === 'finding')!
+  const confirmed = await supervisor.post(`/api/follow-ups/${fromFinding.id}/confirm`).send({ version: fromFinding.version, note: CONFIRM_NOTE })
+  expect(confirmed.status, JSON.stringify(confirmed.body)).toBe(200)
 
   // the evidence file's SHA-256 as the evidence bundle's manifest gives it
   const zip = await investigator.get(`/api/cases/${worked.id}/evidence-bundle`).buffer(true).parse(binary)
@@ -256,6 +292,50 @@ describe('GET /api/cases/:id/case-file', () => {
     expect(text).toContain('DEMO SIGNATURE')
     // the complainant's contact details stay in the case record
     expect(text).not.toContain(detail.complainant.email)
+  })
+
+  it('lists the enforcement record: the party as recorded and changed, each notice’s day, method and proof, the reply, each follow-up’s deadline, state and who moved it', async () => {
+    const { body: text } = await pdfText(pdf)
+    expect(text).toContain('8. Responsible party and notices')
+    expect(text).toContain('9. Follow-ups')
+    // the party: the current record, when it was changed and by whom, and the earlier version
+    const party = responsiblePartyResponseSchema.parse((await supervisor.get(`/api/cases/${worked.id}/responsible-party`)).body)
+    expect(party.current!.version).toBe(2)
+    expect(text).toContain(`Name ${PARTY.name}`)
+    expect(text).toContain(`phone: ${PARTY.phone}`)
+    expect(text).toContain(`Changed (version 2)`)
+    expect(text).toContain(`Earlier: version 1 ${PARTY_FIRST.name} — recorded`)
+    // each notice, oldest first, with the day it was served and how; its reference, who served it and the proof file's hash
+    expect(party.notices).toHaveLength(2)
+    NOTICES.forEach((n, i) => expect(text).toContain(`N${i + 1}. Served on ${n.servedOn} — ${NOTICE_METHOD_LABELS[n.method]}`))
+    expect(text).toContain('Reference RP-4471-HB')
+    expect(text).toContain(`Served by ${worked.investigator!.name}`)
+    expect(text).toContain('Served by Night-shift investigator')
+    expect(text).toContain(`mast.png, SHA-256 ${evidenceSha.slice(0, 16)}… (E1 in the manifest)`)
+    // the reply, tied to the notice it answers
+    expect(text).toContain(`R1. Received on ${REPLY.receivedOn} — to notice N1`)
+    expect(text).toContain(REPLY.summary)
+    // each follow-up: its deadline and state as the follow-ups API gives them, and who moved it when
+    const { followUps } = caseFollowUpsResponseSchema.parse((await supervisor.get(`/api/cases/${worked.id}/follow-ups`)).body)
+    expect(followUps).toHaveLength(2)
+    followUps.forEach((f, i) => expect(text).toContain(`F${i + 1}. Due on ${f.dueOn} — ${f.stateLabel}`))
+    expect(followUps.map((f) => f.stateLabel).sort()).toEqual([FOLLOW_UP_STATE_LABELS.complied, FOLLOW_UP_STATE_LABELS.open].sort())
+    expect(text).toContain(`Expected ${STAFF_FOLLOW_UP.expected}`)
+    expect(text).toContain(`Follow-up confirmed: complied — ${worked.supervisor!.name}`)
+    expect(text).toContain(CONFIRM_NOTE)
+    expect(text).toContain(`Follow-up added — ${worked.investigator!.name}`)
+  })
+
+  it('says so in one line per section when a case has no responsible party, notice, reply or follow-up', async () => {
+    const bare = await makeCase(t, { office: worked.office, state: 'field_work' })
+    const r = await download(supervisor, bare.id)
+    expect(r.status).toBe(200)
+    const { text } = await pdfText(r.body as Buffer)
+    expect(text).toMatch(/8\. Responsible party and notices No responsible party, notice or reply has been recorded\. /)
+    expect(text).toMatch(/9\. Follow-ups No follow-up has been set\. /)
+    // one line, not an empty list per kind of record
+    expect(text).not.toContain('Notices served')
+    expect(text).not.toContain('No notice has been served.')
   })
 
   it('carries a signature that verifies against the demo certificate, by hand and with OpenSSL; one altered byte fails both', async () => {

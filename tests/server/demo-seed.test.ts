@@ -7,6 +7,8 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { CASE_STATES } from '../../shared/domain/case-lifecycle'
 import { DEMO_CASES, DEMO_REGION } from '../../ops/seed-demo-cases'
 import { DEMO_USERS } from '../../ops/seed-demo'
+import { dueFollowUpsResponseSchema } from '../../shared/schemas/follow-ups'
+import { dashboardViewSchema } from '../../shared/schemas/dashboard'
 import { createTestContext, DEMO, signedInAgent, type TestContext } from '../support/harness'
 
 interface DemoRow {
@@ -99,12 +101,24 @@ describe('the demo cases', () => {
 
   it('have timelines on the story’s clock: received when the case says, closed when it says', async () => {
     for (const c of demo) {
-      const { rows } = await t.pool.query(`SELECT kind, at FROM case_events WHERE case_id = $1 ORDER BY id`, [c.id])
+      const { rows } = await t.pool.query(`SELECT kind, at, to_state FROM case_events WHERE case_id = $1 ORDER BY id`, [c.id])
       expect(rows[0].kind, c.reference).toBe('received')
       expect(rows[0].at.getTime(), `${c.reference} received`).toBe(c.received_at.getTime())
       for (let i = 1; i < rows.length; i++) expect(rows[i].at.getTime(), `${c.reference} event ${i} in order`).toBeGreaterThanOrEqual(rows[i - 1].at.getTime())
-      if (c.closed_at) expect(rows.at(-1).at.getTime(), `${c.reference} closed`).toBe(c.closed_at.getTime())
+      // the closing move is at the closing time (an enforcement record may follow it)
+      if (c.closed_at) expect(rows.filter((e) => e.to_state !== null).at(-1).at.getTime(), `${c.reference} closed`).toBe(c.closed_at.getTime())
     }
+  })
+
+  it('include an open follow-up overdue at its office, in the investigator’s queue and on the supervisor’s dashboard', async () => {
+    const story = DEMO_CASES.find((d) => d.enforcement)!
+    const reference = demo.find((d) => d.description === story.report.description)!.reference
+    const investigator = await signedInAgent(t.app, DEMO.investigator)
+    const queue = dueFollowUpsResponseSchema.parse((await investigator.get('/api/follow-ups/due').expect(200)).body)
+    expect(queue.items.filter((i) => i.caseReference === reference).map((i) => i.standing)).toEqual(['overdue'])
+    const supervisor = await signedInAgent(t.app, DEMO.supervisor)
+    const dashboard = dashboardViewSchema.parse((await supervisor.get('/api/dashboard').expect(200)).body)
+    expect(dashboard.followUps.overdue).toBeGreaterThanOrEqual(1)
   })
 
   it('lie inside the demo region’s bounding box', () => {

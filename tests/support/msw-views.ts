@@ -92,6 +92,9 @@ export function caseResponse(changes: Partial<CaseDetail> = {}): z.output<typeof
     dueAt: DUE_AT,
     closedAt: null,
     overdue: false,
+    firstResponseDueAt: '2026-11-30T16:15:00.000Z',
+    firstRespondedAt: null,
+    firstResponseOverdue: false,
     abilities: noAbilities(),
     timeline: [
       { id: 1, at: RECEIVED_AT, actor: 'Quietband', kind: 'received', fromState: null, toState: 'received', body: null, visibility: 'complainant', data: null },

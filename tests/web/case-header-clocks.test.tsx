@@ -1,5 +1,6 @@
 /**
- * The case header shows both clocks of shared/domain/case-clocks.ts side by side: the first
+ * The case header shows both clocks of shared/domain/case-clocks.ts side by side under
+ * "Response": the first
  * response (answered after…, due in…, overdue by…, or stopped by the closing) and the
  * resolution, each with its office target, read from the case as the API answers it (mocked
  * with msw from the view schema). The words follow the one rule: overdue strictly after the
@@ -29,10 +30,11 @@ function openHeader(changes: Partial<CaseDetail>, now: string) {
   renderPage({ url: `/cases/${IDS.case}`, routes: [{ path: paths.case.path, Component: CaseTop }] })
 }
 
-/** The <dd> of a fact of the header's list, found by its term. */
-async function fact(term: string): Promise<HTMLElement> {
-  const dt = await screen.findByText(term, { selector: 'dt' })
-  return dt.nextElementSibling as HTMLElement
+/** One clock under the header's "Response" fact, found by the words it starts with ("First response: …", "Resolution: …"). */
+async function fact(clock: 'First response' | 'Resolution'): Promise<HTMLElement> {
+  const dd = (await screen.findByText('Response', { selector: 'dt' })).nextElementSibling as HTMLElement
+  const line = within(dd).getByText((_, el) => el?.tagName === 'P' && el.textContent!.startsWith(`${clock}: `))
+  return line.parentElement!
 }
 
 describe('the case header’s clocks', () => {
@@ -42,7 +44,7 @@ describe('the case header’s clocks', () => {
     expect(first).toHaveTextContent('First response: answered after about 3 hours (target 8 h)')
     expect(first).not.toHaveTextContent(/overdue/)
     const resolution = await fact('Resolution')
-    expect(resolution).toHaveTextContent('against a target of 8 days')
+    expect(resolution).toHaveTextContent(/^Resolution: about 6 hours old, against a target of 8 days/)
     expect(resolution).toHaveTextContent(/due in 8 days/)
   })
 

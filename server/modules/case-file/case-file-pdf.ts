@@ -3,7 +3,9 @@
  * the report, the timeline, measurements and calculations (each with its methods, their
  * sources and the library version), the evidence manifest with SHA-256, the finding and its
  * approval, the cautions, and a closing page on how to check this copy. Every page carries the
- * file's own reference and "page n of N". Text is set in the Liberation fonts committed under
+ * file's own reference and "page n of N". The enforcement record (the responsible party, notices
+ * served with date and method, replies, follow-ups and who moved them) is printed in full, for
+ * enforcement rests on proof of notice. Text is set in the Liberation fonts committed under
  * server/assets/fonts (OFL), which hold ≤ ≥ Ω µ − × →.
  *
  * The PDF is written without object streams (pdfkit never makes them), so the signature's
@@ -15,9 +17,11 @@ import { CAUTION_LINES, ENFORCEMENT_CAUTION } from '../../../shared/domain/cauti
 import { CASE_STATE_LABELS, type CaseState } from '../../../shared/domain/case-lifecycle'
 import { DETECTOR_LABELS } from '../../../shared/domain/equipment'
 import { CUSTODY_ACTION_LABELS, EVIDENCE_KIND_LABELS } from '../../../shared/domain/evidence'
+import { ENFORCEMENT_EVENT_TITLES, type FollowUpSource } from '../../../shared/domain/follow-ups'
 import { EXPERIENCE_LABELS, harmClassText, SERVICE_LABELS } from '../../../shared/domain/services'
 import { eventTitle } from '../../../shared/domain/timeline-titles'
 import type { FindingsResponse } from '../../../shared/schemas/findings'
+import type { CaseFollowUpsResponse, NoticeView, ResponsiblePartyResponse, ResponsiblePartyView } from '../../../shared/schemas/follow-ups'
 import type { MeasurementView } from '../../../shared/schemas/measurements'
 import type { CalculationView, CaseDetail } from '../../../shared/schemas/views'
 import type { ManifestEntry } from '../evidence-bundle/bundle-manifest'
@@ -42,11 +46,26 @@ export interface CaseFileContent {
   calculations: CalculationView[]
   findings: FindingsResponse
   evidence: ManifestEntry[]
+  /** The responsible party (every version), the notices served on it and its replies. */
+  party: ResponsiblePartyResponse
+  /** The case's follow-ups (their moves are read from the timeline). */
+  followUps: CaseFollowUpsResponse
+  /** The evidence files a notice or reply points at, removed ones included. */
+  linkedEvidence: LinkedEvidence[]
   /** The radio library's version when the file was made (each record keeps its own). */
   libraryVersion: string
   signer: { subject: string; demo: boolean; certificateSha256: string }
 }
 
+/** An evidence file a notice or reply points at. */
+export interface LinkedEvidence {
+  id: string
+  name: string
+  sha256: string
+  removed: boolean
+}
+
+const FOLLOW_UP_SOURCE_WORDS: Record<FollowUpSource, string> = { finding: 'The approved finding\u2019s compliance deadline', staff: 'Added by staff' }
 const INK = '#18212b'
 const MUTED = '#4a5562'
 const RULE = '#c9ced6'
@@ -156,6 +175,100 @@ class Writer {
   }
 }
 
+/** A party's contact as recorded: every field, "—" for none given. */
+function contactText(p: ResponsiblePartyView): string {
+  return [`address: ${p.address ?? '—'}`, `e-mail: ${p.email ?? '—'}`, `phone: ${p.phone ?? '—'}`].join('\n')
+}
+
+/** How a notice was served, in words ("Other" carries its description). */
+const methodText = (n: NoticeView) => (n.method === 'other' ? `Other: ${n.methodOther ?? '—'}` : n.methodLabel)
+
+/** Oldest first: the order a reader follows the notices and replies in. */
+const byDayThenRecorded = <T extends { recordedAt: string }>(day: (x: T) => string) => (a: T, b: T) => day(a).localeCompare(day(b)) || a.recordedAt.localeCompare(b.recordedAt)
+
+/** Section 8: the responsible party (current record and every earlier version), each notice and each reply. */
+function drawParty(w: Writer, c: CaseFileContent) {
+  const tz = c.timeZone
+  const { current, earlier, notices, replies } = c.party
+  w.heading('8. Responsible party and notices')
+  if (!current && notices.length === 0 && replies.length === 0) {
+    w.para('No responsible party, notice or reply has been recorded.', { font: 'italic' })
+    return
+  }
+  w.para(`The party responsible for the source as recorded, every notice served on it and every reply, as kept on the case; times in ${tz}.`, { font: 'italic', size: 8.5, color: MUTED })
+  w.doc.moveDown(0.3)
+  if (!current) w.para('No responsible party has been recorded.', { font: 'italic' })
+  else {
+    w.field('Name', current.name)
+    w.field('Contact', contactText(current))
+    w.field(current.version === 1 ? 'Recorded' : `Changed (version ${current.version})`, `${localTime(current.recordedAt, tz)} by ${current.recordedBy}`)
+    for (const e of earlier) w.field(`Earlier: version ${e.version}`, `${e.name} — recorded ${localTime(e.recordedAt, tz)} by ${e.recordedBy}\n${contactText(e)}`)
+  }
+  const evidenceText = (id: string | null): string | null => {
+    if (!id) return null
+    const f = c.linkedEvidence.find((x) => x.id === id)
+    if (!f) return `evidence file ${id} (not found on the case)`
+    const inManifest = c.evidence.findIndex((e) => e.evidenceId === id)
+    return `${f.name}, SHA-256 ${f.sha256.slice(0, 16)}…${inManifest >= 0 ? ` (E${inManifest + 1} in the manifest)` : f.removed ? ' (since removed from the case)' : ''}`
+  }
+  const sortedNotices = [...notices].sort(byDayThenRecorded((n) => n.servedOn))
+  w.room(120) // a list's title stays with its first entry
+  w.subheading('Notices served')
+  if (sortedNotices.length === 0) w.para('No notice has been served.', { font: 'italic' })
+  sortedNotices.forEach((n, i) => {
+    w.room(100)
+    w.subheading(`N${i + 1}. Served on ${n.servedOn} — ${methodText(n)}`)
+    w.field('Served on', n.servedOn)
+    w.field('Method', methodText(n))
+    w.field('Served by', n.servedBy)
+    w.field('Reference', n.reference ?? '—')
+    w.field('What it says', n.summary)
+    w.field('Evidence', evidenceText(n.evidenceId) ?? 'none linked')
+    w.field('Recorded', `${localTime(n.recordedAt, tz)} by ${n.recordedBy}`)
+    w.rule()
+  })
+  w.room(100)
+  w.subheading('Replies')
+  const sortedReplies = [...replies].sort(byDayThenRecorded((r) => r.receivedOn))
+  if (sortedReplies.length === 0) w.para('No reply has been received.', { font: 'italic' })
+  sortedReplies.forEach((r, i) => {
+    const answers = r.noticeId ? sortedNotices.findIndex((n) => n.id === r.noticeId) : -1
+    w.room(70)
+    w.subheading(`R${i + 1}. Received on ${r.receivedOn}${answers >= 0 ? ` — to notice N${answers + 1}` : ''}`)
+    w.field('Received on', r.receivedOn)
+    w.field('Summary', r.summary)
+    const ev = evidenceText(r.evidenceId)
+    if (ev) w.field('Evidence', ev)
+    w.field('Recorded', `${localTime(r.recordedAt, tz)} by ${r.recordedBy}`)
+    w.rule()
+  })
+}
+
+/** Section 9: each follow-up with its deadline, what is expected, its state and every move on it (who, when) from the timeline. */
+function drawFollowUps(w: Writer, c: CaseFileContent) {
+  const tz = c.timeZone
+  const { followUps, today } = c.followUps
+  w.heading('9. Follow-ups')
+  if (followUps.length === 0) {
+    w.para('No follow-up has been set.', { font: 'italic' })
+    return
+  }
+  w.para(`Deadlines are days of the office’s calendar (${tz}); standing as of ${today}. Who added, confirmed, escalated or reopened each comes from the timeline.`, { font: 'italic', size: 8.5, color: MUTED })
+  w.doc.moveDown(0.3)
+  followUps.forEach((f, i) => {
+    const standing = f.standing === 'overdue' ? ' — overdue' : f.standing === 'due' ? ' — due today' : ''
+    w.room(100)
+    w.subheading(`F${i + 1}. Due on ${f.dueOn} — ${f.stateLabel}${standing}`)
+    w.field('Due on', f.dueOn)
+    w.field('Expected', f.expected)
+    w.field('State', `${f.stateLabel}${standing}`)
+    w.field('From', FOLLOW_UP_SOURCE_WORDS[f.source])
+    const moves = c.detail.timeline.filter((e) => e.data?.followUpId === f.id && e.kind in ENFORCEMENT_EVENT_TITLES)
+    w.field('History', moves.map((e) => `${localTime(e.at, tz)}  ${ENFORCEMENT_EVENT_TITLES[e.kind]} — ${e.actor}${e.body ? `: ${e.body}` : ''}`).join('\n') || `added ${localTime(f.createdAt, tz)}`)
+    w.rule()
+  })
+}
+
 /** Draws the case file; resolves to the unsigned PDF and its page count. */
 export async function renderCaseFilePdf(c: CaseFileContent): Promise<{ pdf: Buffer; pageCount: number }> {
   const d = c.detail
@@ -213,7 +326,7 @@ export async function renderCaseFilePdf(c: CaseFileContent): Promise<{ pdf: Buff
   if (d.resolutionLabel) w.field('Resolution', d.resolutionLabel)
   if (d.closingSummary) w.field('Closing summary', d.closingSummary)
   if (d.mergedIntoReference) w.field('Merged into', d.mergedIntoReference)
-  w.field('Contents', `${d.timeline.length} timeline entries, ${c.measurements.length} measurement(s), ${c.calculations.length} calculation(s), ${c.evidence.length} evidence file(s), ${c.findings.current ? 1 + c.findings.earlier.length : 0} finding proposal(s)`)
+  w.field('Contents', `${d.timeline.length} timeline entries, ${c.measurements.length} measurement(s), ${c.calculations.length} calculation(s), ${c.evidence.length} evidence file(s), ${c.findings.current ? 1 + c.findings.earlier.length : 0} finding proposal(s), ${c.party.notices.length} notice(s), ${c.party.replies.length} repl${c.party.replies.length === 1 ? 'y' : 'ies'}, ${c.followUps.followUps.length} follow-up(s)`)
 
   // 2. The report
   w.heading('2. The report')
@@ -334,12 +447,16 @@ export async function renderCaseFilePdf(c: CaseFileContent): Promise<{ pdf: Buff
     }
   }
 
-  // 8. Cautions
-  w.heading('8. Cautions')
+  // 8. and 9. The enforcement record: proof of notice and the deadlines that follow it
+  drawParty(w, c)
+  drawFollowUps(w, c)
+
+  // 10. Cautions
+  w.heading('10. Cautions')
   w.box('Before acting on this file', [ENFORCEMENT_CAUTION, ...CAUTION_LINES], CAUTION)
 
-  // 9. About this file
-  w.heading('9. About this file')
+  // 11. About this file
+  w.heading('11. About this file')
   w.field('File reference', c.fileReference, { mono: true })
   w.field('Issued', `${localTime(c.issuedAt, tz)} (${tz}); ${c.issuedAt.toISOString()} UTC, by ${c.issuedBy}`)
   w.field('Signed by', `${c.signer.subject}${c.signer.demo ? ' — a DEMO certificate, not valid for legal use' : ''}`)

@@ -5,12 +5,15 @@
  * page count and who issued it onto the append-only timeline — in one transaction holding the
  * case's row, so two files issued at once get different numbers and every issued file is on
  * the record. Staff of the case's office and administrators; another office's case is 404.
+ * The timeline and the enforcement record (responsible party, notices, replies, follow-ups) are
+ * read under that lock, so the file prints them as they stood when it was numbered.
  */
 import crypto from 'node:crypto'
 import { RADIO_LIBRARY_VERSION } from '../../../shared/radio'
+import type { ResponsiblePartyResponse } from '../../../shared/schemas/follow-ups'
 import { CASE_FILE_ISSUED_KIND } from '../../../shared/domain/timeline-titles'
 import type { ServiceContext } from '../../context'
-import { withTransaction } from '../../db/client'
+import { withTransaction, type Db } from '../../db/client'
 import { forbidden, HttpError } from '../../http/errors'
 import { mayIssueCaseFile } from '../../policy/case-file-policy'
 import type { Actor } from '../../policy/policy'
@@ -19,10 +22,14 @@ import { loadVisibleCase } from '../cases/case-access'
 import { getCaseDetail } from '../cases/case-read.service'
 import { appendEvent, lockCase } from '../cases/cases.repo'
 import { manifestEntries } from '../evidence-bundle/bundle-manifest'
+import { evidenceOfCase } from '../evidence/evidence.repo'
 import { custodyOfEvidence, keptEvidenceOfCase } from '../evidence-bundle/evidence-bundle.repo'
 import { listFindings } from '../findings/findings.service'
 import { listMeasurements } from '../measurements/measurements.service'
+import { listCaseFollowUps } from '../follow-ups/follow-ups.service'
 import { findOffice } from '../offices/offices.repo'
+import { presentNotice, presentParty, presentReply } from '../responsible-parties/responsible-parties.present'
+import { noticesOfCase, partyVersionsOfCase, repliesOfCase } from '../responsible-parties/responsible-parties.repo'
 import { findUserById } from '../users/users.repo'
 import { renderCaseFilePdf } from './case-file-pdf'
 import { countIssuedCaseFiles } from './case-file.repo'
@@ -33,6 +40,18 @@ export interface IssuedCaseFile {
   pdf: Buffer
   sha256: string
   pageCount: number
+}
+
+/**
+ * The responsible party's versions, the notices and the replies as the case page's API presents
+ * them, read one after another on the transaction's one connection (whoever may issue the case
+ * file may read them: staff of the office and administrators, mayReadEnforcement).
+ */
+async function partyRecordOf(db: Db, caseId: string): Promise<ResponsiblePartyResponse> {
+  const versions = (await partyVersionsOfCase(db, caseId)).map(presentParty)
+  const notices = (await noticesOfCase(db, caseId)).map(presentNotice)
+  const replies = (await repliesOfCase(db, caseId)).map(presentReply)
+  return { current: versions[0] ?? null, earlier: versions.slice(1), notices, replies, abilities: { record: false } }
 }
 
 export const signingUnavailable = () =>
@@ -62,7 +81,14 @@ export async function issueCaseFile(ctx: ServiceContext, actor: Actor, caseId: s
   return withTransaction(ctx.pool, async (tx) => {
     await lockCase(tx.db, c.id)
     // read under the lock: the timeline printed is the one this file's entry follows
-    const detail = await getCaseDetail({ ...ctx, db: tx.db }, actor, c.id)
+    const txCtx = { ...ctx, db: tx.db }
+    const detail = await getCaseDetail(txCtx, actor, c.id)
+    // the enforcement record (proof of notice) as the case page reads it, under the same lock
+    const party = await partyRecordOf(tx.db, c.id)
+    const followUps = await listCaseFollowUps(txCtx, actor, c.id)
+    // a notice or reply may point at a file removed since: it is still named, with its hash
+    const linked = new Set([...party.notices, ...party.replies].map((x) => x.evidenceId).filter((x): x is string => x !== null))
+    const linkedEvidence = linked.size === 0 ? [] : (await evidenceOfCase(tx.db, c.id)).filter((f) => linked.has(f.id)).map((f) => ({ id: f.id, name: f.displayName, sha256: f.file.sha256, removed: f.removedAt !== null }))
     const n = (await countIssuedCaseFiles(tx.db, c.id)) + 1
     const fileReference = `${c.reference}-CF${n}`
     const issuedAt = ctx.now()
@@ -76,6 +102,9 @@ export async function issueCaseFile(ctx: ServiceContext, actor: Actor, caseId: s
       calculations,
       findings,
       evidence: manifestEntries(evidence, custody),
+      party,
+      followUps,
+      linkedEvidence,
       libraryVersion: RADIO_LIBRARY_VERSION,
       signer: { subject: signer.subject, demo: signer.demo, certificateSha256: signer.certificateSha256 },
     })

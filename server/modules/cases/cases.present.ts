@@ -44,6 +44,9 @@ export function presentCaseDetail(
     dueAt: c.dueAt.toISOString(),
     closedAt: c.closedAt?.toISOString() ?? null,
     overdue: isOverdue('resolution', c, now),
+    firstResponseDueAt: c.firstResponseDueAt.toISOString(),
+    firstRespondedAt: c.firstRespondedAt?.toISOString() ?? null,
+    firstResponseOverdue: isOverdue('firstResponse', { status: c.status, dueAt: c.firstResponseDueAt, stoppedAt: c.firstRespondedAt }, now),
     abilities: extra.abilities,
     timeline: extra.timeline,
   }

@@ -1,4 +1,4 @@
-/** The top of the case page: reference, state, priority, overdue flag, and the case's key facts. */
+/** The top of the case page: reference, state, priority, overdue flag, the case's key facts, and its two clocks (first response, resolution). */
 import { format, parseISO } from 'date-fns'
 import type { ReactNode } from 'react'
 import { Link } from 'react-router-dom'
@@ -7,7 +7,7 @@ import type { CaseDetail } from '../api/get-case'
 import { formatLatLonDeg } from '@/lib/coordinates'
 import { formatFrequencyRangeHz } from '@/lib/frequency'
 import { serviceLabel } from '@/lib/service-label'
-import { ResponseMeter } from '@/components/cases/response-meter'
+import { FirstResponseMeter, ResponseMeter } from '@/components/cases/response-meter'
 import { OverdueFlag, StatusTag } from '@/components/cases/status-tag'
 import { paths } from '@/lib/paths'
 
@@ -51,7 +51,17 @@ export function CaseHeader({ detail, now }: { detail: CaseDetail; now: Date }) {
           <time dateTime={detail.receivedAt}>{format(parseISO(detail.receivedAt), 'd MMM yyyy, HH:mm')}</time>
         </Fact>
         <Fact term="Response" className="md:col-span-2">
-          <ResponseMeter status={detail.status} receivedAt={detail.receivedAt} dueAt={detail.dueAt} closedAt={detail.closedAt} now={now} />
+          <div className="grid gap-x-8 gap-y-4 md:grid-cols-2">
+            <FirstResponseMeter
+              status={detail.status}
+              receivedAt={detail.receivedAt}
+              firstResponseDueAt={detail.firstResponseDueAt}
+              firstRespondedAt={detail.firstRespondedAt}
+              closedAt={detail.closedAt}
+              now={now}
+            />
+            <ResponseMeter label="Resolution" status={detail.status} receivedAt={detail.receivedAt} dueAt={detail.dueAt} closedAt={detail.closedAt} now={now} />
+          </div>
         </Fact>
       </dl>
     </header>
