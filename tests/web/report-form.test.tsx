@@ -3,7 +3,8 @@ import { describe, expect, it } from 'vitest'
 import { latestSinceDate, reportSchema } from '../../shared/schemas/cases'
 import { Component as ReportPage } from '@/app/routes/report'
 import { paths } from '@/lib/paths'
-import { answer, apiError } from '../support/msw-server'
+import { http, HttpResponse } from 'msw'
+import { answer, apiError, server } from '../support/msw-server'
 import { anonymousMe, regionMapResponse, submittedReport } from '../support/msw-views'
 import { renderPage } from '../support/web-render'
 
@@ -197,6 +198,29 @@ describe('the public report form', () => {
 
     await screen.findByRole('region', { name: 'Report received' })
     expect(sent[0]!.body).toMatchObject({ frequencyFrom: 0.43392, frequencyUnit: 'GHz' })
+  })
+
+  it('offers to attach files as soon as the report is received, sent through its own tracking link', async () => {
+    answer('post', '/api/reports', submittedReport({ reference: 'QB-26-000414' }), { status: 201 })
+    const uploads: { kind: string | null; size: number }[] = []
+    const token = new URL(submittedReport().trackingUrl).pathname.split('/').pop()!
+    server.use(
+      http.post(`/api/track/${token}/evidence`, async ({ request }) => {
+        const form = await request.formData()
+        uploads.push({ kind: form.get('kind') as string | null, size: (form.get('file') as File).size })
+        return HttpResponse.json({ error: { code: 'case_closed', message: 'This report is closed, so no more files can be added to it.', requestId: 'r1' } }, { status: 409 })
+      }),
+    )
+    const { user } = await openTheReportPage()
+    await fillInAGoodReport(user)
+    await user.click(screen.getByRole('button', { name: 'Submit report' }))
+
+    const files = await screen.findByRole('region', { name: 'Add photos, recordings or screenshots' })
+    await user.upload(within(files).getByLabelText('Choose files to send'), new File([new Uint8Array(321)], 'noise.jpg', { type: 'image/jpeg' }))
+
+    // the file went to this report's tracking link, as a photo; the server's answer is shown beside it
+    await waitFor(() => expect(uploads).toEqual([{ kind: 'photo', size: 321 }]))
+    expect(await within(files).findByText(/no more files can be added/)).toBeInTheDocument()
   })
 })
 

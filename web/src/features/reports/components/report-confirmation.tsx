@@ -1,6 +1,10 @@
-/** After a report is sent: its reference (large, copyable), the office, and the tracking link. */
+/**
+ * After a report is sent: its reference (large, copyable), the office, the tracking link, and
+ * a place to attach photos, recordings or screenshots straight away (sent through the link).
+ */
 import { useEffect, useRef, useState } from 'react'
 import { Link } from 'react-router-dom'
+import { EvidenceUploader } from '@/components/uploads/evidence-uploader'
 import { Button, buttonClass } from '@/components/ui/button'
 import { Notice } from '@/components/ui/notice'
 import { Sign } from '@/components/ui/sign'
@@ -62,6 +66,13 @@ export function ReportConfirmation({ result, email }: { result: SubmittedReport;
       <p role="status" className="text-sm font-semibold text-ok">
         {copied === 'reference' ? 'Reference copied.' : copied === 'link' ? 'Link copied.' : ''}
       </p>
+      <section aria-labelledby="report-files" className="flex flex-col gap-3 border-t border-rule pt-4">
+        <h3 id="report-files" className="text-lg font-bold">
+          Add photos, recordings or screenshots
+        </h3>
+        <p>If you have them, they help the office. Each file is kept unchanged, with a fingerprint (SHA-256) taken when it arrives. You can also add files later from your tracking page.</p>
+        <EvidenceUploader uploadPath={`/api${trackingPath}/evidence`} defaultKind="photo" title="Choose files to send" />
+      </section>
       <p>
         We have e-mailed you this link{email ? <> at <span className="font-mono">{email}</span></> : null}. Keep it private: anyone with the link can
         read your report. Use it to follow progress, add what you notice later, or withdraw the report.
