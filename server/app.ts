@@ -44,6 +44,8 @@ import { caseFileRoutes } from './modules/case-file/case-file.routes'
 import { processDemoSigner, type CaseFileSigner } from './modules/case-file/case-file-signing'
 import { dashboardRoutes } from './modules/dashboard/dashboard.routes'
 import { savedViewsRoutes } from './modules/saved-views/saved-views.routes'
+import { retentionRoutes } from './modules/retention/retention.routes'
+import { auditRoutes } from './modules/audit/audit.routes'
 
 export interface AppDeps {
   pool: pg.Pool
@@ -167,6 +169,8 @@ export function createApp(deps: AppDeps): AppHandle {
   api.use(caseFileRoutes(ctx))
   api.use(dashboardRoutes(ctx))
   api.use(savedViewsRoutes(ctx))
+  api.use(retentionRoutes(ctx))
+  api.use(auditRoutes(ctx))
   api.use(mailboxRoutes({ dir: deps.mailboxDir, listenHost: deps.listenHost, nodeEnv: deps.nodeEnv ?? process.env.NODE_ENV, trustProxy: deps.trustProxy }))
   api.use(apiNotFound)
   app.use('/api', api)

@@ -15,6 +15,7 @@ import { createDb, isDatabaseUnavailable } from './db/client'
 import { startEvidenceOrphanSweep } from './modules/evidence/orphan-sweep'
 import { startEvidenceProcessingWorker } from './modules/evidence/processing-queue'
 import { startDigestWorker } from './modules/follow-ups/digest-job'
+import { startRetentionWorker } from './modules/retention/retention-job'
 import { objectStoreFromEnv } from './storage/object-store'
 import { signerFromP12File } from './modules/case-file/case-file-signing'
 
@@ -71,6 +72,10 @@ export async function startServer(env: Env): Promise<RunningServer> {
   const evidenceWorker = env.RUN_WORKERS ? await startEvidenceProcessingWorker({ boss, db: createDb(pool), objectStore }) : undefined
   // the offices' morning digest: an hourly check as a pg-boss job (modules/follow-ups/digest-job.ts)
   const digestWorker = env.RUN_WORKERS ? await startDigestWorker({ pool, db: createDb(pool), boss, publicUrl: env.PUBLIC_URL.replace(/\/$/, ''), mailQueue: DEFAULT_MAIL_QUEUE_OPTIONS }) : undefined
+  // the daily retention run (modules/retention/retention-job.ts)
+  const retentionWorker = env.RUN_WORKERS
+    ? await startRetentionWorker({ pool, db: createDb(pool), boss, publicUrl: env.PUBLIC_URL.replace(/\/$/, ''), mailQueue: DEFAULT_MAIL_QUEUE_OPTIONS, objectStore, now: () => new Date() })
+    : undefined
   const server: Server = await new Promise((resolve, reject) => {
     const s = handle.app.listen(env.PORT, env.HOST, () => resolve(s))
     s.once('error', reject)
@@ -88,6 +93,7 @@ export async function startServer(env: Env): Promise<RunningServer> {
       await mailWorker?.stop()
       await evidenceWorker?.stop()
       await digestWorker?.stop()
+      await retentionWorker?.stop()
       await boss.stop({ graceful: true, wait: true, timeout: 5000 })
       handle.close()
       mailer.close()

@@ -36,5 +36,6 @@ export function accountAbilities(actor: Actor): AccountAbilities {
     readEquipment: actor.role === 'admin' || (actor.officeId !== null && mayReadEquipment(actor, actor.officeId)),
     manageEquipment: actor.role === 'admin' || (actor.officeId !== null && mayManageEquipment(actor, actor.officeId)),
     readDashboard: can(actor, 'dashboard.read'),
+    readAudit: can(actor, 'audit.read'),
   }
 }

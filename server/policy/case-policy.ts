@@ -71,6 +71,15 @@ export function mayMessageComplainant(actor: CaseActor, c: CaseAccess): boolean 
 }
 
 
+/**
+ * Closing every private tracking link of a case (a link forwarded to the wrong person, say): a
+ * supervisor of the case's office, in any state. Investigators work the case but do not decide
+ * who may follow it; a complainant's own account is not a link and keeps working.
+ */
+export function mayRevokeTrackingLinks(actor: CaseActor, c: CaseAccess): boolean {
+  return isMover(actor, 'office_supervisor', c)
+}
+
 /** What the actor can do now: role, relation and state together. Sent with every case. */
 export function caseAbilities(actor: CaseActor, c: CaseAccess): CaseAbilities {
   const moves = Object.fromEntries(
@@ -82,5 +91,6 @@ export function caseAbilities(actor: CaseActor, c: CaseAccess): CaseAbilities {
     messageComplainant: mayMessageComplainant(actor, c),
     storeCalculation: mayStoreCalculation(actor, c) && calculationAllowedIn(c.status),
     issueCaseFile: mayIssueCaseFile(actor, c),
+    revokeTrackingLinks: mayRevokeTrackingLinks(actor, c),
   }
 }

@@ -26,6 +26,7 @@ export type Action =
   | 'user.list'
   | 'user.create'
   | 'user.update'
+  | 'audit.read'
   | 'bandLimit.read'
   | 'bandLimit.edit'
   | 'stationRegister.read'
@@ -43,6 +44,7 @@ const rules: Record<Action, (actor: Actor, resource?: OfficeScoped) => boolean> 
   'user.list': (a) => a.role === 'admin',
   'user.create': (a) => a.role === 'admin',
   'user.update': (a) => a.role === 'admin',
+  'audit.read': (a) => a.role === 'admin',
   // the band-limit list is national: every office's staff read it, supervisors and administrators edit it
   'bandLimit.read': (a) => a.role === 'admin' || STAFF.includes(a.role),
   'bandLimit.edit': (a) => a.role === 'admin' || a.role === 'supervisor',

@@ -58,6 +58,10 @@ export function eventTitle(e: TimelineEventTitled): string {
       return 'Reopened'
     case 'withdraw':
       return 'Withdrawn by the complainant'
+    case 'returned_to_triage':
+      return str(d.previousInvestigatorName) ? `Back to triage: ${str(d.previousInvestigatorName)} moved to another office or role` : 'Back to triage: the investigator moved'
+    case 'tracking_links_revoked':
+      return typeof d.revokedCount === 'number' ? `Tracking links closed (${d.revokedCount})` : 'Tracking links closed'
     case 'note':
       return 'Internal note'
     case 'message':

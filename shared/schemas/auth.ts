@@ -92,6 +92,8 @@ export const accountAbilitiesSchema = z.object({
   manageEquipment: z.boolean(),
   /** Reads the dashboard: their office's (a supervisor) or every office's (an administrator). */
   readDashboard: z.boolean(),
+  /** Reads the audit log of administrative changes, exports and openings of personal details. */
+  readAudit: z.boolean(),
 })
 export type AccountAbilities = z.infer<typeof accountAbilitiesSchema>
 export type AccountAbility = keyof AccountAbilities
@@ -112,6 +114,7 @@ export const NO_ACCOUNT_ABILITIES: AccountAbilities = {
   readEquipment: false,
   manageEquipment: false,
   readDashboard: false,
+  readAudit: false,
 }
 
 /** A signed-in session: the user and what the account may do (sign-in, confirmation, password, /api/me). */

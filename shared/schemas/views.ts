@@ -47,6 +47,8 @@ export const caseAbilitiesSchema = z.object({
   storeCalculation: z.boolean(),
   /** Issue the signed case file (PDF): staff of the case's office and administrators, in any state. */
   issueCaseFile: z.boolean(),
+  /** Close every private tracking link of the case: a supervisor of its office, in any state. */
+  revokeTrackingLinks: z.boolean(),
 })
 export type CaseAbilities = z.infer<typeof caseAbilitiesSchema>
 
@@ -238,6 +240,8 @@ export const userRowSchema = z.object({
   officeName: z.string().nullable(),
   active: z.boolean(),
   createdAt: instant,
+  /** The last successful sign-in, for administrators; null before the first sign-in (and in the staff lists other roles read). */
+  lastSignedInAt: instant.nullable(),
 })
 export type UserRow = z.infer<typeof userRowSchema>
 

@@ -65,6 +65,7 @@ const PAGES: PageCheck[] = [
   { name: 'dashboard-admin', who: 'admin', path: () => paths.dashboard.href(), ready: heading },
   { name: 'admin-users', who: 'admin', path: () => paths.adminUsers.href(), ready: heading },
   { name: 'admin-offices', who: 'admin', path: () => paths.adminOffices.href(), ready: heading },
+  { name: 'admin-audit', who: 'admin', path: () => paths.adminAudit.href(), ready: heading },
 ]
 
 async function idsFromDatabase(): Promise<Ids> {

@@ -48,7 +48,7 @@ describe('sign-in', () => {
   })
 
   it.each([
-    ['admin', { readCases: true, manageUsers: true, manageOffices: true, readBandLimits: true, manageBandLimits: true, readStationRegister: true, importStationRegister: true, readEquipment: true, manageEquipment: true, readDashboard: true }],
+    ['admin', { readCases: true, manageUsers: true, manageOffices: true, readBandLimits: true, manageBandLimits: true, readStationRegister: true, importStationRegister: true, readEquipment: true, manageEquipment: true, readDashboard: true, readAudit: true }],
     ['supervisor', { runOfficeQueue: true, readCases: true, readBandLimits: true, manageBandLimits: true, readStationRegister: true, readEquipment: true, manageEquipment: true, readDashboard: true }],
     ['investigator', { workAssignedCases: true, readCases: true, readBandLimits: true, readStationRegister: true, readEquipment: true }],
     ['complainant', { reportAsAccount: true, followOwnReports: true }],

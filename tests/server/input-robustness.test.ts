@@ -287,7 +287,8 @@ const FUZZ: FuzzRow[] = [
   fixed('POST /api/auth/password-reset', () => '/api/auth/password-reset', () => ({ email: `fuzz-nobody-${process.pid}@example.test` })),
   fixed('POST /api/auth/set-password', () => '/api/auth/set-password', () => ({ token: 'x'.repeat(43), password: 'long-enough-password' })),
   fixed('POST /api/admin/users', () => '/api/admin/users', () => ({ name: 'Fuzz Staff', email: `fuzz-staff-${process.pid}@quietband.test`, role: 'investigator', officeId: ids.otherOfficeId })),
-  fixed('PATCH /api/admin/users/:id', () => `/api/admin/users/${ids.throwawayUserId}`, () => ({ active: true })),
+  // the throwaway account is a complainant: a complainant's own role, no office (a change that changes nothing)
+  fixed('PATCH /api/admin/users/:id', () => `/api/admin/users/${ids.throwawayUserId}`, () => ({ active: true, role: 'complainant', officeId: null })),
   // the office's own targets: no single odd field below makes a valid set, so nothing changes
   fixed('PUT /api/offices/:id/response-targets', () => `/api/offices/${ids.ownOfficeId}/response-targets`, () => ({ p1: 4, p2: 24, p3: 72, p4: 240 })),
   fixed('PUT /api/offices/:id/first-response-targets', () => `/api/offices/${ids.ownOfficeId}/first-response-targets`, () => ({ p1: 1, p2: 8, p3: 24, p4: 72 })),
@@ -318,6 +319,10 @@ const FUZZ: FuzzRow[] = [
   // a person's saved views of the case list (several succeed: names then repeat, and the cap answers 409)
   fixed('POST /api/me/saved-views', () => '/api/me/saved-views', () => ({ name: 'Fuzz view', listQuery: 'open=true' })),
   fixed('DELETE /api/me/saved-views/:id', () => `/api/me/saved-views/${NO_SUCH_UPLOAD}`, () => ({})),
+  // legal hold on a case of the own office (valid bodies set and lift holds; a lift with none in force is 409) and the office's retention period
+  fixed('POST /api/cases/:id/legal-hold', () => `/api/cases/${ids.mergeTargetId}/legal-hold`, () => ({ reason: 'Fuzz hold', until: '2099-01-05' })),
+  fixed('POST /api/cases/:id/legal-hold/lift', () => `/api/cases/${ids.mergeTargetId}/legal-hold/lift`, () => ({ reason: 'Fuzz lift' })),
+  fixed('PUT /api/offices/:id/retention', () => `/api/offices/${ids.ownOfficeId}/retention`, () => ({ retentionMonths: 24 })),
   measurementRow('POST /api/cases/:id/measurements'),
   measurementRow('PATCH /api/measurements/:id'),
   measurementRow('POST /api/measurements/:id/corrections'),
@@ -332,6 +337,7 @@ const FUZZ: FuzzRow[] = [
   caseRow('return-finding', 'finding_proposed', () => ({ reason: 'More work' })),
   caseRow('close', 'finding_proposed', () => ({ resolution: 'source_corrected', reason: 'Fixed' })),
   caseRow('reopen', 'closed', () => ({ reason: 'Back again' })),
+  caseRow('tracking-links/revoke', 'received', () => ({ reason: 'Fuzz: link shared by mistake' })),
   enforcementRow('responsible-party', { name: 'Fuzz party', phone: '+00 555 0100' }),
   enforcementRow('notices', { servedOn: '2026-01-05', method: 'email', summary: 'Fuzz notice' }),
   enforcementRow('party-replies', { receivedOn: '2026-01-05', summary: 'Fuzz reply' }),
@@ -401,6 +407,7 @@ describe('odd ids in paths', () => {
     'POST /api/cases/:id/notes',
     'POST /api/cases/:id/triage',
     'POST /api/cases/:id/close',
+    'POST /api/cases/:id/tracking-links/revoke',
     'GET /api/my/reports/:id',
     'POST /api/my/reports/:id/information',
     'POST /api/my/reports/:id/withdraw',

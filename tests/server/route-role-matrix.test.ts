@@ -105,6 +105,8 @@ const MATRIX: Row[] = [
   { route: 'POST /api/cases/:id/return-finding', path: (ids) => `/api/cases/${ids.ownCaseId}/return-finding`, body: { version: 1, reason: 'More work' }, expect: [401, 403, 403, 409, 403] },
   { route: 'POST /api/cases/:id/close', path: (ids) => `/api/cases/${ids.ownCaseId}/close`, body: { version: 1, resolution: 'source_corrected', reason: 'Fixed' }, expect: [401, 403, 403, 409, 403] },
   { route: 'POST /api/cases/:id/reopen', path: (ids) => `/api/cases/${ids.ownCaseId}/reopen`, body: { version: 1, reason: 'Back again' }, expect: [401, 403, 403, 409, 403] },
+  // closing a case's tracking links: a supervisor of its office (another office's case: 404 to staff; the administrator: 403)
+  { route: 'POST /api/cases/:id/tracking-links/revoke', path: (ids) => `/api/cases/${ids.otherCaseId}/tracking-links/revoke`, body: { reason: 'Matrix check' }, expect: [401, 403, 404, 404, 403] },
   // calculation records: staff of the case's office read them (another office's case 404, the administrator 403);
   // the assigned investigator or the office's supervisor store them while the case is worked (the own new report: 409)
   {
@@ -227,8 +229,19 @@ const MATRIX: Row[] = [
   { route: 'POST /api/follow-ups/:id/escalate', path: () => '/api/follow-ups/00000000-0000-4000-8000-000000000000/escalate', body: { version: 1, note: 'Matrix note' }, expect: [401, 403, 404, 404, 404] },
   { route: 'POST /api/follow-ups/:id/reopen', path: () => '/api/follow-ups/00000000-0000-4000-8000-000000000000/reopen', body: { version: 1, note: 'Matrix note' }, expect: [401, 403, 404, 404, 404] },
   { route: 'GET /api/follow-ups/due', expect: [401, 403, 200, 200, 200] },
+  // legal hold: staff of the office read it, its supervisors and admins set and lift it (own office: retention.test.ts); set before lift, so the admin lifts a hold in force
+  { route: 'GET /api/cases/:id/legal-hold', path: (ids) => `/api/cases/${ids.otherCaseId}/legal-hold`, expect: [401, 403, 404, 404, 200] },
+  { route: 'POST /api/cases/:id/legal-hold', path: (ids) => `/api/cases/${ids.otherCaseId}/legal-hold`, body: { reason: 'Matrix hold' }, expect: [401, 403, 403, 404, 200] },
+  { route: 'POST /api/cases/:id/legal-hold/lift', path: (ids) => `/api/cases/${ids.otherCaseId}/legal-hold/lift`, body: { reason: 'Matrix lift' }, expect: [401, 403, 403, 404, 200] },
+  // retention: the office's staff read its period, admins set it and see the dry run
+  { route: 'GET /api/offices/:id/retention', path: (ids) => `/api/offices/${ids.otherOfficeId}/retention`, expect: [401, 403, 404, 404, 200] },
+  { route: 'PUT /api/offices/:id/retention', path: (ids) => `/api/offices/${ids.otherOfficeId}/retention`, body: { retentionMonths: 24 }, expect: [401, 403, 403, 403, 200] },
+  { route: 'GET /api/admin/retention/dry-run', expect: [401, 403, 403, 403, 200] },
   // what Quietband e-mails the signed-in person (every role)
   { route: 'GET /api/me/emails', expect: [401, 200, 200, 200, 200] },
+  // the audit log: administrators only
+  { route: 'GET /api/admin/audit', expect: [401, 403, 403, 403, 200] },
+  { route: 'GET /api/admin/audit.csv', expect: [401, 403, 403, 403, 200] },
 ]
 
 let t: TestContext

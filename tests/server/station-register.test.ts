@@ -165,6 +165,9 @@ describe('importing the register', () => {
     const { version, report } = importConfirmResponseSchema.parse(res.body)
     expect(version).toMatchObject({ version: before[0].v + 1, acceptedCount: 2, rejectedCount: 2, fileId, fileName: 'register.csv', sha256: sha256(FIRST), current: true, delimiter: 'semicolon', mapping: FIRST_MAPPING })
     expect(report.rejected.map((r) => r.line)).toEqual([4, 5])
+    // the import is in the audit log, with its file and counts, in the same transaction (the list itself: audit.test.ts)
+    const { rows: audit } = await t.pool.query(`SELECT actor_user_id, details FROM audit_log WHERE action = 'station_register.imported' AND target_id = $1`, [String(version.version)])
+    expect(audit).toEqual([{ actor_user_id: adminId, details: { version: version.version, fileName: 'register.csv', sha256: sha256(FIRST), acceptedCount: 2, rejectedCount: 2 } }])
 
     const detail = registerVersionResponseSchema.parse((await investigator.get(`/api/station-register/versions/${version.version}`).expect(200)).body)
     expect(detail.rejected.map((r) => r.line)).toEqual([4, 5])

@@ -8,6 +8,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import request from 'supertest'
 import { z } from 'zod'
 import { meResponseSchema, signedInSchema } from '../../shared/schemas/auth'
+import { legalHoldResponseSchema, retentionRunResponseSchema, retentionSettingResponseSchema } from '../../shared/schemas/retention'
 import {
   casePageSchema,
   caseResponseSchema,
@@ -29,6 +30,8 @@ import { makeOffice, makeUser, reportNear, signIn, type Agent, type TestUser } f
 import type { Office } from '../../server/db/schema'
 import { findingsResponseSchema } from '../../shared/schemas/findings'
 import { caseFollowUpsResponseSchema, dueFollowUpsResponseSchema, followUpViewSchema, myEmailsResponseSchema, responsiblePartyResponseSchema } from '../../shared/schemas/follow-ups'
+import { auditPageSchema } from '../../shared/schemas/audit'
+import { personChangedResponseSchema, trackingLinksRevokedResponseSchema } from '../../shared/schemas/people'
 
 let t: TestContext
 let office: Office
@@ -113,6 +116,13 @@ describe('the answers of the API fit their view schemas', () => {
     expectFits(usersResponseSchema, await admin.get('/api/admin/users'))
   })
 
+  it('moving a person and closing a case’s tracking links', async () => {
+    const moved = await makeUser(t, { role: 'investigator', office })
+    expectFits(personChangedResponseSchema, await admin.patch(`/api/admin/users/${moved.id}`).send({ role: 'supervisor' }))
+    const filed = await fileReport(t, reportNear(office))
+    expectFits(trackingLinksRevokedResponseSchema, await supervisor.post(`/api/cases/${filed.id}/tracking-links/revoke`).send({ reason: 'Contract check' }))
+  })
+
   it('a complainant’s own reports', async () => {
     const filed = await complainant.post('/api/reports').set('X-Forwarded-For', uniqueAddress()).send(validReport(reportNear(office)))
     expectFits(submittedReportSchema, filed, 201)
@@ -137,6 +147,25 @@ describe('the answers of the API fit their view schemas', () => {
     expectFits(caseFollowUpsResponseSchema, await supervisor.get(`/api/cases/${f.id}/follow-ups`))
     expectFits(dueFollowUpsResponseSchema, await investigator.get('/api/follow-ups/due'))
     expectFits(myEmailsResponseSchema, await investigator.get('/api/me/emails'))
+  })
+
+  it('the audit list, with an administrative change and an opening of personal details in it', async () => {
+    const f = await fileHere()
+    expect((await supervisor.get(`/api/cases/${f.id}`)).status).toBe(200)
+    expect((await supervisor.put(`/api/offices/${office.id}/time-zone`).send({ timeZone: 'Europe/Lisbon' })).status).toBe(200)
+    const page = await admin.get('/api/admin/audit').query({ officeId: office.id })
+    expectFits(auditPageSchema, page)
+    expect(page.body.entries.map((e: { action: string }) => e.action)).toEqual(expect.arrayContaining(['complainant_details.viewed', 'office.time_zone_changed']))
+  })
+
+  it('a legal hold set and lifted, an office’s retention period and the retention dry run', async () => {
+    const f = await fileHere()
+    expectFits(legalHoldResponseSchema, await supervisor.post(`/api/cases/${f.id}/legal-hold`).send({ reason: 'Appeal pending', until: '2099-01-05' }))
+    expectFits(legalHoldResponseSchema, await investigator.get(`/api/cases/${f.id}/legal-hold`))
+    expectFits(legalHoldResponseSchema, await supervisor.post(`/api/cases/${f.id}/legal-hold/lift`).send({ reason: 'Appeal decided' }))
+    expectFits(retentionSettingResponseSchema, await supervisor.get(`/api/offices/${office.id}/retention`))
+    expectFits(retentionSettingResponseSchema, await admin.put(`/api/offices/${office.id}/retention`).send({ retentionMonths: 24 }))
+    expectFits(retentionRunResponseSchema, await admin.get('/api/admin/retention/dry-run'))
   })
 
   it('who is signed in, for an account and for an anonymous visitor', async () => {

@@ -85,6 +85,19 @@ export interface TestUser {
 
 /** An administrator the factories act as when they create staff (the policy looks at the role only). */
 const factoryAdmin: Actor = { id: randomUUID(), role: 'admin', officeId: null }
+/**
+ * The factory administrator's account, made once per pool, inactive (it signs nobody in and
+ * counts as no one's administrator): the audit log names it as the one who invited.
+ */
+const factoryAdminMade = new WeakSet<object>()
+async function ensureFactoryAdmin(t: TestContext): Promise<void> {
+  if (factoryAdminMade.has(t.pool)) return
+  await t.pool.query(`INSERT INTO users (id, email, name, role, active) VALUES ($1, $2, 'Test factory administrator', 'admin', false) ON CONFLICT (id) DO NOTHING`, [
+    factoryAdmin.id,
+    `factory-admin-${factoryAdmin.id}@example.test`,
+  ])
+  factoryAdminMade.add(t.pool)
+}
 
 /**
  * A user of the given role. Staff and administrators are invited through the administrator's
@@ -109,6 +122,7 @@ export async function makeUser(
     id = (await confirmEmailWithToken(t.services, token!)).id
   } else {
     const officeId = role === 'admin' ? null : opts.office!.id
+    await ensureFactoryAdmin(t)
     id = (await createStaffUser(t.services, factoryAdmin, { name, email, role, officeId })).id
     const [token] = await queuedTokens(t, email, 'set-password')
     expect(token, `an invitation was queued to ${email}`).toBeDefined()

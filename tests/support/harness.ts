@@ -37,8 +37,10 @@ export interface TestContext {
 /** A mail queue of this test file's own, so workers of other files never take its messages. */
 export const testMailQueue = () => `mail-send-test-${process.pid}-${Math.random().toString(36).slice(2, 8)}`
 
-export async function createTestContext(opts: { mailboxDir?: string; publicUrl?: string; logger?: Logger; objectStore?: ObjectStore } = {}): Promise<TestContext> {
-  const databaseUrl = inject('databaseUrl')
+export async function createTestContext(
+  opts: { mailboxDir?: string; publicUrl?: string; logger?: Logger; objectStore?: ObjectStore; /** Another database than the shared test database (the app role's URL). */ databaseUrl?: string } = {},
+): Promise<TestContext> {
+  const databaseUrl = opts.databaseUrl ?? inject('databaseUrl')
   const pool = createPool(databaseUrl, 5)
   const mailQueueName = testMailQueue()
   const boss = await startBoss(databaseUrl, { mailQueueName })

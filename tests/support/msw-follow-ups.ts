@@ -12,6 +12,7 @@ import {
   type ResponsiblePartyResponse,
 } from '../../shared/schemas/follow-ups'
 import { MAIL_KINDS, mailKindWhen, mailKindsFor } from '../../shared/domain/mail-kinds'
+import { legalHoldResponse } from './msw-retention'
 import { answer } from './msw-server'
 
 export const FU_CASE_ID = '0b6f1c2e-5d3a-4e8b-9c71-2a4f6e8d0c13'
@@ -72,4 +73,6 @@ export function myEmails(role: MyEmailsResponse['role'], address = 'ilse.marrow@
 export function answerNoEnforcementRecords(): void {
   answer('get', '/api/cases/:id/follow-ups', caseFollowUps({ followUps: [] }))
   answer('get', '/api/cases/:id/responsible-party', partyResponse({ current: null, earlier: [] }))
+  // and no legal hold (the retention feature's panel on the same page)
+  answer('get', '/api/cases/:id/legal-hold', legalHoldResponse())
 }

@@ -168,6 +168,7 @@ export function staffMember(changes: Partial<UserRow> & Pick<UserRow, 'id' | 'na
     officeName: 'Tarnwick Field Office',
     active: true,
     createdAt: '2026-01-05T09:00:00.000Z',
+    lastSignedInAt: '2026-11-29T07:40:00.000Z',
     ...changes,
   })
 }

@@ -18,7 +18,7 @@ describe('navItemsFor', () => {
     expect(labels(abilitiesOf('complainant'))).toEqual(['My reports → /my-reports', 'Report interference → /report'])
     expect(labels(abilitiesOf('investigator'))).toEqual(['My cases → /work', 'Band limits → /registers/band-limits', 'Licence register → /registers/stations', 'Equipment → /registers/equipment', 'Calculator → /calculator'])
     expect(labels(abilitiesOf('supervisor'))).toEqual(['Dashboard → /dashboard', 'Office queue → /work', 'Cases → /cases', 'Band limits → /registers/band-limits', 'Licence register → /registers/stations', 'Equipment → /registers/equipment', 'Calculator → /calculator'])
-    expect(labels(abilitiesOf('admin'))).toEqual(['Dashboard → /dashboard', 'Users → /admin/users', 'Offices → /admin/offices', 'Cases → /cases', 'Band limits → /registers/band-limits', 'Licence register → /registers/stations', 'Equipment → /registers/equipment', 'Calculator → /calculator'])
+    expect(labels(abilitiesOf('admin'))).toEqual(['Dashboard → /dashboard', 'Users → /admin/users', 'Offices → /admin/offices', 'Audit → /admin/audit', 'Cases → /cases', 'Band limits → /registers/band-limits', 'Licence register → /registers/stations', 'Equipment → /registers/equipment', 'Calculator → /calculator'])
   })
 
   it('shows a link only for what the account may do', () => {

@@ -11,6 +11,7 @@ import { paths } from '@/lib/paths'
 import { answer, apiError } from '../support/msw-server'
 import { IDS, office, officesResponse } from '../support/msw-views'
 import { renderPage } from '../support/web-render'
+import { retentionSettingResponse } from '../support/msw-retention'
 
 function serve() {
   answer(
@@ -22,6 +23,7 @@ function serve() {
     }),
   )
   answer('get', '/api/offices', officesResponse([office({ abilities: { setResponseTargets: true } })]))
+  answer('get', '/api/offices/:id/retention', retentionSettingResponse())
 }
 
 describe('the office settings page', () => {

@@ -68,6 +68,8 @@ export const cases = pgTable(
     /** The first response: the priority set at triage or a first message to the complainant, whichever came first. */
     firstRespondedAt: timestamp('first_responded_at', { withTimezone: true }),
     closedAt: timestamp('closed_at', { withTimezone: true }),
+    /** When the retention run erased the complainant's personal data (modules/retention). */
+    personalDataErasedAt: timestamp('personal_data_erased_at', { withTimezone: true }),
     version: integer('version').notNull().default(1),
     updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
     searchText: text('search_text').generatedAlwaysAs(
@@ -145,6 +147,8 @@ export const caseEvents = pgTable(
     visibility: text('visibility', { enum: TIMELINE_VISIBILITIES }).notNull(),
     /** Structured details of the event (priority, investigator, office, merged case…). */
     data: jsonb('data').$type<Record<string, unknown>>(),
+    /** When the retention run replaced `body` by a redacted copy (the one change this table allows). */
+    redactedAt: timestamp('redacted_at', { withTimezone: true }),
   },
   (t) => [
     check('case_events_visibility_valid', sql`${t.visibility} in ${sqlList(TIMELINE_VISIBILITIES)}`),

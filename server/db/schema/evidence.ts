@@ -31,6 +31,8 @@ export const evidenceFiles = pgTable(
     removedAt: timestamp('removed_at', { withTimezone: true }),
     removedBy: uuid('removed_by').references(() => users.id),
     removedReason: text('removed_reason'),
+    /** When the retention run deleted the file's object from the store (the row stays). */
+    disposedAt: timestamp('disposed_at', { withTimezone: true }),
     verifiedAt: timestamp('verified_at', { withTimezone: true }),
     verifiedBy: uuid('verified_by').references(() => users.id),
     verificationOutcome: text('verification_outcome', { enum: VERIFICATION_OUTCOMES }),

@@ -25,6 +25,8 @@ export const offices = pgTable(
     targetP4Hours: integer('target_p4_hours').notNull().default(240),
     /** The office's IANA time zone: its "today", "next 24 hours" and daily digest follow it (checked in the app with Intl). */
     timeZone: text('time_zone').notNull().default('UTC'),
+    /** Months a closed case keeps its complainant's personal data and evidence (shared/domain/retention.ts). */
+    retentionMonths: integer('retention_months').notNull().default(24),
     createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [
@@ -33,6 +35,7 @@ export const offices = pgTable(
     check('offices_area_polygon', sql`${t.area} is null or ${t.area}->>'type' in ('Polygon', 'MultiPolygon')`),
     check('offices_time_zone_shape', sql`${t.timeZone} ~ '^[A-Za-z_]+(/[A-Za-z0-9_+-]+)*$'`),
     check('offices_first_response_targets_positive', sql`least(${t.firstResponseP1Hours}, ${t.firstResponseP2Hours}, ${t.firstResponseP3Hours}, ${t.firstResponseP4Hours}) > 0`),
+    check('offices_retention_months_range', sql`${t.retentionMonths} between 1 and 1200`),
     check('offices_targets_positive', sql`least(${t.targetP1Hours}, ${t.targetP2Hours}, ${t.targetP3Hours}, ${t.targetP4Hours}) > 0`),
   ],
 )

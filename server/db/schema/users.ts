@@ -30,6 +30,8 @@ export const users = pgTable(
      */
     emailConfirmedAt: timestamp('email_confirmed_at', { withTimezone: true }).defaultNow(),
     createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+    /** The last successful sign-in (password, confirmation link or set-password link); null until the first. */
+    lastSignedInAt: timestamp('last_signed_in_at', { withTimezone: true }),
   },
   (t) => [
     check('users_role_valid', sql`${t.role} in ${sqlList(ROLES)}`),

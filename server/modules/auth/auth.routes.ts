@@ -24,6 +24,7 @@ import {
   requestPasswordReset,
   setPasswordWithToken,
 } from './auth.service'
+import { recordSignIn } from '../users/people.service'
 import { FREE_FAILURES_PER_ACCOUNT, signInDelayMs, wait, type SignInDelay } from './sign-in-delay'
 
 /** Registrations, reset requests and password settings per address per hour (common practice, no source). */
@@ -49,8 +50,8 @@ const unconfirmedEmail = () =>
   )
 
 /** Starts the session (passport regenerates the session id: no session fixation). */
-function logIn(req: Request, user: SessionUser): Promise<void> {
-  return new Promise((resolve, reject) => req.login(user, (err) => (err ? reject(err) : resolve())))
+function logIn(ctx: ServiceContext, req: Request, user: SessionUser): Promise<void> {
+  return new Promise<void>((resolve, reject) => req.login(user, (err) => (err ? reject(err) : resolve()))).then(() => recordSignIn(ctx.db, user.id))
 }
 
 /** The answer of every call that signs someone in: the user and what the account may do. */
@@ -103,7 +104,7 @@ export function authRoutes(ctx: ServiceContext, p: passport.PassportStatic, opts
       throw unconfirmedEmail()
     }
     await markSignInSucceeded(ctx.db, attempt.id)
-    await logIn(req, result.user)
+    await logIn(ctx, req, result.user)
     res.json(signedIn(result.user))
   })
 
@@ -135,7 +136,7 @@ export function authRoutes(ctx: ServiceContext, p: passport.PassportStatic, opts
   r.post('/auth/confirm-email', accountWork, async (req, res) => {
     const { token } = parseWith(confirmEmailSchema, req.body)
     const user = await confirmEmailWithToken(ctx, token)
-    await logIn(req, user)
+    await logIn(ctx, req, user)
     res.json(signedIn(user))
   })
 
@@ -148,7 +149,7 @@ export function authRoutes(ctx: ServiceContext, p: passport.PassportStatic, opts
   r.post('/auth/set-password', accountWork, async (req, res) => {
     const input = parseWith(setPasswordSchema, req.body)
     const user = await setPasswordWithToken(ctx, input.token, input.password)
-    await logIn(req, user)
+    await logIn(ctx, req, user)
     res.json(signedIn(user))
   })
 

@@ -20,6 +20,7 @@ import {
   type BandLimitChangeWithAuthor,
   type BandLimitWithEditor,
 } from './band-limits.repo'
+import { recordAudit } from '../audit/audit.repo'
 
 const bandLimitNotFound = () => notFound('band_limit_not_found', 'No such band limit.')
 const staleBandLimit = () => conflict('stale_version', 'Someone else changed this band limit a moment ago. Reload it to see their change, then edit again.')
@@ -92,6 +93,14 @@ export async function reviseBandLimit(ctx: ServiceContext, actor: Actor, bandLim
     const row = await updateBandLimitIfVersion(db, bandLimitId, patch.version, after, actor.id)
     if (!row) throw staleBandLimit()
     await insertBandLimitChange(db, { bandLimitId, changedBy: actor.id, reason: patch.reason, version: row.version, before, after })
+    await recordAudit(db, {
+      actorUserId: actor.id,
+      action: 'band_limit.edited',
+      targetType: 'band_limit',
+      targetId: bandLimitId,
+      officeId: null,
+      details: { key: current.key, version: row.version, reason: patch.reason, fields: Object.keys(after) },
+    })
   })
   return presentBandLimit((await findBandLimit(ctx.db, bandLimitId))!)
 }

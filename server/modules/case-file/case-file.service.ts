@@ -32,6 +32,7 @@ import { presentNotice, presentParty, presentReply } from '../responsible-partie
 import { noticesOfCase, partyVersionsOfCase, repliesOfCase } from '../responsible-parties/responsible-parties.repo'
 import { findUserById } from '../users/users.repo'
 import { renderCaseFilePdf } from './case-file-pdf'
+import { recordAudit } from '../audit/audit.repo'
 import { countIssuedCaseFiles } from './case-file.repo'
 
 export interface IssuedCaseFile {
@@ -125,6 +126,7 @@ export async function issueCaseFile(ctx: ServiceContext, actor: Actor, caseId: s
       visibility: 'internal',
       data: { fileReference, fileName, sha256, pageCount, sizeBytes: pdf.length, issuedById: actor.id, issuedByName: issuedBy, signer: signer.subject, certificateSha256: signer.certificateSha256, demoSignature: signer.demo },
     })
+    await recordAudit(tx.db, { actorUserId: actor.id, action: 'case_file.issued', targetType: 'case', targetId: c.id, officeId: c.officeId, details: { reference: c.reference, fileReference, sha256 } })
     return { fileReference, fileName, pdf, sha256, pageCount }
   })
 }

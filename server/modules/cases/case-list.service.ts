@@ -8,6 +8,7 @@ import type { CasePage } from '../../../shared/schemas/views'
 import type { ServiceContext } from '../../context'
 import { forbidden } from '../../http/errors'
 import { officeScope, type Actor } from '../../policy/policy'
+import { recordAudit } from '../audit/audit.repo'
 import { findCasePage, findCaseRows, type OfficeScope } from './case-list.repo'
 
 function listScope(actor: Actor): OfficeScope {
@@ -36,7 +37,7 @@ export async function listCases(ctx: ServiceContext, actor: Actor, q: CaseListQu
 /** Most rows one CSV export returns. */
 export const CSV_MAX_ROWS = 50_000
 
-function csvCell(v: unknown): string {
+export function csvCell(v: unknown): string {
   const s = v === null || v === undefined ? '' : v instanceof Date ? v.toISOString() : String(v)
   // quote always; neutralise spreadsheet formulas in free text
   const safe = /^[=+\-@\t\r]/.test(s) ? `'${s}` : s
@@ -50,5 +51,7 @@ export async function exportCasesCsv(ctx: ServiceContext, actor: Actor, q: CaseL
   const lines = rows.map((r) =>
     [r.reference, CASE_STATE_LABELS[r.status], r.priority, r.service, r.freqLowHz, r.freqHighHz, r.address, r.officeName, r.investigatorName, r.complainantName, r.receivedAt, r.dueAt, r.overdue ? 'yes' : 'no', r.closedAt].map(csvCell).join(','),
   )
+  // the export carries complainants' names: who took which list is recorded
+  await recordAudit(ctx.db, { actorUserId: actor.id, action: 'cases.exported_csv', targetType: 'case_list', targetId: null, officeId: actor.officeId, details: { filters: q, rowCount: rows.length } })
   return [header.join(','), ...lines].join('\r\n') + '\r\n'
 }

@@ -294,9 +294,9 @@ export function closeCase(ctx: ServiceContext, actor: CaseActor, caseId: string,
 /** Returns a closed case to work (to its investigator, or to triage) and tells the complainant. */
 export function reopenCase(ctx: ServiceContext, actor: CaseActor, caseId: string, input: { version: number; reason: string }) {
   return makeMove(ctx, actor, caseId, 'reopen', input.version, async ({ c, db, mail, trackingLink }) => {
-    // an investigator who has left since goes off the case, which then returns to triage
+    // an investigator who has left since (deactivated, or moved to another role or office) goes off the case, which then returns to triage
     const investigator = c.investigatorId ? await findUserById(db, c.investigatorId) : undefined
-    const keepInvestigator = !!investigator?.active
+    const keepInvestigator = !!investigator?.active && investigator.role === 'investigator' && investigator.officeId === c.officeId
     return {
       changes: { resolution: null, closingSummary: null, closedAt: null, mergedIntoCaseId: null, ...(keepInvestigator ? {} : { investigatorId: null }) },
       body: input.reason,

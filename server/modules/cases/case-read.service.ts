@@ -7,6 +7,7 @@ import type { Actor } from '../../policy/policy'
 import { forbidden } from '../../http/errors'
 import { findOffice, otherOffices } from '../offices/offices.repo'
 import { findUserById } from '../users/users.repo'
+import { noteComplainantDetailsViewed } from '../audit/audit.service'
 import { loadVisibleCase } from './case-access'
 import { casesOfComplainant, findCaseReference, investigatorLoads, mergedReportsOf, openCasesNear, timelineOf } from './cases.repo'
 import { presentCaseDetail, presentComplainantView, toTimelineEvent } from './cases.present'
@@ -33,6 +34,16 @@ export async function getCaseDetail(ctx: ServiceContext, actor: Actor, caseId: s
     },
     ctx.now(),
   )
+}
+
+/**
+ * A member of staff opening the case page: its detail, complainant's personal details
+ * included — an opening the audit log records (at most once per person and case per hour).
+ */
+export async function openCaseDetail(ctx: ServiceContext, actor: Actor, caseId: string) {
+  const detail = await getCaseDetail(ctx, actor, caseId)
+  await noteComplainantDetailsViewed(ctx, actor, detail)
+  return detail
 }
 
 export async function getComplainantView(ctx: ServiceContext, actor: CaseActor, caseId: string) {

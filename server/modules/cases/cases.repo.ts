@@ -225,3 +225,13 @@ export async function findCaseIdOfTokenHash(db: Db, tokenHash: string): Promise<
     .where(and(eq(caseTrackingTokens.tokenHash, tokenHash), isNull(caseTrackingTokens.revokedAt)))
   return t?.caseId
 }
+
+/** Revokes every tracking token of a case that still works; how many there were. */
+export async function revokeTrackingTokensOfCase(db: Db, caseId: string): Promise<number> {
+  const revoked = await db
+    .update(caseTrackingTokens)
+    .set({ revokedAt: sql`now()` })
+    .where(and(eq(caseTrackingTokens.caseId, caseId), isNull(caseTrackingTokens.revokedAt)))
+    .returning({ id: caseTrackingTokens.id })
+  return revoked.length
+}

@@ -22,8 +22,10 @@ import { caseIdOf } from './case-access'
 import { addCaseNote } from './case-notes.service'
 import { exportCasesCsv, listCases } from './case-list.service'
 import * as moves from './case-moves.service'
-import { getCaseDetail, investigatorsForCase, mergeCandidates, transferOffices } from './case-read.service'
+import { getCaseDetail, investigatorsForCase, mergeCandidates, openCaseDetail, transferOffices } from './case-read.service'
 import { nearbyOpenCases } from './nearby-cases.service'
+import { revokeTrackingLinks } from './tracking-links.service'
+import { revokeTrackingLinksSchema } from '../../../shared/schemas/people'
 import type { Actor } from '../../policy/policy'
 
 
@@ -42,7 +44,7 @@ export function casesRoutes(ctx: ServiceContext): Router {
     res.send(csv)
   })
   r.get('/cases/:id', staff, async (req, res) => {
-    res.json({ case: await getCaseDetail(ctx, actorOf(req), caseIdOf(req.params)) })
+    res.json({ case: await openCaseDetail(ctx, actorOf(req), caseIdOf(req.params)) })
   })
   r.get('/cases/:id/merge-candidates', staff, async (req, res) => {
     res.json({ candidates: await mergeCandidates(ctx, actorOf(req), caseIdOf(req.params)) })
@@ -60,6 +62,10 @@ export function casesRoutes(ctx: ServiceContext): Router {
     const id = caseIdOf(req.params)
     await addCaseNote(ctx, actorOf(req), id, parseWith(noteSchema, req.body))
     res.status(201).json({ case: await getCaseDetail(ctx, actorOf(req), id) })
+  })
+
+  r.post('/cases/:id/tracking-links/revoke', staff, async (req, res) => {
+    res.json(await revokeTrackingLinks(ctx, actorOf(req), caseIdOf(req.params), parseWith(revokeTrackingLinksSchema, req.body)))
   })
 
   // one route per move; each answers with the case as it now stands (with fresh abilities)

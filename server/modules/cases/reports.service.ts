@@ -4,7 +4,7 @@
  * private tracking link — all in one transaction.
  */
 import { nearestOffice } from '../../../shared/radio/geo'
-import { suggestPriority, type Priority } from '../../../shared/domain/services'
+import { harmClassText, suggestPriority, type Priority } from '../../../shared/domain/services'
 import { reportFrequencyHz, type Report, type ReportWarning } from '../../../shared/schemas/cases'
 import type { SessionUser } from '../../../shared/schemas/auth'
 import { withTransaction } from '../../db/client'
@@ -93,7 +93,7 @@ export async function submitReport(ctx: ServiceContext, report: Report, signedIn
       actorLabel: 'Quietband',
       kind: 'routed',
       visibility: 'internal',
-      body: `Routed to ${office.name}, the nearest office (${(nearest.distanceM / 1000).toFixed(1)} km, geodesic). Suggested priority ${priority} from the affected service.`,
+      body: `Routed to ${office.name}, the nearest office (${(nearest.distanceM / 1000).toFixed(1)} km, geodesic). Suggested harm class: ${harmClassText(priority)}, from the affected service.`,
       data: { officeId: office.id, distanceM: nearest.distanceM, suggestedPriority: priority, method: nearest.method },
     })
     if (farKm !== undefined) {

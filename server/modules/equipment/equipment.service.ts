@@ -25,6 +25,7 @@ import {
   type EquipmentChangeWithAuthor,
   type EquipmentWithEditor,
 } from './equipment.repo'
+import { recordAudit } from '../audit/audit.repo'
 
 export const equipmentNotFound = () => notFound('equipment_not_found', 'No such item in your office’s register.')
 const officeNotFound = () => notFound('office_not_found', 'No such office.')
@@ -118,6 +119,7 @@ export async function addEquipment(ctx: ServiceContext, actor: Actor, officeId: 
   const id = await withTransaction(ctx.pool, async ({ db }) => {
     const row = await insertEquipment(db, officeId, content, actor.id)
     await insertEquipmentChange(db, { equipmentId: row.id, changedBy: actor.id, reason: 'Added to the register', version: 1, before: {}, after: contentOf(row) })
+    await recordAudit(db, { actorUserId: actor.id, action: 'equipment.changed', targetType: 'equipment', targetId: row.id, officeId, details: { change: 'added', version: 1 } })
     return row.id
   })
   return presentEquipment((await findEquipment(ctx.db, id))!)
@@ -139,6 +141,14 @@ export async function reviseEquipment(
     const row = await updateEquipmentIfVersion(db, equipmentId, patch.version, after, actor.id)
     if (!row) throw staleEquipment()
     await insertEquipmentChange(db, { equipmentId, changedBy: actor.id, reason: patch.reason, version: row.version, before, after })
+    await recordAudit(db, {
+      actorUserId: actor.id,
+      action: 'equipment.changed',
+      targetType: 'equipment',
+      targetId: equipmentId,
+      officeId: current.officeId,
+      details: { change: 'revised', version: row.version, reason: patch.reason, fields: Object.keys(after) },
+    })
   })
   return presentEquipment((await findEquipment(ctx.db, equipmentId))!)
 }

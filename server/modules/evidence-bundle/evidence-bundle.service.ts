@@ -17,6 +17,7 @@ import { loadVisibleCase } from '../cases/case-access'
 import { findUserById } from '../users/users.repo'
 import { bundledFile, manifestEntries, manifestText, type BundleCheck, type BundleManifest, type ManifestFile } from './bundle-manifest'
 import { appendCustody } from '../evidence/evidence.repo'
+import { recordAudit } from '../audit/audit.repo'
 import { custodyOfEvidence, keptEvidenceOfCase, type BundledFileRow } from './evidence-bundle.repo'
 
 /** Passes bytes on unchanged while counting and hashing them. */
@@ -145,6 +146,14 @@ async function writeBundle(
         detail: `${o.c.reference}-evidence.zip; ${b.outcome === 'match' ? 'hash matched the one taken at intake' : 'hash DID NOT match the one taken at intake'}`,
       })
     }
+    await recordAudit(ctx.db, {
+      actorUserId: o.actorId,
+      action: 'evidence.bundle_exported',
+      targetType: 'case',
+      targetId: o.c.id,
+      officeId: o.c.officeId,
+      details: { reference: o.c.reference, fileCount: bundled.length, hashMismatches: bundled.filter((b) => b.outcome !== 'match').length },
+    })
     await archive.finalize()
     if (archiveError) throw archiveError
   } catch (e) {

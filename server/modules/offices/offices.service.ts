@@ -4,6 +4,7 @@ import type { Office } from '../../db/schema'
 import { forbidden, notFound } from '../../http/errors'
 import { can, officeScope, type Actor } from '../../policy/policy'
 import type { OfficeView } from '../../../shared/schemas/views'
+import { recordAudit } from '../audit/audit.repo'
 import { findOffice, listOffices as listOfficeRows, setOfficeFirstResponseTargets, setOfficeTargets, setOfficeTimeZone } from './offices.repo'
 
 export function presentOffice(o: Office, actor: Actor): OfficeView {
@@ -46,7 +47,16 @@ export async function setResponseTargets(ctx: ServiceContext, actor: Actor, offi
   if (!can(actor, 'office.configure', { officeId: current.id })) throw forbidden('Only the office’s supervisor or an administrator can change its targets.')
   return withTransaction(ctx.pool, async ({ db }) => {
     const o = await setOfficeTargets(db, officeId, { 1: t.p1, 2: t.p2, 3: t.p3, 4: t.p4 })
-    return presentOffice(o!, actor)
+    const after = presentOffice(o!, actor)
+    await recordAudit(db, {
+      actorUserId: actor.id,
+      action: 'office.response_targets_changed',
+      targetType: 'office',
+      targetId: officeId,
+      officeId,
+      details: { beforeHours: current.responseTargetsHours, afterHours: after.responseTargetsHours },
+    })
+    return after
   })
 }
 
@@ -59,7 +69,16 @@ export async function setFirstResponseTargets(ctx: ServiceContext, actor: Actor,
   if (!can(actor, 'office.configure', { officeId: current.id })) throw forbidden('Only the office’s supervisor or an administrator can change its targets.')
   return withTransaction(ctx.pool, async ({ db }) => {
     const o = await setOfficeFirstResponseTargets(db, officeId, { 1: t.p1, 2: t.p2, 3: t.p3, 4: t.p4 })
-    return presentOffice(o!, actor)
+    const after = presentOffice(o!, actor)
+    await recordAudit(db, {
+      actorUserId: actor.id,
+      action: 'office.first_response_targets_changed',
+      targetType: 'office',
+      targetId: officeId,
+      officeId,
+      details: { beforeHours: current.firstResponseTargetsHours, afterHours: after.firstResponseTargetsHours },
+    })
+    return after
   })
 }
 
@@ -67,6 +86,16 @@ export async function setFirstResponseTargets(ctx: ServiceContext, actor: Actor,
 export async function setTimeZone(ctx: ServiceContext, actor: Actor, officeId: string, timeZone: string): Promise<OfficeView> {
   const current = await getOffice(ctx, actor, officeId)
   if (!can(actor, 'office.configure', { officeId: current.id })) throw forbidden('Only the office’s supervisor or an administrator can change its time zone.')
-  const o = await setOfficeTimeZone(ctx.db, officeId, timeZone)
-  return presentOffice(o!, actor)
+  return withTransaction(ctx.pool, async ({ db }) => {
+    const o = await setOfficeTimeZone(db, officeId, timeZone)
+    await recordAudit(db, {
+      actorUserId: actor.id,
+      action: 'office.time_zone_changed',
+      targetType: 'office',
+      targetId: officeId,
+      officeId,
+      details: { before: current.timeZone, after: timeZone },
+    })
+    return presentOffice(o!, actor)
+  })
 }

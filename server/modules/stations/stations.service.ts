@@ -44,6 +44,7 @@ import {
   overlappingRankableRows,
   searchStationRows,
 } from './stations.repo'
+import { recordAudit } from '../audit/audit.repo'
 
 const SAMPLE_ROWS = 10
 
@@ -198,6 +199,14 @@ async function importChecked(ctx: StoreDeps & Pick<ServiceContext, 'pool'>, impo
       db,
       accepted.map((d) => stationRowOf(next, d)),
     )
+    await recordAudit(db, {
+      actorUserId: importedBy,
+      action: 'station_register.imported',
+      targetType: 'station_register',
+      targetId: String(next),
+      officeId: null,
+      details: { version: next, fileName: file.originalName, sha256: file.sha256, acceptedCount: report.acceptedCount, rejectedCount: report.rejectedCount },
+    })
     return next
   })
   return presentRegisterVersion((await findRegisterVersion(ctx.db, version))!, await currentRegisterVersion(ctx.db))

@@ -16,10 +16,11 @@ export const publicUserColumns = {
   officeName: offices.name,
   active: users.active,
   createdAt: users.createdAt,
+  lastSignedInAt: users.lastSignedInAt,
 }
 
 /** A user as the API sends it (`UserRow`), before JSON turns the time into a string. */
-export type PublicUser = Omit<UserRow, 'createdAt'> & { createdAt: Date }
+export type PublicUser = Omit<UserRow, 'createdAt' | 'lastSignedInAt'> & { createdAt: Date; lastSignedInAt: Date | null }
 
 export async function findUserById(db: Db, id: string): Promise<PublicUser | undefined> {
   const [u] = await db.select(publicUserColumns).from(users).leftJoin(offices, eq(users.officeId, offices.id)).where(eq(users.id, id))

@@ -1,14 +1,14 @@
 import { Router } from 'express'
-import { z } from 'zod'
 import { createStaffSchema } from '../../../shared/schemas/auth'
 import type { ServiceContext } from '../../context'
 import { actorOf, requireRole } from '../../http/authenticate'
 import { parseWith } from '../../http/validate'
 import { idParamSchema } from '../../../shared/schemas/ids'
-import { createStaffUser, getStaffMember, listAllUsers, listStaff, setUserActive } from './users.service'
+import { createStaffUser, getStaffMember, listAllUsers, listStaff } from './users.service'
+import { updatePerson } from './people.service'
+import { updatePersonSchema } from '../../../shared/schemas/people'
 
 const idParam = idParamSchema
-const activeBody = z.object({ active: z.boolean() })
 
 export function usersRoutes(ctx: ServiceContext): Router {
   const r = Router()
@@ -21,8 +21,7 @@ export function usersRoutes(ctx: ServiceContext): Router {
   })
   r.patch('/admin/users/:id', requireRole('admin'), async (req, res) => {
     const { id } = parseWith(idParam, req.params)
-    const { active } = parseWith(activeBody, req.body)
-    res.json({ user: await setUserActive(ctx, actorOf(req), id, active) })
+    res.json(await updatePerson(ctx, actorOf(req), id, parseWith(updatePersonSchema, req.body)))
   })
   r.get('/staff', requireRole('investigator', 'supervisor', 'admin'), async (req, res) => {
     res.json({ staff: await listStaff(ctx, actorOf(req)) })

@@ -8,6 +8,7 @@ import { can, officeScope, type Actor } from '../../policy/policy'
 import type { CreateStaffInput } from '../../../shared/schemas/auth'
 import { insertPasswordToken } from '../auth/auth.repo'
 import { newToken } from '../auth/passwords'
+import { recordAudit } from '../audit/audit.repo'
 import { findOffice } from '../offices/offices.repo'
 import { findUserById, insertUser, listUsers, setActive, type PublicUser } from './users.repo'
 
@@ -32,6 +33,7 @@ export async function createStaffUser(ctx: ServiceContext, actor: Actor, input: 
     await insertPasswordToken(db, { userId, tokenHash, purpose: 'invite', hours: INVITE_TOKEN_HOURS })
     const link = `${ctx.publicUrl}/set-password?token=${encodeURIComponent(token)}`
     await queueMail(ctx.boss, client, staffInvitationMail({ to: input.email, name: input.name, link, expiresHours: INVITE_TOKEN_HOURS }), ctx.mailQueue)
+    await recordAudit(db, { actorUserId: actor.id, action: 'user.invited', targetType: 'user', targetId: userId, officeId, details: { role: input.role } })
     return userId
   })
   return (await findUserById(ctx.db, id))!
@@ -41,7 +43,20 @@ export async function createStaffUser(ctx: ServiceContext, actor: Actor, input: 
 export async function setUserActive(ctx: ServiceContext, actor: Actor, userId: string, active: boolean): Promise<PublicUser> {
   if (!can(actor, 'user.update')) throw forbidden()
   if (userId === actor.id && !active) throw conflict('cannot_deactivate_self', 'You cannot deactivate your own account.')
-  if (!(await setActive(ctx.db, userId, active))) throw notFound('user_not_found', 'No such user.')
+  await withTransaction(ctx.pool, async ({ db }) => {
+    const before = await findUserById(db, userId)
+    if (!before || !(await setActive(db, userId, active))) throw notFound('user_not_found', 'No such user.')
+    if (before.active !== active) {
+      await recordAudit(db, {
+        actorUserId: actor.id,
+        action: active ? 'user.reactivated' : 'user.deactivated',
+        targetType: 'user',
+        targetId: userId,
+        officeId: before.officeId,
+        details: { role: before.role },
+      })
+    }
+  })
   return (await findUserById(ctx.db, userId))!
 }
 
@@ -50,8 +65,12 @@ export async function listStaff(ctx: ServiceContext, actor: Actor): Promise<Publ
   if (!can(actor, 'staff.list')) throw forbidden()
   const scope = officeScope(actor)
   if ('none' in scope) return []
-  return listUsers(ctx.db, { staffOnly: true, ...('officeId' in scope ? { officeId: scope.officeId } : {}) })
+  const staff = await listUsers(ctx.db, { staffOnly: true, ...('officeId' in scope ? { officeId: scope.officeId } : {}) })
+  return staff.map((u) => signInsFor(actor, u))
 }
+
+/** When colleagues last signed in is for administrators (the users page) only. */
+const signInsFor = (actor: Actor, u: PublicUser): PublicUser => (can(actor, 'user.list') ? u : { ...u, lastSignedInAt: null })
 
 /** One staff member; another office's staff member is not found (404), not forbidden. */
 export async function getStaffMember(ctx: ServiceContext, actor: Actor, userId: string): Promise<PublicUser> {
@@ -60,5 +79,5 @@ export async function getStaffMember(ctx: ServiceContext, actor: Actor, userId: 
   if (!u || (u.role !== 'investigator' && u.role !== 'supervisor') || !can(actor, 'staff.read', u)) {
     throw notFound('user_not_found', 'No such staff member.')
   }
-  return u
+  return signInsFor(actor, u)
 }

@@ -65,6 +65,10 @@ export const routes: RouteObject[] = [
             children: [{ path: paths.adminOffices.path, lazy: () => import('./routes/admin-offices') }],
           },
           {
+            element: <RequireAbility anyOf={['readAudit']} />,
+            children: [{ path: paths.adminAudit.path, lazy: () => import('./routes/admin-audit') }],
+          },
+          {
             element: <RequireAbility anyOf={['readBandLimits']} />,
             children: [{ path: paths.bandLimits.path, lazy: () => import('./routes/band-limits') }],
           },

@@ -41,6 +41,8 @@ export const paths = {
   admin: page('/admin'),
   adminUsers: page('/admin/users'),
   adminOffices: page('/admin/offices'),
+  /** The audit log: administrative changes, exports and openings of personal details (administrators). */
+  adminAudit: page('/admin/audit'),
   /** The national band-limit list (staff read it; supervisors and administrators edit it). */
   bandLimits: page('/registers/band-limits'),
   /** The licence register: authorised stations (staff read it; administrators import new versions). */

@@ -52,6 +52,12 @@ export const userKeys = {
   all: ['admin', 'users'] as const,
 }
 
+/** The audit log, per filter set and page (administrators). */
+export const auditKeys = {
+  all: ['admin', 'audit'] as const,
+  list: (query: string) => [...auditKeys.all, query] as const,
+}
+
 /** The dashboard, per office filter ('all': every office in the viewer's scope). */
 export const dashboardKeys = {
   all: ['dashboard'] as const,
@@ -61,6 +67,13 @@ export const dashboardKeys = {
 /** The field offices and their response targets. */
 export const officeKeys = {
   all: ['offices'] as const,
+}
+
+/** Retention: a case's legal hold and an office's retention period. */
+export const retentionKeys = {
+  all: ['retention'] as const,
+  legalHold: (caseId: string) => [...retentionKeys.all, 'legal-hold', caseId] as const,
+  office: (officeId: string) => [...retentionKeys.all, 'office', officeId] as const,
 }
 
 /** A complainant's reports: their list, and one report by tracking token or by account. */

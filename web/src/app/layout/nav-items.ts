@@ -28,6 +28,7 @@ export function navItemsFor(abilities: AccountAbilities | null): NavItem[] {
   else if (abilities.workAssignedCases) items.push({ label: 'My cases', to: paths.work.href() })
   if (abilities.manageUsers) items.push({ label: 'Users', to: paths.adminUsers.href() })
   if (abilities.manageOffices) items.push({ label: 'Offices', to: paths.adminOffices.href() })
+  if (abilities.readAudit) items.push({ label: 'Audit', to: paths.adminAudit.href() })
   // an investigator reaches the full list from My cases; the main links stay their own work
   if (abilities.readCases && !abilities.workAssignedCases) items.push({ label: 'Cases', to: paths.cases.href() })
   if (abilities.readBandLimits) items.push({ label: 'Band limits', to: paths.bandLimits.href() })

@@ -5,6 +5,7 @@ import { QueryError } from '@/components/ui/query-error'
 import { useOffices } from '@/features/offices/api/get-offices'
 import { OfficesTable } from '@/features/offices/components/offices-table'
 import { OfficeTargetsPanels } from '@/features/offices/components/office-targets-panels'
+import { RetentionPanels } from '@/features/retention/components/retention-panels'
 
 export function Component() {
   const offices = useOffices()
@@ -16,6 +17,7 @@ export function Component() {
         {offices.isError && <QueryError error={offices.error} what="offices" onRetry={() => void offices.refetch()} />}
         {offices.data && <OfficesTable offices={offices.data.offices} />}
         {offices.data && <OfficeTargetsPanels offices={offices.data.offices} />}
+        {offices.data && <RetentionPanels offices={offices.data.offices} />}
       </div>
     </>
   )

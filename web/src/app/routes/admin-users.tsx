@@ -1,4 +1,4 @@
-/** /admin/users — every account; add staff; let accounts in or keep them out. */
+/** /admin/users — every account and its last sign-in; add staff; move staff between roles and offices; let accounts in or keep them out. */
 import { useState } from 'react'
 import { FormAlert } from '@/components/ui/form-alert'
 import { Loading } from '@/components/ui/loading'
@@ -8,6 +8,7 @@ import { QueryError } from '@/components/ui/query-error'
 import { useUsers } from '@/features/admin-users/api/get-users'
 import { useSetUserActive } from '@/features/admin-users/api/set-user-active'
 import { CreateUserForm } from '@/features/admin-users/components/create-user-form'
+import { PersonEditForm } from '@/features/admin-users/components/person-edit-form'
 import { UsersTable } from '@/features/admin-users/components/users-table'
 import { useMe } from '@/features/auth/api/get-me'
 import { useOffices } from '@/features/offices/api/get-offices'
@@ -19,6 +20,8 @@ export function Component() {
   const me = useMe()
   const setActive = useSetUserActive()
   const [problem, setProblem] = useState<FormProblem | null>(null)
+  const [editingId, setEditingId] = useState<string | null>(null)
+  const editing = users.data?.users.find((u) => u.id === editingId) ?? null
 
   return (
     <>
@@ -37,9 +40,15 @@ export function Component() {
                 setProblem(null)
                 setActive.mutate({ userId: user.id, active }, { onError: (error) => setProblem(formProblem(error)) })
               }}
+              onEdit={(user) => setEditingId(user.id)}
             />
           )}
         </section>
+        {editing && (
+          <Panel className="max-w-3xl">
+            <PersonEditForm key={editing.id} user={editing} offices={offices.data?.offices ?? []} onClose={() => setEditingId(null)} />
+          </Panel>
+        )}
         <Panel className="max-w-3xl">
           {offices.isError && <QueryError error={offices.error} what="offices" onRetry={() => void offices.refetch()} />}
           <CreateUserForm offices={offices.data?.offices ?? []} />

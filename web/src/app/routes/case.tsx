@@ -11,6 +11,8 @@ import { CaseHeader } from '@/features/case-page/components/case-header'
 import { CaseReportDetails } from '@/features/case-page/components/case-report-details'
 import { CaseTimeline } from '@/features/case-page/components/case-timeline'
 import { FindingSummary } from '@/features/case-page/components/finding-summary'
+import { TrackingLinksRevoke } from '@/features/case-page/components/tracking-links-revoke'
+import { LegalHoldPanel } from '@/features/retention/components/legal-hold-panel'
 import { MeasurementsSection } from '@/features/measurements/components/measurements-section'
 import { EvidenceSection } from '@/features/evidence/components/evidence-section'
 import { ResponsiblePartySection } from '@/features/follow-ups/components/responsible-party-section'
@@ -56,8 +58,10 @@ export function Component() {
       <CaseHeader detail={detail} now={now} />
       <Workbench detail={detail} />
       <div className="grid items-start gap-6 lg:grid-cols-[minmax(0,1fr)_26rem]">
-        <div className="lg:col-start-2 lg:row-start-1">
+        <div className="flex flex-col gap-6 lg:col-start-2 lg:row-start-1">
           <CaseActionsPanel detail={detail} reload={() => void query.refetch()} reloading={query.isFetching} />
+          <TrackingLinksRevoke detail={detail} />
+          <LegalHoldPanel caseId={detail.id} />
         </div>
         <div className="flex flex-col gap-6 lg:col-start-1 lg:row-start-1">
           <FindingSummary detail={detail} />

@@ -6,6 +6,7 @@ import { QueryError } from '@/components/ui/query-error'
 import { useMe } from '@/features/auth/api/get-me'
 import { useOffices } from '@/features/offices/api/get-offices'
 import { OfficeTargetsPanels } from '@/features/offices/components/office-targets-panels'
+import { RetentionPanels } from '@/features/retention/components/retention-panels'
 import { paths } from '@/lib/paths'
 
 export function Component() {
@@ -18,6 +19,7 @@ export function Component() {
         {offices.isPending && <Loading label="Loading the office…" />}
         {offices.isError && <QueryError error={offices.error} what="the office" onRetry={() => void offices.refetch()} />}
         {offices.data && <OfficeTargetsPanels offices={offices.data.offices} />}
+        {offices.data && <RetentionPanels offices={offices.data.offices} />}
         {offices.data && !offices.data.offices.some((o) => o.abilities.setResponseTargets) && <p>Only the office’s supervisor changes its targets.</p>}
         <p>
           <Link to={paths.dashboard.href()}>Back to the dashboard</Link>

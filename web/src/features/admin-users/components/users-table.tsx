@@ -1,4 +1,4 @@
-/** All accounts, sortable by any column, with activate/deactivate per row (TanStack Table v9). */
+/** All accounts, sortable by any column, with their last sign-in, a change of role or office and deactivate/reactivate per row (TanStack Table v9). */
 import {
   createColumnHelper,
   createSortedRowModel,
@@ -34,6 +34,7 @@ const columns = helper.columns([
     sortFn: 'alphanumeric',
     cell: (c) => <time dateTime={c.getValue()} className="font-mono text-sm whitespace-nowrap">{format(parseISO(c.getValue()), 'd MMM yyyy')}</time>,
   }),
+  helper.accessor((u) => u.lastSignedInAt ?? '', { id: 'lastSignedIn', header: 'Last sign-in', sortFn: 'alphanumeric', cell: (c) => <LastSignIn at={c.getValue() || null} /> }),
 ])
 
 export interface UsersTableProps {
@@ -42,6 +43,8 @@ export interface UsersTableProps {
   /** Id of the row whose change is on its way to the server. */
   pendingUserId: string | null
   onSetActive: (user: AdminUser, active: boolean) => void
+  /** Opens the change of role or office for a staff account. */
+  onEdit: (user: AdminUser) => void
 }
 
 export function UsersTable(props: UsersTableProps) {
@@ -49,7 +52,7 @@ export function UsersTable(props: UsersTableProps) {
   return useTableWidth() ? <UsersGrid {...props} /> : <UserCards {...props} />
 }
 
-function UserCards({ users, currentUserId, pendingUserId, onSetActive }: UsersTableProps) {
+function UserCards({ users, currentUserId, pendingUserId, onSetActive, onEdit }: UsersTableProps) {
   const sorted = [...users].sort((a, b) => a.name.localeCompare(b.name))
   return (
     <ul aria-label="Users" className="flex flex-col gap-2">
@@ -61,9 +64,12 @@ function UserCards({ users, currentUserId, pendingUserId, onSetActive }: UsersTa
             {ROLE_LABELS[u.role]}
             {u.officeName ? ` · ${u.officeName}` : ''}
           </p>
+          <p className="text-sm">
+            Last sign-in: <LastSignIn at={u.lastSignedInAt} />
+          </p>
           <div className="flex flex-wrap items-center justify-between gap-2">
             <ActiveState active={u.active} />
-            <RowAction user={u} isSelf={u.id === currentUserId} pending={pendingUserId === u.id} onSetActive={onSetActive} />
+            <RowAction user={u} isSelf={u.id === currentUserId} pending={pendingUserId === u.id} onSetActive={onSetActive} onEdit={onEdit} />
           </div>
         </li>
       ))}
@@ -71,7 +77,7 @@ function UserCards({ users, currentUserId, pendingUserId, onSetActive }: UsersTa
   )
 }
 
-function UsersGrid({ users, currentUserId, pendingUserId, onSetActive }: UsersTableProps) {
+function UsersGrid({ users, currentUserId, pendingUserId, onSetActive, onEdit }: UsersTableProps) {
   const table = useTable({ features, columns, data: users, initialState: { sorting: [{ id: 'name', desc: false }] } })
 
   const head = table.getHeaderGroups().map((group) => (
@@ -97,7 +103,7 @@ function UsersGrid({ users, currentUserId, pendingUserId, onSetActive }: UsersTa
             </td>
           ))}
           <td className="px-4 py-2">
-            <RowAction user={row.original} isSelf={row.original.id === currentUserId} pending={pendingUserId === row.original.id} onSetActive={onSetActive} />
+            <RowAction user={row.original} isSelf={row.original.id === currentUserId} pending={pendingUserId === row.original.id} onSetActive={onSetActive} onEdit={onEdit} />
           </td>
         </tr>
       ))}
@@ -105,10 +111,43 @@ function UsersGrid({ users, currentUserId, pendingUserId, onSetActive }: UsersTa
   )
 }
 
-function RowAction({ user, isSelf, pending, onSetActive }: { user: AdminUser; isSelf: boolean; pending: boolean; onSetActive: UsersTableProps['onSetActive'] }) {
+function RowAction({
+  user,
+  isSelf,
+  pending,
+  onSetActive,
+  onEdit,
+}: {
+  user: AdminUser
+  isSelf: boolean
+  pending: boolean
+  onSetActive: UsersTableProps['onSetActive']
+  onEdit: UsersTableProps['onEdit']
+}) {
+  // a complainant account keeps its role and has no office: nothing to move
+  const change =
+    user.role === 'complainant' ? null : (
+      <button
+        type="button"
+        disabled={pending}
+        onClick={() => onEdit(user)}
+        className="min-h-11 rounded-control border border-field bg-surface px-3 text-sm font-semibold whitespace-nowrap hover:bg-signal-soft disabled:opacity-60"
+      >
+        Change…
+        <span className="sr-only"> role or office of {user.name}</span>
+      </button>
+    )
   // Deactivating yourself would lock you out; another administrator has to do that.
-  if (isSelf) return <span className="text-sm text-ink-muted">Your account</span>
+  if (isSelf)
+    return (
+      <span className="flex flex-wrap items-center gap-2">
+        {change}
+        <span className="text-sm text-ink-muted">Your account</span>
+      </span>
+    )
   return (
+    <span className="flex flex-wrap items-center gap-2">
+    {change}
     <button
       type="button"
       disabled={pending}
@@ -117,9 +156,19 @@ function RowAction({ user, isSelf, pending, onSetActive }: { user: AdminUser; is
         user.active ? 'border-danger text-danger hover:bg-danger-soft' : 'border-signal text-signal hover:bg-signal-soft'
       }`}
     >
-      {pending ? 'Saving…' : user.active ? 'Deactivate' : 'Activate'}
+      {pending ? 'Saving…' : user.active ? 'Deactivate' : 'Reactivate'}
       <span className="sr-only"> {user.name}</span>
     </button>
+    </span>
+  )
+}
+
+function LastSignIn({ at }: { at: string | null }) {
+  if (!at) return <span className="text-sm text-ink-muted">Never</span>
+  return (
+    <time dateTime={at} className="font-mono text-sm whitespace-nowrap">
+      {format(parseISO(at), 'd MMM yyyy HH:mm')}
+    </time>
   )
 }
 

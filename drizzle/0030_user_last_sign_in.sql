@@ -1,0 +1,1 @@
+ALTER TABLE "users" ADD COLUMN "last_signed_in_at" timestamp with time zone;
