@@ -83,6 +83,14 @@ export function eventTitle(e: TimelineEventTitled): string {
       return 'Evidence file removed'
     case 'evidence_integrity_failed':
       return 'Evidence file failed its integrity check'
+    case 'legal_hold_set':
+      return str(d.until) ? `Legal hold set until ${str(d.until)}` : 'Legal hold set until lifted'
+    case 'legal_hold_lifted':
+      return 'Legal hold lifted'
+    case 'personal_data_erased':
+      return 'Complainant’s personal data erased (retention period ended)'
+    case 'evidence_disposed':
+      return 'Evidence files deleted from the store (retention period ended)'
     case CASE_FILE_ISSUED_KIND:
       return str(d.fileReference) ? `Case file ${str(d.fileReference)} issued` : 'Case file issued'
     default:

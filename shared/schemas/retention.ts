@@ -93,7 +93,8 @@ export const retentionPlanCaseSchema = z.object({
   fields: z.array(z.enum(ERASED_CASE_FIELDS)),
   /** Timeline entries replaced by a redacted copy. */
   redactedEventIds: z.array(z.number().int()),
-  evidence: z.array(z.object({ evidenceId: z.uuid(), objectKey: z.string(), sha256: z.string() })),
+  /** Evidence objects deleted (with their thumbnails, a rendition the server made). */
+  evidence: z.array(z.object({ evidenceId: z.uuid(), objectKey: z.string(), sha256: z.string(), thumbnailKey: z.string().nullable() })),
 })
 export type RetentionPlanCase = z.infer<typeof retentionPlanCaseSchema>
 

@@ -11,7 +11,7 @@ import crypto from 'node:crypto'
 import fs from 'node:fs'
 import os from 'node:os'
 import path from 'node:path'
-import { HeadObjectCommand } from '@aws-sdk/client-s3'
+import { HeadObjectCommand, PutObjectCommand } from '@aws-sdk/client-s3'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { startS3Fake, type S3Fake } from '../../ops/local/s3-fake'
 import { createObjectStore, type ObjectStore } from '../../server/storage/object-store'
@@ -131,6 +131,13 @@ describe('the retention run', () => {
   }, 120_000)
 
   it('erases the expired case, keeps the held and the young one, and its dry run lists exactly what the real run removes', async () => {
+    // the expired case's file has a thumbnail (as the thumbnail job leaves it): it goes with the file
+    const thumbKey = `thumbnails/${expired.objectKey}.webp`
+    await store.client.send(new PutObjectCommand({ Bucket: store.bucket, Key: thumbKey, Body: Buffer.from('thumbnail bytes'), ContentType: 'image/webp' }))
+    await t.pool.query(
+      `INSERT INTO evidence_thumbnails (evidence_id, state, object_key, content_type, width_px, height_px, size_bytes) SELECT id, 'done', $2, 'image/webp', 1, 1, 15 FROM evidence_files WHERE case_id = $1`,
+      [expired.id, thumbKey],
+    )
     const before = { expired: await snapshot(expired.id), held: await snapshot(held.id), young: await snapshot(young.id) }
 
     const dry = retentionRunViewSchema.parse(await runRetention(t.services, { now: runAt, dryRun: true, officeIds: [officeA.id, officeB.id] }))
@@ -139,7 +146,7 @@ describe('the retention run', () => {
     expect(dry.kept).toEqual([{ caseId: held.id, reference: held.reference, reason: 'legal_hold' }])
     const planned = dry.cases[0]!
     expect(planned.fields).toEqual(['complainantName', 'complainantEmail', 'complainantPhone', 'complainantOrganisation', 'description'])
-    expect(planned.evidence).toEqual([{ evidenceId: expect.any(String), objectKey: expired.objectKey, sha256: sha256(expired.bytes) }])
+    expect(planned.evidence).toEqual([{ evidenceId: expect.any(String), objectKey: expired.objectKey, sha256: sha256(expired.bytes), thumbnailKey: thumbKey }])
     expect(planned.redactedEventIds.length).toBeGreaterThanOrEqual(1)
     // the dry run changed nothing
     expect(await snapshot(expired.id)).toEqual(before.expired)
@@ -167,9 +174,15 @@ describe('the retention run', () => {
 
     // evidence: the object is gone from the store, the row stays, marked
     expect(await objectExists(expired.objectKey)).toBe(false)
+    expect(await objectExists(thumbKey)).toBe(false)
+    const { rows: thumb } = await t.pool.query(`SELECT state, object_key FROM evidence_thumbnails WHERE evidence_id = $1`, [planned.evidence[0]!.evidenceId])
+    expect(thumb).toEqual([{ state: 'failed', object_key: null }])
     const { rows: ev } = await t.pool.query(`SELECT disposed_at FROM evidence_files WHERE case_id = $1`, [expired.id])
     expect(ev).toHaveLength(1)
     expect(ev[0].disposed_at).not.toBeNull()
+    const download = await (await signIn(t, expired.investigator!)).get(`/api/evidence/${planned.evidence[0]!.evidenceId}/download`)
+    expect(download.status).toBe(410)
+    expect(download.body.error.code).toBe('evidence_disposed')
 
     // the record: one erasure and one disposal with the key and the bytes' SHA-256 (node:crypto over what was uploaded)
     const { rows: actions } = await t.pool.query(`SELECT action, fields, object_key, sha256 FROM retention_actions WHERE case_id = $1 ORDER BY id`, [expired.id])

@@ -10,10 +10,12 @@ import { describe, expect, it } from 'vitest'
 import { meResponseSchema, NO_ACCOUNT_ABILITIES } from '../../shared/schemas/auth'
 import { Component as OfficeSettingsPage } from '@/app/routes/office-settings'
 import { LegalHoldPanel } from '@/features/retention/components/legal-hold-panel'
+import { RetentionDryRun } from '@/features/retention/components/retention-dry-run'
 import { paths } from '@/lib/paths'
 import { answer, apiError } from '../support/msw-server'
 import { IDS, office, officesResponse } from '../support/msw-views'
 import { legalHoldResponse, retentionSettingResponse } from '../support/msw-retention'
+import { retentionRunResponseSchema } from '../../shared/schemas/retention'
 import { renderPage } from '../support/web-render'
 
 const openPanel = () => renderPage({ url: `/cases/${IDS.case}`, routes: [{ path: paths.case.path, Component: () => <LegalHoldPanel caseId={IDS.case} /> }] })
@@ -130,5 +132,41 @@ describe('the retention period', () => {
     await waitFor(() => expect(sent).toHaveLength(1))
     expect(await within(form).findByRole('status')).toHaveTextContent('Saved')
     expect(screen.getByRole('region', { name: 'Retention — Tarnwick Field Office' })).toHaveTextContent('36 months after a case is closed')
+  })
+})
+
+describe('the dry run for administrators', () => {
+  it('asks the server only on request and lists what would go and what is kept', async () => {
+    const sent = answer(
+      'get',
+      '/api/admin/retention/dry-run',
+      retentionRunResponseSchema.parse({
+        run: {
+          dryRun: true,
+          at: '2029-01-10T02:00:00.000Z',
+          cases: [
+            {
+              caseId: IDS.case,
+              reference: 'QB-26-000123',
+              officeId: IDS.tarnwickOffice,
+              closedAt: '2026-12-01T10:00:00.000Z',
+              retentionEndedAt: '2028-12-01T10:00:00.000Z',
+              fields: ['complainantEmail', 'complainantName', 'description'],
+              redactedEventIds: [41, 42],
+              evidence: [{ evidenceId: '6a1b2c3d-4e5f-4a6b-8c7d-9e0f1a2b3c4d', objectKey: 'evidence/x', sha256: 'a'.repeat(64), thumbnailKey: null }],
+            },
+          ],
+          kept: [{ caseId: '7b2c3d4e-5f6a-4b7c-8d9e-0f1a2b3c4d5e', reference: 'QB-26-000124', reason: 'legal_hold' }],
+        },
+      }),
+    )
+    const { user } = renderPage({ url: paths.adminOffices.href(), routes: [{ path: paths.adminOffices.path, Component: RetentionDryRun }] })
+    const button = await screen.findByRole('button', { name: 'Show what would go' })
+    expect(sent).toHaveLength(0)
+    await user.click(button)
+    const list = await screen.findByRole('list', { name: 'Cases the run would erase' })
+    expect(list).toHaveTextContent('QB-26-000123 (period ended 2028-12-01): name, e-mail, description (redacted copy); 2 timeline entries redacted; 1 evidence file deleted')
+    expect(screen.getByText(/Kept: QB-26-000124 \(legal hold\)\./)).toBeInTheDocument()
+    expect(sent).toHaveLength(1)
   })
 })

@@ -182,6 +182,8 @@ export interface EvidenceDownload {
 export async function downloadEvidence(ctx: ServiceContext, actor: CaseActor, evidenceId: string, from: ClientAddress): Promise<EvidenceDownload> {
   const { e, c } = await loadVisibleEvidence(ctx.db, actor, evidenceId)
   if (!mayDownloadEvidence(actor, c, e)) throw forbidden('Only staff of this office can download its evidence.')
+  // the retention run deleted the object (its record, key and SHA-256 stay in retention_actions)
+  if (e.disposedAt) throw new HttpError(410, 'evidence_disposed', 'This file was deleted from the store when the case’s retention period ended; its record is kept.')
   const body = await readStoredObject(ctx.objectStore, e.file.objectKey)
   const who = await actorLabel(ctx.db, actor, c)
   try {

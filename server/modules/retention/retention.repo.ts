@@ -6,7 +6,7 @@
 import { and, asc, desc, eq, inArray, isNotNull, isNull, or, sql } from 'drizzle-orm'
 import type { ErasedCaseField, LegalHoldAction } from '../../../shared/domain/retention'
 import type { Db } from '../../db/client'
-import { caseEvents, cases, evidenceFiles, followUps, legalHoldEvents, offices, retentionActions, storedFiles, users, type CaseRow } from '../../db/schema'
+import { caseEvents, cases, evidenceFiles, evidenceThumbnails, followUps, legalHoldEvents, offices, retentionActions, storedFiles, users, type CaseRow } from '../../db/schema'
 
 export async function findOfficeRetention(db: Db, officeId: string): Promise<{ id: string; retentionMonths: number } | undefined> {
   const [o] = await db.select({ id: offices.id, retentionMonths: offices.retentionMonths }).from(offices).where(eq(offices.id, officeId))
@@ -78,11 +78,12 @@ export function timelineWithText(db: Db, caseId: string): Promise<{ id: number; 
     .orderBy(asc(caseEvents.id))
 }
 
-export function evidenceNotDisposed(db: Db, caseId: string): Promise<{ evidenceId: string; objectKey: string; sha256: string }[]> {
+export function evidenceNotDisposed(db: Db, caseId: string): Promise<{ evidenceId: string; objectKey: string; sha256: string; thumbnailKey: string | null }[]> {
   return db
-    .select({ evidenceId: evidenceFiles.id, objectKey: storedFiles.objectKey, sha256: storedFiles.sha256 })
+    .select({ evidenceId: evidenceFiles.id, objectKey: storedFiles.objectKey, sha256: storedFiles.sha256, thumbnailKey: evidenceThumbnails.objectKey })
     .from(evidenceFiles)
     .innerJoin(storedFiles, eq(storedFiles.id, evidenceFiles.storedFileId))
+    .leftJoin(evidenceThumbnails, eq(evidenceThumbnails.evidenceId, evidenceFiles.id))
     .where(and(eq(evidenceFiles.caseId, caseId), isNull(evidenceFiles.disposedAt)))
     .orderBy(asc(evidenceFiles.uploadedAt), asc(evidenceFiles.id))
 }
@@ -103,6 +104,15 @@ export async function redactEvent(db: Db, eventId: number, body: string): Promis
 export async function markEvidenceDisposed(db: Db, evidenceIds: string[], at: Date): Promise<void> {
   if (evidenceIds.length === 0) return
   await db.update(evidenceFiles).set({ disposedAt: at }).where(and(inArray(evidenceFiles.id, evidenceIds), isNull(evidenceFiles.disposedAt)))
+}
+
+/** The thumbnails of disposed files: no object any more, shown as "no thumbnail" with the reason. */
+export async function markThumbnailsDisposed(db: Db, evidenceIds: string[]): Promise<void> {
+  if (evidenceIds.length === 0) return
+  await db
+    .update(evidenceThumbnails)
+    .set({ state: 'failed', objectKey: null, contentType: null, widthPx: null, heightPx: null, sizeBytes: null, message: 'Deleted with the file when the case’s retention period ended.' })
+    .where(inArray(evidenceThumbnails.evidenceId, evidenceIds))
 }
 
 export async function insertRetentionAction(

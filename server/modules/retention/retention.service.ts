@@ -5,8 +5,8 @@
  * erases its complainant's personal data — name, e-mail, phone and organisation become the marker
  * "erased on <date>"; the description, the pattern detail and the text of timeline entries become
  * a redacted copy (shared/domain/retention.ts: e-mail and web addresses, phone-like numbers and
- * the complainant's own name masked) — and deletes its evidence objects from the store, keeping
- * the evidence rows marked disposed. A case under a legal hold, or with an open follow-up, is
+ * the complainant's own name masked) — and deletes its evidence objects (and their thumbnails) from the
+ * store, keeping the evidence rows marked disposed. A case under a legal hold, or with an open follow-up, is
  * left untouched. Every erasure and every deleted object (its key and SHA-256) is recorded in
  * retention_actions, and each case's erasure in the audit log, in the same transaction.
  *
@@ -42,6 +42,7 @@ import {
   lockCaseForRetention,
   lockOfficeRetention,
   markEvidenceDisposed,
+  markThumbnailsDisposed,
   openFollowUpCount,
   openFollowUpsOfClosedCases,
   redactEvent,
@@ -196,6 +197,7 @@ export async function runRetention(
           await insertRetentionAction(db, { caseId: c.id, action: 'evidence_disposed', evidenceId: ev.evidenceId, objectKey: ev.objectKey, sha256: ev.sha256 })
         }
         await markEvidenceDisposed(db, plan.evidence.map((e) => e.evidenceId), now)
+        await markThumbnailsDisposed(db, plan.evidence.map((e) => e.evidenceId))
         await appendEvent(db, {
           caseId: c.id,
           at: now,
@@ -218,7 +220,10 @@ export async function runRetention(
       // last, so a failure here rolls back every record above; deleting an absent key succeeds, so a retry completes
       if (plan.evidence.length > 0) {
         const store = requireStore(ctx.objectStore)
-        for (const ev of plan.evidence) await disposeObject(store, ev.objectKey)
+        for (const ev of plan.evidence) {
+          await disposeObject(store, ev.objectKey)
+          if (ev.thumbnailKey) await disposeObject(store, ev.thumbnailKey)
+        }
       }
       return plan
     })

@@ -94,9 +94,3 @@ export async function setActiveUserPassword(db: Db, userId: string, passwordHash
     .returning({ id: users.id, email: users.email })
   return u
 }
-
-/** Sets an account active or not; false when there is no such account. */
-export async function setActive(db: Db, userId: string, active: boolean): Promise<boolean> {
-  const updated = await db.update(users).set({ active }).where(eq(users.id, userId)).returning({ id: users.id })
-  return updated.length > 0
-}

@@ -10,7 +10,7 @@ import { insertPasswordToken } from '../auth/auth.repo'
 import { newToken } from '../auth/passwords'
 import { recordAudit } from '../audit/audit.repo'
 import { findOffice } from '../offices/offices.repo'
-import { findUserById, insertUser, listUsers, setActive, type PublicUser } from './users.repo'
+import { findUserById, insertUser, listUsers, type PublicUser } from './users.repo'
 
 export const INVITE_TOKEN_HOURS = 72
 
@@ -37,27 +37,6 @@ export async function createStaffUser(ctx: ServiceContext, actor: Actor, input: 
     return userId
   })
   return (await findUserById(ctx.db, id))!
-}
-
-/** Activates or deactivates an account; an administrator cannot deactivate themself. */
-export async function setUserActive(ctx: ServiceContext, actor: Actor, userId: string, active: boolean): Promise<PublicUser> {
-  if (!can(actor, 'user.update')) throw forbidden()
-  if (userId === actor.id && !active) throw conflict('cannot_deactivate_self', 'You cannot deactivate your own account.')
-  await withTransaction(ctx.pool, async ({ db }) => {
-    const before = await findUserById(db, userId)
-    if (!before || !(await setActive(db, userId, active))) throw notFound('user_not_found', 'No such user.')
-    if (before.active !== active) {
-      await recordAudit(db, {
-        actorUserId: actor.id,
-        action: active ? 'user.reactivated' : 'user.deactivated',
-        targetType: 'user',
-        targetId: userId,
-        officeId: before.officeId,
-        details: { role: before.role },
-      })
-    }
-  })
-  return (await findUserById(ctx.db, userId))!
 }
 
 /** Staff of the actor's office (all offices for an administrator). */

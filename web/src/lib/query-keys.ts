@@ -74,6 +74,8 @@ export const retentionKeys = {
   all: ['retention'] as const,
   legalHold: (caseId: string) => [...retentionKeys.all, 'legal-hold', caseId] as const,
   office: (officeId: string) => [...retentionKeys.all, 'office', officeId] as const,
+  /** What the next retention run would erase (administrators). */
+  dryRun: () => [...retentionKeys.all, 'dry-run'] as const,
 }
 
 /** A complainant's reports: their list, and one report by tracking token or by account. */

@@ -6,6 +6,7 @@ import { useOffices } from '@/features/offices/api/get-offices'
 import { OfficesTable } from '@/features/offices/components/offices-table'
 import { OfficeTargetsPanels } from '@/features/offices/components/office-targets-panels'
 import { RetentionPanels } from '@/features/retention/components/retention-panels'
+import { RetentionDryRun } from '@/features/retention/components/retention-dry-run'
 
 export function Component() {
   const offices = useOffices()
@@ -18,6 +19,7 @@ export function Component() {
         {offices.data && <OfficesTable offices={offices.data.offices} />}
         {offices.data && <OfficeTargetsPanels offices={offices.data.offices} />}
         {offices.data && <RetentionPanels offices={offices.data.offices} />}
+        <RetentionDryRun />
       </div>
     </>
   )
