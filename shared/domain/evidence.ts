@@ -19,7 +19,7 @@ export const EVIDENCE_UPLOADER_ROLES = ['staff', 'complainant'] as const
 export type EvidenceUploaderRole = (typeof EVIDENCE_UPLOADER_ROLES)[number]
 
 /** Each step of a file's chain of custody; the log is append-only. */
-export const CUSTODY_ACTIONS = ['uploaded', 'downloaded', 'verified', 'verification_failed', 'removed', 'bundled'] as const
+export const CUSTODY_ACTIONS = ['uploaded', 'downloaded', 'verified', 'verification_failed', 'removed', 'bundled', 'shared_with_complainant', 'sharing_stopped'] as const
 export type CustodyAction = (typeof CUSTODY_ACTIONS)[number]
 
 export const CUSTODY_ACTION_LABELS: Record<CustodyAction, string> = {
@@ -29,6 +29,8 @@ export const CUSTODY_ACTION_LABELS: Record<CustodyAction, string> = {
   verification_failed: 'Integrity check failed',
   removed: 'Removed from the case',
   bundled: 'Included in an evidence bundle',
+  shared_with_complainant: 'Shared with the complainant',
+  sharing_stopped: 'No longer shared with the complainant',
 }
 
 export const VERIFICATION_OUTCOMES = ['verified', 'failed'] as const

@@ -81,6 +81,10 @@ export function eventTitle(e: TimelineEventTitled): string {
       return 'Evidence file added'
     case 'evidence_removed':
       return 'Evidence file removed'
+    case 'evidence_shared':
+      return 'Evidence file shared with the complainant'
+    case 'evidence_unshared':
+      return 'Evidence file no longer shared with the complainant'
     case 'evidence_integrity_failed':
       return 'Evidence file failed its integrity check'
     case 'legal_hold_set':

@@ -28,6 +28,8 @@ export const evidenceAbilitiesSchema = z.object({
   download: z.boolean(),
   verify: z.boolean(),
   remove: z.boolean(),
+  /** Share the staff file with the complainant, or stop sharing it (POST /api/evidence/:id/share); always sent by the server. */
+  share: z.boolean().optional(),
 })
 export type EvidenceAbilities = z.infer<typeof evidenceAbilitiesSchema>
 
@@ -62,6 +64,11 @@ export const evidenceViewSchema = z.object({
     ])
     .nullable()
     .optional(),
+  /**
+   * Whether the complainant sees the file: their own uploads, and staff files the office shared
+   * with them (then `uploadedBy.role` is 'staff'). Always sent by the server.
+   */
+  sharedWithComplainant: z.boolean().optional(),
   abilities: evidenceAbilitiesSchema,
 })
 export type EvidenceView = z.infer<typeof evidenceViewSchema>
@@ -97,3 +104,10 @@ export const evidenceUploadFieldsSchema = z.strictObject({ kind: evidenceKindSch
 export const removeEvidenceRequestSchema = z.strictObject({
   reason: storableString().trim().min(3, 'Say why the file is removed (at least 3 characters).').max(2000, 'A reason is at most 2000 characters.'),
 })
+
+/** POST /api/evidence/:id/share: share a staff file with the complainant (true) or stop (false). */
+export const shareEvidenceRequestSchema = z.strictObject({
+  shared: z.boolean({ error: 'Say whether the file is shared with the complainant (true or false).' }),
+  note: storableString().trim().max(2000, 'A note is at most 2000 characters.').optional(),
+})
+export type ShareEvidenceRequest = z.infer<typeof shareEvidenceRequestSchema>

@@ -234,7 +234,7 @@ describe('who sees which files', () => {
     expect(staff.evidence.find((e) => e.id === linkFile.id)!.uploadedBy).toEqual({ id: null, name: 'Complainant', role: 'complainant' })
     const viaLink = evidenceListResponseSchema.parse((await request(t.app).get(`/api/track/${worked.trackingToken}/evidence`).expect(200)).body)
     expect(viaLink.evidence.map((e) => e.id)).toEqual([linkFile.id])
-    expect(viaLink.evidence[0]!.abilities).toEqual({ download: false, verify: false, remove: false })
+    expect(viaLink.evidence[0]!.abilities).toEqual({ download: false, verify: false, remove: false, share: false })
     const mine = evidenceListResponseSchema.parse((await ownerAgent.get(`/api/my/reports/${ownerCaseId}/evidence`).expect(200)).body)
     expect(mine.evidence.map((e) => e.id)).toEqual([ownerFile.id])
     expect(mine.evidence[0]!.uploadedBy).toMatchObject({ id: owner.id, role: 'complainant' })

@@ -314,6 +314,7 @@ const FUZZ: FuzzRow[] = [
   complainantRow('POST /api/my/reports/:id/evidence', { kind: 'photo' }),
   fixed('POST /api/evidence/:id/verify', () => `/api/evidence/${NO_SUCH_UPLOAD}/verify`, () => ({})),
   fixed('POST /api/evidence/:id/remove', () => `/api/evidence/${NO_SUCH_UPLOAD}/remove`, () => ({ reason: 'Filed on the wrong case.' })),
+  fixed('POST /api/evidence/:id/share', () => `/api/evidence/${NO_SUCH_UPLOAD}/share`, () => ({ shared: true, note: 'Fuzz note' })),
   fixed('POST /api/evidence/:id/band', () => `/api/evidence/${NO_SUCH_UPLOAD}/band`, () => ({ lowFreqHz: '101.5 MHz', highFreqHz: 102.5e6 })),
   fixed('POST /api/evidence/:id/band-measurement', () => `/api/evidence/${NO_SUCH_UPLOAD}/band-measurement`, () => ({ lowFreqHz: '101.5 MHz', highFreqHz: '102.5 MHz', takenAt: '2026-12-01T10:00:00Z', latDeg: '48.1', lonDeg: '-31.4' })),
   // a person's saved views of the case list (several succeed: names then repeat, and the cap answers 409)

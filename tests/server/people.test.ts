@@ -206,14 +206,23 @@ describe('the last active administrator', () => {
     const ownerUrl = inject('migrationDatabaseUrl')
     ownerAdmin = new pg.Client({ connectionString: ownerUrl })
     await ownerAdmin.connect()
-    await ownerAdmin.query(`DROP DATABASE IF EXISTS ${name} WITH (FORCE)`)
+    await ownerAdmin.query(`DROP DATABASE IF EXISTS ${name}`)
     await ownerAdmin.query(`CREATE DATABASE ${name}`)
     await prepareDatabase(ownerUrl.replace(/\/[^/?]+(\?|$)/, `/${name}$1`))
     own = await createTestContext({ databaseUrl: inject('databaseUrl').replace(/\/[^/?]+(\?|$)/, `/${name}$1`) })
   }, 60_000)
   afterAll(async () => {
     await own?.close()
-    await ownerAdmin.query(`DROP DATABASE IF EXISTS ${name} WITH (FORCE)`)
+    // the job queue's connections may take a moment to go; FORCE would need a superuser's right
+    // to end another role's sessions. The cluster is a throwaway one: a database left behind is harmless.
+    for (let attempt = 0; attempt < 20; attempt++) {
+      try {
+        await ownerAdmin.query(`DROP DATABASE IF EXISTS ${name}`)
+        break
+      } catch {
+        await new Promise((r) => setTimeout(r, 250))
+      }
+    }
     await ownerAdmin.end()
   })
 

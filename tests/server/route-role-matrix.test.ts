@@ -182,6 +182,11 @@ const MATRIX: Row[] = [
   { route: 'POST /api/evidence/:id/verify', path: () => '/api/evidence/00000000-0000-4000-8000-000000000000/verify', body: {}, expect: [401, 403, 404, 404, 403] },
   { route: 'POST /api/evidence/:id/remove', path: () => '/api/evidence/00000000-0000-4000-8000-000000000000/remove', body: { reason: 'Matrix check' }, expect: [401, 403, 404, 404, 403] },
   { route: 'GET /api/evidence/:id/custody', path: () => '/api/evidence/00000000-0000-4000-8000-000000000000/custody', expect: [401, 403, 404, 404, 403] },
+  // sharing a staff file with the complainant: staff of its office (own office 200, removed file 409: evidence-sharing.test.ts)
+  { route: 'POST /api/evidence/:id/share', path: () => '/api/evidence/00000000-0000-4000-8000-000000000000/share', body: { shared: true }, expect: [401, 403, 404, 404, 403] },
+  // the complainant downloads a file the office shared (own report 200, not shared 404: evidence-sharing.test.ts)
+  { route: 'GET /api/track/:token/evidence/:evidenceId/download', path: (ids) => `/api/track/${ids.trackingToken}/evidence/00000000-0000-4000-8000-000000000000/download`, expect: [404, 404, 404, 404, 404] },
+  { route: 'GET /api/my/reports/:id/evidence/:evidenceId/download', path: (ids) => `/api/my/reports/${ids.otherCaseId}/evidence/00000000-0000-4000-8000-000000000000/download`, expect: [401, 404, 403, 403, 403] },
   // a photo's thumbnail: whoever may see the file, the complainant included for their own uploads (own office 200, another office 404: evidence-thumbnails.test.ts)
   { route: 'GET /api/evidence/:id/thumbnail', path: () => '/api/evidence/00000000-0000-4000-8000-000000000000/thumbnail', expect: [401, 404, 404, 404, 403] },
   // a spectrum file's analysis (summary, display trace, spectrogram): staff of its office (own office 200 and another office 404: evidence-processing.test.ts)

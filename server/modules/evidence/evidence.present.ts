@@ -32,7 +32,21 @@ export function presentEvidence(e: EvidenceRecord, abilities: EvidenceAbilities,
     verification: e.verifiedAt && e.verificationOutcome ? { at: e.verifiedAt.toISOString(), by: e.verifiedByName ?? 'Unknown user', outcome: e.verificationOutcome } : null,
     processing: { state: e.processing.state, progress: Math.min(1, Math.max(0, e.processing.progress)), ...(e.processing.message !== undefined ? { message: e.processing.message } : {}) },
     thumbnail: presentThumbnail(e, thumbnail),
+    sharedWithComplainant: e.sharedWithComplainant,
     abilities,
+  }
+}
+
+/**
+ * The complainant's view of a file: staff names and ids never appear (a shared office file is
+ * "The office"'s, and so is an integrity check).
+ */
+export function presentEvidenceForComplainant(e: EvidenceRecord, abilities: EvidenceAbilities, thumbnail?: EvidenceThumbnailRow): EvidenceView {
+  const v = presentEvidence(e, abilities, thumbnail)
+  return {
+    ...v,
+    uploadedBy: e.uploaderRole === 'staff' ? { id: null, name: 'The office', role: 'staff' } : v.uploadedBy,
+    verification: v.verification ? { ...v.verification, by: 'The office' } : null,
   }
 }
 

@@ -77,6 +77,27 @@ export async function markEvidenceRemoved(db: Db, id: string, by: string, reason
   return r
 }
 
+/**
+ * Shares a staff file with the complainant or stops (only while it is on the case and in the
+ * store, and only when that changes something); undefined when nothing changed.
+ */
+export async function setEvidenceSharing(db: Db, id: string, shared: boolean): Promise<EvidenceFileRow | undefined> {
+  const [r] = await db
+    .update(evidenceFiles)
+    .set({ sharedWithComplainant: shared })
+    .where(
+      and(
+        eq(evidenceFiles.id, id),
+        eq(evidenceFiles.uploaderRole, 'staff'),
+        eq(evidenceFiles.sharedWithComplainant, !shared),
+        isNull(evidenceFiles.removedAt),
+        isNull(evidenceFiles.disposedAt),
+      ),
+    )
+    .returning()
+  return r
+}
+
 /** Records the latest integrity check of a file. */
 export async function recordVerification(db: Db, id: string, by: string, outcome: VerificationOutcome): Promise<void> {
   await db.update(evidenceFiles).set({ verifiedAt: sql`now()`, verifiedBy: by, verificationOutcome: outcome }).where(eq(evidenceFiles.id, id))

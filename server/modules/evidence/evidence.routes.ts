@@ -1,6 +1,6 @@
 /** Evidence files on a case: HTTP only (the service decides, the policy says who may). */
 import { pipeline } from 'node:stream/promises'
-import { Router, type Request } from 'express'
+import { Router, type Request, type Response } from 'express'
 import { z } from 'zod'
 import { idParamSchema } from '../../../shared/schemas/ids'
 import type { ServiceContext } from '../../context'
@@ -11,7 +11,7 @@ import type { TrackingLinkHolder } from '../../policy/case-policy'
 import { caseIdOf } from '../cases/case-access'
 import { caseIdForToken } from '../cases/tracking-tokens'
 import { trackingGuessLimit } from '../cases/public.routes'
-import { downloadEvidence, evidenceCustodyLog, evidenceNotFound, listEvidence, removeEvidence, uploadEvidence, verifyEvidence } from './evidence.service'
+import { downloadEvidence, downloadSharedEvidence, evidenceCustodyLog, evidenceNotFound, listEvidence, removeEvidence, shareEvidence, uploadEvidence, verifyEvidence, type EvidenceDownload } from './evidence.service'
 import { attachmentDisposition } from './file-names'
 import { openEvidenceThumbnail } from './thumbnails/thumbnail.service'
 
@@ -25,6 +25,17 @@ function evidenceIdOf(params: unknown): string {
 }
 
 const from = (req: Request) => req.ip ?? null
+
+/** Streams a file through the server (never a redirect to the store), marked not to be sniffed or cached. */
+async function sendDownload(res: Response, d: EvidenceDownload): Promise<void> {
+  res.status(200)
+  res.setHeader('Content-Type', d.contentType)
+  res.setHeader('Content-Disposition', attachmentDisposition(d.fileName))
+  res.setHeader('X-Content-Type-Options', 'nosniff')
+  res.setHeader('Cache-Control', 'private, no-store')
+  res.setHeader('X-Evidence-SHA256', d.sha256)
+  await pipeline(d.body, res)
+}
 
 export function evidenceRoutes(ctx: ServiceContext): Router {
   const r = Router()
@@ -56,6 +67,14 @@ export function evidenceRoutes(ctx: ServiceContext): Router {
     const h = await holder(parseWith(tokenParam, req.params).token)
     res.json({ evidence: await listEvidence(ctx, h, h.caseId) })
   })
+  // a file the office shared with the complainant (each download is a custody entry)
+  r.get('/track/:token/evidence/:evidenceId/download', guessLimit, async (req, res) => {
+    const h = await holder(parseWith(tokenParam, { token: req.params.token }).token)
+    await sendDownload(res, await downloadSharedEvidence(ctx, h, h.caseId, evidenceIdOf({ id: req.params.evidenceId }), from(req)))
+  })
+  r.get('/my/reports/:id/evidence/:evidenceId/download', complainant, async (req, res) => {
+    await sendDownload(res, await downloadSharedEvidence(ctx, actorOf(req), caseIdOf({ id: req.params.id }), evidenceIdOf({ id: req.params.evidenceId }), from(req)))
+  })
   r.post('/my/reports/:id/evidence', complainant, async (req, res) => {
     const evidence = await uploadEvidence(ctx, actorOf(req), caseIdOf(req.params), req, res, from(req))
     res.status(201).json({ evidence })
@@ -66,14 +85,10 @@ export function evidenceRoutes(ctx: ServiceContext): Router {
 
   // one file
   r.get('/evidence/:id/download', staff, async (req, res) => {
-    const d = await downloadEvidence(ctx, actorOf(req), evidenceIdOf(req.params), from(req))
-    res.status(200)
-    res.setHeader('Content-Type', d.contentType)
-    res.setHeader('Content-Disposition', attachmentDisposition(d.fileName))
-    res.setHeader('X-Content-Type-Options', 'nosniff')
-    res.setHeader('Cache-Control', 'private, no-store')
-    res.setHeader('X-Evidence-SHA256', d.sha256)
-    await pipeline(d.body, res)
+    await sendDownload(res, await downloadEvidence(ctx, actorOf(req), evidenceIdOf(req.params), from(req)))
+  })
+  r.post('/evidence/:id/share', staff, async (req, res) => {
+    res.json({ evidence: await shareEvidence(ctx, actorOf(req), evidenceIdOf(req.params), req.body, from(req)) })
   })
   r.post('/evidence/:id/verify', staff, async (req, res) => {
     res.json(await verifyEvidence(ctx, actorOf(req), evidenceIdOf(req.params), from(req)))

@@ -7,14 +7,14 @@
 import type { Readable } from 'node:stream'
 import type { Request, Response } from 'express'
 import { type EvidenceKind, type VerificationOutcome } from '../../../shared/domain/evidence'
-import { evidenceUploadFieldsSchema, removeEvidenceRequestSchema, type EvidenceView, type CustodyEntryView } from '../../../shared/schemas/evidence'
+import { evidenceUploadFieldsSchema, removeEvidenceRequestSchema, shareEvidenceRequestSchema, type EvidenceView, type CustodyEntryView } from '../../../shared/schemas/evidence'
 import type { ServiceContext } from '../../context'
 import { withTransaction, type Db } from '../../db/client'
 import type { CaseRow } from '../../db/schema'
 import { badRequest, conflict, forbidden, HttpError, notFound } from '../../http/errors'
 import { parseWith } from '../../http/validate'
 import { log } from '../../log/logger'
-import { evidenceAbilities, isCaseStaff, mayDownloadEvidence, mayReadCustody, mayRemoveEvidence, maySeeEvidence, mayUploadEvidence, mayVerifyEvidence } from '../../policy/evidence-policy'
+import { evidenceAbilities, isCaseStaff, mayComplainantDownloadEvidence, mayDownloadEvidence, mayReadCustody, mayRemoveEvidence, maySeeEvidence, mayShareEvidence, mayUploadEvidence, mayVerifyEvidence } from '../../policy/evidence-policy'
 import type { CaseActor } from '../../policy/case-policy'
 import type { ObjectStore } from '../../storage/object-store'
 import { hashStoredObject, INSPECTED_HEAD_BYTES, readStoredObject, receiveUpload, removeObject, requireStore, storedFileValues } from '../../storage/stored-files'
@@ -22,9 +22,9 @@ import { findUserById } from '../users/users.repo'
 import { loadVisibleCase } from '../cases/case-access'
 import { appendEvent, findCase, lockCase } from '../cases/cases.repo'
 import { contentTypeOf } from './content-check'
-import { appendCustody, countComplainantUploadsSince, custodyOf, evidenceOfCase, findEvidence, insertEvidence, markEvidenceRemoved, recordVerification, type EvidenceRecord } from './evidence.repo'
+import { appendCustody, countComplainantUploadsSince, custodyOf, evidenceOfCase, findEvidence, insertEvidence, markEvidenceRemoved, recordVerification, setEvidenceSharing, type EvidenceRecord } from './evidence.repo'
 import { cleanFileName, submittedNameRecord } from './file-names'
-import { presentCustody, presentEvidence } from './evidence.present'
+import { presentCustody, presentEvidence, presentEvidenceForComplainant } from './evidence.present'
 import { startEvidenceProcessing } from './start-processing'
 import { findThumbnail, thumbnailsOf } from './thumbnails/thumbnails.repo'
 
@@ -151,14 +151,15 @@ export async function uploadEvidence(ctx: ServiceContext, actor: CaseActor, case
   return presentEvidence(record, evidenceAbilities(actor, c, record))
 }
 
-/** A case's files for the actor: staff see every file (removed ones marked); the complainant sees their own uploads. */
+/** A case's files for the actor: staff see every file (removed ones marked); the complainant sees their own uploads and the files the office shared with them. */
 export async function listEvidence(ctx: ServiceContext, actor: CaseActor, caseId: string): Promise<EvidenceView[]> {
   const c = await loadVisibleCase(ctx.db, actor, caseId)
   if (!mayUploadEvidence(actor, c)) throw forbidden('Only staff of this office and the report\'s complainant can see its files.')
-  const records = isCaseStaff(actor, c) ? await evidenceOfCase(ctx.db, c.id) : await evidenceOfCase(ctx.db, c.id, { uploaderRole: 'complainant', removed: false })
+  const records = isCaseStaff(actor, c) ? await evidenceOfCase(ctx.db, c.id) : await evidenceOfCase(ctx.db, c.id, { removed: false })
   const seen = records.filter((e) => maySeeEvidence(actor, c, e))
   const thumbnails = await thumbnailsOf(ctx.db, seen.map((e) => e.id))
-  return seen.map((e) => presentEvidence(e, evidenceAbilities(actor, c, e), thumbnails.get(e.id)))
+  const present = isCaseStaff(actor, c) ? presentEvidence : presentEvidenceForComplainant
+  return seen.map((e) => present(e, evidenceAbilities(actor, c, e), thumbnails.get(e.id)))
 }
 
 /** Loads a file and its case for the actor; 404 when either is outside what they may see. */
@@ -193,6 +194,71 @@ export async function downloadEvidence(ctx: ServiceContext, actor: CaseActor, ev
     throw err
   }
   return { body, fileName: e.displayName, contentType: e.file.contentType, sizeBytes: e.file.sizeBytes, sha256: e.file.sha256 }
+}
+
+/**
+ * Opens a file the office shared with the complainant for download (the tracking link's holder
+ * or the signed-in complainant; `caseId` is the case of the route's path) and writes the
+ * custody entry. Their own uploads and files not shared are not found (404).
+ */
+export async function downloadSharedEvidence(ctx: ServiceContext, actor: CaseActor, caseId: string, evidenceId: string, from: ClientAddress): Promise<EvidenceDownload> {
+  const c = await loadVisibleCase(ctx.db, actor, caseId)
+  const e = await findEvidence(ctx.db, evidenceId)
+  if (!e || e.caseId !== c.id || !mayComplainantDownloadEvidence(actor, c, e)) throw evidenceNotFound()
+  if (e.disposedAt) throw new HttpError(410, 'evidence_disposed', 'This file was deleted from the store when the report’s retention period ended.')
+  const body = await readStoredObject(ctx.objectStore, e.file.objectKey)
+  const who = await actorLabel(ctx.db, actor, c)
+  try {
+    await appendCustody(ctx.db, { evidenceId: e.id, actorUserId: who.userId, actorLabel: who.label, action: 'downloaded', clientAddress: from, detail: 'Downloaded by the complainant (shared by the office).' })
+  } catch (err) {
+    body.destroy()
+    throw err
+  }
+  return { body, fileName: e.displayName, contentType: e.file.contentType, sizeBytes: e.file.sizeBytes, sha256: e.file.sha256 }
+}
+
+/**
+ * Shares a staff file with the case's complainant or stops sharing it (staff of the office).
+ * A removed or disposed file cannot be shared (409). Each change writes a custody entry; sharing
+ * writes a timeline entry the complainant sees, stopping an internal one. Asking for the state
+ * the file is already in changes nothing and writes nothing.
+ */
+export async function shareEvidence(ctx: ServiceContext, actor: CaseActor, evidenceId: string, input: unknown, from: ClientAddress): Promise<EvidenceView> {
+  const { shared, note } = parseWith(shareEvidenceRequestSchema, input)
+  const { e, c } = await loadVisibleEvidence(ctx.db, actor, evidenceId)
+  if (!isCaseStaff(actor, c) || actor.role === 'tracking_link') throw forbidden('Only staff of this office can share its files with the complainant.')
+  if (e.uploaderRole !== 'staff') throw conflict('evidence_from_complainant', 'This file came from the complainant, who already has it; only the office’s own files are shared.')
+  if (e.removedAt) throw conflict('evidence_removed', 'This file was removed from the case, so it cannot be shared with the complainant.')
+  if (e.disposedAt) throw conflict('evidence_disposed', 'This file was deleted from the store when the case’s retention period ended, so it cannot be shared.')
+  if (mayShareEvidence(actor, c, e) && e.sharedWithComplainant !== shared) {
+    const who = await actorLabel(ctx.db, actor, c)
+    await withTransaction(ctx.pool, async ({ db }) => {
+      const changed = await setEvidenceSharing(db, e.id, shared)
+      // a parallel change got there first (or the file was removed meanwhile): nothing to record
+      if (!changed) return
+      await appendCustody(db, {
+        evidenceId: e.id,
+        actorUserId: who.userId,
+        actorLabel: who.label,
+        action: shared ? 'shared_with_complainant' : 'sharing_stopped',
+        clientAddress: from,
+        detail: note || null,
+      })
+      await appendEvent(db, {
+        caseId: c.id,
+        at: ctx.now(),
+        actorUserId: who.userId,
+        actorLabel: who.label,
+        kind: shared ? 'evidence_shared' : 'evidence_unshared',
+        body: shared ? `A file was shared with you: ${e.displayName}` : `Stopped sharing the file "${e.displayName}" with the complainant.`,
+        visibility: shared ? 'complainant' : 'internal',
+        data: { evidenceId: e.id },
+      })
+    })
+  }
+  const record = (await findEvidence(ctx.db, e.id))!
+  if (record.removedAt) throw conflict('evidence_removed', 'This file was removed from the case, so it cannot be shared with the complainant.')
+  return presentEvidence(record, evidenceAbilities(actor, c, record), await findThumbnail(ctx.db, e.id))
 }
 
 export interface VerificationResult {

@@ -1,7 +1,8 @@
 /**
  * One evidence file for staff: what it is, who put it on the case and when, its SHA-256 (short,
  * the full value on hover and copy), processing and integrity state, and the actions the
- * server's abilities allow: download, verify, remove (with a reason), and its custody log.
+ * server's abilities allow: download, verify, share with the complainant (or stop), remove (with
+ * a reason), and its custody log.
  */
 import { format, parseISO } from 'date-fns'
 import { useState, type FormEvent } from 'react'
@@ -15,6 +16,7 @@ import { isApiError } from '@/lib/api-client'
 import { useCustody } from '../api/get-custody'
 import type { Evidence } from '../api/get-evidence'
 import { useRemoveEvidence } from '../api/remove-evidence'
+import { useShareEvidence } from '../api/share-evidence'
 import { useVerifyEvidence } from '../api/verify-evidence'
 import { SpectrumView, hasSpectrum } from './spectrum-view'
 
@@ -30,6 +32,8 @@ export function EvidenceCard({ e, caseId }: { e: Evidence; caseId: string }) {
   const [spectrumOpen, setSpectrumOpen] = useState(false)
   const showsSpectrum = hasSpectrum(e) && e.abilities.download
   const verify = useVerifyEvidence(caseId)
+  const share = useShareEvidence(caseId)
+  const shared = e.sharedWithComplainant === true
   const processing = e.processing
   const busy = processing.state === 'queued' || processing.state === 'running'
 
@@ -75,6 +79,12 @@ export function EvidenceCard({ e, caseId }: { e: Evidence; caseId: string }) {
         </dd>
         <dt className="font-semibold">Uploaded</dt>
         <dd>{when(e.uploadedAt)}</dd>
+        {e.uploadedBy.role === 'staff' && (
+          <>
+            <dt className="font-semibold">Complainant</dt>
+            <dd>{shared ? <span className="font-semibold">Shared with the complainant</span> : <span className="text-ink-muted">Not shared</span>}</dd>
+          </>
+        )}
         <dt className="font-semibold">Processing</dt>
         <dd className="flex flex-col gap-1">
           <span className={processing.state === 'failed' ? 'text-danger' : ''}>
@@ -104,6 +114,11 @@ export function EvidenceCard({ e, caseId }: { e: Evidence; caseId: string }) {
           <span className="font-semibold">Removed</span> {when(e.removed.at)} by {e.removed.by}: {e.removed.reason}
         </p>
       )}
+      {share.isError && (
+        <p role="alert" className="text-sm text-danger">
+          {isApiError(share.error) ? share.error.message : 'The sharing could not be changed.'}
+        </p>
+      )}
       {verify.isError && (
         <p role="alert" className="text-sm text-danger">
           {isApiError(verify.error) ? verify.error.message : 'The check could not be run.'}
@@ -118,6 +133,11 @@ export function EvidenceCard({ e, caseId }: { e: Evidence; caseId: string }) {
         {e.abilities.verify && (
           <Button variant="secondary" className="w-full sm:w-auto" disabled={verify.isPending} onClick={() => verify.mutate(e.id)}>
             {verify.isPending ? 'Checking…' : 'Verify integrity'}
+          </Button>
+        )}
+        {e.abilities.share && (
+          <Button variant="secondary" className="w-full sm:w-auto" disabled={share.isPending} onClick={() => share.mutate({ evidenceId: e.id, shared: !shared })}>
+            {share.isPending ? 'Saving…' : shared ? 'Stop sharing' : 'Share with the complainant'}
           </Button>
         )}
         {e.abilities.remove && !removing && (

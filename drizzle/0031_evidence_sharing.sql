@@ -1,0 +1,2 @@
+ALTER TABLE "evidence_custody" DROP CONSTRAINT "evidence_custody_action_valid";--> statement-breakpoint
+ALTER TABLE "evidence_custody" ADD CONSTRAINT "evidence_custody_action_valid" CHECK ("evidence_custody"."action" in ('uploaded', 'downloaded', 'verified', 'verification_failed', 'removed', 'bundled', 'shared_with_complainant', 'sharing_stopped'));
