@@ -110,7 +110,7 @@ describe('every page meets WCAG 2.1 AA as far as axe-core can tell, and fits a p
     return pages.get(key)!
   }
 
-  it.each(PAGES.map((p) => [p.name, p] as const))('%s: no serious or critical axe violation at 1440 px', async (_name, check) => {
+  it.each(PAGES.map((p) => [p.name, p] as const))('%s: no serious or critical axe violation at 1440 px', { timeout: 120_000 }, async (_name, check) => {
     ids ??= await idsFromDatabase()
     const p = await page(check.who, 1440)
     await p.goto(`${app.web.baseUrl}${check.path(ids)}`)

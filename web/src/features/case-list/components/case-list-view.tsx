@@ -43,7 +43,7 @@ export function CaseListView({ offices, investigators }: { offices: { id: string
           {active.length + figureFilters.length > 0 && <span className="rounded-full bg-signal px-2 text-sm text-surface">{active.length + figureFilters.length}</span>}
         </button>
         <p aria-live="polite" className="text-lg font-semibold">
-          {cases.data ? `${formatCaseTotal(cases.data.total, cases.data.totalCapped)} ${cases.data.total === 1 && !cases.data.totalCapped ? 'case' : 'cases'}${hasFilters(state) ? ' match these filters' : ''}` : ''}
+          {cases.data ? `${formatCaseTotal(cases.data.total, cases.data.totalCapped)} ${cases.data.total === 1 && !cases.data.totalCapped ? 'case' : 'cases'}${hasFilters(state) ? (cases.data.total === 1 && !cases.data.totalCapped ? ' matches these filters' : ' match these filters') : ''}` : ''}
           {cases.isFetching && cases.data ? <span className="ml-2 text-sm font-normal text-ink-muted">Updating…</span> : null}
         </p>
         <a href={casesCsvHref(state)} download className="ml-auto font-semibold">
