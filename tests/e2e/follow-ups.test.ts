@@ -10,7 +10,7 @@ import { newPage, SCREENSHOTS } from '../support/browser'
 import { runningApp, submitSignIn } from '../support/e2e'
 import { createTestContext, type TestContext } from '../support/harness'
 import { makeOffice } from '../support/factories'
-import { closedWithDeadline, dayFromToday } from '../support/follow-ups'
+import { closedWithDeadline, dayFromToday } from '../support/factories'
 
 const app = runningApp()
 const T = { timeout: 20_000 }

@@ -40,7 +40,7 @@ import { caseResponseSchema } from '../../shared/schemas/views'
 import { createTestContext, type TestContext } from '../support/harness'
 import { makeCase, makeOffice, makeUser, signIn, type Agent, type TestCase } from '../support/factories'
 import { readZip } from '../support/zip-reader'
-import { dayFromToday } from '../support/follow-ups'
+import { dayFromToday } from '../support/factories'
 import { FREE_SPACE_FIELD_ROWS } from '../fixtures/radio/propagation-free-space'
 
 let fake: S3Fake

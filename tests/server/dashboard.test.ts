@@ -18,7 +18,7 @@ import { getDashboard } from '../../server/modules/dashboard/dashboard.service'
 import { dueSoonSql, overdueSql } from '../../server/modules/cases/due'
 import { createTestContext, type TestContext } from '../support/harness'
 import { makeCase, makeOffice, makeUser, signIn, type Agent, type TestUser } from '../support/factories'
-import { closedWithDeadline, dayFromToday } from '../support/follow-ups'
+import { closedWithDeadline, dayFromToday } from '../support/factories'
 
 let t: TestContext
 let office: Office

@@ -7,7 +7,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { createTestContext, type TestContext } from '../support/harness'
 import { makeCase, makeOffice, makeUser } from '../support/factories'
-import { atLocal, closedWithDeadline, dayFromToday } from '../support/follow-ups'
+import { atLocal, closedWithDeadline, dayFromToday } from '../support/factories'
 import { queuedMails } from '../support/cases'
 import { runOfficeDigests } from '../../server/modules/follow-ups/digest.service'
 import { startDigestWorker } from '../../server/modules/follow-ups/digest-job'

@@ -10,7 +10,7 @@ import { caseFollowUpsResponseSchema, dueFollowUpsResponseSchema, followUpViewSc
 import { localDay } from '../../shared/domain/follow-ups'
 import { createTestContext, type TestContext } from '../support/harness'
 import { makeCase, makeOffice, makeUser, signIn } from '../support/factories'
-import { atLocal, closedWithDeadline, dayFromToday } from '../support/follow-ups'
+import { atLocal, closedWithDeadline, dayFromToday } from '../support/factories'
 import { listDueFollowUps } from '../../server/modules/follow-ups/follow-ups.service'
 import { followUpFigures } from '../../server/modules/follow-ups/follow-ups.repo'
 

@@ -9,7 +9,7 @@ import pg from 'pg'
 import { responsiblePartyResponseSchema } from '../../shared/schemas/follow-ups'
 import { createTestContext, type TestContext } from '../support/harness'
 import { makeCase, makeOffice, makeUser, signIn } from '../support/factories'
-import { dayFromToday } from '../support/follow-ups'
+import { dayFromToday } from '../support/factories'
 
 let t: TestContext
 let owner: pg.Pool

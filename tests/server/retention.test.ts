@@ -24,7 +24,7 @@ import { legalHoldViewSchema, retentionRunViewSchema, retentionSettingViewSchema
 import type { Office } from '../../server/db/schema'
 import { createTestContext, uniqueAddress, type TestContext } from '../support/harness'
 import { makeCase, makeOffice, makeUser, signIn, type Agent, type TestCase } from '../support/factories'
-import { closedWithDeadline, dayFromToday } from '../support/follow-ups'
+import { closedWithDeadline, dayFromToday } from '../support/factories'
 
 let fake: S3Fake
 let store: ObjectStore
