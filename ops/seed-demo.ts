@@ -17,8 +17,8 @@ import { log } from '../server/log/logger'
 export const DEMO_PASSWORD = 'quietband-demo'
 
 export const DEMO_OFFICES = [
-  { name: 'Harrowmere', regionName: 'Vellmark Coast — north', centreLatDeg: 48.12, centreLonDeg: -31.4, timeZone: 'Atlantic/Azores', targetP1Hours: 4, targetP2Hours: 24, targetP3Hours: 72, targetP4Hours: 240 },
-  { name: 'Kestrel Bay', regionName: 'Vellmark Coast — south', centreLatDeg: 47.62, centreLonDeg: -30.55, timeZone: 'Atlantic/Azores', targetP1Hours: 6, targetP2Hours: 36, targetP3Hours: 96, targetP4Hours: 336 },
+  { name: 'Harrowmere', regionName: 'Vellmark Coast — north', address: '3 Signal Hill Road, Harrowmere VC2 4HM', centreLatDeg: 48.12, centreLonDeg: -31.4, timeZone: 'Atlantic/Azores', targetP1Hours: 4, targetP2Hours: 24, targetP3Hours: 72, targetP4Hours: 240 },
+  { name: 'Kestrel Bay', regionName: 'Vellmark Coast — south', address: 'Harbour Office, 11 Quayside, Kestrel Bay VC7 1KB', centreLatDeg: 47.62, centreLonDeg: -30.55, timeZone: 'Atlantic/Azores', targetP1Hours: 6, targetP2Hours: 36, targetP3Hours: 96, targetP4Hours: 336 },
 ] as const
 
 export const DEMO_USERS = [

@@ -21,6 +21,7 @@ export type Action =
   | 'office.list'
   | 'office.read'
   | 'office.configure'
+  | 'office.manage'
   | 'staff.list'
   | 'staff.read'
   | 'user.list'
@@ -39,6 +40,8 @@ const rules: Record<Action, (actor: Actor, resource?: OfficeScoped) => boolean> 
   'office.list': (a) => a.role === 'admin' || STAFF.includes(a.role),
   'office.read': (a, r) => a.role === 'admin' || (STAFF.includes(a.role) && sameOffice(a, r)),
   'office.configure': (a, r) => a.role === 'admin' || (a.role === 'supervisor' && sameOffice(a, r)),
+  /** Create offices, change their details and areas: administrators only (areas route every report). */
+  'office.manage': (a) => a.role === 'admin',
   'staff.list': (a) => a.role === 'admin' || STAFF.includes(a.role),
   'staff.read': (a, r) => a.role === 'admin' || (STAFF.includes(a.role) && sameOffice(a, r)),
   'user.list': (a) => a.role === 'admin',

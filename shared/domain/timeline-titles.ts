@@ -27,7 +27,7 @@ export function eventTitle(e: TimelineEventTitled): string {
     case 'received':
       return 'Report received'
     case 'routed':
-      return 'Routed to the nearest office'
+      return d.basis === 'inside_area' ? 'Routed to the office whose area holds the place' : d.basis === 'inside_overlap' ? 'Routed to the nearest office of overlapping areas' : 'Routed to the nearest office'
     case 'triage':
       return typeof d.priority === 'number' && isPriority(d.priority) ? `Harm class set: ${PRIORITY_LABELS[d.priority].short}` : 'Harm class set'
     case 'assign':
@@ -42,6 +42,8 @@ export function eventTitle(e: TimelineEventTitled): string {
       return str(d.intoReference) ? `Now part of ${str(d.intoReference)}` : 'Followed its case into another'
     case 'far_from_offices':
       return 'Check the location: far from every office'
+    case 'outside_office_areas':
+      return 'Check the location: outside every office area'
     case 'dismiss':
       return `Closed at triage${resolutionSuffix(d.resolution)}`
     case 'startFieldWork':

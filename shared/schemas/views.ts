@@ -10,6 +10,7 @@ import { ROLES } from '../domain/roles'
 import { AFFECTED_SERVICES, EXPERIENCES, OCCURRENCE_PATTERNS, PRIORITIES } from '../domain/services'
 import { CALCULATION_KINDS } from '../calculations/kinds'
 import type { LimitSpec } from '../radio/compliance/limit-spec'
+import { areaSchema } from './region'
 
 /** An instant as JSON carries it: ISO 8601 in UTC (`2026-03-01T09:30:00.000Z`). */
 const instant = z.iso.datetime()
@@ -214,8 +215,15 @@ export const officeViewSchema = z.object({
   id,
   name: z.string(),
   regionName: z.string(),
+  /** Postal address ('' when not given). */
+  address: z.string(),
+  /** The office's position (routing measures distances from it). */
   centreLatDeg: z.number(),
   centreLonDeg: z.number(),
+  /** Its area (GeoJSON Polygon or MultiPolygon), or null: reports inside go to this office. */
+  area: areaSchema.nullable(),
+  /** Sent back with an edit; the server refuses a stale one (409 stale_version). */
+  version: z.number().int().min(1),
   /** Response target per priority, in hours. */
   responseTargetsHours: responseTargetsHoursSchema,
   /** First-response target per priority, in hours (shared/domain/case-clocks.ts). */
@@ -223,7 +231,7 @@ export const officeViewSchema = z.object({
   /** The office's IANA time zone ("today" and "next 24 hours" on the dashboard follow it). */
   timeZone: z.string(),
   /** What the viewer may do with this office (computed by the policy). */
-  abilities: z.object({ setResponseTargets: z.boolean() }),
+  abilities: z.object({ setResponseTargets: z.boolean(), edit: z.boolean() }),
 })
 export type OfficeView = z.infer<typeof officeViewSchema>
 
@@ -336,6 +344,8 @@ export type BandLimitChangeView = z.infer<typeof bandLimitChangeViewSchema>
 
 /** The bodies of the API's answers, by route (each wraps the shapes above in one named field). */
 export const caseResponseSchema = z.object({ case: caseDetailSchema })
+/** A move's answer: the case as it now stands; null when the move took it out of the actor's sight (a transfer). */
+export const caseMoveResponseSchema = z.object({ case: caseDetailSchema.nullable() })
 export const mergeCandidatesResponseSchema = z.object({ candidates: z.array(mergeCandidateSchema) })
 export const investigatorsResponseSchema = z.object({ investigators: z.array(investigatorLoadSchema) })
 export const transferOfficesResponseSchema = z.object({ offices: z.array(transferOfficeSchema) })

@@ -11,6 +11,7 @@
  * - `makeCase` files a report through the public route and walks it to the wanted state
  *   through the move services, along the lifecycle's own moves (`CASE_MOVES`).
  */
+import type { AreaGeometry } from '../../shared/schemas/region'
 import { randomUUID } from 'node:crypto'
 import request from 'supertest'
 import { expect } from 'vitest'
@@ -61,11 +62,21 @@ export const FAR_FROM_EVERY_TEST_OFFICE = { latDeg: 75, lonDeg: 100 } as const
  */
 export async function makeOffice(t: TestContext, over: Partial<typeof offices.$inferInsert> = {}): Promise<Office> {
   const word = uniqueWord('office')
+  const point = { ...officePoint(), ...over }
   const [o] = await t.services.db
     .insert(offices)
-    .values({ name: `Test office ${word}`, regionName: `Test area ${word}`, ...officePoint(), ...over })
+    .values({ name: `Test office ${word}`, regionName: `Test area ${word}`, area: areaAround(point), ...point })
     .returning()
   return o!
+}
+
+/**
+ * A small area (±0.05°, about 5 km) around an office's point, as every office has one: a report
+ * filed beside the office lies inside it and is routed by the area, with no warning.
+ */
+function areaAround(p: { centreLatDeg: number; centreLonDeg: number }): AreaGeometry {
+  const [s, n, w, e] = [p.centreLatDeg - 0.05, p.centreLatDeg + 0.05, p.centreLonDeg - 0.05, p.centreLonDeg + 0.05]
+  return { type: 'Polygon', coordinates: [[[w, s], [e, s], [e, n], [w, n], [w, s]]] }
 }
 
 /** A place about 10 m from the office: a report filed there is routed to it. */

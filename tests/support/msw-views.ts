@@ -144,12 +144,15 @@ export function office(changes: Partial<OfficeView> = {}): OfficeView {
     id: IDS.tarnwickOffice,
     name: 'Tarnwick Field Office',
     regionName: 'Vellmark Coast',
+    address: '4 Quay Row, Tarnwick',
     centreLatDeg: 48.1,
     centreLonDeg: -31.4,
+    area: null,
+    version: 1,
     responseTargetsHours: { p1: 4, p2: 48, p3: 168, p4: 336 },
     firstResponseTargetsHours: { p1: 1, p2: 8, p3: 24, p4: 72 },
     timeZone: 'Atlantic/Azores',
-    abilities: { setResponseTargets: false },
+    abilities: { setResponseTargets: false, edit: false },
     ...changes,
   })
 }

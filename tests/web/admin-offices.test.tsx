@@ -12,7 +12,7 @@ describe('the administrator’s offices page', () => {
     answer(
       'get',
       '/api/offices',
-      officesResponse([office({ abilities: { setResponseTargets: true } }), office({ id: IDS.orlessOffice, name: 'Orless Field Office', abilities: { setResponseTargets: true } })]),
+      officesResponse([office({ abilities: { setResponseTargets: true, edit: true } }), office({ id: IDS.orlessOffice, name: 'Orless Field Office', abilities: { setResponseTargets: true, edit: true } })]),
     )
     answer('get', '/api/offices/:id/retention', retentionSettingResponse({ abilities: { set: true } }))
     const { user } = renderPage({ url: paths.adminOffices.href(), routes: [{ path: paths.adminOffices.path, Component: AdminOfficesPage }] })

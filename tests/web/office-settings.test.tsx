@@ -22,14 +22,14 @@ function serve() {
       abilities: { ...NO_ACCOUNT_ABILITIES, runOfficeQueue: true, readCases: true, readDashboard: true },
     }),
   )
-  answer('get', '/api/offices', officesResponse([office({ abilities: { setResponseTargets: true } })]))
+  answer('get', '/api/offices', officesResponse([office({ abilities: { setResponseTargets: true, edit: true } })]))
   answer('get', '/api/offices/:id/retention', retentionSettingResponse())
 }
 
 describe('the office settings page', () => {
   it('saves the first-response targets to their own route, apart from the resolution targets', async () => {
     serve()
-    const first = answer('put', '/api/offices/:id/first-response-targets', (req) => ({ office: office({ firstResponseTargetsHours: req.body as never, abilities: { setResponseTargets: true } }) }))
+    const first = answer('put', '/api/offices/:id/first-response-targets', (req) => ({ office: office({ firstResponseTargetsHours: req.body as never, abilities: { setResponseTargets: true, edit: true } }) }))
     const resolution = answer('put', '/api/offices/:id/response-targets', { office: office() })
     const { user } = renderPage({ url: paths.officeSettings.href(), routes: [{ path: paths.officeSettings.path, Component: OfficeSettingsPage }] })
     const form = await screen.findByRole('form', { name: 'First-response targets of Tarnwick Field Office' })

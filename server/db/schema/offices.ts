@@ -2,13 +2,15 @@ import { sql } from 'drizzle-orm'
 import { check, doublePrecision, integer, jsonb, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core'
 import type { AreaGeometry } from '../../../shared/schemas/region'
 
-/** A field office. Reports are routed to the office whose region centre is nearest. */
+/** A field office. Reports are routed to the office whose area holds the place, else the nearest (shared/domain/office-areas.ts). */
 export const offices = pgTable(
   'offices',
   {
     id: uuid('id').primaryKey().defaultRandom(),
     name: text('name').notNull().unique(),
     regionName: text('region_name').notNull(),
+    /** Postal address ('' when not given). */
+    address: text('address').notNull().default(''),
     centreLatDeg: doublePrecision('centre_lat_deg').notNull(),
     centreLonDeg: doublePrecision('centre_lon_deg').notNull(),
     /** The office's area on the map (GeoJSON Polygon or MultiPolygon, shared/schemas/region.ts); none yet: null. */
@@ -27,7 +29,10 @@ export const offices = pgTable(
     timeZone: text('time_zone').notNull().default('UTC'),
     /** Months a closed case keeps its complainant's personal data and evidence (shared/domain/retention.ts). */
     retentionMonths: integer('retention_months').notNull().default(24),
+    /** Optimistic version of the office's details and area: an edit names the version it read. */
+    version: integer('version').notNull().default(1),
     createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+    updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
   },
   (t) => [
     check('offices_lat_range', sql`${t.centreLatDeg} between -90 and 90`),

@@ -1,9 +1,10 @@
 /**
- * A complainant's report becomes a case: routed to the nearest office by geodesic distance,
+ * A complainant's report becomes a case: routed to the office whose area holds its place (else
+ * the nearest office by geodesic distance, with a warning on the case; shared/domain/office-areas.ts),
  * given a suggested priority from the affected service, and acknowledged by e-mail with a
  * private tracking link — all in one transaction.
  */
-import { nearestOffice } from '../../../shared/radio/geo'
+import { routeReport } from '../../../shared/domain/office-areas'
 import { harmClassText, suggestPriority, type Priority } from '../../../shared/domain/services'
 import { reportFrequencyHz, type Report, type ReportWarning } from '../../../shared/schemas/cases'
 import type { SessionUser } from '../../../shared/schemas/auth'
@@ -25,6 +26,14 @@ import { issueTrackingLink } from './tracking-tokens'
  */
 export const FAR_FROM_EVERY_OFFICE_M = 200_000
 
+/** How the routing entry on the timeline explains the office chosen. */
+const ROUTING_WORDS = {
+  inside_area: 'whose area holds the place',
+  inside_overlap: 'the nearest of the offices whose areas hold the place (their areas overlap)',
+  outside_areas: 'the nearest office (the place is outside every office area)',
+  no_areas: 'the nearest office',
+} as const
+
 export interface SubmittedReport {
   caseId: string
   reference: string
@@ -37,10 +46,10 @@ export interface SubmittedReport {
 export async function submitReport(ctx: ServiceContext, report: Report, signedIn?: SessionUser): Promise<SubmittedReport> {
   const allOffices = await officesAll(ctx.db)
   if (allOffices.length === 0) throw new HttpError(503, 'no_office', 'No field office is set up yet; reports cannot be routed.')
-  const nearest = nearestOffice({
-    point: { latDeg: report.latDeg, lonDeg: report.lonDeg },
-    offices: allOffices.map((o) => ({ id: o.id, latDeg: o.centreLatDeg, lonDeg: o.centreLonDeg })),
-  })
+  const nearest = routeReport(
+    { latDeg: report.latDeg, lonDeg: report.lonDeg },
+    allOffices.map((o) => ({ id: o.id, latDeg: o.centreLatDeg, lonDeg: o.centreLonDeg, area: o.area })),
+  )
   const office = allOffices.find((o) => o.id === nearest.id)!
   const priority: Priority = suggestPriority(report.service, report.experience)
   const { lowHz, highHz } = reportFrequencyHz(report)
@@ -93,9 +102,21 @@ export async function submitReport(ctx: ServiceContext, report: Report, signedIn
       actorLabel: 'Quietband',
       kind: 'routed',
       visibility: 'internal',
-      body: `Routed to ${office.name}, the nearest office (${(nearest.distanceM / 1000).toFixed(1)} km, geodesic). Suggested harm class: ${harmClassText(priority)}, from the affected service.`,
-      data: { officeId: office.id, distanceM: nearest.distanceM, suggestedPriority: priority, method: nearest.method },
+      body: `Routed to ${office.name}, ${ROUTING_WORDS[nearest.basis]} (${(nearest.distanceM / 1000).toFixed(1)} km from the office, geodesic). Suggested harm class: ${harmClassText(priority)}, from the affected service.`,
+      data: { officeId: office.id, distanceM: nearest.distanceM, suggestedPriority: priority, method: nearest.method, basis: nearest.basis, holderOfficeIds: nearest.holderIds },
     })
+    if (nearest.basis === 'outside_areas') {
+      await appendEvent(db, {
+        caseId: c.id,
+        at: now,
+        actorUserId: null,
+        actorLabel: 'Quietband',
+        kind: 'outside_office_areas',
+        visibility: 'internal',
+        body: `Check the location: it lies outside every office's area, so the case went to the nearest office, ${office.name}. Transfer it if another office should take it, or ask an administrator to extend an area.`,
+        data: { distanceM: nearest.distanceM, latDeg: report.latDeg, lonDeg: report.lonDeg },
+      })
+    }
     if (farKm !== undefined) {
       await appendEvent(db, {
         caseId: c.id,

@@ -4,7 +4,8 @@ import { actorOf, requireRole } from '../../http/authenticate'
 import { parseWith } from '../../http/validate'
 import { idParamSchema } from '../../../shared/schemas/ids'
 import { responseTargetsSchema } from '../../../shared/schemas/auth'
-import { officeTimeZoneSchema } from '../../../shared/schemas/offices'
+import { areaCheckRequestSchema, officeInputSchema, officeTimeZoneSchema, officeUpdateSchema } from '../../../shared/schemas/offices'
+import { checkArea, createOffice, updateOffice } from './office-setup.service'
 import { getOffice, listOffices, setFirstResponseTargets, setResponseTargets, setTimeZone } from './offices.service'
 
 const idParam = idParamSchema
@@ -30,6 +31,17 @@ export function officesRoutes(ctx: ServiceContext): Router {
   r.put('/offices/:id/time-zone', requireRole('supervisor', 'admin'), async (req, res) => {
     const { id } = parseWith(idParam, req.params)
     res.json({ office: await setTimeZone(ctx, actorOf(req), id, parseWith(officeTimeZoneSchema, req.body).timeZone) })
+  })
+  const admin = requireRole('admin')
+  r.post('/admin/offices', admin, async (req, res) => {
+    res.status(201).json(await createOffice(ctx, actorOf(req), parseWith(officeInputSchema, req.body)))
+  })
+  r.post('/admin/offices/check-area', admin, async (req, res) => {
+    res.json(await checkArea(ctx, actorOf(req), parseWith(areaCheckRequestSchema, req.body)))
+  })
+  r.put('/admin/offices/:id', admin, async (req, res) => {
+    const { id } = parseWith(idParam, req.params)
+    res.json(await updateOffice(ctx, actorOf(req), id, parseWith(officeUpdateSchema, req.body)))
   })
   return r
 }

@@ -12,12 +12,15 @@ export function presentOffice(o: Office, actor: Actor): OfficeView {
     id: o.id,
     name: o.name,
     regionName: o.regionName,
+    address: o.address,
     centreLatDeg: o.centreLatDeg,
     centreLonDeg: o.centreLonDeg,
+    area: o.area ?? null,
+    version: o.version,
     responseTargetsHours: { p1: o.targetP1Hours, p2: o.targetP2Hours, p3: o.targetP3Hours, p4: o.targetP4Hours },
     firstResponseTargetsHours: { p1: o.firstResponseP1Hours, p2: o.firstResponseP2Hours, p3: o.firstResponseP3Hours, p4: o.firstResponseP4Hours },
     timeZone: o.timeZone,
-    abilities: { setResponseTargets: can(actor, 'office.configure', { officeId: o.id }) },
+    abilities: { setResponseTargets: can(actor, 'office.configure', { officeId: o.id }), edit: can(actor, 'office.manage') },
   }
 }
 
