@@ -28,6 +28,10 @@ import { insertStoredFile } from './stored-files.repo'
 
 export const storageUnavailable = (detail?: string) =>
   new HttpError(503, 'storage_unavailable', `The file store cannot be reached, so nothing was stored. Please try again in a moment.${detail ? ` (${detail})` : ''}`)
+/** The store answers, but holds no object under the key: an integrity problem, not an outage (nothing to retry). */
+export const storedObjectMissing = () =>
+  new HttpError(404, 'stored_object_missing', 'The stored copy of this file is missing from the file store. Its checksum is on record; ask an administrator to check the store.')
+const isMissingObject = (e: unknown) => (e as Error)?.name === 'NoSuchKey' || (e as { $metadata?: { httpStatusCode?: number } })?.$metadata?.httpStatusCode === 404
 export const fileTooLarge = (maxBytes: number) => new HttpError(413, 'file_too_large', `The file is larger than the ${formatBytes(maxBytes)} an upload may hold.`)
 
 function formatBytes(n: number): string {
@@ -298,7 +302,7 @@ export async function receiveUpload(
   return { put: file, originalName: file.originalname, declaredType: file.mimetype, fields }
 }
 
-/** Streams a stored object back (503 storage_unavailable when the store cannot give it). */
+/** Streams a stored object back (404 stored_object_missing when the store has no such key, 503 storage_unavailable when it cannot be reached). */
 export async function readStoredObject(store: ObjectStore | undefined, objectKey: string): Promise<Readable> {
   const s = requireStore(store)
   try {
@@ -307,7 +311,7 @@ export async function readStoredObject(store: ObjectStore | undefined, objectKey
     return r.Body as Readable
   } catch (e) {
     log().warn(`object store: reading ${objectKey} failed: ${(e as Error)?.name ?? ''} ${(e as Error)?.message ?? String(e)}`)
-    throw storageUnavailable()
+    throw isMissingObject(e) ? storedObjectMissing() : storageUnavailable()
   }
 }
 
@@ -329,7 +333,7 @@ export async function hashStoredObject(store: ObjectStore | undefined, objectKey
     }
     return { sha256: hash.digest('hex'), sizeBytes }
   } catch (e) {
-    if ((e as Error)?.name === 'NoSuchKey' || (e as { $metadata?: { httpStatusCode?: number } })?.$metadata?.httpStatusCode === 404) return 'missing'
+    if (isMissingObject(e)) return 'missing'
     log().warn(`object store: reading ${objectKey} for a check failed: ${(e as Error)?.name ?? ''} ${(e as Error)?.message ?? String(e)}`)
     throw storageUnavailable()
   }

@@ -42,6 +42,14 @@ describe('timeline lanes', () => {
     expect(eventTitle(ev('merge_followed', 'internal', { intoReference: 'QB-26-000042' }))).toBe('Now part of QB-26-000042')
     expect(eventTitle(ev('far_from_offices', 'internal'))).toBe('Check the location: far from every office')
   })
+
+  it('says how a report was routed: by an area, in an overlap, or to the nearest office outside every area', () => {
+    expect(eventTitle(ev('routed', 'internal', { basis: 'inside_area' }))).toBe('Routed to the office whose area holds the place')
+    expect(eventTitle(ev('routed', 'internal', { basis: 'inside_overlap' }))).toBe('Routed to the nearest office of overlapping areas')
+    expect(eventTitle(ev('routed', 'internal', { basis: 'outside_areas' }))).toBe('Routed to the nearest office')
+    expect(eventTitle(ev('routed', 'internal'))).toBe('Routed to the nearest office')
+    expect(eventTitle(ev('outside_office_areas', 'internal'))).toBe('Check the location: outside every office area')
+  })
 })
 
 describe('complainant steps', () => {

@@ -13,6 +13,7 @@ import type { CaseRow } from '../../db/schema'
 import { log } from '../../log/logger'
 import type { Actor } from '../../policy/policy'
 import { readStoredObject, storageUnavailable } from '../../storage/stored-files'
+import { HttpError } from '../../http/errors'
 import { loadVisibleCase } from '../cases/case-access'
 import { findUserById } from '../users/users.repo'
 import { bundledFile, manifestEntries, manifestText, type BundleCheck, type BundleManifest, type ManifestFile } from './bundle-manifest'
@@ -51,7 +52,14 @@ export async function openEvidenceBundle(ctx: ServiceContext, actor: Actor, case
   const files = await keptEvidenceOfCase(ctx.db, c.id)
   if (files.length > 0 && !ctx.objectStore) throw storageUnavailable('no file store is configured')
   // the first file is opened before anything is sent, so a store that is down is a plain 503
-  const first = files.length > 0 ? await readStoredObject(ctx.objectStore, files[0]!.objectKey) : null
+  // (a missing first object is not an outage: the bundle goes out with that file marked unreadable)
+  const first =
+    files.length > 0
+      ? await readStoredObject(ctx.objectStore, files[0]!.objectKey).catch((e: unknown) => {
+          if (e instanceof HttpError && e.code === 'stored_object_missing') return null
+          throw e
+        })
+      : null
   const custody = await custodyOfEvidence(
     ctx.db,
     files.map((f) => f.evidenceId),

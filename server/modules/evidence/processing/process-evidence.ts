@@ -29,6 +29,7 @@ export function failureMessage(err: unknown): string {
   if (err instanceof SigmfError) return `The SigMF recording cannot be read: ${err.message}`
   if (err instanceof TraceCsvError) return `The CSV trace cannot be read: ${err.message}`
   if (err instanceof TarError || err instanceof EvidenceProcessingError) return err.message
+  if (err instanceof HttpError && err.code === 'stored_object_missing') return 'The stored copy of the file is missing from the file store, so it was not analysed. Its checksum is on record; an administrator should check the store.'
   if (err instanceof HttpError && err.status === 503) return 'The file store could not be reached; the file was not analysed. Queue it again later.'
   if (err instanceof RangeError) return `The file cannot be analysed: ${err.message}`
   return `The analysis stopped on an unexpected error (${(err as Error)?.message ?? String(err)}); the file itself may be fine.`
@@ -60,7 +61,9 @@ export async function runEvidenceProcessing(deps: ProcessingDeps, evidenceId: st
     await recordAnalysisDone(deps.db, evidenceId, { ...result, libraryVersion: RADIO_LIBRARY_VERSION })
   } catch (err) {
     const message = failureMessage(err)
-    if (!(err instanceof SigmfError || err instanceof TraceCsvError || err instanceof TarError || err instanceof EvidenceProcessingError)) {
+    if (err instanceof HttpError && err.code === 'stored_object_missing') {
+      log().warn({ evidenceId }, 'evidence processing: the stored object is missing')
+    } else if (!(err instanceof SigmfError || err instanceof TraceCsvError || err instanceof TarError || err instanceof EvidenceProcessingError)) {
       log().error({ err, evidenceId }, 'evidence processing failed')
     }
     await recordAnalysisFailed(deps.db, evidenceId, message, RADIO_LIBRARY_VERSION)
