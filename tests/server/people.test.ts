@@ -63,7 +63,7 @@ describe('changing an investigator’s role', () => {
       expect(await caseRow(c.id)).toMatchObject({ status: 'triaged', investigator_id: null })
       const [e] = await eventsOf(c.id, 'returned_to_triage')
       expect(e).toMatchObject({ actor_user_id: admin.id, to_state: 'triaged', data: { previousInvestigatorId: investigator.id } })
-      expect(e!.body).toContain('Investigator moved to another office or role')
+      expect(e!.body).toBe(`Returned to triage: ${investigator.name} is now office supervisor. The case awaits a new investigator.`)
     }
     expect((await eventsOf(inField.id, 'returned_to_triage'))[0]!.from_state).toBe('field_work')
     expect((await caseRow(inField.id)).version).toBe(inFieldVersion + 1)
@@ -174,6 +174,23 @@ describe('deactivating and reactivating', () => {
     expect(personChangedResponseSchema.parse(on.body).user.active).toBe(true)
     await (await signIn(t, supervisor)).get('/api/cases').expect(200)
     expect((await auditOf(supervisor.id)).map((a) => a.action)).toEqual(['user.invited', 'user.deactivated', 'user.reactivated'])
+  })
+
+  it('returns a deactivated investigator’s open cases to triage, and reactivation gives none back', async () => {
+    const office = await makeOffice(t)
+    const investigator = await makeUser(t, { role: 'investigator', office })
+    const open = await makeCase(t, { office, state: 'field_work', investigator })
+    const closed = await makeCase(t, { office, state: 'closed', investigator })
+    const off = await adminAgent.patch(`/api/admin/users/${investigator.id}`).send({ active: false }).expect(200)
+    expect(personChangedResponseSchema.parse(off.body)).toMatchObject({ casesReturnedToTriage: 1 })
+    expect(await caseRow(open.id)).toMatchObject({ status: 'triaged', investigator_id: null })
+    expect((await eventsOf(open.id, 'returned_to_triage'))[0]!.body).toBe(`Returned to triage: ${investigator.name}'s account was deactivated. The case awaits a new investigator.`)
+    expect(await caseRow(closed.id)).toMatchObject({ status: 'closed', investigator_id: investigator.id })
+    expect((await auditOf(investigator.id)).at(-1)).toMatchObject({ action: 'user.deactivated', details: { role: 'investigator', sessionsEnded: 0, casesReturnedToTriage: 1 } })
+
+    const on = await adminAgent.patch(`/api/admin/users/${investigator.id}`).send({ active: true }).expect(200)
+    expect(personChangedResponseSchema.parse(on.body)).toMatchObject({ casesReturnedToTriage: 0 })
+    expect(await caseRow(open.id)).toMatchObject({ status: 'triaged', investigator_id: null })
   })
 })
 

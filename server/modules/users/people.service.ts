@@ -79,10 +79,11 @@ export async function updatePerson(ctx: ServiceContext, actor: Actor, userId: st
     await updateUserAccess(db, userId, { role, officeId, active })
     const sessionsEnded = roleChanged || officeChanged || !active ? await endSessionsOfUser(db, userId) : 0
 
-    // an investigator who leaves the office or the role hands back the open cases held there
+    // an investigator who leaves the office or the role, or is deactivated, hands back the open cases held there
     let casesReturnedToTriage = 0
-    if (before.role === 'investigator' && before.officeId && (role !== 'investigator' || officeChanged)) {
-      casesReturnedToTriage = await returnCasesToTriage(ctx, db, actor, before, roleChanged ? `now ${ROLE_LABELS[role].toLowerCase()}` : 'moved to another office')
+    if (before.role === 'investigator' && before.officeId && (role !== 'investigator' || officeChanged || (before.active && !active))) {
+      const why = roleChanged ? `${before.name} is now ${ROLE_LABELS[role].toLowerCase()}` : officeChanged ? `${before.name} moved to another office` : `${before.name}'s account was deactivated`
+      casesReturnedToTriage = await returnCasesToTriage(ctx, db, actor, before, why)
     }
 
     const audit = { actorUserId: actor.id, targetType: 'user', targetId: userId } as const
@@ -93,14 +94,14 @@ export async function updatePerson(ctx: ServiceContext, actor: Actor, userId: st
       await recordAudit(db, { ...audit, action: 'user.office_changed', officeId: before.officeId ?? officeId, details: { fromOfficeId: before.officeId, toOfficeId: officeId, sessionsEnded, casesReturnedToTriage } })
     }
     if (activeChanged) {
-      await recordAudit(db, { ...audit, action: active ? 'user.reactivated' : 'user.deactivated', officeId, details: { role } })
+      await recordAudit(db, { ...audit, action: active ? 'user.reactivated' : 'user.deactivated', officeId, details: { role, sessionsEnded, casesReturnedToTriage } })
     }
     return { sessionsEnded, casesReturnedToTriage }
   })
   return { user: (await findUserById(ctx.db, userId))!, ...result }
 }
 
-/** Returns the investigator's open cases of their old office to its triage, one timeline entry each. */
+/** Returns the investigator's open cases of their old office to its triage, one timeline entry each; `why` is a clause naming them. */
 async function returnCasesToTriage(
   ctx: ServiceContext,
   db: Db,
@@ -122,7 +123,7 @@ async function returnCasesToTriage(
       kind: RETURNED_TO_TRIAGE_KIND,
       fromState: c.status,
       toState: 'triaged',
-      body: `Investigator moved to another office or role: ${investigator.name} is ${why}. The case awaits a new investigator.`,
+      body: `Returned to triage: ${why}. The case awaits a new investigator.`,
       visibility: 'internal',
       data: { previousInvestigatorId: investigator.id, previousInvestigatorName: investigator.name },
     })
