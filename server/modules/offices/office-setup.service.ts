@@ -4,17 +4,17 @@
  * so it is checked (no crossing edges: the schema) and compared with the other offices' areas
  * (overlaps are saved with a warning that says which report goes where). Every change is audited.
  */
-import { eq, sql } from 'drizzle-orm'
 import { areaKm2, areaWarnings, type AreaWarningDraft } from '../../../shared/domain/office-areas'
 import type { AreaCheckRequest, OfficeInput, OfficeUpdate } from '../../../shared/schemas/offices'
 import type { OfficeView } from '../../../shared/schemas/views'
 import type { ServiceContext } from '../../context'
 import { withTransaction, type Db } from '../../db/client'
-import { offices, type Office } from '../../db/schema'
+import type { Office } from '../../db/schema'
 import { conflict, forbidden, notFound } from '../../http/errors'
 import { can, type Actor } from '../../policy/policy'
 import { recordAudit } from '../audit/audit.repo'
 import { presentOffice } from './offices.service'
+import { findOffice, insertOffice, lockOffice, nameTakenByAnother, officeAreas, updateOfficeDetails, type OfficeDetails } from './offices.repo'
 
 export interface OfficeSaved {
   office: OfficeView
@@ -29,12 +29,12 @@ function requireManager(actor: Actor): void {
 
 async function warningsFor(db: Db, opts: { officeId?: string; officeName: string; area: OfficeInput['area']; latDeg?: number; lonDeg?: number }): Promise<AreaWarningDraft[]> {
   if (!opts.area) return []
-  const others = (await db.select({ id: offices.id, name: offices.name, area: offices.area }).from(offices)).filter((o) => o.id !== opts.officeId)
+  const others = (await officeAreas(db)).filter((o) => o.id !== opts.officeId)
   const position = opts.latDeg !== undefined && opts.lonDeg !== undefined ? { latDeg: opts.latDeg, lonDeg: opts.lonDeg } : undefined
   return areaWarnings({ officeName: opts.officeName, area: opts.area, position, others })
 }
 
-const columnsOf = (input: OfficeInput) => ({
+const columnsOf = (input: OfficeInput): OfficeDetails => ({
   name: input.name,
   regionName: input.regionName,
   address: input.address,
@@ -48,7 +48,7 @@ const columnsOf = (input: OfficeInput) => ({
 export async function createOffice(ctx: ServiceContext, actor: Actor, input: OfficeInput): Promise<OfficeSaved> {
   requireManager(actor)
   return withTransaction(ctx.pool, async ({ db }) => {
-    const [o] = await db.insert(offices).values(columnsOf(input)).onConflictDoNothing({ target: offices.name }).returning()
+    const o = await insertOffice(db, columnsOf(input))
     if (!o) throw nameTaken(input.name)
     const warnings = await warningsFor(db, { officeId: o.id, officeName: o.name, area: input.area, latDeg: input.latDeg, lonDeg: input.lonDeg })
     await recordAudit(db, { actorUserId: actor.id, action: 'office.created', targetType: 'office', targetId: o.id, officeId: o.id, details: { after: detailsOf(o), warnings: warnings.map((w) => w.code) } })
@@ -60,20 +60,14 @@ export async function createOffice(ctx: ServiceContext, actor: Actor, input: Off
 export async function updateOffice(ctx: ServiceContext, actor: Actor, officeId: string, input: OfficeUpdate): Promise<OfficeSaved> {
   requireManager(actor)
   return withTransaction(ctx.pool, async ({ db }) => {
-    const [before] = await db.select().from(offices).where(eq(offices.id, officeId)).for('update')
+    const before = await lockOffice(db, officeId)
     if (!before) throw notFound('office_not_found', 'No such office.')
     if (before.version !== input.version) throw conflict('stale_version', 'Someone else saved this office a moment ago. Reload to see their change, then try again.')
-    const [clash] = await db.select({ id: offices.id }).from(offices).where(sql`${offices.name} = ${input.name} and ${offices.id} <> ${officeId}`)
-    if (clash) throw nameTaken(input.name)
-    const [after] = await db
-      .update(offices)
-      .set({ ...columnsOf(input), version: sql`${offices.version} + 1`, updatedAt: ctx.now() })
-      .where(eq(offices.id, officeId))
-      .returning()
-      .catch((e: unknown) => {
-        // a rename racing another office's save to the same name
-        throw (e as { code?: string }).code === '23505' ? nameTaken(input.name) : e
-      })
+    if (await nameTakenByAnother(db, input.name, officeId)) throw nameTaken(input.name)
+    const after = await updateOfficeDetails(db, officeId, columnsOf(input), ctx.now()).catch((e: unknown) => {
+      // a rename racing another office's save to the same name
+      throw (e as { code?: string }).code === '23505' ? nameTaken(input.name) : e
+    })
     const warnings = await warningsFor(db, { officeId, officeName: after!.name, area: input.area, latDeg: input.latDeg, lonDeg: input.lonDeg })
     await auditChanges(db, actor, before, after!, warnings)
     return { office: presentOffice(after!, actor), warnings }
@@ -83,7 +77,7 @@ export async function updateOffice(ctx: ServiceContext, actor: Actor, officeId: 
 /** An area's size and warnings, before it is saved (nothing is written). */
 export async function checkArea(ctx: ServiceContext, actor: Actor, req: AreaCheckRequest): Promise<{ areaKm2: number; warnings: AreaWarningDraft[] }> {
   requireManager(actor)
-  const [self] = req.officeId ? await ctx.db.select({ name: offices.name }).from(offices).where(eq(offices.id, req.officeId)) : []
+  const self = req.officeId ? await findOffice(ctx.db, req.officeId) : undefined
   const warnings = await warningsFor(ctx.db, { officeId: req.officeId, officeName: self?.name ?? 'this office', area: req.area, latDeg: req.latDeg, lonDeg: req.lonDeg })
   return { areaKm2: Math.round(areaKm2(req.area) * 100) / 100, warnings }
 }

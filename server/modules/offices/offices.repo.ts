@@ -1,5 +1,5 @@
 /** Every query of the offices module. No authorization here: the scope is an argument. */
-import { and, asc, eq, ne } from 'drizzle-orm'
+import { and, asc, eq, ne, sql } from 'drizzle-orm'
 import type { TargetsHours } from '../../../shared/domain/case-clocks'
 import type { Db } from '../../db/client'
 import { cases, offices, type Office } from '../../db/schema'
@@ -63,4 +63,40 @@ export async function setOfficeTimeZone(db: Db, officeId: string, timeZone: stri
 /** Every office (report routing). */
 export function allOffices(db: Db): Promise<Office[]> {
   return db.select().from(offices)
+}
+
+/** The columns an administrator sets for an office (its details and area). */
+export type OfficeDetails = Pick<typeof offices.$inferInsert, 'name' | 'regionName' | 'address' | 'centreLatDeg' | 'centreLonDeg' | 'timeZone' | 'area'>
+
+/** A new office, or undefined when the name is taken. */
+export async function insertOffice(db: Db, details: OfficeDetails): Promise<Office | undefined> {
+  const [o] = await db.insert(offices).values(details).onConflictDoNothing({ target: offices.name }).returning()
+  return o
+}
+
+/** The office, locked for an edit (FOR UPDATE). */
+export async function lockOffice(db: Db, id: string): Promise<Office | undefined> {
+  const [o] = await db.select().from(offices).where(eq(offices.id, id)).for('update')
+  return o
+}
+
+/** Whether another office than `exceptId` has the name. */
+export async function nameTakenByAnother(db: Db, name: string, exceptId: string): Promise<boolean> {
+  const [o] = await db.select({ id: offices.id }).from(offices).where(and(eq(offices.name, name), ne(offices.id, exceptId)))
+  return o !== undefined
+}
+
+/** Replaces the details and bumps the version. A unique-name clash surfaces as PostgreSQL's 23505. */
+export async function updateOfficeDetails(db: Db, id: string, details: OfficeDetails, at: Date): Promise<Office | undefined> {
+  const [o] = await db
+    .update(offices)
+    .set({ ...details, version: sql`${offices.version} + 1`, updatedAt: at })
+    .where(eq(offices.id, id))
+    .returning()
+  return o
+}
+
+/** Every office's name and area (overlap checks). */
+export function officeAreas(db: Db): Promise<{ id: string; name: string; area: Office['area'] }[]> {
+  return db.select({ id: offices.id, name: offices.name, area: offices.area }).from(offices)
 }

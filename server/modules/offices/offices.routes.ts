@@ -6,7 +6,7 @@ import { idParamSchema } from '../../../shared/schemas/ids'
 import { responseTargetsSchema } from '../../../shared/schemas/auth'
 import { areaCheckRequestSchema, officeInputSchema, officeTimeZoneSchema, officeUpdateSchema } from '../../../shared/schemas/offices'
 import { checkArea, createOffice, updateOffice } from './office-setup.service'
-import { getOffice, listOffices, setFirstResponseTargets, setResponseTargets, setTimeZone } from './offices.service'
+import { getOffice, listOffices, setTargets, setTimeZone } from './offices.service'
 
 const idParam = idParamSchema
 
@@ -22,11 +22,11 @@ export function officesRoutes(ctx: ServiceContext): Router {
   })
   r.put('/offices/:id/response-targets', requireRole('supervisor', 'admin'), async (req, res) => {
     const { id } = parseWith(idParam, req.params)
-    res.json({ office: await setResponseTargets(ctx, actorOf(req), id, parseWith(responseTargetsSchema, req.body)) })
+    res.json({ office: await setTargets(ctx, actorOf(req), id, 'resolution', parseWith(responseTargetsSchema, req.body)) })
   })
   r.put('/offices/:id/first-response-targets', requireRole('supervisor', 'admin'), async (req, res) => {
     const { id } = parseWith(idParam, req.params)
-    res.json({ office: await setFirstResponseTargets(ctx, actorOf(req), id, parseWith(responseTargetsSchema, req.body)) })
+    res.json({ office: await setTargets(ctx, actorOf(req), id, 'firstResponse', parseWith(responseTargetsSchema, req.body)) })
   })
   r.put('/offices/:id/time-zone', requireRole('supervisor', 'admin'), async (req, res) => {
     const { id } = parseWith(idParam, req.params)

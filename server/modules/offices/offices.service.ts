@@ -41,46 +41,25 @@ export async function getOffice(ctx: ServiceContext, actor: Actor, officeId: str
   return presentOffice(o, actor)
 }
 
-/**
- * Sets an office's response targets. Due dates of its open cases follow, so overdue flags
- * stay true to the targets in force.
- */
-export async function setResponseTargets(ctx: ServiceContext, actor: Actor, officeId: string, t: { p1: number; p2: number; p3: number; p4: number }): Promise<OfficeView> {
-  const current = await getOffice(ctx, actor, officeId)
-  if (!can(actor, 'office.configure', { officeId: current.id })) throw forbidden('Only the office’s supervisor or an administrator can change its targets.')
-  return withTransaction(ctx.pool, async ({ db }) => {
-    const o = await setOfficeTargets(db, officeId, { 1: t.p1, 2: t.p2, 3: t.p3, 4: t.p4 })
-    const after = presentOffice(o!, actor)
-    await recordAudit(db, {
-      actorUserId: actor.id,
-      action: 'office.response_targets_changed',
-      targetType: 'office',
-      targetId: officeId,
-      officeId,
-      details: { beforeHours: current.responseTargetsHours, afterHours: after.responseTargetsHours },
-    })
-    return after
-  })
-}
+/** The two clocks an office sets targets for: what each writes and how the audit names it. */
+const TARGET_CLOCKS = {
+  resolution: { write: setOfficeTargets, action: 'office.response_targets_changed', read: (o: OfficeView) => o.responseTargetsHours },
+  firstResponse: { write: setOfficeFirstResponseTargets, action: 'office.first_response_targets_changed', read: (o: OfficeView) => o.firstResponseTargetsHours },
+} as const
 
 /**
- * Sets an office's first-response targets (hours per priority). The first-response due times of
- * its cases still waiting for a first response follow.
+ * Sets an office's targets for one clock (hours per harm class): resolution, or first response.
+ * The due times of its cases whose clock still runs follow, so overdue flags stay true to the
+ * targets in force.
  */
-export async function setFirstResponseTargets(ctx: ServiceContext, actor: Actor, officeId: string, t: { p1: number; p2: number; p3: number; p4: number }): Promise<OfficeView> {
+export async function setTargets(ctx: ServiceContext, actor: Actor, officeId: string, clock: keyof typeof TARGET_CLOCKS, t: { p1: number; p2: number; p3: number; p4: number }): Promise<OfficeView> {
   const current = await getOffice(ctx, actor, officeId)
   if (!can(actor, 'office.configure', { officeId: current.id })) throw forbidden('Only the office’s supervisor or an administrator can change its targets.')
+  const { write, action, read } = TARGET_CLOCKS[clock]
   return withTransaction(ctx.pool, async ({ db }) => {
-    const o = await setOfficeFirstResponseTargets(db, officeId, { 1: t.p1, 2: t.p2, 3: t.p3, 4: t.p4 })
+    const o = await write(db, officeId, { 1: t.p1, 2: t.p2, 3: t.p3, 4: t.p4 })
     const after = presentOffice(o!, actor)
-    await recordAudit(db, {
-      actorUserId: actor.id,
-      action: 'office.first_response_targets_changed',
-      targetType: 'office',
-      targetId: officeId,
-      officeId,
-      details: { beforeHours: current.firstResponseTargetsHours, afterHours: after.firstResponseTargetsHours },
-    })
+    await recordAudit(db, { actorUserId: actor.id, action, targetType: 'office', targetId: officeId, officeId, details: { beforeHours: read(current), afterHours: read(after) } })
     return after
   })
 }
