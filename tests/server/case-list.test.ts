@@ -135,13 +135,13 @@ describe('the CSV export’s cells', () => {
 })
 
 describe('response targets', () => {
-  it('tell each viewer whether they may change them', async () => {
+  it('tell each viewer whether they may change them, and only an administrator edits the office itself', async () => {
     const sup = (await supervisor.get('/api/offices').expect(200)).body.offices
     const inv = (await investigator.get('/api/offices').expect(200)).body.offices
     const adm = (await admin.get('/api/offices').expect(200)).body.offices
-    expect(sup.map((o: { abilities: object }) => o.abilities)).toEqual([{ setResponseTargets: true }])
-    expect(inv.map((o: { abilities: object }) => o.abilities)).toEqual([{ setResponseTargets: false }])
-    expect(adm.every((o: { abilities: { setResponseTargets: boolean } }) => o.abilities.setResponseTargets)).toBe(true)
+    expect(sup.map((o: { abilities: object }) => o.abilities)).toEqual([{ setResponseTargets: true, edit: false }])
+    expect(inv.map((o: { abilities: object }) => o.abilities)).toEqual([{ setResponseTargets: false, edit: false }])
+    expect(adm.every((o: { abilities: { setResponseTargets: boolean; edit: boolean } }) => o.abilities.setResponseTargets && o.abilities.edit)).toBe(true)
   })
 
   it('lets the office’s supervisor change them, and open cases’ due times follow', async () => {
