@@ -13,7 +13,8 @@ export default defineConfig({
     host: '127.0.0.1',
     port: 5173,
     strictPort: true,
-    proxy: { '/api': `http://127.0.0.1:${process.env.PORT ?? 3000}` },
+    // `/api` and what is under it, not pages whose address merely starts so (/api-reference)
+    proxy: { '^/api(/|$)': `http://127.0.0.1:${process.env.PORT ?? 3000}` },
   },
   preview: { host: '127.0.0.1', port: 4173, strictPort: true },
 })

@@ -46,6 +46,8 @@ import { dashboardRoutes } from './modules/dashboard/dashboard.routes'
 import { savedViewsRoutes } from './modules/saved-views/saved-views.routes'
 import { retentionRoutes } from './modules/retention/retention.routes'
 import { auditRoutes } from './modules/audit/audit.routes'
+import { openApiRoutes } from './openapi/openapi.routes'
+import type { HealthResponse } from '../shared/schemas/service'
 
 export interface AppDeps {
   pool: pg.Pool
@@ -146,7 +148,8 @@ export function createApp(deps: AppDeps): AppHandle {
   // 503 database_unavailable (error handler) when PostgreSQL is away; a short timeout keeps it cheap
   api.get('/health', async (_req, res) => {
     await pingDatabase(deps.pool)
-    res.json({ ok: true })
+    const body: HealthResponse = { ok: true }
+    res.json(body)
   })
   api.use(authRoutes(ctx, passport, { signInDelay: deps.signInDelay }))
   api.use(usersRoutes(ctx))
@@ -172,6 +175,7 @@ export function createApp(deps: AppDeps): AppHandle {
   api.use(retentionRoutes(ctx))
   api.use(auditRoutes(ctx))
   api.use(mailboxRoutes({ dir: deps.mailboxDir, listenHost: deps.listenHost, nodeEnv: deps.nodeEnv ?? process.env.NODE_ENV, trustProxy: deps.trustProxy }))
+  api.use(openApiRoutes())
   api.use(apiNotFound)
   app.use('/api', api)
 

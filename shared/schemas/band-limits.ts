@@ -77,7 +77,7 @@ const SINGLE_LIMIT_OPTIONS = [
   z.strictObject({ kind: z.literal('conducted'), conductedPowerDbm: powerDbm('the conducted power'), gainRule: conductedGainRule }),
   z.strictObject({ kind: z.literal('conducted-density'), conductedDensityDbm: powerDbm('the conducted density'), referenceBandwidthHz, gainRule: conductedGainRule }),
 ] as const
-const singleLimitSpec = z.discriminatedUnion('kind', [...SINGLE_LIMIT_OPTIONS])
+const singleLimitSpec = z.discriminatedUnion('kind', [...SINGLE_LIMIT_OPTIONS]).meta({ id: 'SingleLimitSpecInput' })
 
 /** A limit as the library writes it: one limit, or the lesser of several single limits. */
 export const limitSpecInputSchema = z.discriminatedUnion('kind', [
@@ -86,7 +86,7 @@ export const limitSpecInputSchema = z.discriminatedUnion('kind', [
     kind: z.literal('lesser-of'),
     limits: z.array(singleLimitSpec).min(2, { message: 'A “lesser of” limit needs at least two limits.' }).max(8),
   }),
-])
+]).meta({ id: 'LimitSpecInput', description: 'A limit as an editor sends it: levels as numbers in dBm or as text with a unit.' })
 
 export const frequencyBandsInputSchema = z
   .array(z.strictObject({ lowHz: frequencyHz('the lower edge'), highHz: frequencyHz('the upper edge') }))

@@ -165,6 +165,9 @@ export const noteSchema = z.object({
 })
 export const complainantInfoSchema = z.object({ body: text(4000, 'Information').min(1, { message: 'Write something.' }) })
 
+/** A tracking link's `:token` path parameter (checked against the stored tokens, not by shape). */
+export const trackingTokenParamSchema = z.object({ token: z.string() })
+
 export const CASE_SORTS = ['reference', 'receivedAt', 'priority', 'dueAt', 'status', 'service', 'frequency'] as const
 export type CaseSort = (typeof CASE_SORTS)[number]
 

@@ -11,6 +11,8 @@ import {
   EVIDENCE_UPLOADER_ROLES,
   VERIFICATION_OUTCOMES,
 } from '../domain/evidence'
+import { trackingTokenParamSchema } from './cases'
+import { idParamSchema, idSchema } from './ids'
 import { storableString } from './text'
 
 const instant = z.iso.datetime()
@@ -111,3 +113,11 @@ export const shareEvidenceRequestSchema = z.strictObject({
   note: storableString().trim().max(2000, 'A note is at most 2000 characters.').optional(),
 })
 export type ShareEvidenceRequest = z.infer<typeof shareEvidenceRequestSchema>
+
+// ── path parameters of the complainant's routes ─────────────────────────────
+
+/** GET /api/track/:token/evidence/:evidenceId/download (the evidence id: anything but a uuid is 404 evidence_not_found). */
+export const trackedEvidenceParamSchema = trackingTokenParamSchema.extend({ evidenceId: idSchema })
+
+/** GET /api/my/reports/:id/evidence/:evidenceId/download (either id not a uuid: 404). */
+export const reportEvidenceParamSchema = idParamSchema.extend({ evidenceId: idSchema })

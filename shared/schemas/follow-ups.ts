@@ -156,6 +156,10 @@ export const followUpViewSchema = z.object({
 })
 export type FollowUpView = z.infer<typeof followUpViewSchema>
 
+/** POST /api/cases/:id/follow-ups (201) and each move, POST /api/follow-ups/:id/<move>: the follow-up as it now stands. */
+export const followUpResponseSchema = z.object({ followUp: followUpViewSchema })
+export type FollowUpResponse = z.infer<typeof followUpResponseSchema>
+
 /** GET /api/cases/:id/follow-ups */
 export const caseFollowUpsResponseSchema = z.object({
   /** The office's today (YYYY-MM-DD, its time zone). */

@@ -201,6 +201,19 @@ type Field<T> = z.ZodPipe<z.ZodUnknown, z.ZodTransform<T, unknown>>
 type OptionalField<T> = z.ZodPipe<z.ZodOptional<z.ZodUnknown>, z.ZodTransform<T | undefined, unknown>>
 
 /**
+ * The input of such a field as the API document shows it: the parser reads any JSON value, so
+ * words, not a type, tell a client what to send. `plainUnit`: the unit of a bare number, if fixed.
+ */
+export function documentedNumberInput(words: { label: string; units: readonly string[]; plainUnit?: string; example?: string }): z.ZodUnknown {
+  const written = words.units.length ? `, or decimal text with one of its units (${words.units.join(', ')})` : ', or its decimal text'
+  const example = words.example ? `, e.g. "${words.example}"` : ''
+  return z.unknown().meta({ description: `${cap(words.label)}: a number${words.plainUnit ? ` in ${words.plainUnit}` : ''}${written}${example}.` })
+}
+
+const inputOf = (spec: NumberWithUnitSpec, plainUnit?: string) =>
+  documentedNumberInput({ label: spec.label, units: spec.units ? Object.keys(spec.units) : [], plainUnit, example: spec.example })
+
+/**
  * A zod field for a number with a unit: strict, checked, normalised to the base unit.
  * With `optional: true`, a missing or blank value is `undefined` instead of an error.
  */
@@ -214,7 +227,8 @@ export function numberWithUnit<U extends string>(spec: NumberWithUnitSpec<U> & {
     ctx.addIssue({ code: 'custom', message: r.message })
     return z.NEVER
   }
-  return spec.optional ? z.unknown().optional().transform(read) : z.unknown().transform((input, ctx) => read(input, ctx)!)
+  const input = inputOf(spec, spec.defaultUnit ?? (spec.units ? Object.keys(spec.units).find((u) => spec.units![u as U] === 1) : undefined))
+  return spec.optional ? input.optional().transform(read) : input.transform((value, ctx) => read(value, ctx)!)
 }
 
 /**
@@ -240,7 +254,8 @@ export function writtenNumber<U extends string>(spec: NumberWithUnitSpec<U> & { 
     }
     return r.value
   }
-  return spec.optional ? z.unknown().optional().transform(read) : z.unknown().transform((input, ctx) => read(input, ctx)!)
+  const input = inputOf(spec)
+  return spec.optional ? input.optional().transform(read) : input.transform((value, ctx) => read(value, ctx)!)
 }
 
 /** x × 10^k, worked on the decimal digits so that 433.92 × 10^6 is exactly 433 920 000. */

@@ -6,6 +6,7 @@
 import { z } from 'zod'
 import { selfCrossingMessage, selfCrossings } from '../domain/office-areas'
 import { areaSchema, type AreaGeometry } from './region'
+import { storableString } from './text'
 import { officeViewSchema } from './views'
 
 /** The shape the database's CHECK accepts (offices_time_zone_shape): "Area/Place", "UTC". */
@@ -57,11 +58,11 @@ export const officeAreaSchema = areaSchema.superRefine((area, ctx) => {
 
 /** A new office, or all of an office's details at once (PUT replaces them). */
 export const officeInputSchema = z.object({
-  name: z.string({ message: 'Give the office a name.' }).trim().min(1, { message: 'Give the office a name.' }).max(80),
+  name: storableString().trim().min(1, { message: 'Give the office a name.' }).max(80),
   /** What the area is called, e.g. "Vellmark Coast — north"; may be empty. */
-  regionName: z.string().trim().max(120).default(''),
+  regionName: storableString().trim().max(120).default(''),
   /** Postal address of the office; may be empty. */
-  address: z.string().trim().max(300).default(''),
+  address: storableString().trim().max(300).default(''),
   latDeg: z.number({ message: 'Give the latitude in decimal degrees.' }).min(-90, { message: 'Latitude is between −90 and 90°.' }).max(90, { message: 'Latitude is between −90 and 90°.' }),
   lonDeg: z.number({ message: 'Give the longitude in decimal degrees.' }).min(-180, { message: 'Longitude is between −180 and 180°.' }).max(180, { message: 'Longitude is between −180 and 180°.' }),
   timeZone: timeZoneField,

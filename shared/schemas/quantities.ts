@@ -11,7 +11,7 @@
  * same; a number written bare is read in the field's default unit.
  */
 import { z } from 'zod'
-import { checkNumber, readWrittenNumber, type NumberWithUnitSpec, type Read, type WrittenNumber } from './number-with-unit'
+import { checkNumber, documentedNumberInput, readWrittenNumber, type NumberWithUnitSpec, type Read, type WrittenNumber } from './number-with-unit'
 
 /** How one unit reaches the base unit: a factor (linear) or a conversion that needs a positive amount. */
 export type UnitRule = { factor: number } | { toBase: (amount: number) => number; positiveOnly?: boolean }
@@ -143,7 +143,8 @@ export function quantity(kind: QuantityKind, spec: QuantitySpec & { optional?: b
     ctx.addIssue({ code: 'custom', message: r.message })
     return z.NEVER
   }
-  return spec.optional ? z.unknown().optional().transform(read) : z.unknown().transform((input, ctx) => read(input, ctx)!)
+  const input = documentedNumberInput({ label: spec.label, units: unitsOf(kind), plainUnit: spec.defaultUnit ?? unitsOf(kind)[0], example: spec.example })
+  return spec.optional ? input.optional().transform(read) : input.transform((value, ctx) => read(value, ctx)!)
 }
 
 /** What a quantity field sends: the figure as typed and the unit chosen beside it ("2 W"). */

@@ -27,6 +27,7 @@ export const areaSchema = z
   .discriminatedUnion('type', [GeoJSON2DPolygonSchema, GeoJSON2DMultiPolygonSchema], { message: 'An area is a GeoJSON Polygon or MultiPolygon.' })
   .refine(notEmpty, EMPTY)
   .refine(onTheGlobe, RANGE)
+  .meta({ id: 'Area', description: 'A GeoJSON (RFC 7946) Polygon or MultiPolygon: positions are [longitude, latitude] in degrees, WGS 84.' })
 export type AreaGeometry = z.infer<typeof areaSchema>
 
 export const PLACE_KINDS = ['town', 'land', 'sea'] as const

@@ -3,7 +3,7 @@
  * a case's legal hold, and what a retention run erases and disposes of.
  */
 import { z } from 'zod'
-import { ERASED_CASE_FIELDS, LEGAL_HOLD_ACTIONS, MAX_RETENTION_MONTHS } from '../domain/retention'
+import { DISPOSAL_ACTIONS, ERASED_CASE_FIELDS, LEGAL_HOLD_ACTIONS, MAX_RETENTION_MONTHS } from '../domain/retention'
 import { numberWithUnit } from './number-with-unit'
 import { storableString } from './text'
 
@@ -93,8 +93,25 @@ export const retentionPlanCaseSchema = z.object({
   fields: z.array(z.enum(ERASED_CASE_FIELDS)),
   /** Timeline entries replaced by a redacted copy. */
   redactedEventIds: z.array(z.number().int()),
-  /** Evidence objects deleted (with their thumbnails, a rendition the server made). */
+  /** Evidence objects deleted (with their thumbnails, a rendition the server made; each deletion recorded on its own). */
   evidence: z.array(z.object({ evidenceId: z.uuid(), objectKey: z.string(), sha256: z.string(), thumbnailKey: z.string().nullable() })),
+  /** Entries of other cases' timelines written by a merge that quote this case's complainant, replaced by a redacted copy. */
+  mergeEventIds: z.array(z.number().int()),
+  /** The position the case keeps, rounded to 0.01° (its address becomes the marker); null when nothing is erased now. */
+  coarsePosition: z.object({ latDeg: z.number(), lonDeg: z.number() }).nullable(),
+  /** Evidence files whose original name becomes a marker (`erased-<sha256 prefix>.<ext>`). */
+  fileNames: z.array(z.object({ evidenceId: z.uuid(), storedFileId: z.uuid(), name: z.string() })),
+  /** E-mails about the case to the complainant still waiting in the queue: cancelled and deleted. */
+  queuedMails: z.array(z.object({ jobId: z.string(), subject: z.string() })),
+  /** The complainant's account: deactivated with its name and e-mail replaced, or kept and why; null when the case has none. */
+  account: z
+    .union([
+      z.object({ outcome: z.literal('deactivated'), userId: z.uuid() }),
+      z.object({ outcome: z.literal('kept'), userId: z.uuid(), reason: z.literal('other_cases'), otherCases: z.number().int().min(1) }),
+      z.object({ outcome: z.literal('kept'), userId: z.uuid(), reason: z.literal('signed_in'), lastSignedInAt: isoTime }),
+      z.object({ outcome: z.literal('kept'), userId: z.uuid(), reason: z.literal('not_a_complainant_account') }),
+    ])
+    .nullable(),
 })
 export type RetentionPlanCase = z.infer<typeof retentionPlanCaseSchema>
 
@@ -105,6 +122,8 @@ export const retentionRunViewSchema = z.object({
   cases: z.array(retentionPlanCaseSchema),
   /** Expired cases the run leaves alone, and why. */
   kept: z.array(z.object({ caseId: z.uuid(), reference: z.string(), reason: z.enum(['legal_hold', 'open_follow_up']) })),
+  /** Object deletions an earlier run recorded as pending (it stopped before the store deleted them), finished by this run. */
+  pendingDisposals: z.array(z.object({ caseId: z.uuid(), action: z.enum(DISPOSAL_ACTIONS), evidenceId: z.uuid(), objectKey: z.string() })),
 })
 export type RetentionRunView = z.infer<typeof retentionRunViewSchema>
 

@@ -85,6 +85,9 @@ export type ColumnMapping = z.infer<typeof columnMappingSchema>
 
 export const csvDelimiterSchema = z.enum(CSV_DELIMITERS, { error: 'Choose the delimiter: comma, semicolon, tab or vertical bar.' })
 
+/** POST /api/station-register/uploads: the form's text field beside the file (field `file`); other fields are ignored. */
+export const registerUploadFieldsSchema = z.object({ delimiter: csvDelimiterSchema.optional() })
+
 /** POST /api/station-register/uploads/:id/inspect: read the file again with another delimiter. */
 export const inspectUploadSchema = z.strictObject({ delimiter: csvDelimiterSchema.optional() })
 
@@ -221,6 +224,7 @@ export const stationsPageResponseSchema = z.object({
   pageSize: z.number().int(),
   stations: z.array(stationViewSchema),
 })
+export type StationsPage = z.infer<typeof stationsPageResponseSchema>
 export const stationResponseSchema = z.object({ station: stationViewSchema })
 
 /** POST /api/station-register/candidates: the ranking of the register in force, nothing stored. */

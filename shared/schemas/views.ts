@@ -34,7 +34,7 @@ export const timelineEventSchema = z.object({
   body: z.string().nullable(),
   visibility: z.enum(TIMELINE_VISIBILITIES),
   data: z.record(z.string(), z.unknown()).nullable(),
-})
+}).meta({ id: 'TimelineEvent' })
 export type TimelineEvent = z.infer<typeof timelineEventSchema>
 
 const moveFlags = Object.fromEntries((Object.keys(CASE_MOVES) as CaseMoveName[]).map((m) => [m, z.boolean()])) as Record<CaseMoveName, z.ZodBoolean>
@@ -100,7 +100,7 @@ export const caseDetailSchema = z.object({
   firstResponseOverdue: z.boolean(),
   abilities: caseAbilitiesSchema,
   timeline: z.array(timelineEventSchema),
-})
+}).meta({ id: 'CaseDetail', description: 'A case as staff see it: the report, the state and clocks, the timeline, and what the viewer may do now.' })
 export type CaseDetail = z.infer<typeof caseDetailSchema>
 
 export const caseListItemSchema = z.object({
@@ -232,7 +232,7 @@ export const officeViewSchema = z.object({
   timeZone: z.string(),
   /** What the viewer may do with this office (computed by the policy). */
   abilities: z.object({ setResponseTargets: z.boolean(), edit: z.boolean() }),
-})
+}).meta({ id: 'Office' })
 export type OfficeView = z.infer<typeof officeViewSchema>
 
 /**
@@ -302,7 +302,7 @@ export const limitSpecViewSchema: z.ZodType<LimitSpec> = z.lazy(() =>
     z.object({ kind: z.literal('conducted-density'), conductedDensityDbm: z.number(), referenceBandwidthHz: z.number(), gainRule: conductedGainRuleViewSchema }),
     z.object({ kind: z.literal('lesser-of'), limits: z.array(limitSpecViewSchema) }),
   ]),
-)
+).meta({ id: 'LimitSpec', description: 'A limit as written: one limit (EIRP, ERP, EIRP density, conducted power or density), or the lesser of several.' })
 
 /** What a band-limit entry says (the fields an edit may change). */
 export const bandLimitContentViewSchema = z.object({
@@ -346,6 +346,7 @@ export type BandLimitChangeView = z.infer<typeof bandLimitChangeViewSchema>
 export const caseResponseSchema = z.object({ case: caseDetailSchema })
 /** A move's answer: the case as it now stands; null when the move took it out of the actor's sight (a transfer). */
 export const caseMoveResponseSchema = z.object({ case: caseDetailSchema.nullable() })
+export type CaseMoveResponse = z.infer<typeof caseMoveResponseSchema>
 export const mergeCandidatesResponseSchema = z.object({ candidates: z.array(mergeCandidateSchema) })
 export const investigatorsResponseSchema = z.object({ investigators: z.array(investigatorLoadSchema) })
 export const transferOfficesResponseSchema = z.object({ offices: z.array(transferOfficeSchema) })
@@ -363,7 +364,9 @@ export const bandLimitResponseSchema = z.object({ bandLimit: bandLimitViewSchema
 export const bandLimitHistoryResponseSchema = z.object({ changes: z.array(bandLimitChangeViewSchema) })
 
 /** A calculation record of a case (shared/calculations): inputs as read, the server's outputs, and what it rests on. */
-const jsonValue = z.json()
+type Json = string | number | boolean | null | Json[] | { [key: string]: Json }
+/** Any JSON value (named, so the API document can refer to it from itself). */
+const jsonValue: z.ZodType<Json> = z.lazy(() => z.union([z.string(), z.number(), z.boolean(), z.null(), z.array(jsonValue), z.record(z.string(), jsonValue)])).meta({ id: 'JsonValue' })
 const methodRefSchema = z.object({ id: z.string(), source: z.string() })
 export const calculationViewSchema = z.object({
   id,

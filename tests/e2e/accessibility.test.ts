@@ -35,6 +35,8 @@ interface Ids {
   caseId: string
   myReportId: string
   trackingPath: string
+  /** An office of the demo, for its edit page. */
+  officeId: string
 }
 
 const heading = (page: Page) => page.getByRole('heading', { level: 1 }).first().waitFor({ timeout: 20_000 })
@@ -48,6 +50,8 @@ const PAGES: PageCheck[] = [
   { name: 'track', who: 'visitor', path: () => paths.track.href(), ready: heading },
   { name: 'track-report', who: 'visitor', path: (ids) => ids.trackingPath, ready: heading },
   { name: 'not-found', who: 'visitor', path: () => '/no/such/page', ready: heading },
+  // ready once the document is read: the contents of its groups are listed
+  { name: 'api-reference', who: 'visitor', path: () => paths.apiReference.href(), ready: (page) => page.getByRole('navigation', { name: 'Groups of operations' }).waitFor({ timeout: 20_000 }) },
   { name: 'my-reports', who: 'complainant', path: () => paths.myReports.href(), ready: heading },
   { name: 'my-report', who: 'complainant', path: (ids) => paths.myReport.href(ids.myReportId), ready: heading },
   { name: 'work-investigator', who: 'investigator', path: () => paths.work.href(), ready: heading },
@@ -65,6 +69,8 @@ const PAGES: PageCheck[] = [
   { name: 'dashboard-admin', who: 'admin', path: () => paths.dashboard.href(), ready: heading },
   { name: 'admin-users', who: 'admin', path: () => paths.adminUsers.href(), ready: heading },
   { name: 'admin-offices', who: 'admin', path: () => paths.adminOffices.href(), ready: heading },
+  { name: 'admin-office-new', who: 'admin', path: () => paths.adminOfficeNew.href(), ready: heading },
+  { name: 'admin-office-edit', who: 'admin', path: (ids) => paths.adminOfficeEdit.href(ids.officeId), ready: heading },
   { name: 'admin-audit', who: 'admin', path: () => paths.adminAudit.href(), ready: heading },
 ]
 
@@ -78,7 +84,9 @@ async function idsFromDatabase(): Promise<Ids> {
     )
     if (!rows[0]) throw new Error('the demo seed has no report of the demo complainant')
     const link = await issueTrackingLink(createDb(pool), 'http://quietband.test', caseId)
-    return { caseId, myReportId: rows[0].id, trackingPath: new URL(link).pathname }
+    const office = await pool.query<{ id: string }>(`SELECT id FROM offices ORDER BY name LIMIT 1`)
+    if (!office.rows[0]) throw new Error('the demo seed has no office')
+    return { caseId, myReportId: rows[0].id, trackingPath: new URL(link).pathname, officeId: office.rows[0].id }
   } finally {
     await pool.end()
   }

@@ -10,6 +10,7 @@ import { BAND_LIMITS } from '../../shared/radio/compliance/band-limits'
 import { bandLimitHistoryResponseSchema, bandLimitResponseSchema, bandLimitsResponseSchema, type BandLimitView } from '../../shared/schemas/views'
 import { seedBandLimits } from '../../server/modules/band-limits/band-limits.seed'
 import { createTestContext, type TestContext } from '../support/harness'
+import { expectAnswerMatchesDocument } from '../support/api-document'
 import { makeBandLimit, makeOffice, makeUser, signIn, type Agent, type TestUser } from '../support/factories'
 
 const appUrl = inject('databaseUrl')
@@ -86,6 +87,7 @@ describe('PATCH /api/band-limits/:id', () => {
       .send({ changes: { spec: { kind: 'erp', erpDbm: '14 dBm' }, bandsHz: [{ lowHz: '433.05 MHz', highHz: '434.79 MHz' }], verified: true }, reason: 'Checked against the published table', version: 1 })
       .expect(200)
     const { bandLimit } = bandLimitResponseSchema.parse(res.body)
+    expectAnswerMatchesDocument('PATCH', '/api/band-limits/:id', res)
     expect(bandLimit).toMatchObject({ spec: { kind: 'erp', erpDbm: 14 }, bandsHz: [{ lowHz: 433_050_000, highHz: 434_790_000 }], verified: true, version: 2, updatedBy: supervisorUser.name })
   })
 

@@ -19,6 +19,7 @@ import { assessCompliance, BAND_LIMITS, createPropagationModel, eirpFromMeasurem
 import { calculationResponseSchema, calculationsResponseSchema, recomputeResponseSchema } from '../../shared/schemas/views'
 import { FREE_SPACE_FIELD_ROWS } from '../fixtures/radio/propagation-free-space'
 import { createTestContext, type TestContext } from '../support/harness'
+import { expectAnswerMatchesDocument } from '../support/api-document'
 import { makeBandLimit, makeCase, makeOffice, makeUser, signIn, type Agent, type TestCase, type TestUser } from '../support/factories'
 
 const appUrl = inject('databaseUrl')
@@ -90,6 +91,7 @@ describe('storing a calculation', () => {
   it('stores the EIRP the radio library computes from the inputs, with units normalised, methods, version and author', async () => {
     const res = await store(investigator, worked.id, { kind: 'eirp_single_point', inputs: eirpInputs }).expect(201)
     const { calculation } = calculationResponseSchema.parse(res.body)
+    expectAnswerMatchesDocument('POST', '/api/cases/:id/calculations', res)
 
     const model = createPropagationModel({ kind: 'free-space', freqHz: 100e6 })
     const direct = eirpFromMeasurement({
@@ -237,6 +239,7 @@ describe('recomputing', () => {
     const stored = await store(investigator, worked.id, { kind: 'eirp_single_point', inputs: eirpInputs }).expect(201)
     const res = await investigator.get(`/api/calculations/${stored.body.calculation.id}/recompute`).expect(200)
     const { recompute } = recomputeResponseSchema.parse(res.body)
+    expectAnswerMatchesDocument('GET', '/api/calculations/:id/recompute', res)
     expect(recompute).toMatchObject({ sameLibraryVersion: true, storedLibraryVersion: RADIO_LIBRARY_VERSION, differs: false, largestRelativeDifference: 0, refused: null })
     const eirp = recompute.differences.find((d) => d.path === 'value.eirpDbm')!
     expect(eirp).toEqual({ path: 'value.eirpDbm', stored: stored.body.calculation.outputs.value.eirpDbm, now: stored.body.calculation.outputs.value.eirpDbm, relativeDifference: 0, differs: false })

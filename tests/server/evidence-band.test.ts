@@ -25,6 +25,7 @@ import { bandMeasurementResponseSchema } from '../../shared/schemas/band-measure
 import { RADIO_LIBRARY_VERSION } from '../../shared/radio'
 import { cite } from '../fixtures/radio/check-row'
 import { createTestContext, type TestContext } from '../support/harness'
+import { expectAnswerMatchesDocument } from '../support/api-document'
 import { makeCase, makeOffice, makeUser, signIn, type TestCase, type TestUser } from '../support/factories'
 
 let fake: S3Fake
@@ -74,6 +75,7 @@ describe('POST /api/evidence/:id/band', () => {
     const res = await agent.post(`/api/evidence/${evidenceId}/band`).send({ lowFreqHz: 101.5e6, highFreqHz: 102.5e6 })
     expect(res.status, res.text).toBe(200)
     const band = evidenceBandResponseSchema.parse(res.body).band
+    expectAnswerMatchesDocument('POST', '/api/evidence/:id/band', res)
     // P_ch = P_read − 10·log10(B_N) + 10·log10(B_ch) = −60 − 50 + 60 = −50.00 dBm
     // (level density −60 dBm / 100 kHz = −110 dBm/Hz, times 1 MHz)
     expect(band.levelUnit).toBe('dBm')
@@ -271,6 +273,7 @@ describe('POST /api/evidence/:id/band-measurement', () => {
     })
     expect(res.status, res.text).toBe(201)
     const body = bandMeasurementResponseSchema.parse(res.body)
+    expectAnswerMatchesDocument('POST', '/api/evidence/:id/band-measurement', res)
     // nothing the schema does not declare is in the answer
     expect(body).toEqual(res.body)
     const m = body.measurement

@@ -24,6 +24,7 @@ import { evidenceAnalysisResponseSchema } from '../../shared/schemas/spectrum'
 import { RADIO_LIBRARY_VERSION } from '../../shared/radio'
 import { createNormalSource, createUniformSource } from '../../shared/radio/uncertainty/prng'
 import { createTestContext, type TestContext } from '../support/harness'
+import { expectAnswerMatchesDocument } from '../support/api-document'
 import { makeCase, makeOffice, makeUser, signIn, type Agent, type TestCase, type TestUser } from '../support/factories'
 
 let fake: S3Fake
@@ -231,6 +232,7 @@ describe('a SigMF archive (cf32_le tone + burst + noise) processed directly', ()
     const res = await agent.get(`/api/evidence/${evidenceId}/analysis`)
     expect(res.status).toBe(200)
     const view = evidenceAnalysisResponseSchema.parse(res.body).analysis
+    expectAnswerMatchesDocument('GET', '/api/evidence/:id/analysis', res)
     expect(view.state).toBe('done')
     expect(view.summary!.peaks[0]!.freqHz).toBe(CENTER_HZ + TONE_OFFSET_HZ)
     const other = await signIn(t, await makeUser(t, { role: 'investigator', office: await makeOffice(t) }))

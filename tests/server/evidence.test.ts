@@ -19,6 +19,7 @@ import { cleanFileName, attachmentDisposition } from '../../server/modules/evide
 import { custodyListResponseSchema, evidenceListResponseSchema, evidenceUploadResponseSchema, verifyEvidenceResponseSchema, type EvidenceView } from '../../shared/schemas/evidence'
 import { validReport } from '../support/cases'
 import { createTestContext, uniqueAddress, type TestContext } from '../support/harness'
+import { expectAnswerMatchesDocument } from '../support/api-document'
 import { makeCase, makeOffice, makeUser, reportNear, signIn, type Agent, type TestCase, type TestUser } from '../support/factories'
 
 const MiB = 1024 * 1024
@@ -126,6 +127,7 @@ describe('uploading evidence', () => {
     const res = await staffUpload(investigator, 'iq_recording', bytes, 'capture-433.sigmf-data').expect(201)
     const { evidence } = evidenceUploadResponseSchema.parse(res.body)
     expect(evidence.sha256).toBe(expected)
+    expectAnswerMatchesDocument('POST', '/api/cases/:id/evidence', res)
     expect(evidence.sizeBytes).toBe(50 * MiB)
     // raw samples carry no signature: kept as octet-stream, whatever was declared
     expect(evidence.contentType).toBe('application/octet-stream')
@@ -293,6 +295,7 @@ describe('who sees which files', () => {
     expect((await supervisor.post(`/api/evidence/${linkFile.id}/remove`).send({}).expect(400)).body.error.details[0].path).toBe('reason')
     await ownerAgent.post(`/api/evidence/${ownerFile.id}/remove`).send({ reason: 'Mine' }).expect(403)
     const res = await supervisor.post(`/api/evidence/${linkFile.id}/remove`).send({ reason: 'Filed on the wrong case by the complainant.' }).expect(200)
+    expectAnswerMatchesDocument('POST', '/api/evidence/:id/remove', res)
     expect(res.body.evidence.removed).toMatchObject({ by: worked.supervisor!.name, reason: 'Filed on the wrong case by the complainant.' })
     expect(res.body.evidence.abilities.remove).toBe(false)
     expect((await supervisor.post(`/api/evidence/${linkFile.id}/remove`).send({ reason: 'Again' }).expect(409)).body.error.code).toBe('evidence_already_removed')

@@ -11,6 +11,7 @@ import { createHash, randomUUID } from 'node:crypto'
 import { insertEvidence } from '../../server/modules/evidence/evidence.repo'
 import { findingsResponseSchema } from '../../shared/schemas/findings'
 import { createTestContext, type TestContext } from '../support/harness'
+import { expectAnswerMatchesDocument } from '../support/api-document'
 import { makeCase, makeOffice, signIn, type Agent, type TestCase } from '../support/factories'
 import { FREE_SPACE_FIELD_ROWS } from '../fixtures/radio/propagation-free-space'
 import { queuedMails } from '../support/cases'
@@ -115,6 +116,7 @@ describe('proposing a structured finding', () => {
     const read = await sup.get(`/api/cases/${c.id}/findings`)
     expect(read.status).toBe(200)
     const parsed = findingsResponseSchema.parse(read.body)
+    expectAnswerMatchesDocument('GET', '/api/cases/:id/findings', read)
     expect(parsed.current!.sourcePosition).toEqual({ latDeg: 48.1021, lonDeg: -31.3504 })
     expect(parsed.current!.recommendedActionLabel).toEqual(expect.any(String))
     expect(parsed.current!.calculations).toHaveLength(1)

@@ -6,9 +6,10 @@
  * dashboard's figures.
  */
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
-import { caseFollowUpsResponseSchema, dueFollowUpsResponseSchema, followUpViewSchema } from '../../shared/schemas/follow-ups'
+import { caseFollowUpsResponseSchema, dueFollowUpsResponseSchema, followUpResponseSchema, followUpViewSchema } from '../../shared/schemas/follow-ups'
 import { localDay } from '../../shared/domain/follow-ups'
 import { createTestContext, type TestContext } from '../support/harness'
+import { expectAnswerMatchesDocument } from '../support/api-document'
 import { makeCase, makeOffice, makeUser, signIn } from '../support/factories'
 import { atLocal, closedWithDeadline, dayFromToday } from '../support/factories'
 import { listDueFollowUps } from '../../server/modules/follow-ups/follow-ups.service'
@@ -62,6 +63,8 @@ describe('adding a follow-up', () => {
     const ok = await inv.post(`/api/cases/${c.id}/follow-ups`).send({ dueOn: dayFromToday(2), expected: 'Send the replacement invoice' })
     expect(ok.status, JSON.stringify(ok.body)).toBe(201)
     expect(followUpViewSchema.parse(ok.body.followUp)).toMatchObject({ source: 'staff', state: 'open' })
+    // the whole answer is its view schema, nothing undeclared
+    expect(followUpResponseSchema.parse(ok.body)).toEqual(ok.body)
   })
 
   it('answers 404 for another office’s case and 403 to a complainant', async () => {
@@ -87,6 +90,7 @@ describe('follow-up moves', () => {
     const confirmed = await inv.post(`/api/follow-ups/${f.id}/confirm`).send({ version: f.version, note: 'Visited: new amplifier fitted, no emission measured.' })
     expect(confirmed.status, JSON.stringify(confirmed.body)).toBe(200)
     expect(confirmed.body.followUp).toMatchObject({ state: 'complied', standing: 'closed', version: f.version + 1 })
+    expectAnswerMatchesDocument('POST', '/api/follow-ups/:id/confirm', confirmed)
     const again = await inv.post(`/api/follow-ups/${f.id}/confirm`).send({ version: f.version + 1, note: 'Again' })
     expect(again.status).toBe(409)
     expect(again.body.error.code).toBe('invalid_transition')
@@ -100,6 +104,7 @@ describe('follow-up moves', () => {
     const reopened = await sup.post(`/api/follow-ups/${f.id}/reopen`).send({ version: f.version + 1, note: 'The neighbour reports the noise again.', dueOn: dayFromToday(3) })
     expect(reopened.status, JSON.stringify(reopened.body)).toBe(200)
     expect(reopened.body.followUp).toMatchObject({ state: 'open', dueOn: dayFromToday(3) })
+    expectAnswerMatchesDocument('POST', '/api/follow-ups/:id/reopen', reopened)
     const kinds = await timelineKinds(c.id)
     expect(kinds.filter((k) => k.startsWith('follow_up_'))).toEqual(['follow_up_added', 'follow_up_confirm', 'follow_up_reopen'])
   })

@@ -8,6 +8,7 @@ import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
 import pg from 'pg'
 import { responsiblePartyResponseSchema } from '../../shared/schemas/follow-ups'
 import { createTestContext, type TestContext } from '../support/harness'
+import { expectAnswerMatchesDocument } from '../support/api-document'
 import { makeCase, makeOffice, makeUser, signIn } from '../support/factories'
 import { dayFromToday } from '../support/factories'
 
@@ -34,6 +35,7 @@ describe('the responsible party', () => {
     const second = await inv.post(`/api/cases/${c.id}/responsible-party`).send({ name: 'Harbour Boat Club Ltd', email: 'secretary@boatclub.example' })
     expect(second.status).toBe(201)
     const body = responsiblePartyResponseSchema.parse(second.body)
+    expectAnswerMatchesDocument('POST', '/api/cases/:id/responsible-party', second)
     expect(body.current).toMatchObject({ version: 2, name: 'Harbour Boat Club Ltd', email: 'secretary@boatclub.example', address: null, recordedBy: c.investigator!.name })
     expect(body.earlier).toEqual([expect.objectContaining({ version: 1, name: 'Harbour boat club', address: '3 Quay Row, Harrowmere', phone: null })])
     expect(body.abilities.record).toBe(true)
@@ -64,12 +66,14 @@ describe('notices and replies', () => {
     const n = await inv.post(`/api/cases/${c.id}/notices`).send({ servedOn: dayFromToday(-1), method: 'registered_post', reference: 'RP 4471 0093', summary: 'Replace the amplifier within 7 days.' })
     expect(n.status, JSON.stringify(n.body)).toBe(201)
     const notice = responsiblePartyResponseSchema.parse(n.body).notices[0]!
+    expectAnswerMatchesDocument('POST', '/api/cases/:id/notices', n)
     expect(notice).toMatchObject({ servedOn: dayFromToday(-1), method: 'registered_post', methodLabel: 'Registered post', reference: 'RP 4471 0093', servedBy: c.investigator!.name, evidenceId: null })
     const other = await inv.post(`/api/cases/${c.id}/notices`).send({ servedOn: dayFromToday(0), method: 'other', methodOther: 'Left with the harbour master', servedBy: 'Officer K. Dunmore', summary: 'Second notice' })
     expect(other.status).toBe(201)
     const r = await inv.post(`/api/cases/${c.id}/party-replies`).send({ receivedOn: dayFromToday(0), noticeId: notice.id, summary: 'The owner has ordered a new amplifier.' })
     expect(r.status, JSON.stringify(r.body)).toBe(201)
     const body = responsiblePartyResponseSchema.parse(r.body)
+    expectAnswerMatchesDocument('POST', '/api/cases/:id/party-replies', r)
     expect(body.notices).toHaveLength(2)
     expect(body.replies).toEqual([expect.objectContaining({ noticeId: notice.id, summary: 'The owner has ordered a new amplifier.' })])
     const { rows } = await t.pool.query<{ kind: string; body: string }>(`SELECT kind, body FROM case_events WHERE case_id = $1 AND kind IN ('notice_served', 'party_reply') ORDER BY id`, [c.id])

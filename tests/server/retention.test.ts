@@ -20,9 +20,10 @@ import { addComplainantInformation } from '../../server/modules/cases/case-notes
 import { runRetention } from '../../server/modules/retention/retention.service'
 import { startRetentionWorker } from '../../server/modules/retention/retention-job'
 import { retentionEndsAt } from '../../shared/domain/retention'
-import { legalHoldViewSchema, retentionRunViewSchema, retentionSettingViewSchema } from '../../shared/schemas/retention'
+import { legalHoldViewSchema, retentionRunViewSchema, retentionSettingViewSchema, type RetentionPlanCase } from '../../shared/schemas/retention'
 import type { Office } from '../../server/db/schema'
 import { createTestContext, uniqueAddress, type TestContext } from '../support/harness'
+import { actionsOfPlan, recordedActions } from '../support/retention-actions'
 import { makeCase, makeOffice, makeUser, signIn, type Agent, type TestCase } from '../support/factories'
 import { closedWithDeadline, dayFromToday } from '../support/factories'
 
@@ -114,6 +115,7 @@ describe('the retention run', () => {
   let expired: Awaited<ReturnType<typeof closedCaseWithEvidence>>
   let held: Awaited<ReturnType<typeof closedCaseWithEvidence>>
   let young: Awaited<ReturnType<typeof closedCaseWithEvidence>>
+  let planned: RetentionPlanCase
   const runAt = after25Months()
 
   beforeAll(async () => {
@@ -144,8 +146,17 @@ describe('the retention run', () => {
     expect(dry.dryRun).toBe(true)
     expect(dry.cases.map((c) => c.caseId)).toEqual([expired.id])
     expect(dry.kept).toEqual([{ caseId: held.id, reference: held.reference, reason: 'legal_hold' }])
-    const planned = dry.cases[0]!
-    expect(planned.fields).toEqual(['complainantName', 'complainantEmail', 'complainantPhone', 'complainantOrganisation', 'description'])
+    planned = dry.cases[0]!
+    expect(planned.fields).toEqual(['complainantName', 'complainantEmail', 'complainantPhone', 'complainantOrganisation', 'address', 'description'])
+    expect(dry.pendingDisposals).toEqual([])
+    // the unsent e-mails about the case to the complainant (no mail worker runs here): the report's receipt and its closing
+    const { rows: queued } = await t.pool.query(`SELECT id::text AS id FROM pgboss.job WHERE name = $1 AND data->>'to' = $2 AND starts_with(data->>'subject', $3) ORDER BY created_on, id`, [
+      t.mailQueueName,
+      expired.email,
+      `[${expired.reference}]`,
+    ])
+    expect(queued.length).toBeGreaterThanOrEqual(2)
+    expect(planned.queuedMails.map((m) => m.jobId)).toEqual(queued.map((q) => q.id))
     expect(planned.evidence).toEqual([{ evidenceId: expect.any(String), objectKey: expired.objectKey, sha256: sha256(expired.bytes), thumbnailKey: thumbKey }])
     expect(planned.redactedEventIds.length).toBeGreaterThanOrEqual(1)
     // the dry run changed nothing
@@ -156,6 +167,7 @@ describe('the retention run', () => {
     expect(real.dryRun).toBe(false)
     expect(real.cases).toEqual(dry.cases)
     expect(real.kept).toEqual(dry.kept)
+    expect(real.pendingDisposals).toEqual([])
 
     // personal data: marker for name and contact, redacted copy of the free text
     const marker = `erased on ${runAt.toISOString().slice(0, 10)}`
@@ -184,12 +196,17 @@ describe('the retention run', () => {
     expect(download.status).toBe(410)
     expect(download.body.error.code).toBe('evidence_disposed')
 
-    // the record: one erasure and one disposal with the key and the bytes' SHA-256 (node:crypto over what was uploaded)
-    const { rows: actions } = await t.pool.query(`SELECT action, fields, object_key, sha256 FROM retention_actions WHERE case_id = $1 ORDER BY id`, [expired.id])
-    expect(actions).toEqual([
-      { action: 'personal_data_erased', fields: planned.fields, object_key: null, sha256: null },
-      { action: 'evidence_disposed', fields: null, object_key: expired.objectKey, sha256: sha256(expired.bytes) },
+    // the record: exactly the dry run's plan, each object's deletion 'pending' then 'done', the evidence row with the bytes' SHA-256 (node:crypto over what was uploaded)
+    expect(await recordedActions(t.pool, expired.id)).toEqual(actionsOfPlan(planned))
+    const { rows: disposals } = await t.pool.query(`SELECT action, stage, object_key, sha256 FROM retention_actions WHERE case_id = $1 AND stage IS NOT NULL ORDER BY id`, [expired.id])
+    expect(disposals).toEqual([
+      { action: 'evidence_disposed', stage: 'pending', object_key: expired.objectKey, sha256: sha256(expired.bytes) },
+      { action: 'thumbnail_disposed', stage: 'pending', object_key: thumbKey, sha256: null },
+      { action: 'evidence_disposed', stage: 'done', object_key: expired.objectKey, sha256: sha256(expired.bytes) },
+      { action: 'thumbnail_disposed', stage: 'done', object_key: thumbKey, sha256: null },
     ])
+    const { rows: stillQueued } = await t.pool.query(`SELECT count(*)::int AS n FROM pgboss.job WHERE name = $1 AND id::text = ANY($2)`, [t.mailQueueName, queued.map((q) => q.id)])
+    expect(stillQueued[0].n).toBe(0)
     const { rows: kinds } = await t.pool.query(`SELECT kind FROM case_events WHERE case_id = $1 ORDER BY id DESC LIMIT 2`, [expired.id])
     expect(kinds.map((k) => k.kind).sort()).toEqual(['evidence_disposed', 'personal_data_erased'])
     const { rows: audit } = await t.pool.query(`SELECT action, actor_user_id FROM audit_log WHERE target_id = $1`, [expired.id])
@@ -205,7 +222,7 @@ describe('the retention run', () => {
   it('does nothing new on a second run', async () => {
     const count = async () => (await t.pool.query(`SELECT count(*)::int AS n FROM retention_actions WHERE case_id = ANY($1)`, [[expired.id, held.id, young.id]])).rows[0].n
     const n = await count()
-    expect(n).toBe(2)
+    expect(n).toBe(actionsOfPlan(planned).length)
     const before = await snapshot(expired.id)
     const again = await runRetention(t.services, { now: runAt, dryRun: false, officeIds: [officeA.id, officeB.id] })
     expect(again.cases).toEqual([])

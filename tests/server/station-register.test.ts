@@ -31,6 +31,7 @@ import {
 import { calculationResponseSchema } from '../../shared/schemas/views'
 import { candidateSourcesOutputSchema } from '../../shared/calculations/kinds'
 import { createTestContext, type TestContext } from '../support/harness'
+import { expectAnswerMatchesDocument } from '../support/api-document'
 import { makeCase, makeOffice, makeUser, signIn, type Agent, type TestCase } from '../support/factories'
 
 let fake: S3Fake
@@ -116,6 +117,7 @@ describe('importing the register', () => {
     const res = await upload(admin, FIRST).expect(201)
     const { inspection } = csvInspectionResponseSchema.parse(res.body)
     fileId = inspection.file.id
+    expectAnswerMatchesDocument('POST', '/api/station-register/uploads', res)
     expect(inspection.delimiter).toBe('semicolon')
     expect(inspection.delimiterDetected).toBe(true)
     expect(inspection.headers).toHaveLength(9)
@@ -133,6 +135,7 @@ describe('importing the register', () => {
   it('previews every row with the mapping: rejected rows by line with every problem in them', async () => {
     const res = await admin.post(`/api/station-register/uploads/${fileId}/preview`).send({ delimiter: 'semicolon', mapping: FIRST_MAPPING }).expect(200)
     const { report } = importPreviewResponseSchema.parse(res.body)
+    expectAnswerMatchesDocument('POST', '/api/station-register/uploads/:id/preview', res)
     expect(report).toMatchObject({ rowCount: 4, acceptedCount: 2, rejectedCount: 2 })
     expect(report.rejected.map((r) => r.line)).toEqual([4, 5])
     const [line4, line5] = report.rejected
@@ -163,6 +166,7 @@ describe('importing the register', () => {
     const { rows: before } = await t.pool.query('SELECT coalesce(max(version), 0)::int AS v FROM station_register_versions')
     const res = await admin.post(`/api/station-register/uploads/${fileId}/confirm`).send({ delimiter: 'semicolon', mapping: FIRST_MAPPING }).expect(201)
     const { version, report } = importConfirmResponseSchema.parse(res.body)
+    expectAnswerMatchesDocument('POST', '/api/station-register/uploads/:id/confirm', res)
     expect(version).toMatchObject({ version: before[0].v + 1, acceptedCount: 2, rejectedCount: 2, fileId, fileName: 'register.csv', sha256: sha256(FIRST), current: true, delimiter: 'semicolon', mapping: FIRST_MAPPING })
     expect(report.rejected.map((r) => r.line)).toEqual([4, 5])
     // the import is in the audit log, with its file and counts, in the same transaction (the list itself: audit.test.ts)
@@ -264,6 +268,11 @@ describe('importing the register', () => {
     expect(quote.body.error.code).toBe('not_csv')
     const notMultipart = await admin.post('/api/station-register/uploads').send({ file: 'x' }).expect(400)
     expect(notMultipart.body.error.code).toBe('not_multipart')
+    // the form's delimiter field is read with its schema (registerUploadFieldsSchema): one of the list, or absent to detect it
+    const badDelimiter = await upload(admin, FIRST).field('delimiter', 'pipe').expect(400)
+    expect(badDelimiter.body.error).toMatchObject({ code: 'validation_failed', details: [{ path: 'delimiter', message: 'Choose the delimiter: comma, semicolon, tab or vertical bar.' }] })
+    const chosen = csvInspectionResponseSchema.parse((await upload(admin, FIRST).field('delimiter', 'semicolon').expect(201)).body)
+    expect(chosen.inspection).toMatchObject({ delimiter: 'semicolon', delimiterDetected: false })
   })
 
   it('refuses a file larger than the configured size (413) and keeps no row and no object for it', async () => {

@@ -32,6 +32,7 @@ import { findingsResponseSchema } from '../../shared/schemas/findings'
 import { caseFollowUpsResponseSchema, dueFollowUpsResponseSchema, followUpViewSchema, myEmailsResponseSchema, responsiblePartyResponseSchema } from '../../shared/schemas/follow-ups'
 import { auditPageSchema } from '../../shared/schemas/audit'
 import { personChangedResponseSchema, trackingLinksRevokedResponseSchema } from '../../shared/schemas/people'
+import { expectAnswerFitsItsRoute } from '../support/api-document'
 
 let t: TestContext
 let office: Office
@@ -63,6 +64,8 @@ function expectFits(schema: z.ZodType, res: request.Response, status = 200): voi
   const parsed = schema.safeParse(res.body)
   expect(parsed.success, parsed.success ? '' : z.prettifyError(parsed.error)).toBe(true)
   expect(parsed.data, 'the answer holds only what its schema declares').toEqual(res.body)
+  // and the API document (GET /api/openapi.json) says the same of it
+  expectAnswerFitsItsRoute(res)
 }
 
 describe('the answers of the API fit their view schemas', () => {

@@ -3,7 +3,7 @@
  * their name but keeps the technical facts; the end of a period and the months a follow-up needs.
  */
 import { describe, expect, it } from 'vitest'
-import { erasureMarker, monthsNeededFor, redactComplainantText, retentionEndsAt } from '../../shared/domain/retention'
+import { coarsenDeg, erasedFileName, erasureMarker, monthsNeededFor, redactComplainantText, retentionEndsAt } from '../../shared/domain/retention'
 
 describe('redactComplainantText', () => {
   const who = { name: 'Ines Marlow', email: 'ines@example.test', phone: '+44 20 7946 0958', organisation: null }
@@ -15,8 +15,29 @@ describe('redactComplainantText', () => {
     const text = 'Hum at 433.92 MHz, −61.5 dBm, since 2026-11-20 after 21:00; 3 houses affected.'
     expect(redactComplainantText(text, who)).toBe(text)
   })
+  it('keeps case references, which are not phone numbers', () => {
+    expect(redactComplainantText('Same as QB-26-000123; call 0161 496 0000 or tel-0161 496 0001.', who)).toBe('Same as QB-26-000123; call [number removed] or tel-[number removed].')
+  })
   it('does not mask a name inside another word', () => {
     expect(redactComplainantText('Inesbridge road', who)).toBe('Inesbridge road')
+  })
+  it('masks the case’s address as written, before its words are looked at', () => {
+    expect(redactComplainantText('Loud hum at 7 Marlow Row, Harrowmere, 2 m from the mast.', { ...who, address: '7 Marlow Row, Harrowmere' })).toBe('Loud hum at [address removed], 2 m from the mast.')
+  })
+})
+
+describe('what erasure leaves of a file name and a position', () => {
+  const sha = '3f9a0c1b2d4e5f60718293a4b5c6d7e8f90a1b2c3d4e5f60718293a4b5c6d7e8'
+  it('names an erased file by its SHA-256 prefix, keeping only a known file type', () => {
+    expect(erasedFileName('Ines Marlow readings.CSV', sha)).toBe('erased-3f9a0c1b2d4e.csv')
+    expect(erasedFileName('capture.sigmf-data', sha)).toBe('erased-3f9a0c1b2d4e.sigmf-data')
+    // an "extension" that could be a word a person chose goes too
+    expect(erasedFileName('Letter.Marlow', sha)).toBe('erased-3f9a0c1b2d4e')
+    expect(erasedFileName('.bashrc', sha)).toBe('erased-3f9a0c1b2d4e')
+    expect(erasedFileName('no extension', sha)).toBe('erased-3f9a0c1b2d4e')
+  })
+  it('rounds a position to 0.01° (two decimals, as toFixed writes them)', () => {
+    for (const deg of [52.40765, -1.51234, 0.004, -0.006, 179.999, -89.99501, 12.345678]) expect(coarsenDeg(deg), String(deg)).toBe(Number(deg.toFixed(2)))
   })
 })
 

@@ -83,7 +83,7 @@ function serveSettings(canSet: boolean) {
       abilities: { ...NO_ACCOUNT_ABILITIES, runOfficeQueue: true, readCases: true, readDashboard: true },
     }),
   )
-  answer('get', '/api/offices', officesResponse([office({ abilities: { setResponseTargets: true } })]))
+  answer('get', '/api/offices', officesResponse([office({ abilities: { setResponseTargets: true, edit: true } })]))
   answer('get', '/api/offices/:id/retention', retentionSettingResponse({ abilities: { set: canSet } }))
 }
 const openSettings = () => renderPage({ url: paths.officeSettings.href(), routes: [{ path: paths.officeSettings.path, Component: OfficeSettingsPage }] })
@@ -154,9 +154,15 @@ describe('the dry run for administrators', () => {
               fields: ['complainantEmail', 'complainantName', 'description'],
               redactedEventIds: [41, 42],
               evidence: [{ evidenceId: '6a1b2c3d-4e5f-4a6b-8c7d-9e0f1a2b3c4d', objectKey: 'evidence/x', sha256: 'a'.repeat(64), thumbnailKey: null }],
+              mergeEventIds: [57],
+              coarsePosition: { latDeg: 52.41, lonDeg: -1.52 },
+              fileNames: [{ evidenceId: '6a1b2c3d-4e5f-4a6b-8c7d-9e0f1a2b3c4d', storedFileId: '8c3d4e5f-6a7b-4c8d-9e0f-1a2b3c4d5e6f', name: `erased-${'a'.repeat(12)}.csv` }],
+              queuedMails: [],
+              account: { outcome: 'kept', userId: '9d4e5f6a-7b8c-4d9e-8f1a-2b3c4d5e6f7a', reason: 'other_cases', otherCases: 2 },
             },
           ],
           kept: [{ caseId: '7b2c3d4e-5f6a-4b7c-8d9e-0f1a2b3c4d5e', reference: 'QB-26-000124', reason: 'legal_hold' }],
+          pendingDisposals: [],
         },
       }),
     )
@@ -165,7 +171,7 @@ describe('the dry run for administrators', () => {
     expect(sent).toHaveLength(0)
     await user.click(button)
     const list = await screen.findByRole('list', { name: 'Cases the run would erase' })
-    expect(list).toHaveTextContent('QB-26-000123 (period ended 2028-12-01): name, e-mail, description (redacted copy); 2 timeline entries redacted; 1 evidence file deleted')
+    expect(list).toHaveTextContent('QB-26-000123 (period ended 2028-12-01): name, e-mail, description (redacted copy); 2 timeline entries redacted; 1 evidence file deleted; 1 file name replaced; 1 merge entry of other cases redacted; account kept: has 2 other cases')
     expect(screen.getByText(/Kept: QB-26-000124 \(legal hold\)\./)).toBeInTheDocument()
     expect(sent).toHaveLength(1)
   })

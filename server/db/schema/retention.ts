@@ -1,6 +1,6 @@
 import { sql } from 'drizzle-orm'
 import { bigserial, check, date, index, jsonb, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core'
-import { LEGAL_HOLD_ACTIONS, RETENTION_ACTIONS, type ErasedCaseField } from '../../../shared/domain/retention'
+import { DISPOSAL_ACTIONS, DISPOSAL_STAGES, LEGAL_HOLD_ACTIONS, RETENTION_ACTIONS, type ErasedCaseField, type RetentionActionDetails } from '../../../shared/domain/retention'
 import { cases } from './cases'
 import { evidenceFiles } from './evidence'
 import { sqlList } from './sql-list'
@@ -32,8 +32,12 @@ export const legalHoldEvents = pgTable(
 export type LegalHoldEventRow = typeof legalHoldEvents.$inferSelect
 
 /**
- * What the retention run erased or disposed of: one row per case erased and per evidence object
- * deleted (its key and SHA-256 kept as the record of what went). Append-only.
+ * What the retention run erased or disposed of: one row per case erased, per kind of related
+ * erasure (merge entries, position, file names, queued e-mails, account) and per object deleted
+ * from the store (its key, and for an evidence file its SHA-256, kept as the record of what
+ * went). An object's deletion is recorded twice: 'pending' in the transaction that decides it,
+ * 'done' after the store has deleted it (rows from before stages existed have none: they were
+ * written after the deletion). Append-only.
  */
 export const retentionActions = pgTable(
   'retention_actions',
@@ -49,14 +53,24 @@ export const retentionActions = pgTable(
     evidenceId: uuid('evidence_id').references(() => evidenceFiles.id),
     objectKey: text('object_key'),
     sha256: text('sha256'),
+    /** An object's deletion: 'pending' (decided and committed) or 'done' (gone from the store). */
+    stage: text('stage', { enum: DISPOSAL_STAGES }),
+    /** What the other kinds erased (see RetentionActionDetails). */
+    details: jsonb('details').$type<RetentionActionDetails>(),
   },
   (t) => [
     check('retention_actions_action_valid', sql`${t.action} in ${sqlList(RETENTION_ACTIONS)}`),
     check(
       'retention_actions_complete',
-      sql`(${t.action} = 'personal_data_erased' and ${t.fields} is not null and ${t.evidenceId} is null) or (${t.action} = 'evidence_disposed' and ${t.evidenceId} is not null and ${t.objectKey} is not null and ${t.sha256} ~ '^[0-9a-f]{64}$')`,
+      sql`(${t.action} = 'personal_data_erased' and ${t.fields} is not null and ${t.evidenceId} is null)
+        or (${t.action} = 'evidence_disposed' and ${t.evidenceId} is not null and ${t.objectKey} is not null and ${t.sha256} ~ '^[0-9a-f]{64}$')
+        or (${t.action} = 'thumbnail_disposed' and ${t.evidenceId} is not null and ${t.objectKey} is not null and ${t.stage} is not null)
+        or (${t.action} = 'merge_entries_redacted' and ${t.redactedEventIds} is not null)
+        or (${t.action} in ('location_coarsened', 'file_names_erased', 'queued_mail_cancelled', 'account_deactivated') and ${t.details} is not null)`,
     ),
+    check('retention_actions_stage_valid', sql`${t.stage} is null or (${t.stage} in ${sqlList(DISPOSAL_STAGES)} and ${t.action} in ${sqlList(DISPOSAL_ACTIONS)})`),
     index('retention_actions_case_idx').on(t.caseId, t.id),
+    index('retention_actions_object_idx').on(t.objectKey),
   ],
 )
 export type RetentionActionRow = typeof retentionActions.$inferSelect

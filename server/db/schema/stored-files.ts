@@ -7,7 +7,10 @@ import { users } from './users'
 /**
  * Files kept in the object store (server/storage/stored-files.ts). A row is written only after
  * its object is stored; an object key is never used twice. Append-only (make_append_only in
- * the migration): what was stored, by whom and when is a record.
+ * the migration): what was stored, by whom and when is a record. One exception, for retention:
+ * the retention run replaces an evidence file's original name (which can name a person) by
+ * `erased-<sha256 prefix>.<ext>`, once, through the SECURITY DEFINER function
+ * quietband_erase_stored_file_name (its migration); the app role still has no UPDATE.
  */
 export const storedFiles = pgTable(
   'stored_files',
@@ -26,6 +29,8 @@ export const storedFiles = pgTable(
     /** The staff member or signed-in person; null for a complainant using a case's tracking link. */
     uploadedBy: uuid('uploaded_by').references(() => users.id),
     uploadedAt: timestamp('uploaded_at', { withTimezone: true }).notNull().defaultNow(),
+    /** When the retention run replaced original_name by a marker (modules/retention). */
+    nameErasedAt: timestamp('name_erased_at', { withTimezone: true }),
   },
   (t) => [
     check('stored_files_sha256_hex', sql`${t.sha256} ~ '^[0-9a-f]{64}$'`),

@@ -27,6 +27,7 @@ import { nearbyOpenCases } from './nearby-cases.service'
 import { revokeTrackingLinks } from './tracking-links.service'
 import { revokeTrackingLinksSchema } from '../../../shared/schemas/people'
 import type { Actor } from '../../policy/policy'
+import type { CaseMoveResponse } from '../../../shared/schemas/views'
 
 
 /** Staff routes: the case list, the case page, and one route per move. */
@@ -79,7 +80,8 @@ export function casesRoutes(ctx: ServiceContext): Router {
         if (e instanceof HttpError && e.status === 404) return null
         throw e
       })
-      res.json({ case: detail })
+      const body: CaseMoveResponse = { case: detail }
+      res.json(body)
     })
   }
   move('triage', triageSchema, (a, id, i) => moves.triageCase(ctx, a, id, i))

@@ -1,6 +1,5 @@
 import { Router } from 'express'
-import { z } from 'zod'
-import { complainantInfoSchema, reportSchema, withdrawSchema } from '../../../shared/schemas/cases'
+import { complainantInfoSchema, reportSchema, trackingTokenParamSchema, withdrawSchema } from '../../../shared/schemas/cases'
 import type { ServiceContext } from '../../context'
 import { actorOf, requireRole } from '../../http/authenticate'
 import { HttpError } from '../../http/errors'
@@ -15,7 +14,7 @@ import { submitReport } from './reports.service'
 import { caseIdForToken } from './tracking-tokens'
 import type { TrackingLinkHolder } from '../../policy/case-policy'
 
-const tokenParam = z.object({ token: z.string() })
+const tokenParam = trackingTokenParamSchema
 
 /** Reports per address per hour before the form refuses (abuse limit; common practice, no source). */
 export const REPORTS_PER_HOUR_PER_ADDRESS = 10

@@ -1,8 +1,8 @@
 /** Evidence files on a case: HTTP only (the service decides, the policy says who may). */
 import { pipeline } from 'node:stream/promises'
 import { Router, type Request, type Response } from 'express'
-import { z } from 'zod'
 import { idParamSchema } from '../../../shared/schemas/ids'
+import { trackingTokenParamSchema } from '../../../shared/schemas/cases'
 import type { ServiceContext } from '../../context'
 import { actorOf, requireRole } from '../../http/authenticate'
 import { HttpError } from '../../http/errors'
@@ -14,8 +14,6 @@ import { trackingGuessLimit } from '../cases/public.routes'
 import { downloadEvidence, downloadSharedEvidence, evidenceCustodyLog, evidenceNotFound, listEvidence, removeEvidence, shareEvidence, uploadEvidence, verifyEvidence, type EvidenceDownload } from './evidence.service'
 import { attachmentDisposition } from './file-names'
 import { openEvidenceThumbnail } from './thumbnails/thumbnail.service'
-
-const tokenParam = z.object({ token: z.string() })
 
 /** The evidence id of a route's path; anything but a uuid is no such file (404). */
 function evidenceIdOf(params: unknown): string {
@@ -59,17 +57,17 @@ export function evidenceRoutes(ctx: ServiceContext): Router {
     return { role: 'tracking_link', caseId }
   }
   r.post('/track/:token/evidence', guessLimit, async (req, res) => {
-    const h = await holder(parseWith(tokenParam, req.params).token)
+    const h = await holder(parseWith(trackingTokenParamSchema, req.params).token)
     const evidence = await uploadEvidence(ctx, h, h.caseId, req, res, from(req))
     res.status(201).json({ evidence })
   })
   r.get('/track/:token/evidence', guessLimit, async (req, res) => {
-    const h = await holder(parseWith(tokenParam, req.params).token)
+    const h = await holder(parseWith(trackingTokenParamSchema, req.params).token)
     res.json({ evidence: await listEvidence(ctx, h, h.caseId) })
   })
   // a file the office shared with the complainant (each download is a custody entry)
   r.get('/track/:token/evidence/:evidenceId/download', guessLimit, async (req, res) => {
-    const h = await holder(parseWith(tokenParam, { token: req.params.token }).token)
+    const h = await holder(parseWith(trackingTokenParamSchema, { token: req.params.token }).token)
     await sendDownload(res, await downloadSharedEvidence(ctx, h, h.caseId, evidenceIdOf({ id: req.params.evidenceId }), from(req)))
   })
   r.get('/my/reports/:id/evidence/:evidenceId/download', complainant, async (req, res) => {

@@ -28,7 +28,9 @@ export async function startRetentionWorker(
     if (!job) return
     try {
       const run = await runRetention(ctx, { now: now(), dryRun: false, officeIds: opts.officeIds })
-      if (run.cases.length > 0) log().info(`retention run: ${run.cases.length} case(s) erased or disposed of, ${run.kept.length} kept`)
+      if (run.cases.length > 0 || run.pendingDisposals.length > 0) {
+        log().info(`retention run: ${run.cases.length} case(s) erased or disposed of, ${run.kept.length} kept, ${run.pendingDisposals.length} earlier deletion(s) finished`)
+      }
     } catch (err) {
       log().error({ err, jobId: job.id }, 'retention run failed')
     } finally {

@@ -4,7 +4,8 @@
  * of (db, explicit arguments); no authorization here.
  */
 import { and, asc, desc, eq, inArray, isNotNull, isNull, or, sql } from 'drizzle-orm'
-import type { ErasedCaseField, LegalHoldAction } from '../../../shared/domain/retention'
+import type { DisposalAction, DisposalStage, ErasedCaseField, LegalHoldAction, RetentionActionDetails } from '../../../shared/domain/retention'
+import type { Role } from '../../../shared/domain/roles'
 import type { Db } from '../../db/client'
 import { caseEvents, cases, evidenceFiles, evidenceThumbnails, followUps, legalHoldEvents, offices, retentionActions, storedFiles, users, type CaseRow } from '../../db/schema'
 
@@ -38,11 +39,11 @@ export function openFollowUpsOfClosedCases(db: Db, officeId: string): Promise<{ 
  * office's months, PostgreSQL's calendar-month arithmetic) and that still hold personal data or
  * an evidence object not yet disposed of.
  */
-export function expiredCases(db: Db, now: Date, scope: { officeIds: readonly string[] } | { all: true }): Promise<{ c: CaseRow; retentionEndedAt: Date }[]> {
+export function expiredCases(db: Db, now: Date, scope: { officeIds: readonly string[] } | { all: true }): Promise<{ c: CaseRow; retentionEndedAt: Date; retentionMonths: number }[]> {
   // calendar months in UTC, whatever the session's time zone (the same as retentionEndsAt in shared/domain/retention.ts)
   const endsAt = sql`(${cases.closedAt} at time zone 'UTC' + make_interval(months => ${offices.retentionMonths})) at time zone 'UTC'`
   return db
-    .select({ c: cases, retentionEndedAt: sql<Date>`${endsAt}`.mapWith(cases.closedAt) })
+    .select({ c: cases, retentionEndedAt: sql<Date>`${endsAt}`.mapWith(cases.closedAt), retentionMonths: offices.retentionMonths })
     .from(cases)
     .innerJoin(offices, eq(offices.id, cases.officeId))
     .where(
@@ -88,7 +89,12 @@ export function evidenceNotDisposed(db: Db, caseId: string): Promise<{ evidenceI
     .orderBy(asc(evidenceFiles.uploadedAt), asc(evidenceFiles.id))
 }
 
-export async function erasePersonalData(db: Db, caseId: string, changes: Pick<CaseRow, 'complainantName' | 'complainantEmail' | 'complainantPhone' | 'complainantOrganisation' | 'description' | 'patternDetail'>, at: Date): Promise<void> {
+export async function erasePersonalData(
+  db: Db,
+  caseId: string,
+  changes: Pick<CaseRow, 'complainantName' | 'complainantEmail' | 'complainantPhone' | 'complainantOrganisation' | 'address' | 'latDeg' | 'lonDeg' | 'description' | 'patternDetail'>,
+  at: Date,
+): Promise<void> {
   await db
     .update(cases)
     .set({ ...changes, complainantUserId: null, personalDataErasedAt: at, updatedAt: at, version: sql`${cases.version} + 1` })
@@ -115,11 +121,123 @@ export async function markThumbnailsDisposed(db: Db, evidenceIds: string[]): Pro
     .where(inArray(evidenceThumbnails.evidenceId, evidenceIds))
 }
 
-export async function insertRetentionAction(
-  db: Db,
-  a: { caseId: string; action: 'personal_data_erased'; fields: ErasedCaseField[]; redactedEventIds: number[] } | { caseId: string; action: 'evidence_disposed'; evidenceId: string; objectKey: string; sha256: string },
-): Promise<void> {
+export type NewRetentionAction =
+  | { caseId: string; action: 'personal_data_erased'; fields: ErasedCaseField[]; redactedEventIds: number[] }
+  | { caseId: string; action: 'merge_entries_redacted'; redactedEventIds: number[] }
+  | { caseId: string; action: 'evidence_disposed'; evidenceId: string; objectKey: string; sha256: string; stage: DisposalStage }
+  | { caseId: string; action: 'thumbnail_disposed'; evidenceId: string; objectKey: string; stage: DisposalStage }
+  | { caseId: string; action: 'location_coarsened' | 'file_names_erased' | 'queued_mail_cancelled' | 'account_deactivated'; details: RetentionActionDetails }
+
+export async function insertRetentionAction(db: Db, a: NewRetentionAction): Promise<void> {
   await db.insert(retentionActions).values(a)
+}
+
+/**
+ * Object deletions recorded 'pending' with no 'done' row for the same object yet (a run that
+ * stopped between its commit and the store), oldest first; only cases of the given offices.
+ */
+export function pendingDisposals(
+  db: Db,
+  scope: { officeIds: readonly string[] } | { all: true },
+): Promise<{ caseId: string; action: DisposalAction; evidenceId: string; objectKey: string; sha256: string | null }[]> {
+  const done = sql`exists (select 1 from ${retentionActions} d where d.action = ${retentionActions.action} and d.object_key = ${retentionActions.objectKey} and d.stage = 'done')`
+  return db
+    .select({ caseId: retentionActions.caseId, action: sql<DisposalAction>`${retentionActions.action}`, evidenceId: sql<string>`${retentionActions.evidenceId}`, objectKey: sql<string>`${retentionActions.objectKey}`, sha256: retentionActions.sha256 })
+    .from(retentionActions)
+    .innerJoin(cases, eq(cases.id, retentionActions.caseId))
+    .where(and(eq(retentionActions.stage, 'pending'), 'all' in scope ? undefined : inArray(cases.officeId, [...scope.officeIds]), sql`not ${done}`))
+    .orderBy(asc(retentionActions.id))
+}
+
+/** Timeline entries of other cases that a merge wrote about this case (they quote its complainant), not yet redacted. */
+export function mergeEntriesAbout(db: Db, caseId: string): Promise<{ id: number; caseId: string; body: string }[]> {
+  return db
+    .select({ id: caseEvents.id, caseId: caseEvents.caseId, body: sql<string>`${caseEvents.body}` })
+    .from(caseEvents)
+    .where(
+      and(
+        sql`${caseEvents.caseId} <> ${caseId}`,
+        eq(caseEvents.kind, 'merged_in'),
+        sql`${caseEvents.data}->>'fromCaseId' = ${caseId}`,
+        isNotNull(caseEvents.body),
+        isNull(caseEvents.redactedAt),
+      ),
+    )
+    .orderBy(asc(caseEvents.id))
+}
+
+/** Every evidence file of the case with its stored file's name not yet erased, and the name it shows. */
+export function evidenceNamesOf(db: Db, caseId: string): Promise<{ evidenceId: string; storedFileId: string; originalName: string; displayName: string; sha256: string; nameErased: boolean }[]> {
+  return db
+    .select({
+      evidenceId: evidenceFiles.id,
+      storedFileId: storedFiles.id,
+      originalName: storedFiles.originalName,
+      displayName: evidenceFiles.displayName,
+      sha256: storedFiles.sha256,
+      nameErased: sql<boolean>`${storedFiles.nameErasedAt} is not null`,
+    })
+    .from(evidenceFiles)
+    .innerJoin(storedFiles, eq(storedFiles.id, evidenceFiles.storedFileId))
+    .where(eq(evidenceFiles.caseId, caseId))
+    .orderBy(asc(evidenceFiles.uploadedAt), asc(evidenceFiles.id))
+}
+
+/** Replaces a stored file's original name by its marker (the one change stored_files allows; see the migration). */
+export async function eraseStoredFileName(db: Db, storedFileId: string, name: string): Promise<boolean> {
+  const r = await db.execute<{ changed: boolean }>(sql`select quietband_erase_stored_file_name(${storedFileId}, ${name}) as changed`)
+  return r.rows[0]?.changed === true
+}
+
+/** The evidence row's shown and submitted names (an ordinary, updatable row). */
+export async function eraseEvidenceNames(db: Db, evidenceId: string, name: string): Promise<void> {
+  await db.update(evidenceFiles).set({ displayName: name, submittedNameJson: JSON.stringify(name) }).where(eq(evidenceFiles.id, evidenceId))
+}
+
+const uuidList = (ids: readonly string[]) => sql.join(ids.map((id) => sql`${id}::uuid`), sql`, `)
+
+/**
+ * E-mails about a case still waiting in the mail queue (not yet being sent) to an address: every
+ * case mail's subject starts with "[<reference>]" (server/mail/case-templates.ts).
+ */
+export async function queuedCaseMails(db: Db, queue: string, to: string, reference: string): Promise<{ jobId: string; subject: string }[]> {
+  const r = await db.execute<{ id: string; subject: string }>(sql`
+    select id::text as id, data->>'subject' as subject from pgboss.job
+    where name = ${queue} and state::text in ('created', 'retry')
+      and lower(data->>'to') = lower(${to}) and starts_with(data->>'subject', ${`[${reference}]`})
+    order by created_on, id`)
+  return r.rows.map((x) => ({ jobId: x.id, subject: x.subject }))
+}
+
+/**
+ * Cancels the given jobs if they are still waiting, then deletes them (the queue's guard lets the
+ * application delete a cancelled job, so the message's text leaves the database); the ids done.
+ */
+export async function cancelAndDeleteJobs(db: Db, queue: string, jobIds: string[]): Promise<string[]> {
+  if (jobIds.length === 0) return []
+  const cancelled = await db.execute<{ id: string }>(sql`
+    update pgboss.job set state = 'cancelled', completed_on = now()
+    where name = ${queue} and id in (${uuidList(jobIds)}) and state::text in ('created', 'retry')
+    returning id::text as id`)
+  const ids = cancelled.rows.map((r) => r.id)
+  if (ids.length > 0) await db.execute(sql`delete from pgboss.job where name = ${queue} and id in (${uuidList(ids)}) and state::text = 'cancelled'`)
+  return ids
+}
+
+/** The complainant's account as the run needs it. */
+export async function findAccount(db: Db, userId: string): Promise<{ id: string; role: Role; active: boolean; email: string; lastSignedInAt: Date | null } | undefined> {
+  const [u] = await db.select({ id: users.id, role: users.role, active: users.active, email: users.email, lastSignedInAt: users.lastSignedInAt }).from(users).where(eq(users.id, userId))
+  return u
+}
+
+/** How many cases, other than these, still name the account as their complainant (erased cases are unlinked). */
+export function linkedCaseCount(db: Db, userId: string, except: readonly string[]): Promise<number> {
+  return db.$count(cases, and(eq(cases.complainantUserId, userId), except.length > 0 ? sql`${cases.id} not in (${uuidList(except)})` : undefined))
+}
+
+/** Deactivates a complainant's account and replaces its name and e-mail by markers (the row stays: the audit log points at it). */
+export async function eraseAccount(db: Db, userId: string, values: { name: string; email: string }): Promise<void> {
+  await db.update(users).set({ ...values, active: false, passwordHash: null }).where(eq(users.id, userId))
 }
 
 export function retentionActionsOf(db: Db, caseId: string) {

@@ -2,22 +2,33 @@
  * The retention run and an office's retention period.
  *
  * When a closed case's office period has ended (closing time + the office's months), the run
- * erases its complainant's personal data — name, e-mail, phone and organisation become the marker
- * "erased on <date>"; the description, the pattern detail and the text of timeline entries become
- * a redacted copy (shared/domain/retention.ts: e-mail and web addresses, phone-like numbers and
- * the complainant's own name masked) — and deletes its evidence objects (and their thumbnails) from the
- * store, keeping the evidence rows marked disposed. A case under a legal hold, or with an open follow-up, is
- * left untouched. Every erasure and every deleted object (its key and SHA-256) is recorded in
- * retention_actions, and each case's erasure in the audit log, in the same transaction.
+ * erases its complainant's personal data — name, e-mail, phone, organisation and the address
+ * they wrote become the marker "erased on <date>", the position is rounded to 0.01°; the
+ * description, the pattern detail and the text of timeline entries become a redacted copy
+ * (shared/domain/retention.ts: addresses, e-mail and web addresses, phone-like numbers and the
+ * complainant's own name masked; evidence file names replaced by their marker) — and with it the
+ * merge entries other cases' timelines hold about the complainant, the names of its evidence
+ * files (`erased-<sha256 prefix>.<ext>`), the unsent e-mails about the case to the complainant,
+ * and the complainant's account when no other case and no recent sign-in keeps it (deactivated,
+ * name and e-mail replaced, sessions ended). It deletes the case's evidence objects and their
+ * thumbnails from the store, keeping the evidence rows marked disposed. A case under a legal
+ * hold, or with an open follow-up, is left untouched. Every erasure is recorded in
+ * retention_actions and each case's erasure in the audit log, in one transaction; each object
+ * deletion is recorded 'pending' in that transaction and 'done' after the store deleted it.
  *
  * runRetention(ctx, { now, dryRun }) answers exactly what it erases and disposes of; a dry run
  * computes the same plan with the same code and changes nothing.
  */
 import {
+  coarsenDeg,
   ERASED_CASE_FIELDS,
+  ERASED_POSITION_STEP_DEG,
+  erasedFileName,
   erasureMarker,
   monthsNeededFor,
   redactComplainantText,
+  retentionEndsAt,
+  type DisposalAction,
   type ErasedCaseField,
 } from '../../../shared/domain/retention'
 import type { RetentionPlanCase, RetentionRunView, RetentionSettingView } from '../../../shared/schemas/retention'
@@ -27,24 +38,37 @@ import type { CaseRow } from '../../db/schema'
 import { badRequest, forbidden, notFound } from '../../http/errors'
 import type { Actor } from '../../policy/policy'
 import { mayPreviewRetention, mayReadRetention, maySetRetention } from '../../policy/retention-policy'
+import { MAIL_QUEUE } from '../../jobs/boss'
+import { log } from '../../log/logger'
 import { requireStore } from '../../storage/stored-files'
 import { recordAudit } from '../audit/audit.repo'
 import { appendEvent } from '../cases/cases.repo'
+import { endSessionsOfUser } from '../users/people.repo'
 import { disposeObject } from './dispose-object'
 import { holdInForce } from './legal-hold.service'
 import {
+  cancelAndDeleteJobs,
+  eraseAccount,
+  eraseEvidenceNames,
   erasePersonalData,
+  eraseStoredFileName,
+  evidenceNamesOf,
   evidenceNotDisposed,
   expiredCases,
+  findAccount,
   findOfficeRetention,
   insertRetentionAction,
   latestLegalHolds,
+  linkedCaseCount,
   lockCaseForRetention,
   lockOfficeRetention,
   markEvidenceDisposed,
   markThumbnailsDisposed,
+  mergeEntriesAbout,
   openFollowUpCount,
   openFollowUpsOfClosedCases,
+  pendingDisposals,
+  queuedCaseMails,
   redactEvent,
   setOfficeRetentionMonths,
   timelineWithText,
@@ -99,60 +123,186 @@ export async function setRetentionSetting(ctx: ServiceContext, actor: Actor, off
 }
 
 type Kept = RetentionRunView['kept'][number]
+type Disposal = { caseId: string; action: DisposalAction; evidenceId: string; objectKey: string; sha256: string | null }
+type Identity = Parameters<typeof redactComplainantText>[1]
+
+/**
+ * The redacted copy of a case's text: each evidence file's shown name becomes its marker (the
+ * text between the names is redacted, so a marker's hex digits are never taken for a number).
+ */
+function redactCaseText(text: string, identity: Identity, names: readonly { displayName: string; name: string }[]): string {
+  const quoted = names.filter((n) => n.displayName.length > 0)
+  if (quoted.length === 0) return redactComplainantText(text, identity)
+  const byName = new Map(quoted.map((n) => [n.displayName, n.name]))
+  const pattern = new RegExp(`(${[...byName.keys()].sort((a, b) => b.length - a.length).map(escapeRegExp).join('|')})`)
+  return text
+    .split(pattern)
+    .map((piece, i) => (i % 2 === 1 ? byName.get(piece)! : redactComplainantText(piece, identity)))
+    .join('')
+}
+
+/** The text with each exact, non-empty string replaced by its mask (longest first). */
+function maskExact(text: string, masks: [string | null, string][]): string {
+  return masks
+    .filter((m): m is [string, string] => !!m[0] && m[0].trim().length > 0)
+    .sort((a, b) => b[0].length - a[0].length)
+    .reduce((out, [s, mask]) => out.split(s).join(mask), text)
+}
+
+function escapeRegExp(s: string): string {
+  return s.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')
+}
+
+/** The e-mail address a deactivated complainant account keeps: unique, lowercase, undeliverable (.invalid, RFC 2606). */
+const erasedAccountEmail = (userId: string) => `erased-${userId}@erased.invalid`
+
+/**
+ * What happens to the complainant's account when the case is erased: deactivated (its name and
+ * e-mail replaced) when no other case still names it and it has not signed in within the
+ * office's retention period before `now`; kept otherwise, saying why. `erasedThisRun`: per
+ * account, the cases this run erased before (a dry run: would erase), no longer counted.
+ */
+async function planAccount(db: Db, c: CaseRow, retentionMonths: number, now: Date, erasedThisRun: ReadonlyMap<string, string[]>): Promise<RetentionPlanCase['account']> {
+  if (!c.complainantUserId) return null
+  const u = await findAccount(db, c.complainantUserId)
+  if (!u) return null
+  if (u.role !== 'complainant') return { outcome: 'kept', userId: u.id, reason: 'not_a_complainant_account' }
+  const otherCases = await linkedCaseCount(db, u.id, [c.id, ...(erasedThisRun.get(u.id) ?? [])])
+  if (otherCases > 0) return { outcome: 'kept', userId: u.id, reason: 'other_cases', otherCases }
+  // the period's months back from now (calendar months, UTC)
+  const windowStart = retentionEndsAt(now, -retentionMonths)
+  if (u.lastSignedInAt && u.lastSignedInAt > windowStart) return { outcome: 'kept', userId: u.id, reason: 'signed_in', lastSignedInAt: u.lastSignedInAt.toISOString() }
+  return { outcome: 'deactivated', userId: u.id }
+}
 
 /** What erasing a case changes: the plan's entry, the new field values and the redacted timeline texts. */
-async function planCase(db: Db, c: CaseRow, retentionEndedAt: Date, now: Date) {
-  const identity = { name: c.complainantName, email: c.complainantEmail, phone: c.complainantPhone, organisation: c.complainantOrganisation }
+async function planCase(
+  ctx: ServiceContext,
+  db: Db,
+  c: CaseRow,
+  expiry: { retentionEndedAt: Date; retentionMonths: number },
+  now: Date,
+  erasedThisRun: ReadonlyMap<string, string[]>,
+) {
+  const identity = { name: c.complainantName, email: c.complainantEmail, phone: c.complainantPhone, organisation: c.complainantOrganisation, address: c.address }
   const erase = c.personalDataErasedAt === null
   const fields: ErasedCaseField[] = erase ? ERASED_CASE_FIELDS.filter((f) => c[f] !== null) : []
   const marker = erasureMarker(now)
+  // the address the complainant wrote goes; the position stays for statistics and maps, rounded
+  // to 0.01° (about 1 km), too coarse to point at one house (ERASED_POSITION_STEP_DEG)
+  const coarsePosition = erase ? { latDeg: coarsenDeg(c.latDeg), lonDeg: coarsenDeg(c.lonDeg) } : null
+  const names = erase
+    ? (await evidenceNamesOf(db, c.id)).filter((f) => !f.nameErased).map((f) => ({ ...f, name: erasedFileName(f.originalName, f.sha256) }))
+    : []
   const changes = {
     complainantName: marker,
     complainantEmail: marker,
     complainantPhone: c.complainantPhone === null ? null : marker,
     complainantOrganisation: c.complainantOrganisation === null ? null : marker,
+    address: marker,
+    latDeg: coarsePosition?.latDeg ?? c.latDeg,
+    lonDeg: coarsePosition?.lonDeg ?? c.lonDeg,
     description: redactComplainantText(c.description, identity),
     patternDetail: c.patternDetail === null ? null : redactComplainantText(c.patternDetail, identity),
   }
   const events: { id: number; body: string }[] = []
+  const mergeEvents: { id: number; body: string }[] = []
   if (erase) {
     for (const e of await timelineWithText(db, c.id)) {
-      const body = redactComplainantText(e.body, identity)
+      const body = redactCaseText(e.body, identity, names)
       // the complainant's own added text always becomes a marked redacted copy; staff text only when it names them
       if (e.kind === 'complainant_information') events.push({ id: e.id, body: body === e.body ? `${body} [redacted copy, ${marker}]` : body })
       else if (body !== e.body) events.push({ id: e.id, body })
     }
+    // a merge wrote "<reference> (<complainant's name>) was merged into this case" on the other
+    // case: its own words, so the exact name and contact are masked (the general redaction would
+    // also take the case references for phone numbers)
+    for (const e of await mergeEntriesAbout(db, c.id)) {
+      const body = maskExact(e.body, [
+        [c.complainantName, '[name removed]'],
+        [c.complainantEmail, '[e-mail removed]'],
+        [c.complainantPhone, '[number removed]'],
+        [c.complainantOrganisation, '[name removed]'],
+      ])
+      if (body !== e.body) mergeEvents.push({ id: e.id, body })
+    }
   }
+  const queue = ctx.mailQueue.queueName ?? MAIL_QUEUE
+  const queuedMails = erase ? await queuedCaseMails(db, queue, c.complainantEmail, c.reference) : []
+  const account = erase ? await planAccount(db, c, expiry.retentionMonths, now, erasedThisRun) : null
   const evidence = await evidenceNotDisposed(db, c.id)
   const plan: RetentionPlanCase = {
     caseId: c.id,
     reference: c.reference,
     officeId: c.officeId,
     closedAt: c.closedAt!.toISOString(),
-    retentionEndedAt: retentionEndedAt.toISOString(),
+    retentionEndedAt: expiry.retentionEndedAt.toISOString(),
     fields,
     redactedEventIds: events.map((e) => e.id),
     evidence,
+    mergeEventIds: mergeEvents.map((e) => e.id),
+    coarsePosition,
+    fileNames: names.map((f) => ({ evidenceId: f.evidenceId, storedFileId: f.storedFileId, name: f.name })),
+    queuedMails,
+    account,
   }
-  return { plan, erase, changes, events }
+  return { plan, erase, changes, events, mergeEvents, queue }
 }
 
 /**
- * The retention run. `dryRun`: what it would erase and dispose of, nothing changed. Otherwise
- * each case is erased in its own transaction (re-read under a lock: a hold set meanwhile wins),
- * its objects deleted before that transaction commits; an object store failure rolls the case
- * back and the next run tries it again.
+ * Deletes the objects of disposals already committed as 'pending' and records each 'done' as it
+ * goes. A failure leaves that one (and any the store refuses after it) pending, logged; the
+ * next run finishes them. Answers the ones done.
+ */
+async function finishDisposals(ctx: ServiceContext, disposals: readonly Disposal[]): Promise<Disposal[]> {
+  const done: Disposal[] = []
+  if (disposals.length === 0) return done
+  if (!ctx.objectStore) {
+    log().warn(`retention: ${disposals.length} object deletion(s) left pending: no file store is configured`)
+    return done
+  }
+  for (const d of disposals) {
+    try {
+      // deleting a key that is already gone succeeds (S3 semantics), so finishing twice is harmless
+      await disposeObject(ctx.objectStore, d.objectKey)
+      if (d.action === 'evidence_disposed') await insertRetentionAction(ctx.db, { caseId: d.caseId, action: d.action, evidenceId: d.evidenceId, objectKey: d.objectKey, sha256: d.sha256!, stage: 'done' })
+      else await insertRetentionAction(ctx.db, { caseId: d.caseId, action: d.action, evidenceId: d.evidenceId, objectKey: d.objectKey, stage: 'done' })
+      done.push(d)
+    } catch (err) {
+      log().warn({ err }, `retention: could not delete ${d.objectKey} of case ${d.caseId}; its deletion stays pending and the next run finishes it`)
+    }
+  }
+  return done
+}
+
+const pendingView = (d: Disposal): RetentionRunView['pendingDisposals'][number] => ({ caseId: d.caseId, action: d.action, evidenceId: d.evidenceId, objectKey: d.objectKey })
+
+/**
+ * The retention run. `dryRun`: what it would erase and dispose of, nothing changed. Otherwise it
+ * first finishes the object deletions an earlier run left pending, then erases each case in its
+ * own transaction (re-read under a lock: a hold set meanwhile wins) that also records each
+ * object deletion as 'pending'; only after that commit are the objects deleted from the store,
+ * each recorded 'done'. A store failure leaves its deletion pending for the next run; nothing
+ * is ever recorded as gone that is still stored, and no object goes without its record.
  */
 export async function runRetention(
   ctx: ServiceContext,
   opts: { now: Date; dryRun: boolean; /** Only these offices (tests); every office when absent. */ officeIds?: readonly string[] },
 ): Promise<RetentionRunView> {
   const { now, dryRun } = opts
-  const candidates = await expiredCases(ctx.db, now, opts.officeIds ? { officeIds: opts.officeIds } : { all: true })
+  const scope = opts.officeIds ? { officeIds: opts.officeIds } : ({ all: true } as const)
+  const pending = await pendingDisposals(ctx.db, scope)
+  const finished = dryRun ? pending : await finishDisposals(ctx, pending)
+  const candidates = await expiredCases(ctx.db, now, scope)
   const holds = await latestLegalHolds(ctx.db, candidates.map((x) => x.c.id))
   const kept: Kept[] = []
   const cases: RetentionPlanCase[] = []
-  for (const { c, retentionEndedAt } of candidates) {
+  const erasedThisRun = new Map<string, string[]>()
+  const noteErased = (plan: RetentionPlanCase) => {
+    if (plan.account) erasedThisRun.set(plan.account.userId, [...(erasedThisRun.get(plan.account.userId) ?? []), plan.caseId])
+  }
+  for (const { c, retentionEndedAt, retentionMonths } of candidates) {
+    const expiry = { retentionEndedAt, retentionMonths }
     if (holdInForce(holds.get(c.id), now)) {
       kept.push({ caseId: c.id, reference: c.reference, reason: 'legal_hold' })
       continue
@@ -162,7 +312,9 @@ export async function runRetention(
       continue
     }
     if (dryRun) {
-      cases.push((await planCase(ctx.db, c, retentionEndedAt, now)).plan)
+      const { plan } = await planCase(ctx, ctx.db, c, expiry, now, erasedThisRun)
+      cases.push(plan)
+      noteErased(plan)
       continue
     }
     const done = await withTransaction(ctx.pool, async ({ db }) => {
@@ -176,11 +328,34 @@ export async function runRetention(
         kept.push({ caseId: c.id, reference: c.reference, reason: 'open_follow_up' })
         return null
       }
-      const { plan, erase, changes, events } = await planCase(db, locked, retentionEndedAt, now)
+      const { plan, erase, changes, events, mergeEvents, queue } = await planCase(ctx, db, locked, expiry, now, erasedThisRun)
+      const marker = erasureMarker(now)
       if (erase) {
         await erasePersonalData(db, c.id, changes, now)
         for (const e of events) await redactEvent(db, e.id, e.body)
         await insertRetentionAction(db, { caseId: c.id, action: 'personal_data_erased', fields: plan.fields, redactedEventIds: plan.redactedEventIds })
+        await insertRetentionAction(db, { caseId: c.id, action: 'location_coarsened', details: { positionStepDeg: ERASED_POSITION_STEP_DEG } })
+        const merged: number[] = []
+        for (const e of mergeEvents) if (await redactEvent(db, e.id, e.body)) merged.push(e.id)
+        plan.mergeEventIds = merged
+        if (merged.length > 0) await insertRetentionAction(db, { caseId: c.id, action: 'merge_entries_redacted', redactedEventIds: merged })
+        for (const f of plan.fileNames) {
+          if (!(await eraseStoredFileName(db, f.storedFileId, f.name))) throw new Error(`retention: the name of stored file ${f.storedFileId} could not be erased`)
+          await eraseEvidenceNames(db, f.evidenceId, f.name)
+        }
+        if (plan.fileNames.length > 0) await insertRetentionAction(db, { caseId: c.id, action: 'file_names_erased', details: { files: plan.fileNames } })
+        const cancelled = new Set(await cancelAndDeleteJobs(db, queue, plan.queuedMails.map((m) => m.jobId)))
+        plan.queuedMails = plan.queuedMails.filter((m) => cancelled.has(m.jobId))
+        if (plan.queuedMails.length > 0) {
+          await insertRetentionAction(db, { caseId: c.id, action: 'queued_mail_cancelled', details: { count: plan.queuedMails.length, jobIds: plan.queuedMails.map((m) => m.jobId) } })
+        }
+        if (plan.account?.outcome === 'deactivated') {
+          await eraseAccount(db, plan.account.userId, { name: marker, email: erasedAccountEmail(plan.account.userId) })
+          const sessionsEnded = await endSessionsOfUser(db, plan.account.userId)
+          await insertRetentionAction(db, { caseId: c.id, action: 'account_deactivated', details: { userId: plan.account.userId, sessionsEnded } })
+          // the person's own history in the audit log says it too (the account row stays, named by the marker)
+          await recordAudit(db, { actorUserId: null, action: 'user.deactivated', targetType: 'user', targetId: plan.account.userId, officeId: null, details: { role: 'complainant', sessionsEnded, byRetentionOf: c.reference } })
+        }
         await appendEvent(db, {
           caseId: c.id,
           at: now,
@@ -188,13 +363,26 @@ export async function runRetention(
           actorLabel: 'Quietband',
           kind: 'personal_data_erased',
           visibility: 'internal',
-          body: `The retention period ended; the complainant's personal data was erased (${plan.fields.join(', ')}).`,
-          data: { fields: plan.fields, redactedEventIds: plan.redactedEventIds },
+          body:
+            `The retention period ended; the complainant's personal data was erased (${plan.fields.join(', ')}); the position was rounded to ${ERASED_POSITION_STEP_DEG}°` +
+            (plan.fileNames.length > 0 ? `; ${plan.fileNames.length} file name(s) replaced` : '') +
+            (merged.length > 0 ? `; ${merged.length} merge entr${merged.length === 1 ? 'y' : 'ies'} of other cases redacted` : '') +
+            (plan.queuedMails.length > 0 ? `; ${plan.queuedMails.length} unsent e-mail(s) cancelled` : '') +
+            (plan.account?.outcome === 'deactivated' ? '; the complainant\u2019s account was closed' : '') +
+            '.',
+          data: { fields: plan.fields, redactedEventIds: plan.redactedEventIds, mergeEventIds: merged, account: plan.account?.outcome ?? null },
         })
       }
+      const disposals: Disposal[] = []
       if (plan.evidence.length > 0) {
+        requireStore(ctx.objectStore)
         for (const ev of plan.evidence) {
-          await insertRetentionAction(db, { caseId: c.id, action: 'evidence_disposed', evidenceId: ev.evidenceId, objectKey: ev.objectKey, sha256: ev.sha256 })
+          disposals.push({ caseId: c.id, action: 'evidence_disposed', evidenceId: ev.evidenceId, objectKey: ev.objectKey, sha256: ev.sha256 })
+          await insertRetentionAction(db, { caseId: c.id, action: 'evidence_disposed', evidenceId: ev.evidenceId, objectKey: ev.objectKey, sha256: ev.sha256, stage: 'pending' })
+          if (ev.thumbnailKey) {
+            disposals.push({ caseId: c.id, action: 'thumbnail_disposed', evidenceId: ev.evidenceId, objectKey: ev.thumbnailKey, sha256: null })
+            await insertRetentionAction(db, { caseId: c.id, action: 'thumbnail_disposed', evidenceId: ev.evidenceId, objectKey: ev.thumbnailKey, stage: 'pending' })
+          }
         }
         await markEvidenceDisposed(db, plan.evidence.map((e) => e.evidenceId), now)
         await markThumbnailsDisposed(db, plan.evidence.map((e) => e.evidenceId))
@@ -205,7 +393,7 @@ export async function runRetention(
           actorLabel: 'Quietband',
           kind: 'evidence_disposed',
           visibility: 'internal',
-          body: `The retention period ended; ${plan.evidence.length} evidence file(s) were deleted from the store (their records are kept).`,
+          body: `The retention period ended; ${plan.evidence.length} evidence file(s) are deleted from the store (their records are kept).`,
           data: { evidence: plan.evidence },
         })
       }
@@ -215,21 +403,26 @@ export async function runRetention(
         targetType: 'case',
         targetId: c.id,
         officeId: c.officeId,
-        details: { reference: c.reference, fieldsErased: plan.fields, eventsRedacted: plan.redactedEventIds.length, objectsDisposed: plan.evidence.length },
+        details: {
+          reference: c.reference,
+          fieldsErased: plan.fields,
+          eventsRedacted: plan.redactedEventIds.length,
+          mergeEntriesRedacted: plan.mergeEventIds.length,
+          fileNamesErased: plan.fileNames.length,
+          queuedMailsCancelled: plan.queuedMails.length,
+          account: plan.account?.outcome ?? null,
+          objectsDisposed: disposals.length,
+        },
       })
-      // last, so a failure here rolls back every record above; deleting an absent key succeeds, so a retry completes
-      if (plan.evidence.length > 0) {
-        const store = requireStore(ctx.objectStore)
-        for (const ev of plan.evidence) {
-          await disposeObject(store, ev.objectKey)
-          if (ev.thumbnailKey) await disposeObject(store, ev.thumbnailKey)
-        }
-      }
-      return plan
+      return { plan, disposals }
     })
-    if (done) cases.push(done)
+    if (!done) continue
+    cases.push(done.plan)
+    noteErased(done.plan)
+    // after the commit: every deletion is recorded 'pending' first, so a crash or a store failure here loses nothing
+    await finishDisposals(ctx, done.disposals)
   }
-  return { dryRun, at: now.toISOString(), cases, kept }
+  return { dryRun, at: now.toISOString(), cases, kept, pendingDisposals: finished.map(pendingView) }
 }
 
 /** GET /api/admin/retention/dry-run */

@@ -14,6 +14,7 @@ import { rankCandidateStations } from '../../../shared/stations/candidate-rankin
 import { createStationRowReader, type StationDraft } from '../../../shared/stations/register-rows'
 import {
   MAX_REPORTED_ROWS,
+  registerUploadFieldsSchema,
   STATION_PAGE_SIZE,
   type ColumnMapping,
   type CsvInspectionView,
@@ -22,12 +23,14 @@ import {
   type RegisterVersionView,
   type RowProblems,
   type StationSearch,
+  type StationsPage,
   type StationView,
 } from '../../../shared/schemas/stations'
 import type { ServiceContext } from '../../context'
 import { withTransaction, type Db } from '../../db/client'
 import type { NewAuthorisedStation } from '../../db/schema'
 import { badRequest, forbidden, notFound } from '../../http/errors'
+import { parseWith } from '../../http/validate'
 import { can, type Actor } from '../../policy/policy'
 import { findStoredFile, type StoredFileWithUploader } from '../../storage/stored-files.repo'
 import { readStoredObject, storeStream, storeUpload } from '../../storage/stored-files'
@@ -92,10 +95,7 @@ async function inspectFile(ctx: StoreDeps, file: StoredFileWithUploader, chosen?
 export async function uploadRegisterFile(ctx: ServiceContext, actor: Actor, req: Request, res: Response): Promise<CsvInspectionView> {
   mayImport(actor)
   const { file, fields } = await storeUpload(storeDeps(ctx), req, res, { purpose: 'station_register_import', uploadedBy: actor.id })
-  const delimiter = fields.delimiter as CsvDelimiter | undefined
-  if (delimiter !== undefined && !['comma', 'semicolon', 'tab', 'bar'].includes(delimiter)) {
-    throw badRequest('validation_failed', 'Some fields need attention.', [{ path: 'delimiter', message: 'Choose the delimiter: comma, semicolon, tab or vertical bar.' }])
-  }
+  const { delimiter } = parseWith(registerUploadFieldsSchema, fields)
   return inspectFile(ctx, await registerUpload(ctx.db, file.id), delimiter)
 }
 
@@ -236,12 +236,12 @@ export async function importRegisterStream(
 
 // ── reading ──────────────────────────────────────────────────────────────────
 
-export async function searchStations(ctx: ServiceContext, actor: Actor, s: StationSearch) {
+export async function searchStations(ctx: ServiceContext, actor: Actor, s: StationSearch): Promise<StationsPage> {
   mayRead(actor)
   const current = await currentRegisterVersion(ctx.db)
   const version = s.version ?? current
   const page = s.page ?? 1
-  if (version === null) return { registerVersion: null, total: 0, page, pageSize: STATION_PAGE_SIZE, stations: [] as StationView[] }
+  if (version === null) return { registerVersion: null, total: 0, page, pageSize: STATION_PAGE_SIZE, stations: [] }
   if (s.version !== undefined && !(await findRegisterVersion(ctx.db, s.version))) throw versionNotFound()
   const { total, rows } = await searchStationRows(ctx.db, { version, text: s.q || undefined, freqHz: s.freq, limit: STATION_PAGE_SIZE, offset: (page - 1) * STATION_PAGE_SIZE })
   return { registerVersion: version, total, page, pageSize: STATION_PAGE_SIZE, stations: rows.map(presentStation) }

@@ -40,7 +40,7 @@ export const limitSpecSchema: z.ZodType<LimitSpec, unknown> = z.lazy(() =>
     z.strictObject({ kind: z.literal('conducted-density'), conductedDensityDbm: dbm('the conducted density limit'), referenceBandwidthHz, gainRule: conductedGainRule }),
     z.strictObject({ kind: z.literal('lesser-of'), limits: z.array(limitSpecSchema).min(1).max(5) }),
   ]),
-) as z.ZodType<LimitSpec, unknown>
+).meta({ id: 'StatedLimitSpec', description: 'A limit stated in the calculation itself (as the radio library writes it), levels as numbers or text with a unit.' }) as z.ZodType<LimitSpec, unknown>
 
 export const complianceVerdictInputSchema = z
   .strictObject({

@@ -31,6 +31,7 @@ export const routes: RouteObject[] = [
           { path: paths.track.path, lazy: () => import('./routes/track') },
           { path: paths.trackReport.path, lazy: () => import('./routes/track-token') },
           { path: paths.devMailbox.path, lazy: () => import('./routes/dev-mailbox') },
+          { path: paths.apiReference.path, lazy: () => import('./routes/api-reference') },
           // every signed-in person (the page asks them to sign in otherwise)
           { path: paths.myEmails.path, lazy: () => import('./routes/my-emails') },
           {
@@ -62,7 +63,11 @@ export const routes: RouteObject[] = [
           },
           {
             element: <RequireAbility anyOf={['manageOffices']} />,
-            children: [{ path: paths.adminOffices.path, lazy: () => import('./routes/admin-offices') }],
+            children: [
+              { path: paths.adminOffices.path, lazy: () => import('./routes/admin-offices') },
+              { path: paths.adminOfficeNew.path, lazy: () => import('./routes/admin-office-new') },
+              { path: paths.adminOfficeEdit.path, lazy: () => import('./routes/admin-office-edit') },
+            ],
           },
           {
             element: <RequireAbility anyOf={['readAudit']} />,

@@ -67,8 +67,8 @@ async function readBody(response: Response): Promise<unknown> {
 }
 
 /** Sends one request; resolves with the parsed JSON body (undefined for 204) or throws ApiError. */
-export async function apiRequest<T>(options: { method?: Method; path: string; body?: unknown; signal?: AbortSignal }): Promise<T> {
-  const { method = 'GET', path, body, signal } = options
+export async function apiRequest<T>(options: { method?: Method; path: string; body?: unknown; signal?: AbortSignal; cache?: RequestCache }): Promise<T> {
+  const { method = 'GET', path, body, signal, cache } = options
   let response: Response
   try {
     response = await fetch(path, {
@@ -77,6 +77,7 @@ export async function apiRequest<T>(options: { method?: Method; path: string; bo
       headers: { Accept: 'application/json', ...(body !== undefined ? { 'Content-Type': 'application/json' } : {}) },
       body: body !== undefined ? JSON.stringify(body) : undefined,
       signal,
+      ...(cache ? { cache } : {}),
     })
   } catch (cause) {
     if (signal?.aborted) throw cause

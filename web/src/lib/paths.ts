@@ -40,7 +40,12 @@ export const paths = {
   case: { path: '/cases/:id', href: (caseId: string) => `/cases/${encodeURIComponent(caseId)}` },
   admin: page('/admin'),
   adminUsers: page('/admin/users'),
-  adminOffices: page('/admin/offices'),
+  /** The offices; `officeId` chooses whose settings show (the first office otherwise). */
+  adminOffices: { path: '/admin/offices', href: (officeId?: string | null) => `/admin/offices${query('officeId', officeId)}` },
+  /** A new field office with its area (administrators). */
+  adminOfficeNew: page('/admin/offices/new'),
+  /** An office's details and area (administrators). */
+  adminOfficeEdit: { path: '/admin/offices/:id/edit', href: (officeId: string) => `/admin/offices/${encodeURIComponent(officeId)}/edit` },
   /** The audit log: administrative changes, exports and openings of personal details (administrators). */
   adminAudit: page('/admin/audit'),
   /** The national band-limit list (staff read it; supervisors and administrators edit it). */
@@ -55,4 +60,6 @@ export const paths = {
   myReport: { path: '/my-reports/:id', href: (reportId: string) => `/my-reports/${encodeURIComponent(reportId)}` },
   /** What Quietband e-mails the signed-in person (every role). */
   myEmails: page('/account/emails'),
+  /** The API reference for integrators, read from the API's OpenAPI document (public). */
+  apiReference: page('/api-reference'),
 } as const

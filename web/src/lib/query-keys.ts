@@ -67,6 +67,10 @@ export const dashboardKeys = {
 /** The field offices and their response targets. */
 export const officeKeys = {
   all: ['offices'] as const,
+  /** One office as its edit page reads it (under `all`: saving any office refreshes it). */
+  detail: (officeId: string) => [...officeKeys.all, 'detail', officeId] as const,
+  /** A check of an area being drawn (its size and overlaps); apart from `all`, so saving an office does not re-ask it. */
+  areaCheck: (request: { area: unknown; latDeg?: number; lonDeg?: number; officeId?: string }) => ['office-area-check', request] as const,
 }
 
 /** Retention: a case's legal hold and an office's retention period. */
@@ -132,4 +136,9 @@ export const enforcementKeys = {
 /** What Quietband e-mails the signed-in person. */
 export const notificationKeys = {
   myEmails: () => ['my-emails'] as const,
+}
+
+/** The API's own OpenAPI document, read by the API reference page. */
+export const apiReferenceKeys = {
+  document: () => ['api-reference', 'document'] as const,
 }

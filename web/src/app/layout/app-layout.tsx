@@ -1,6 +1,7 @@
 /** The frame around every page: header with nav and account, the page, the caution footer. */
-import { Outlet, ScrollRestoration, useMatches, useNavigation } from 'react-router-dom'
+import { Link, Outlet, ScrollRestoration, useMatches, useNavigation } from 'react-router-dom'
 import { EstimateCaution } from '@/components/cautions/estimate-caution'
+import { paths } from '@/lib/paths'
 import { useAbilities, useMe } from '@/features/auth/api/get-me'
 import { AccountArea } from './account-area'
 import { MainNav } from './main-nav'
@@ -58,6 +59,9 @@ function Footer() {
       <div className="mx-auto flex max-w-page flex-col gap-3 px-4 py-5">
         <EstimateCaution variant="footer" />
         <p className="text-sm text-ink-muted">Quietband — harmful-interference complaints, from first report to a closed case.</p>
+        <p className="text-sm">
+          <Link to={paths.apiReference.href()}>API reference for integrators</Link>
+        </p>
       </div>
     </footer>
   )

@@ -19,10 +19,15 @@ function hasLayers(p: FieldMapProps): boolean {
 export function FieldMap(props: FieldMapProps) {
   const query = useRegionMap()
   const data = useMemo(() => (query.data ? regionMapData(query.data) : null), [query.data])
-  const typeInstead = props.onPick ? ' Type the latitude and longitude instead (decimal degrees); they work without the map.' : ''
+  const typeInstead = props.areaEditor
+    ? ' Type the position and upload or paste the area as GeoJSON instead; they work without the map.'
+    : props.onPick
+      ? ' Type the latitude and longitude instead (decimal degrees); they work without the map.'
+      : ''
   if (query.isPending) return <Loading label="Loading the map…" />
   if (query.isError && !hasLayers(props)) return <p className="text-sm text-ink-muted">The map could not be loaded just now.{typeInstead}</p>
-  const drawable = data?.region || data?.basemap.kind === 'tiles' || (!props.onPick && hasLayers(props))
+  // picking and drawing need something to aim at: the region or the tiles
+  const drawable = data?.region || data?.basemap.kind === 'tiles' || (!props.onPick && !props.areaEditor && hasLayers(props))
   if (!drawable) return <p className="text-sm text-ink-muted">No map is set up for this service yet.{typeInstead}</p>
   return (
     <Suspense fallback={<Loading label="Loading the map…" />}>

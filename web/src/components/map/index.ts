@@ -5,6 +5,7 @@
 export { FieldMap } from './field-map'
 export type {
   FieldMapProps,
+  MapAreaEditor,
   MapBearing,
   MapCandidateStation,
   MapEllipse,

@@ -15,6 +15,8 @@ export function legendEntries(p: Omit<FieldMapProps, 'offices' | 'label'> & { of
   if (p.region) out.push({ kind: 'region', label: 'Region boundary and land' })
   if (p.officeCount) out.push({ kind: 'office', label: n(p.officeCount, 'field office', 'field offices') })
   if (p.officeAreas) out.push({ kind: 'officeArea', label: 'Office area' })
+  if (p.areaEditor && (p.areaEditor.vertices.length || p.areaEditor.fixedArea)) out.push({ kind: 'areaDraft', label: 'The area being edited' })
+  if (p.areaEditor?.crossings?.length) out.push({ kind: 'crossing', label: 'Where the outline crosses itself' })
   if (p.victim) out.push({ kind: 'victim', label: p.victim.label ?? 'Complainant’s position' })
   if (p.measurements?.length) out.push({ kind: 'measurement', label: n(p.measurements.length, 'measurement site', 'measurement sites') })
   if (p.bearings?.length) out.push({ kind: 'bearing', label: n(p.bearings.length, 'bearing line', 'bearing lines') })

@@ -75,6 +75,25 @@ export interface MapNearbyCase {
   priority?: Priority
 }
 
+/**
+ * Area drawing: the corners of an office's area in order (the ring closes itself). A click on
+ * the map adds a corner at the end (unless `onPick` is set: the click then picks a position);
+ * corners are draggable markers, reachable with Tab (arrow keys move one, Delete removes it).
+ */
+export interface MapAreaEditor {
+  vertices: MapPoint[]
+  onChange: (vertices: MapPoint[]) => void
+  /** Where two edges of the outline cross: each is marked. */
+  crossings?: MapPoint[]
+  /** An area that cannot be edited corner by corner (several polygons, or holes): drawn only. */
+  fixedArea?: AreaGeometry | null
+  /**
+   * The office whose area this is: its own point and area from the region map are left out (the
+   * editor draws the area; the point is drawn at `at`, the position in the form, when there is one).
+   */
+  office?: { name: string; at: MapPoint | null }
+}
+
 export interface FieldMapProps {
   /** The map's accessible name, e.g. "Map of case QB-2026-0042". */
   label: string
@@ -93,6 +112,8 @@ export interface FieldMapProps {
    * (≈ 11 m). Typed coordinates stay the keyboard way to set a position; show them as `victim`.
    */
   onPick?: (latDeg: number, lonDeg: number) => void
+  /** Draw an office's area (see MapAreaEditor). */
+  areaEditor?: MapAreaEditor
   /** Height of the map [CSS px]; default 420. The width follows the container. */
   heightPx?: number
 }

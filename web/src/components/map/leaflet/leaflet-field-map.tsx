@@ -6,13 +6,14 @@
  */
 import 'leaflet/dist/leaflet.css'
 import './field-map.css'
-import { Fragment, useEffect, useId, useMemo } from 'react'
+import { Fragment, useEffect, useId, useMemo, useRef } from 'react'
 import L from 'leaflet'
 import { MapContainer, Marker, Pane, Polygon, Polyline, ScaleControl, TileLayer, Tooltip, useMap, useMapEvents } from 'react-leaflet'
 import { geodesicDirect, normalizeLonDeg } from '@shared/radio/geo'
 import { formatLatLonDeg } from '@/lib/coordinates'
 import { MapLegend, legendEntries } from '../map-legend'
-import type { FieldMapProps, MapPoint } from '../map-types'
+import type { FieldMapProps, MapAreaEditor, MapPoint } from '../map-types'
+import { addVertex, moveVertex, verticesAfterKey } from '../lib/area-vertices'
 import { boxOfGeometries, type GeoBox } from '../lib/map-box'
 import { areaLatLngs, bearingLine, contentBox, ellipseRing, round4 } from '../lib/map-geometry'
 import type { RegionMapData } from '../lib/region-data'
@@ -47,9 +48,13 @@ const named = (label: string) => ({
 })
 
 export default function LeafletFieldMap(props: Props) {
-  const { data, label, onPick, heightPx = 420 } = props
+  const { data, label, onPick, areaEditor, heightPx = 420 } = props
   const helpId = useId()
-  const offices = props.offices === 'region' ? (data?.offices ?? []) : (props.offices ?? [])
+  const given = props.offices === 'region' ? (data?.offices ?? []) : (props.offices ?? [])
+  // the office being edited is drawn once, from the form: its point where the form puts it, its area by the editor
+  const edited = areaEditor?.office
+  const offices = edited ? [...given.filter((o) => o.name !== edited.name), ...(edited.at ? [{ name: edited.name, at: edited.at, area: null }] : [])] : given
+  const drawing = !!areaEditor && !onPick && !areaEditor.fixedArea
   const region = data?.region ?? null
   const tiles = data?.basemap.kind === 'tiles' ? data.basemap : null
   const regionBox = useMemo(() => (region ? boxOfGeometries([region.outline]) : null), [region])
@@ -65,17 +70,25 @@ export default function LeafletFieldMap(props: Props) {
 
   const caseLayers = !!(victim && !onPick) || !!(measurements?.length || bearings?.length || estimatedSource || candidateStations?.length || nearbyCases?.length)
   const entries = legendEntries({ ...props, officeCount: offices.length, officeAreas: offices.some((o) => o.area), region: !!region && !tiles })
+  const picked = victim?.at ?? (areaEditor && onPick ? (edited?.at ?? null) : null)
   const inRegion = (p: MapPoint) => !regionBox || (p.latDeg >= regionBox.southDeg && p.latDeg <= regionBox.northDeg && p.lonDeg >= regionBox.westDeg && p.lonDeg <= regionBox.eastDeg)
-  const interactive = !onPick
+  const interactive = !onPick && !drawing
+  const help = onPick
+    ? areaEditor
+      ? 'Click or tap the map where the office is, or type the latitude and longitude: each follows the other. Drag to move the map; zoom with the + and − buttons.'
+      : 'Click or tap the map where it happens, or type the latitude and longitude above: each follows the other. Drag to move the map; zoom with the + and − buttons.'
+    : drawing
+      ? 'Click the map to add the corners of the area in order. Drag a corner to move it; or Tab to a corner, move it with the arrow keys, remove it with Delete.'
+      : null
 
   return (
     <div className="flex flex-col gap-2">
-      {onPick && (
+      {help && (
         <p id={helpId} className="text-sm text-ink-muted">
-          Click or tap the map where it happens, or type the latitude and longitude above: each follows the other. Drag to move the map; zoom with the + and − buttons.
+          {help}
         </p>
       )}
-      <div className={`qb-map relative overflow-hidden rounded-control border border-field ${onPick ? 'qb-map-pick' : ''}`} style={{ height: heightPx }}>
+      <div className={`qb-map relative overflow-hidden rounded-control border border-field ${onPick || drawing ? 'qb-map-pick' : ''}`} style={{ height: heightPx }}>
         <MapContainer
           bounds={fitBox ? boundsOf(fitBox) : undefined}
           center={fitBox ? undefined : [0, 0]}
@@ -84,7 +97,7 @@ export default function LeafletFieldMap(props: Props) {
           scrollWheelZoom={false}
           style={{ height: '100%', width: '100%' }}
         >
-          <MapSetup label={label} describedBy={onPick ? helpId : undefined} attribution={tiles ? null : region ? 'Offline map, region data' : ''} />
+          <MapSetup label={label} describedBy={help ? helpId : undefined} attribution={tiles ? null : region ? 'Offline map, region data' : ''} />
           {tiles && <TileLayer url={tiles.urlTemplate} attribution={escapeHtml(tiles.attribution)} />}
           {region && (
             <Pane name="qb-basemap" style={{ zIndex: 250 }}>
@@ -170,18 +183,19 @@ export default function LeafletFieldMap(props: Props) {
           )}
           {victim && <Marker position={ll(victim.at)} icon={icon('victim', victim.label ?? 'Complainant’s position', 28)} interactive={false} keyboard={false} zIndexOffset={1000} />}
           <ScaleControl position="bottomleft" imperial={false} />
+          {areaEditor && <AreaEditorLayer editor={areaEditor} drawing={drawing} />}
           {onPick && <PickOnClick onPick={onPick} />}
-          <FitToContent box={fitBox} keepInView={onPick && victim ? victim.at : null} />
+          <FitToContent box={fitBox} keepInView={onPick ? picked : null} />
         </MapContainer>
         <NorthArrow />
       </div>
       <MapLegend entries={entries} label={`Key to the map`} />
       {onPick && (
         <p aria-live="polite" className="font-mono text-sm">
-          {victim
-            ? inRegion(victim.at)
-              ? `Marker at ${formatLatLonDeg(victim.at)}`
-              : `${formatLatLonDeg(victim.at)} is outside ${region?.name ?? 'the region'}. It is still accepted.`
+          {picked
+            ? inRegion(picked)
+              ? `Marker at ${formatLatLonDeg(picked)}`
+              : `${formatLatLonDeg(picked)} is outside ${region?.name ?? 'the region'}. It is still accepted.`
             : 'No place picked on the map yet.'}
         </p>
       )}
@@ -208,6 +222,92 @@ function MapSetup({ label, describedBy, attribution }: { label: string; describe
     }
   }, [map, attribution])
   return null
+}
+
+/**
+ * The area being edited: its outline (a line until it has three corners), its corners as
+ * draggable, focusable markers, and where its edges cross. A click on the map adds a corner
+ * while `drawing`; an area that is not one ring (`fixedArea`) is only drawn.
+ */
+function AreaEditorLayer({ editor, drawing }: { editor: MapAreaEditor; drawing: boolean }) {
+  const { vertices, onChange, crossings, fixedArea } = editor
+  const line = vertices.map(ll)
+  const style = { color: C.office, weight: 3, fillColor: C.office, fillOpacity: 0.15, interactive: false }
+  return (
+    <>
+      {drawing && <AddOnClick onAdd={(p) => onChange(addVertex(vertices, p))} />}
+      {fixedArea ? (
+        <Polygon positions={areaLatLngs(fixedArea)} pathOptions={style} eventHandlers={named('The area being edited')} />
+      ) : vertices.length >= 3 ? (
+        <Polygon positions={line} pathOptions={style} eventHandlers={named(`The area being edited: ${vertices.length} corners`)} />
+      ) : vertices.length === 2 ? (
+        <Polyline positions={line} pathOptions={style} />
+      ) : null}
+      {!fixedArea && vertices.map((_, i) => <VertexMarker key={i} index={i} vertices={vertices} onChange={onChange} />)}
+      {crossings?.map((c, i) => (
+        <Marker key={`crossing-${i}`} position={ll(c)} icon={icon('crossing', `The outline crosses itself near ${formatLatLonDeg({ ...c, decimals: 2 })}`, 22)} interactive={false} keyboard={false} zIndexOffset={800} />
+      ))}
+    </>
+  )
+}
+
+function AddOnClick({ onAdd }: { onAdd: (p: MapPoint) => void }) {
+  useMapEvents({ click: (e) => onAdd({ latDeg: e.latlng.lat, lonDeg: normalizeLonDeg(e.latlng.lng) }) })
+  return null
+}
+
+const VERTEX_ICON = L.divIcon({ className: 'qb-map-icon qb-map-vertex', html: `<span aria-hidden="true">${symbolSvg('vertex', 20)}</span>`, iconSize: [20, 20], iconAnchor: [10, 10] })
+
+/** One corner: dragged with a pointer, or focused with Tab and moved by arrow keys (a step of a few pixels at the map's zoom). */
+function VertexMarker({ index, vertices, onChange }: { index: number; vertices: MapPoint[]; onChange: (vertices: MapPoint[]) => void }) {
+  const map = useMap()
+  const marker = useRef<L.Marker>(null)
+  const latest = useRef({ vertices, onChange })
+  latest.current = { vertices, onChange }
+  const v = vertices[index]!
+  const name = `Corner ${index + 1} of ${vertices.length}, ${formatLatLonDeg(v)}. Arrow keys move it; Delete removes it.`
+  useEffect(() => {
+    const el = marker.current?.getElement()
+    if (!el) return
+    el.setAttribute('aria-label', name)
+  }, [name])
+  useEffect(() => {
+    const el = marker.current?.getElement()
+    if (!el) return
+    const onKey = (e: KeyboardEvent) => {
+      const { vertices: now, onChange: change } = latest.current
+      const at = now[index]
+      if (!at) return
+      const c = map.latLngToContainerPoint([at.latDeg, at.lonDeg])
+      const off = map.containerPointToLatLng([c.x + 6, c.y - 6])
+      const step = { latDeg: Math.max(1e-4, Math.abs(off.lat - at.latDeg)), lonDeg: Math.max(1e-4, Math.abs(off.lng - at.lonDeg)) }
+      const next = verticesAfterKey(now, index, e.key, step)
+      if (!next) return
+      e.preventDefault()
+      e.stopPropagation()
+      change(next)
+    }
+    el.addEventListener('keydown', onKey)
+    return () => el.removeEventListener('keydown', onKey)
+  }, [map, index])
+  return (
+    <Marker
+      ref={marker}
+      position={ll(v)}
+      icon={VERTEX_ICON}
+      draggable
+      keyboard
+      zIndexOffset={600}
+      eventHandlers={{
+        // a click on a corner is not a new corner
+        click: () => undefined,
+        dragend: (e) => {
+          const p = (e.target as L.Marker).getLatLng()
+          onChange(moveVertex(vertices, index, { latDeg: p.lat, lonDeg: normalizeLonDeg(p.lng) }))
+        },
+      }}
+    />
+  )
 }
 
 function PickOnClick({ onPick }: { onPick: (latDeg: number, lonDeg: number) => void }) {

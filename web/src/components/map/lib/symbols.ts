@@ -22,7 +22,7 @@ export const MAP_COLOURS = {
   harm4: '#4a5562',
 } as const
 
-export type SymbolKind = 'victim' | 'measurement' | 'bearing' | 'source' | 'ellipse' | 'station' | 'office' | 'officeArea' | 'nearbyCase' | 'region' | 'harm1' | 'harm2' | 'harm3' | 'harm4'
+export type SymbolKind = 'victim' | 'measurement' | 'bearing' | 'source' | 'ellipse' | 'station' | 'office' | 'officeArea' | 'nearbyCase' | 'region' | 'harm1' | 'harm2' | 'harm3' | 'harm4' | 'areaDraft' | 'vertex' | 'crossing'
 
 const C = MAP_COLOURS
 const svg = (size: number, body: string) => `<svg xmlns="http://www.w3.org/2000/svg" width="${size}" height="${size}" viewBox="-12 -12 24 24" aria-hidden="true" focusable="false">${body}</svg>`
@@ -59,6 +59,13 @@ export function symbolSvg(kind: SymbolKind, size = 24): string {
       return svg(size, `<circle r="6" fill="${C.surface}" stroke="${C.harm4}" stroke-width="2.5"/>`)
     case 'region':
       return svg(size, `<path d="M-10 -6H10V6H-10Z" fill="${C.paper}" stroke="${C.ink}" stroke-width="2.5"/>`)
+    // the area editor: the outline being drawn (solid, unlike the dashed areas on record), its corners, where it crosses itself
+    case 'areaDraft':
+      return svg(size, `<path d="M-9 7L-6 -8L9 -3L6 8Z" fill="${C.office}" fill-opacity="0.15" stroke="${C.office}" stroke-width="2.5" stroke-linejoin="round"/>`)
+    case 'vertex': // an open square, a handle
+      return svg(size, `<rect x="-7" y="-7" width="14" height="14" fill="${C.surface}" stroke="${C.office}" stroke-width="3"/>`)
+    case 'crossing': // a cross in a ring
+      return svg(size, `<circle r="9" fill="${C.surface}" stroke="${C.source}" stroke-width="2.5"/><path d="M-4.5 -4.5L4.5 4.5M4.5 -4.5L-4.5 4.5" stroke="${C.source}" stroke-width="3"/>`)
   }
 }
 

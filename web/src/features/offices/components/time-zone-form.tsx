@@ -12,7 +12,7 @@ import type { Office } from '../api/get-offices'
 import { useSetTimeZone } from '../api/set-time-zone'
 
 /** Every IANA zone the platform knows (Intl.supportedValuesOf), the office's own kept when absent. */
-function zoneOptions(current: string): { value: string; label: string }[] {
+export function zoneOptions(current: string): { value: string; label: string }[] {
   const known = typeof Intl.supportedValuesOf === 'function' ? Intl.supportedValuesOf('timeZone') : []
   // the platform's list may leave out UTC itself; an office's own zone is always offered
   const all = [...new Set([current, 'UTC', ...known])].sort((a, b) => a.localeCompare(b))

@@ -5,6 +5,7 @@
  */
 import { useState } from 'react'
 import { ERASED_CASE_FIELDS, type ErasedCaseField } from '@shared/domain/retention'
+import type { RetentionPlanCase } from '@shared/schemas/retention'
 import { Button } from '@/components/ui/button'
 import { Loading } from '@/components/ui/loading'
 import { QueryError } from '@/components/ui/query-error'
@@ -15,10 +16,21 @@ const FIELD_LABELS: Record<ErasedCaseField, string> = {
   complainantEmail: 'e-mail',
   complainantPhone: 'phone',
   complainantOrganisation: 'organisation',
+  address: 'address (the position is kept, rounded to 0.01°)',
   description: 'description (redacted copy)',
   patternDetail: 'pattern detail (redacted copy)',
 }
 const KEPT_REASONS = { legal_hold: 'legal hold', open_follow_up: 'open follow-up' } as const
+const plural = (n: number, one: string, many: string) => `${n} ${n === 1 ? one : many}`
+
+/** What becomes of the complainant's account, in words. */
+function accountWords(account: RetentionPlanCase['account']): string | null {
+  if (!account) return null
+  if (account.outcome === 'deactivated') return 'account closed (name and e-mail erased)'
+  if (account.reason === 'other_cases') return `account kept: has ${plural(account.otherCases, 'other case', 'other cases')}`
+  if (account.reason === 'signed_in') return `account kept: signed in on ${account.lastSignedInAt.slice(0, 10)}`
+  return 'account kept: not a complainant account'
+}
 
 export function RetentionDryRun() {
   const [asked, setAsked] = useState(false)
@@ -48,9 +60,17 @@ export function RetentionDryRun() {
                   {c.fields.length > 0 ? ERASED_CASE_FIELDS.filter((f) => c.fields.includes(f)).map((f) => FIELD_LABELS[f]).join(', ') : 'personal data already erased'}
                   {c.redactedEventIds.length > 0 && `; ${c.redactedEventIds.length} timeline entr${c.redactedEventIds.length === 1 ? 'y' : 'ies'} redacted`}
                   {c.evidence.length > 0 && `; ${c.evidence.length} evidence file${c.evidence.length === 1 ? '' : 's'} deleted`}
+                  {c.evidence.some((e) => e.thumbnailKey) && ` (with ${plural(c.evidence.filter((e) => e.thumbnailKey).length, 'thumbnail', 'thumbnails')})`}
+                  {c.fileNames.length > 0 && `; ${plural(c.fileNames.length, 'file name', 'file names')} replaced`}
+                  {c.mergeEventIds.length > 0 && `; ${plural(c.mergeEventIds.length, 'merge entry', 'merge entries')} of other cases redacted`}
+                  {c.queuedMails.length > 0 && `; ${plural(c.queuedMails.length, 'unsent e-mail', 'unsent e-mails')} cancelled`}
+                  {accountWords(c.account) && `; ${accountWords(c.account)}`}
                 </li>
               ))}
             </ul>
+          )}
+          {run.data.pendingDisposals.length > 0 && (
+            <p className="text-sm">Left over from an earlier run: {plural(run.data.pendingDisposals.length, 'object deletion', 'object deletions')} to finish.</p>
           )}
           {run.data.kept.length > 0 && (
             <p className="text-sm">
