@@ -27,8 +27,8 @@ async function clickMapAt(page: Page, p: { latDeg: number; lonDeg: number }): Pr
   const box = { southDeg: 47.2, northDeg: 48.6, westDeg: -32.2, eastDeg: -29.8 }
   const outline = page.getByRole('img', { name: 'Boundary of Vellmark Coast' })
   await page.getByRole('region', { name: MAP }).scrollIntoViewIfNeeded()
-  // the map fits itself to the region and every office (API tests add offices of their own far
-  // off): wait until the outline stops moving before reading where it is
+  // the map fits itself to the region (offices other test files add far off are drawn, not
+  // framed): wait until the outline stops moving before reading where it is
   let frame = (await outline.boundingBox())!
   for (let i = 0; i < 20; i++) {
     await page.waitForTimeout(150)

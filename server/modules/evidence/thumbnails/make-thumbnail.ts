@@ -50,6 +50,7 @@ function refusalMessage(err: unknown): string {
     return `No thumbnail: the image declares more than ${THUMBNAIL_MAX_INPUT_PIXELS / 1e6} megapixels (a decompression bomb or an unusually large scan). The file itself is kept unchanged.`
   }
   if (err instanceof HttpError && err.status === 503) return 'No thumbnail yet: the file store could not be reached.'
+  if (err instanceof HttpError && err.code === 'stored_object_missing') return 'No thumbnail: the stored copy of the file is missing from the file store.'
   return `No thumbnail: the image cannot be read (${text}). The file itself is kept unchanged.`
 }
 
@@ -70,7 +71,8 @@ export async function runEvidenceThumbnail(deps: { db: Db; objectStore?: ObjectS
     }
     await recordThumbnailDone(deps.db, e.id, { objectKey, contentType: THUMBNAIL_CONTENT_TYPE, widthPx: made.widthPx, heightPx: made.heightPx, sizeBytes: made.data.length })
   } catch (err) {
-    if (!(err instanceof ThumbnailRefused)) log().warn({ err, evidenceId }, 'evidence thumbnail not made')
+    if (err instanceof HttpError && err.code === 'stored_object_missing') log().warn({ evidenceId }, 'evidence thumbnail not made: the stored object is missing')
+    else if (!(err instanceof ThumbnailRefused)) log().warn({ err, evidenceId }, 'evidence thumbnail not made')
     await recordThumbnailFailed(deps.db, e.id, refusalMessage(err))
   }
 }

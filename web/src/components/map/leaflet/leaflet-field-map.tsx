@@ -6,7 +6,7 @@
  */
 import 'leaflet/dist/leaflet.css'
 import './field-map.css'
-import { Fragment, useEffect, useId, useMemo, useRef } from 'react'
+import { Fragment, useEffect, useId, useMemo, useRef, useState } from 'react'
 import L from 'leaflet'
 import { MapContainer, Marker, Pane, Polygon, Polyline, ScaleControl, TileLayer, Tooltip, useMap, useMapEvents } from 'react-leaflet'
 import { geodesicDirect, normalizeLonDeg } from '@shared/radio/geo'
@@ -59,14 +59,17 @@ export default function LeafletFieldMap(props: Props) {
   const tiles = data?.basemap.kind === 'tiles' ? data.basemap : null
   const regionBox = useMemo(() => (region ? boxOfGeometries([region.outline]) : null), [region])
 
-  // What the map frames: the case's layers; offices and the region are context, framed only in
-  // pick mode or when there is nothing else. A picked point is kept in view by panning, not by a
-  // new fit, so a click never jumps the map.
+  // What the map frames: the case's layers; the region (or, without one, the offices) is context,
+  // framed only in pick mode or when there is nothing else — an office set up far off does not
+  // shrink the region to a speck. A picked point is kept in view by panning, not by a new fit, so
+  // a click never jumps the map.
   const { victim, measurements, bearings, estimatedSource, candidateStations, nearbyCases } = props
+  // the area being edited as it was on first show is framed too (later corners do not refit the map)
+  const [editedAtFirst] = useState(() => (areaEditor ? [...(areaEditor.fixedArea ? [areaEditor.fixedArea] : []), ...areaEditor.vertices.map((v) => ({ type: 'Point', coordinates: [v.lonDeg, v.latDeg] }))] : []))
   const fitBox = useMemo(() => {
     const content = onPick ? null : contentBox({ victim, measurements, bearings, estimatedSource, candidateStations, nearbyCases })
-    return content ?? contentBox({ offices }, region ? [region.outline] : [])
-  }, [onPick, victim, measurements, bearings, estimatedSource, candidateStations, nearbyCases, offices, region])
+    return content ?? (region ? contentBox({}, [region.outline, ...editedAtFirst]) : contentBox({ offices }, editedAtFirst))
+  }, [onPick, victim, measurements, bearings, estimatedSource, candidateStations, nearbyCases, offices, region, editedAtFirst])
 
   const caseLayers = !!(victim && !onPick) || !!(measurements?.length || bearings?.length || estimatedSource || candidateStations?.length || nearbyCases?.length)
   const entries = legendEntries({ ...props, officeCount: offices.length, officeAreas: offices.some((o) => o.area), region: !!region && !tiles })
