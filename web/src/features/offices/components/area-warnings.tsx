@@ -6,7 +6,7 @@ export function AreaWarnings({ warnings, title }: { warnings: AreaWarning[]; tit
   if (warnings.length === 0) return null
   return (
     <Notice tone="caution" title={title}>
-      <ul className="flex list-disc flex-col gap-1 pl-5">
+      <ul className="flex list-disc flex-col gap-1 pl-5 [overflow-wrap:anywhere]">
         {warnings.map((w, i) => (
           <li key={`${w.code}-${w.otherOfficeId ?? i}`}>{w.message}</li>
         ))}
