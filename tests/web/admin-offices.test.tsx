@@ -20,6 +20,10 @@ describe('the administrator’s offices page', () => {
     expect(await screen.findByRole('heading', { name: /Targets and time zone — Tarnwick Field Office/ })).toBeInTheDocument()
     expect(screen.queryByRole('heading', { name: /Targets and time zone — Orless Field Office/ })).not.toBeInTheDocument()
     expect(screen.getAllByRole('row').map((r) => r.textContent).join(' ')).toMatch(/Orless Field Office/)
+    // each row gives the address, and says when an office has no area of its own
+    const tarnwick = screen.getByRole('rowheader', { name: /Tarnwick Field Office/ }).closest('tr')!
+    expect(tarnwick.textContent).toContain('4 Quay Row, Tarnwick')
+    expect(tarnwick.textContent).toContain('No area drawn: takes reports only as the nearest office')
 
     await user.selectOptions(screen.getByRole('combobox', { name: 'Settings of the office' }), 'Orless Field Office')
     expect(await screen.findByRole('heading', { name: /Targets and time zone — Orless Field Office/ })).toBeInTheDocument()

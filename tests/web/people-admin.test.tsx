@@ -103,5 +103,20 @@ describe('the users page', () => {
     await waitFor(() => expect(sent).toHaveLength(1))
     expect(sent[0]!.body).toEqual({ active: true })
     expect(await within(await rowOf('Morven Achterberg')).findByText('Active')).toBeInTheDocument()
+    expect(await screen.findByText('Morven Achterberg can sign in again.')).toBeInTheDocument()
+  })
+
+  it('deactivates an investigator and says their open cases went back to triage', async () => {
+    const held = [ilse, never]
+    serve(held)
+    const sent = answer('patch', '/api/admin/users/:id', () => {
+      held[0] = { ...ilse, active: false }
+      return personChangedResponseSchema.parse({ user: held[0], sessionsEnded: 1, casesReturnedToTriage: 2 })
+    })
+    const { user } = openPage()
+    await user.click(within(await rowOf('Ilse Brannock')).getByRole('button', { name: /^Deactivate\s*Ilse Brannock$/ }))
+    await waitFor(() => expect(sent).toHaveLength(1))
+    expect(sent[0]!.body).toEqual({ active: false })
+    expect(await screen.findByText('Ilse Brannock is deactivated and signed out everywhere (1 session ended); 2 open cases went back to the office\'s triage.')).toBeInTheDocument()
   })
 })

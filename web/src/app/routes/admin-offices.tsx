@@ -33,7 +33,7 @@ export function Component() {
   const chosen = all.find((o) => o.id === search.get('officeId')) ?? all[0]
   return (
     <>
-      <PageHeader title="Offices" lead={<p>Each office answers reports from its region, against its own response targets per harm class.</p>} />
+      <PageHeader title="Offices" lead={<p>Each office answers the reports filed inside its area (outside every area, the nearest office), against its own response targets per harm class.</p>} />
       <div className="flex flex-col gap-6">
         {saved && (
           <Notice tone={saved.warnings.length ? 'caution' : 'ok'} title={`${saved.created ? 'Created' : 'Saved'}: ${saved.name}.`} live>

@@ -1,6 +1,8 @@
 /** /admin/users — every account and its last sign-in; add staff; move staff between roles and offices; let accounts in or keep them out. */
 import { useState } from 'react'
+import type { PersonChangedResponse } from '@shared/schemas/people'
 import { FormAlert } from '@/components/ui/form-alert'
+import { Notice } from '@/components/ui/notice'
 import { Loading } from '@/components/ui/loading'
 import { PageHeader } from '@/components/ui/page-header'
 import { Panel } from '@/components/ui/panel'
@@ -14,12 +16,20 @@ import { useMe } from '@/features/auth/api/get-me'
 import { useOffices } from '@/features/offices/api/get-offices'
 import { formProblem, type FormProblem } from '@/lib/form-errors'
 
+/** What a deactivation or reactivation did, in words: who, sessions ended, cases back to triage. */
+function activeOutcomeWords(name: string, active: boolean, r: PersonChangedResponse): string {
+  if (active) return `${name} can sign in again.`
+  const cases = r.casesReturnedToTriage === 1 ? '1 open case went' : `${r.casesReturnedToTriage} open cases went`
+  return `${name} is deactivated and signed out everywhere (${r.sessionsEnded} session${r.sessionsEnded === 1 ? '' : 's'} ended); ${cases} back to the office's triage.`
+}
+
 export function Component() {
   const users = useUsers()
   const offices = useOffices()
   const me = useMe()
   const setActive = useSetUserActive()
   const [problem, setProblem] = useState<FormProblem | null>(null)
+  const [outcome, setOutcome] = useState<string | null>(null)
   const [editingId, setEditingId] = useState<string | null>(null)
   const editing = users.data?.users.find((u) => u.id === editingId) ?? null
 
@@ -29,6 +39,7 @@ export function Component() {
       <div className="flex flex-col gap-8">
         <section aria-label="All users" className="flex flex-col gap-3">
           <FormAlert problem={problem} />
+          {outcome && <Notice tone="ok" title={outcome} live />}
           {users.isPending && <Loading label="Loading users…" />}
           {users.isError && <QueryError error={users.error} what="users" onRetry={() => void users.refetch()} />}
           {users.data && (
@@ -38,7 +49,11 @@ export function Component() {
               pendingUserId={setActive.isPending ? (setActive.variables?.userId ?? null) : null}
               onSetActive={(user, active) => {
                 setProblem(null)
-                setActive.mutate({ userId: user.id, active }, { onError: (error) => setProblem(formProblem(error)) })
+                setOutcome(null)
+                setActive.mutate(
+                  { userId: user.id, active },
+                  { onError: (error) => setProblem(formProblem(error)), onSuccess: (r) => setOutcome(activeOutcomeWords(user.name, active, r)) },
+                )
               }}
               onEdit={(user) => setEditingId(user.id)}
             />

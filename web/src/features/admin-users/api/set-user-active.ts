@@ -2,10 +2,12 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query'
 import { api } from '@/lib/api-client'
 import { userKeys } from '@/lib/query-keys'
+import type { PersonChangedResponse } from '@shared/schemas/people'
 import type { AdminUser } from './get-users'
 
+/** Answers the account and what followed: sessions ended, open cases returned to triage. */
 export const setUserActive = (options: { userId: string; active: boolean }) =>
-  api.patch<{ user: AdminUser }>(`/api/admin/users/${encodeURIComponent(options.userId)}`, { active: options.active })
+  api.patch<PersonChangedResponse>(`/api/admin/users/${encodeURIComponent(options.userId)}`, { active: options.active })
 
 export function useSetUserActive() {
   const queryClient = useQueryClient()

@@ -1,4 +1,4 @@
-/** Offices with their region, centre and response targets (hours per priority). */
+/** Offices with their address, area, position and resolution targets (hours per harm class). */
 import { PriorityShape } from '@/components/ui/priority-badge'
 import { PRIORITIES, PRIORITY_LABELS, type Priority } from '@shared/domain/services'
 import { TableFrame } from '@/components/ui/table'
@@ -11,8 +11,8 @@ export function OfficesTable({ offices }: { offices: Office[] }) {
   const head = (
     <tr>
       <th scope="col" className="px-4 py-3">Office</th>
-      <th scope="col" className="px-4 py-3">Region</th>
-      <th scope="col" className="px-4 py-3">Centre (lat, lon)</th>
+      <th scope="col" className="px-4 py-3">Area</th>
+      <th scope="col" className="px-4 py-3">Position (lat, lon)</th>
       {PRIORITIES.map((level) => (
         <th key={level} scope="col" className="px-4 py-3 text-right">
           <span className="inline-flex items-center gap-1.5">
@@ -29,8 +29,14 @@ export function OfficesTable({ offices }: { offices: Office[] }) {
     <TableFrame caption="Field offices" head={head}>
       {offices.map((o) => (
         <tr key={o.id} className="border-b border-rule last:border-b-0">
-          <th scope="row" className="px-4 py-3 font-semibold">{o.name}</th>
-          <td className="px-4 py-3">{o.regionName}</td>
+          <th scope="row" className="px-4 py-3 font-semibold [overflow-wrap:anywhere]">
+            {o.name}
+            {o.address && <span className="block text-sm font-normal text-ink-muted">{o.address}</span>}
+          </th>
+          <td className="px-4 py-3">
+            {o.regionName}
+            {!o.area && <span className="block text-sm text-ink-muted">No area drawn: takes reports only as the nearest office</span>}
+          </td>
           <td className="px-4 py-3 font-mono text-sm">
             {o.centreLatDeg.toFixed(4)}°, {o.centreLonDeg.toFixed(4)}°
           </td>
