@@ -42,7 +42,7 @@ export const MAIL_KINDS = {
     when: 'A complainant adds information to a case assigned to you.',
     whenFor: { supervisor: 'A complainant adds information to a case of your office that no investigator is working on.' },
   },
-  officeDigestMail: { to: ['supervisor'], when: 'Every morning (07:00 office time): overdue cases and follow-ups due or overdue in your office.' },
+  officeDigestMail: { to: ['supervisor'], when: 'Every morning (07:00 office time), sent only on days with something late or due: overdue cases and follow-ups due or overdue in your office.' },
 } as const satisfies Record<string, MailKind>
 
 export type MailKindName = keyof typeof MAIL_KINDS

@@ -1,8 +1,10 @@
 /**
  * The office's morning digest: once a follow-up's deadline has passed it is overdue, and the
- * digest e-mailed to each supervisor of the office lists it with the office's overdue cases;
- * it goes out at 07:00 office time (its IANA zone, not UTC) or the first check after, once per
- * local day, whatever restarts or second checks follow; the pg-boss job runs the check.
+ * digest e-mailed to each supervisor of the office lists it with the office's overdue cases,
+ * their due times in the office's zone; it goes out at 07:00 office time (its IANA zone, not
+ * UTC) or the first check after, once per local day, whatever restarts or second checks
+ * follow, and only on a day with something late or due (that day is recorded with no
+ * recipients and settled); the pg-boss job runs the check.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { createTestContext, type TestContext } from '../support/harness'
@@ -19,6 +21,8 @@ beforeAll(async () => {
 afterAll(() => t?.close())
 
 const digestsTo = async (email: string) => (await queuedMails(t.pool, email)).filter((m) => m.subject.includes('overdue cases and follow-ups'))
+const daysRecorded = async (officeId: string) =>
+  (await t.pool.query(`SELECT to_char(local_day, 'YYYY-MM-DD') AS day, recipients FROM digest_sends WHERE office_id = $1 ORDER BY local_day`, [officeId])).rows
 
 describe('the office digest', () => {
   it('lists a follow-up whose deadline has passed and the overdue cases, once per local day at 07:00 office time', async () => {
@@ -49,6 +53,8 @@ describe('the office digest', () => {
       expect(mail!.text).toMatch(/Overdue cases \(1\):/)
       expect(mail!.text).toContain(late.reference)
       expect(mail!.text).toContain(`/cases/${c.id}`)
+      // an empty section of a digest that is sent still says so
+      expect(mail!.text).toContain('Follow-ups due today: none.')
     }
     // the investigator gets no digest
     expect(await digestsTo(c.investigator!.email)).toEqual([])
@@ -64,21 +70,66 @@ describe('the office digest', () => {
     expect(await digestsTo(second.email)).toHaveLength(2)
   })
 
-  it('says "none" when nothing is late, and skips an office without an active supervisor', async () => {
-    const quiet = await makeOffice(t, { timeZone: 'Asia/Tokyo' })
+  it('sends nothing on a day with nothing late or due, records the day as settled, and skips an office without an active supervisor', async () => {
+    const timeZone = 'Asia/Tokyo'
+    const quiet = await makeOffice(t, { timeZone })
     const sup = await makeUser(t, { role: 'supervisor', office: quiet })
     const empty = await makeOffice(t)
+    const day = dayFromToday(2)
+    // a case due at 09:00 office time that day: not yet late at the 07:30 check
+    const c = await makeCase(t, { office: quiet, state: 'triaged', priority: 2, supervisor: sup })
+    await t.pool.query(`UPDATE cases SET due_at = $2 WHERE id = $1`, [c.id, atLocal(day, 9, 0, timeZone)])
+
+    const run = await runOfficeDigests(t.services, atLocal(day, 7, 30, timeZone), { officeIds: [quiet.id, empty.id] })
+    expect(run.sent).toEqual([])
+    expect(run.nothingToReport).toEqual([{ officeId: quiet.id, localDay: day }])
+    expect(await digestsTo(sup.email)).toEqual([])
+    expect(await daysRecorded(quiet.id)).toEqual([{ day, recipients: 0 }])
+    // the office without a supervisor: nothing sent and nothing recorded, so it is checked again later
+    expect(await daysRecorded(empty.id)).toEqual([])
+
+    // the case falls late at 09:00; the noon check leaves the settled day alone (the next morning reports it)
+    const noon = await runOfficeDigests(t.services, atLocal(day, 12, 0, timeZone), { officeIds: [quiet.id] })
+    expect(noon).toEqual({ sent: [], nothingToReport: [] })
+    expect(await digestsTo(sup.email)).toEqual([])
+
+    // the next morning: the late case, in one digest
+    const next = dayFromToday(1, new Date(`${day}T12:00:00Z`))
+    const morning = await runOfficeDigests(t.services, atLocal(next, 7, 5, timeZone), { officeIds: [quiet.id] })
+    expect(morning.sent).toEqual([{ officeId: quiet.id, localDay: next, recipients: 1 }])
+    const [mail, ...more] = await digestsTo(sup.email)
+    expect(more).toEqual([])
+    expect(mail!.text).toMatch(/Overdue cases \(1\):/)
+    expect(mail!.text).toContain(c.reference)
+    expect(await daysRecorded(quiet.id)).toEqual([
+      { day, recipients: 0 },
+      { day: next, recipients: 1 },
+    ])
+  })
+
+  it("writes a case's due time in the office's zone, naming the zone", async () => {
+    const timeZone = 'Atlantic/Azores'
+    const office = await makeOffice(t, { timeZone })
+    const sup = await makeUser(t, { role: 'supervisor', office })
+    const c = await makeCase(t, { office, state: 'triaged', priority: 2, supervisor: sup })
+    // 10:30 UTC on 1 Dec 2026; the Azores keep UTC−1 in winter (standard time, no summer time
+    // in December), so the office reads 09:30 (worked by hand from the zone's offset)
+    await t.pool.query(`UPDATE cases SET due_at = '2026-12-01T10:30:00Z' WHERE id = $1`, [c.id])
     const day = dayFromToday(1)
-    const run = await runOfficeDigests(t.services, atLocal(day, 7, 30, 'Asia/Tokyo'), { officeIds: [quiet.id, empty.id] })
-    expect(run.sent.map((s) => s.officeId)).toEqual([quiet.id])
+    const run = await runOfficeDigests(t.services, atLocal(day, 7, 15, timeZone), { officeIds: [office.id] })
+    expect(run.sent).toEqual([{ officeId: office.id, localDay: day, recipients: 1 }])
     const [mail] = await digestsTo(sup.email)
-    expect(mail!.text).toContain('Overdue cases: none.')
-    expect(mail!.text).toContain('Follow-ups overdue: none.')
+    // triaged, not yet assigned
+    expect(mail!.text).toContain(`${c.reference} — due 1 Dec 2026, 09:30 (Atlantic/Azores), no investigator`)
+    expect(mail!.text).not.toContain('UTC')
   })
 
   it('is run by the pg-boss job, whose clock the test sets', async () => {
     const office = await makeOffice(t, { timeZone: 'Europe/Lisbon' })
     const sup = await makeUser(t, { role: 'supervisor', office })
+    // something late, or the day would send nothing: a case due long before the job's clock
+    const late = await makeCase(t, { office, state: 'triaged', priority: 2, supervisor: sup })
+    await t.pool.query(`UPDATE cases SET due_at = now() - interval '2 hours' WHERE id = $1`, [late.id])
     const day = dayFromToday(5)
     const queueName = `office-digest-test-${process.pid}-${Math.random().toString(36).slice(2, 8)}`
     // the job's clock: 07:10 in Lisbon on that day (only this office, so other files' offices are left alone)

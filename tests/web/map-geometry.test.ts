@@ -6,7 +6,7 @@ import { describe, expect, it } from 'vitest'
 import { geodesicInverse } from '../../shared/radio/geo'
 import type { RegionMap } from '../../shared/schemas/region'
 import { boxOfGeometries, positionsOf } from '@/components/map/lib/map-box'
-import { bearingLine, contentBox, ellipseRing, round4 } from '@/components/map/lib/map-geometry'
+import { areaLatLngs, bearingLine, contentBox, densifyRing, EDGE_STEP_DEG, ellipseRing, round4 } from '@/components/map/lib/map-geometry'
 import { regionMapData } from '@/components/map/lib/region-data'
 import { escapeHtml } from '@/components/map/lib/symbols'
 import { legendEntries } from '@/components/map/map-legend'
@@ -171,5 +171,28 @@ describe('the map key', () => {
 
   it('writes a tile server’s credit as text, never as markup', () => {
     expect(escapeHtml('© <b>Tiles</b> & "Co"')).toBe('© &lt;b&gt;Tiles&lt;/b&gt; &amp; &quot;Co&quot;')
+  })
+})
+
+describe('areas drawn as the routing reads them', () => {
+  it('split a long edge into steps of at most 0.02°, on the straight line in latitude and longitude, keeping every corner', () => {
+    // the demo's diagonal border: 1.4° of latitude and 1.834° of longitude
+    const ring: [number, number][] = [[47.2, -31.853], [48.6, -30.019], [48.6, -32.2], [47.2, -31.853]]
+    const dense = densifyRing(ring)
+    for (const corner of ring) expect(dense).toContainEqual(corner)
+    for (let i = 1; i < dense.length; i++) {
+      const [a, b] = [dense[i - 1]!, dense[i]!]
+      expect(Math.max(Math.abs(b[0] - a[0]), Math.abs(b[1] - a[1]))).toBeLessThanOrEqual(EDGE_STEP_DEG + 1e-12)
+    }
+    // a point of the first edge lies on the line from its first corner to its second (plain linear interpolation)
+    const mid = dense[Math.ceil(1.834 / EDGE_STEP_DEG / 2)]!
+    const t = (mid[1] - -31.853) / (-30.019 - -31.853)
+    expect(mid[0]).toBeCloseTo(47.2 + 1.4 * t, 9)
+  })
+
+  it('leave short edges as they are', () => {
+    const ring: [number, number][] = [[48, -31], [48.01, -31], [48.01, -30.99], [48, -31]]
+    expect(densifyRing(ring)).toEqual(ring)
+    expect(areaLatLngs({ type: 'Polygon', coordinates: [ring.map(([lat, lon]) => [lon, lat])] })).toEqual([[ring]])
   })
 })

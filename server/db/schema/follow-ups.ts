@@ -112,6 +112,7 @@ export type FollowUpRow = typeof followUps.$inferSelect
 /**
  * The office digest sent for a local day: written in the transaction that queues the e-mails,
  * so a second run (another process, a restart) finds the row and sends nothing (append-only).
+ * A day with nothing late or due is recorded with no recipients (0) and no e-mail.
  */
 export const digestSends = pgTable(
   'digest_sends',

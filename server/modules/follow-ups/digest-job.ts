@@ -29,6 +29,7 @@ export async function startDigestWorker(
     try {
       const run = await runOfficeDigests(deps, now(), { officeIds: opts.officeIds })
       if (run.sent.length > 0) log().info(`office digest sent for ${run.sent.length} office(s)`)
+      if (run.nothingToReport.length > 0) log().info(`office digest: nothing late or due for ${run.nothingToReport.length} office(s), none sent`)
     } catch (err) {
       log().error({ err, jobId: job.id }, 'office digest check failed')
     } finally {

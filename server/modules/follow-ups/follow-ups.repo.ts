@@ -136,9 +136,16 @@ export function overdueCasesOf(db: Db, officeId: string, now: Date): Promise<{ i
     .orderBy(asc(cases.dueAt))
 }
 
+/** Whether the office's digest day is already recorded (sent, or settled with nothing to report). */
+export async function digestRecorded(db: Db, officeId: string, localDay: string): Promise<boolean> {
+  const rows = await db.select({ officeId: digestSends.officeId }).from(digestSends).where(and(eq(digestSends.officeId, officeId), eq(digestSends.localDay, localDay)))
+  return rows.length > 0
+}
+
 /**
  * Claims the office's digest for a local day: true when this call wrote the record (and its
- * transaction then queues the e-mails), false when it had been sent already.
+ * transaction then queues the e-mails, none when `recipients` is 0: nothing to report), false
+ * when the day had been recorded already.
  */
 export async function claimDigest(db: Db, officeId: string, localDay: string, recipients: number): Promise<boolean> {
   const rows = await db.insert(digestSends).values({ officeId, localDay, recipients }).onConflictDoNothing().returning({ officeId: digestSends.officeId })

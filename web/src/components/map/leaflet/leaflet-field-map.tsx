@@ -15,7 +15,7 @@ import { MapLegend, legendEntries } from '../map-legend'
 import type { FieldMapProps, MapAreaEditor, MapPoint } from '../map-types'
 import { addVertex, moveVertex, verticesAfterKey } from '../lib/area-vertices'
 import { boxOfGeometries, type GeoBox } from '../lib/map-box'
-import { areaLatLngs, bearingLine, contentBox, ellipseRing, round4 } from '../lib/map-geometry'
+import { areaLatLngs, bearingLine, contentBox, densifyRing, ellipseRing, round4 } from '../lib/map-geometry'
 import type { RegionMapData } from '../lib/region-data'
 import { MAP_COLOURS as C, escapeHtml, symbolSvg, type SymbolKind } from '../lib/symbols'
 
@@ -234,7 +234,7 @@ function MapSetup({ label, describedBy, attribution }: { label: string; describe
  */
 function AreaEditorLayer({ editor, drawing }: { editor: MapAreaEditor; drawing: boolean }) {
   const { vertices, onChange, crossings, fixedArea } = editor
-  const line = vertices.map(ll)
+  const line = densifyRing(vertices.map(ll))
   const style = { color: C.office, weight: 3, fillColor: C.office, fillOpacity: 0.15, interactive: false }
   return (
     <>
@@ -242,7 +242,7 @@ function AreaEditorLayer({ editor, drawing }: { editor: MapAreaEditor; drawing: 
       {fixedArea ? (
         <Polygon positions={areaLatLngs(fixedArea)} pathOptions={style} eventHandlers={named('The area being edited')} />
       ) : vertices.length >= 3 ? (
-        <Polygon positions={line} pathOptions={style} eventHandlers={named(`The area being edited: ${vertices.length} corners`)} />
+        <Polygon positions={densifyRing([...vertices, vertices[0]!].map(ll))} pathOptions={style} eventHandlers={named(`The area being edited: ${vertices.length} corners`)} />
       ) : vertices.length === 2 ? (
         <Polyline positions={line} pathOptions={style} />
       ) : null}

@@ -54,10 +54,30 @@ export function ellipseRing(options: { centre: MapPoint; ellipse: MapEllipse; ve
   return ring
 }
 
-/** A Polygon or MultiPolygon as Leaflet's nesting: polygons → rings → [lat, lon]. */
+/** Longest step [°] of a drawn edge: finer than a map pixel at the zooms the areas are read at. */
+export const EDGE_STEP_DEG = 0.02
+
+/**
+ * A ring's edges as the routing reads them — straight in longitude and latitude — split into
+ * steps of at most EDGE_STEP_DEG, so that Leaflet (which draws straight in Web Mercator) shows
+ * the same border: on a long diagonal edge the two differ by a few hundred metres at 48° N.
+ */
+export function densifyRing(ring: [number, number][]): [number, number][] {
+  const out: [number, number][] = []
+  ring.forEach(([lat, lon], i) => {
+    const next = ring[i + 1]
+    out.push([lat, lon])
+    if (!next) return
+    const steps = Math.ceil(Math.max(Math.abs(next[0] - lat), Math.abs(next[1] - lon)) / EDGE_STEP_DEG)
+    for (let k = 1; k < steps; k++) out.push([lat + ((next[0] - lat) * k) / steps, lon + ((next[1] - lon) * k) / steps])
+  })
+  return out
+}
+
+/** A Polygon or MultiPolygon as Leaflet's nesting: polygons → rings → [lat, lon], edges densified (densifyRing). */
 export function areaLatLngs(area: AreaGeometry): [number, number][][][] {
   const polygons = area.type === 'Polygon' ? [area.coordinates] : area.coordinates
-  return polygons.map((rings) => rings.map((ring) => ring.map(([lonDeg, latDeg]) => [latDeg!, lonDeg!] as [number, number])))
+  return polygons.map((rings) => rings.map((ring) => densifyRing(ring.map(([lonDeg, latDeg]) => [latDeg!, lonDeg!] as [number, number]))))
 }
 
 type Layers = Pick<FieldMapProps, 'victim' | 'measurements' | 'bearings' | 'estimatedSource' | 'candidateStations' | 'nearbyCases'> & {
