@@ -8,46 +8,29 @@
  * ('pending'), each marked 'done' once gone: when the store fails half-way, the next run
  * finishes the deletion and nothing is lost or recorded twice.
  */
-import crypto from 'node:crypto'
-import fs from 'node:fs'
-import os from 'node:os'
-import path from 'node:path'
-import { DeleteObjectCommand, HeadObjectCommand, PutObjectCommand, type S3Client } from '@aws-sdk/client-s3'
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { startS3Fake, type S3Fake } from '../../ops/local/s3-fake'
-import { createObjectStore, type ObjectStore } from '../../server/storage/object-store'
-import { closeCase, mergeCase, proposeFinding } from '../../server/modules/cases/case-moves.service'
+import { DeleteObjectCommand, type S3Client } from '@aws-sdk/client-s3'
+import { beforeAll, describe, expect, it } from 'vitest'
+import type { ObjectStore } from '../../server/storage/object-store'
+import { mergeCase } from '../../server/modules/cases/case-moves.service'
 import { runRetention } from '../../server/modules/retention/retention.service'
 import { retentionRunViewSchema, type RetentionPlanCase } from '../../shared/schemas/retention'
 import type { Office } from '../../server/db/schema'
-import { createTestContext, uniqueAddress, type TestContext } from '../support/harness'
+import type { TestContext } from '../support/harness'
 import { makeCase, makeOffice, makeUser, signIn } from '../support/factories'
 import { actionsOfPlan, recordedActions } from '../support/retention-actions'
+import { sha256, useRetentionTestContext } from '../support/retention'
 
-let fake: S3Fake
+const retention = useRetentionTestContext('retention-gaps')
+const { objectExists, expire, addThumbnail, closedCaseWithFile } = retention
 let store: ObjectStore
 let t: TestContext
-const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'qb-retention-gaps-s3-'))
 
-beforeAll(async () => {
-  process.env.AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED = 'true'
-  fake = await startS3Fake({ directory: dir, bucket: 'retention-gaps-test' })
-  store = createObjectStore({ ...fake, region: 'us-east-1', forcePathStyle: true, maxUploadBytes: 1024 * 1024 })
-  t = await createTestContext({ objectStore: store })
-}, 120_000)
-afterAll(async () => {
-  await t?.close()
-  await fake?.close()
-  fs.rmSync(dir, { recursive: true, force: true })
+beforeAll(() => {
+  t = retention.t
+  store = retention.store
 })
 
-const sha256 = (b: Buffer) => crypto.createHash('sha256').update(b).digest('hex')
 const marker = (at: Date) => `erased on ${at.toISOString().slice(0, 10)}`
-
-/** Moves a closed case's closing 30 months back: past the default 24-month period today. */
-async function expire(caseId: string) {
-  await t.pool.query(`UPDATE cases SET closed_at = closed_at - interval '30 months' WHERE id = $1`, [caseId])
-}
 
 /** The dry run, then the real run, of one office; the real run must answer what the dry run listed. */
 async function dryThenReal(office: Office, now = new Date(), services = t.services) {
@@ -56,55 +39,6 @@ async function dryThenReal(office: Office, now = new Date(), services = t.servic
   expect(real.cases).toEqual(dry.cases)
   expect(real.kept).toEqual(dry.kept)
   return { dry, real }
-}
-
-async function objectExists(key: string): Promise<boolean> {
-  try {
-    await store.client.send(new HeadObjectCommand({ Bucket: store.bucket, Key: key }))
-    return true
-  } catch (e) {
-    if ((e as { $metadata?: { httpStatusCode?: number } }).$metadata?.httpStatusCode === 404) return false
-    throw e
-  }
-}
-
-/** A case of the office in field work with one uploaded file, then closed with a finding. */
-async function closedCaseWithFile(office: Office, fileName: string, report: Parameters<typeof makeCase>[1]['report'] = {}) {
-  const c = await makeCase(t, { office, state: 'field_work', report })
-  const inv = await signIn(t, c.investigator!)
-  const bytes = Buffer.from(`capture of ${c.id}\n433.92,-61.5\n`)
-  const up = await inv
-    .post(`/api/cases/${c.id}/evidence`)
-    .set('X-Forwarded-For', uniqueAddress())
-    .field('kind', 'other')
-    .attach('file', bytes, { filename: fileName, contentType: 'text/csv' })
-  expect(up.status, JSON.stringify(up.body)).toBe(201)
-  const proposed = await proposeFinding(t.services, c.investigator!.actor, c.id, {
-    version: c.version,
-    sourceDescription: 'A mains adapter',
-    recommendedAction: 'advise_operator',
-    calculationIds: [],
-    evidenceIds: [],
-    summary: 'Adapter replaced.',
-  })
-  await closeCase(t.services, c.supervisor!.actor, c.id, { version: proposed.version, resolution: 'source_corrected', reason: 'Adapter replaced.' })
-  const { rows } = await t.pool.query<{ evidence_id: string; object_key: string; stored_file_id: string }>(
-    `SELECT e.id AS evidence_id, s.object_key, s.id AS stored_file_id FROM evidence_files e JOIN stored_files s ON s.id = e.stored_file_id WHERE e.case_id = $1`,
-    [c.id],
-  )
-  expect(rows).toHaveLength(1)
-  return { ...c, evidenceId: rows[0]!.evidence_id, objectKey: rows[0]!.object_key, storedFileId: rows[0]!.stored_file_id, bytes }
-}
-
-/** Gives the case's file a thumbnail, as the thumbnail job leaves one (object and row). */
-async function addThumbnail(c: { id: string; objectKey: string }): Promise<string> {
-  const key = `thumbnails/${c.objectKey}.webp`
-  await store.client.send(new PutObjectCommand({ Bucket: store.bucket, Key: key, Body: Buffer.from('thumbnail bytes'), ContentType: 'image/webp' }))
-  await t.pool.query(
-    `INSERT INTO evidence_thumbnails (evidence_id, state, object_key, content_type, width_px, height_px, size_bytes) SELECT id, 'done', $2, 'image/webp', 1, 1, 15 FROM evidence_files WHERE case_id = $1`,
-    [c.id, key],
-  )
-  return key
 }
 
 const onlyCase = (run: { cases: RetentionPlanCase[] }, id: string) => {

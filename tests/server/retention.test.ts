@@ -7,79 +7,36 @@
  * then removes; a second run does nothing new. An office's period shorter than its closed cases'
  * open follow-ups need is refused with nothing changed. Legal-hold routes by role.
  */
-import crypto from 'node:crypto'
-import fs from 'node:fs'
-import os from 'node:os'
-import path from 'node:path'
-import { HeadObjectCommand, PutObjectCommand } from '@aws-sdk/client-s3'
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { startS3Fake, type S3Fake } from '../../ops/local/s3-fake'
-import { createObjectStore, type ObjectStore } from '../../server/storage/object-store'
-import { closeCase, proposeFinding } from '../../server/modules/cases/case-moves.service'
-import { addComplainantInformation } from '../../server/modules/cases/case-notes.service'
+import { beforeAll, describe, expect, it } from 'vitest'
 import { runRetention } from '../../server/modules/retention/retention.service'
 import { startRetentionWorker } from '../../server/modules/retention/retention-job'
 import { retentionEndsAt } from '../../shared/domain/retention'
 import { legalHoldViewSchema, retentionRunViewSchema, retentionSettingViewSchema, type RetentionPlanCase } from '../../shared/schemas/retention'
 import type { Office } from '../../server/db/schema'
-import { createTestContext, uniqueAddress, type TestContext } from '../support/harness'
+import type { TestContext } from '../support/harness'
 import { actionsOfPlan, recordedActions } from '../support/retention-actions'
-import { makeCase, makeOffice, makeUser, signIn, type Agent, type TestCase } from '../support/factories'
+import { sha256, useRetentionTestContext } from '../support/retention'
+import { makeCase, makeOffice, makeUser, signIn, type Agent } from '../support/factories'
 import { closedWithDeadline, dayFromToday } from '../support/factories'
 
-let fake: S3Fake
-let store: ObjectStore
+const retention = useRetentionTestContext('retention')
+const { objectExists, expire, addThumbnail, closedCaseWithFile } = retention
 let t: TestContext
 let admin: Agent
-const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'qb-retention-s3-'))
 
 beforeAll(async () => {
-  process.env.AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED = 'true'
-  fake = await startS3Fake({ directory: dir, bucket: 'retention-test' })
-  store = createObjectStore({ ...fake, region: 'us-east-1', forcePathStyle: true, maxUploadBytes: 1024 * 1024 })
-  t = await createTestContext({ objectStore: store })
+  t = retention.t
   admin = await signIn(t, await makeUser(t, { role: 'admin' }))
 }, 120_000)
-afterAll(async () => {
-  await t?.close()
-  await fake?.close()
-  fs.rmSync(dir, { recursive: true, force: true })
-})
 
-const sha256 = (b: Buffer) => crypto.createHash('sha256').update(b).digest('hex')
 const NAME = 'Ines Marlow'
 const PHONE = '+44 20 7946 0958'
 const DESCRIPTION = `Hum on 433.92 MHz every evening since March. Call Ines on ${PHONE} or write to ines.marlow@example.test.`
 const ADDED = 'It is worse after 9 pm; my other number is 0161 496 0000.'
 
 /** A case of the office with an evidence file and the complainant's added text, closed without a follow-up. */
-async function closedCaseWithEvidence(office: Office): Promise<TestCase & { objectKey: string; bytes: Buffer }> {
-  const c = await makeCase(t, { office, state: 'field_work', report: { name: NAME, phone: PHONE, organisation: 'Marlow Farm Radio Club', description: DESCRIPTION } })
-  const inv = await signIn(t, c.investigator!)
-  const bytes = Buffer.from(`spectrum capture of ${c.id}\n433.92,-61.5\n`)
-  const up = await inv
-    .post(`/api/cases/${c.id}/evidence`)
-    .set('X-Forwarded-For', uniqueAddress())
-    .field('kind', 'other')
-    .attach('file', bytes, { filename: 'capture.csv', contentType: 'text/csv' })
-  expect(up.status, JSON.stringify(up.body)).toBe(201)
-  await addComplainantInformation(t.services, { role: 'tracking_link', caseId: c.id }, c.id, ADDED)
-  const proposed = await proposeFinding(t.services, c.investigator!.actor, c.id, {
-    version: c.version,
-    sourceDescription: 'A mains adapter in the barn',
-    recommendedAction: 'advise_operator',
-    calculationIds: [],
-    evidenceIds: [],
-    summary: 'Adapter replaced by the owner.',
-  })
-  const closed = await closeCase(t.services, c.supervisor!.actor, c.id, { version: proposed.version, resolution: 'source_corrected', reason: 'Adapter replaced.' })
-  const { rows } = await t.pool.query<{ object_key: string }>(
-    `SELECT s.object_key FROM evidence_files e JOIN stored_files s ON s.id = e.stored_file_id WHERE e.case_id = $1`,
-    [c.id],
-  )
-  expect(rows).toHaveLength(1)
-  return { ...c, state: 'closed', version: closed.version, objectKey: rows[0]!.object_key, bytes }
-}
+const closedCaseWithEvidence = (office: Office) =>
+  closedCaseWithFile(office, 'capture.csv', { name: NAME, phone: PHONE, organisation: 'Marlow Farm Radio Club', description: DESCRIPTION }, ADDED)
 
 /** Everything the run may touch of a case, to compare before and after. */
 async function snapshot(caseId: string) {
@@ -89,16 +46,6 @@ async function snapshot(caseId: string) {
     events: await q(`SELECT id, kind, body, redacted_at FROM case_events WHERE case_id = $1 ORDER BY id`),
     evidence: await q(`SELECT id, disposed_at FROM evidence_files WHERE case_id = $1 ORDER BY id`),
     actions: await q(`SELECT * FROM retention_actions WHERE case_id = $1 ORDER BY id`),
-  }
-}
-
-async function objectExists(key: string): Promise<boolean> {
-  try {
-    await store.client.send(new HeadObjectCommand({ Bucket: store.bucket, Key: key }))
-    return true
-  } catch (e) {
-    if ((e as { $metadata?: { httpStatusCode?: number } }).$metadata?.httpStatusCode === 404) return false
-    throw e
   }
 }
 
@@ -134,12 +81,7 @@ describe('the retention run', () => {
 
   it('erases the expired case, keeps the held and the young one, and its dry run lists exactly what the real run removes', async () => {
     // the expired case's file has a thumbnail (as the thumbnail job leaves it): it goes with the file
-    const thumbKey = `thumbnails/${expired.objectKey}.webp`
-    await store.client.send(new PutObjectCommand({ Bucket: store.bucket, Key: thumbKey, Body: Buffer.from('thumbnail bytes'), ContentType: 'image/webp' }))
-    await t.pool.query(
-      `INSERT INTO evidence_thumbnails (evidence_id, state, object_key, content_type, width_px, height_px, size_bytes) SELECT id, 'done', $2, 'image/webp', 1, 1, 15 FROM evidence_files WHERE case_id = $1`,
-      [expired.id, thumbKey],
-    )
+    const thumbKey = await addThumbnail(expired)
     const before = { expired: await snapshot(expired.id), held: await snapshot(held.id), young: await snapshot(young.id) }
 
     const dry = retentionRunViewSchema.parse(await runRetention(t.services, { now: runAt, dryRun: true, officeIds: [officeA.id, officeB.id] }))
@@ -351,7 +293,7 @@ describe('legal hold routes', () => {
   it('holds the case up to and including its last day, and no longer after', async () => {
     const office = await makeOffice(t)
     const c = await closedCaseWithEvidence(office)
-    await t.pool.query(`UPDATE cases SET closed_at = closed_at - interval '30 months' WHERE id = $1`, [c.id])
+    await expire(c.id)
     const sup = await signIn(t, c.supervisor!)
     const lastDay = dayFromToday(10)
     expect((await sup.post(`/api/cases/${c.id}/legal-hold`).send({ reason: 'Until the hearing', until: lastDay })).status).toBe(200)
@@ -376,8 +318,8 @@ describe('the dry run for admins', () => {
   it('lists an expired case and changes nothing; only admins may see it', async () => {
     const office = await makeOffice(t)
     const c = await closedCaseWithEvidence(office)
-    // the case closed 30 months ago (the app role may change a case's row; closing time is not a record)
-    await t.pool.query(`UPDATE cases SET closed_at = closed_at - interval '30 months' WHERE id = $1`, [c.id])
+    // the case closed 30 months ago
+    await expire(c.id)
     const before = await snapshot(c.id)
     const res = await admin.get('/api/admin/retention/dry-run')
     expect(res.status).toBe(200)

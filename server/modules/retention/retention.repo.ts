@@ -3,7 +3,7 @@
  * period has ended, a case's legal-hold history, and the erasure and disposal writes. Functions
  * of (db, explicit arguments); no authorization here.
  */
-import { and, asc, desc, eq, inArray, isNotNull, isNull, or, sql } from 'drizzle-orm'
+import { and, asc, desc, eq, inArray, isNotNull, isNull, or, sql, type SQLWrapper } from 'drizzle-orm'
 import type { DisposalAction, DisposalStage, ErasedCaseField, LegalHoldAction, RetentionActionDetails } from '../../../shared/domain/retention'
 import type { Role } from '../../../shared/domain/roles'
 import type { Db } from '../../db/client'
@@ -67,25 +67,44 @@ export async function lockCaseForRetention(db: Db, caseId: string): Promise<Case
   return c
 }
 
-export function openFollowUpCount(db: Db, caseId: string): Promise<number> {
-  return db.$count(followUps, and(eq(followUps.caseId, caseId), eq(followUps.state, 'open')))
+/**
+ * `<column> = any(<ids>)` with the ids as one array parameter: a whole batch of cases in one
+ * query, however many (a list of parameters would stop at PostgreSQL's 65,535).
+ */
+const anyOf = (column: SQLWrapper, ids: readonly string[], type: 'uuid' | 'text' = 'uuid') => sql`${column} = any(${sql.param([...ids])}::${sql.raw(type)}[])`
+
+/** Which of the given cases have an open follow-up (one query for the batch). */
+export async function casesWithOpenFollowUp(db: Db, caseIds: readonly string[]): Promise<Set<string>> {
+  if (caseIds.length === 0) return new Set()
+  const rows = await db
+    .selectDistinct({ caseId: followUps.caseId })
+    .from(followUps)
+    .where(and(anyOf(followUps.caseId, caseIds), eq(followUps.state, 'open')))
+  return new Set(rows.map((r) => r.caseId))
 }
 
-export function timelineWithText(db: Db, caseId: string): Promise<{ id: number; kind: string; body: string }[]> {
+/** The timeline entries with text not yet redacted of the given cases, oldest first. */
+export function timelinesWithText(db: Db, caseIds: readonly string[]): Promise<{ caseId: string; id: number; kind: string; body: string }[]> {
+  if (caseIds.length === 0) return Promise.resolve([])
   return db
-    .select({ id: caseEvents.id, kind: caseEvents.kind, body: sql<string>`${caseEvents.body}` })
+    .select({ caseId: caseEvents.caseId, id: caseEvents.id, kind: caseEvents.kind, body: sql<string>`${caseEvents.body}` })
     .from(caseEvents)
-    .where(and(eq(caseEvents.caseId, caseId), isNotNull(caseEvents.body), isNull(caseEvents.redactedAt)))
+    .where(and(anyOf(caseEvents.caseId, caseIds), isNotNull(caseEvents.body), isNull(caseEvents.redactedAt)))
     .orderBy(asc(caseEvents.id))
 }
 
-export function evidenceNotDisposed(db: Db, caseId: string): Promise<{ evidenceId: string; objectKey: string; sha256: string; thumbnailKey: string | null }[]> {
+/** The evidence files of the given cases not yet disposed of, with their objects, in upload order. */
+export function evidenceNotDisposed(
+  db: Db,
+  caseIds: readonly string[],
+): Promise<{ caseId: string; evidenceId: string; objectKey: string; sha256: string; thumbnailKey: string | null }[]> {
+  if (caseIds.length === 0) return Promise.resolve([])
   return db
-    .select({ evidenceId: evidenceFiles.id, objectKey: storedFiles.objectKey, sha256: storedFiles.sha256, thumbnailKey: evidenceThumbnails.objectKey })
+    .select({ caseId: evidenceFiles.caseId, evidenceId: evidenceFiles.id, objectKey: storedFiles.objectKey, sha256: storedFiles.sha256, thumbnailKey: evidenceThumbnails.objectKey })
     .from(evidenceFiles)
     .innerJoin(storedFiles, eq(storedFiles.id, evidenceFiles.storedFileId))
     .leftJoin(evidenceThumbnails, eq(evidenceThumbnails.evidenceId, evidenceFiles.id))
-    .where(and(eq(evidenceFiles.caseId, caseId), isNull(evidenceFiles.disposedAt)))
+    .where(and(anyOf(evidenceFiles.caseId, caseIds), isNull(evidenceFiles.disposedAt)))
     .orderBy(asc(evidenceFiles.uploadedAt), asc(evidenceFiles.id))
 }
 
@@ -149,16 +168,21 @@ export function pendingDisposals(
     .orderBy(asc(retentionActions.id))
 }
 
-/** Timeline entries of other cases that a merge wrote about this case (they quote its complainant), not yet redacted. */
-export function mergeEntriesAbout(db: Db, caseId: string): Promise<{ id: number; caseId: string; body: string }[]> {
+/**
+ * Timeline entries of other cases that a merge wrote about the given cases (they quote their
+ * complainants), not yet redacted, oldest first; `aboutCaseId` is the merged case.
+ */
+export function mergeEntriesAbout(db: Db, caseIds: readonly string[]): Promise<{ id: number; aboutCaseId: string; body: string }[]> {
+  if (caseIds.length === 0) return Promise.resolve([])
+  const about = sql<string>`${caseEvents.data}->>'fromCaseId'`
   return db
-    .select({ id: caseEvents.id, caseId: caseEvents.caseId, body: sql<string>`${caseEvents.body}` })
+    .select({ id: caseEvents.id, aboutCaseId: about, body: sql<string>`${caseEvents.body}` })
     .from(caseEvents)
     .where(
       and(
-        sql`${caseEvents.caseId} <> ${caseId}`,
         eq(caseEvents.kind, 'merged_in'),
-        sql`${caseEvents.data}->>'fromCaseId' = ${caseId}`,
+        anyOf(about, caseIds, 'text'),
+        sql`${caseEvents.caseId}::text <> ${about}`,
         isNotNull(caseEvents.body),
         isNull(caseEvents.redactedAt),
       ),
@@ -166,10 +190,15 @@ export function mergeEntriesAbout(db: Db, caseId: string): Promise<{ id: number;
     .orderBy(asc(caseEvents.id))
 }
 
-/** Every evidence file of the case with its stored file's name not yet erased, and the name it shows. */
-export function evidenceNamesOf(db: Db, caseId: string): Promise<{ evidenceId: string; storedFileId: string; originalName: string; displayName: string; sha256: string; nameErased: boolean }[]> {
+/** Every evidence file of the given cases with its stored file's name not yet erased, and the name it shows, in upload order. */
+export function evidenceNamesOf(
+  db: Db,
+  caseIds: readonly string[],
+): Promise<{ caseId: string; evidenceId: string; storedFileId: string; originalName: string; displayName: string; sha256: string; nameErased: boolean }[]> {
+  if (caseIds.length === 0) return Promise.resolve([])
   return db
     .select({
+      caseId: evidenceFiles.caseId,
       evidenceId: evidenceFiles.id,
       storedFileId: storedFiles.id,
       originalName: storedFiles.originalName,
@@ -179,7 +208,7 @@ export function evidenceNamesOf(db: Db, caseId: string): Promise<{ evidenceId: s
     })
     .from(evidenceFiles)
     .innerJoin(storedFiles, eq(storedFiles.id, evidenceFiles.storedFileId))
-    .where(eq(evidenceFiles.caseId, caseId))
+    .where(anyOf(evidenceFiles.caseId, caseIds))
     .orderBy(asc(evidenceFiles.uploadedAt), asc(evidenceFiles.id))
 }
 
@@ -197,16 +226,23 @@ export async function eraseEvidenceNames(db: Db, evidenceId: string, name: strin
 const uuidList = (ids: readonly string[]) => sql.join(ids.map((id) => sql`${id}::uuid`), sql`, `)
 
 /**
- * E-mails about a case still waiting in the mail queue (not yet being sent) to an address: every
- * case mail's subject starts with "[<reference>]" (server/mail/case-templates.ts).
+ * E-mails about each given case still waiting in the mail queue (not yet being sent) to the
+ * case's address, oldest first: every case mail's subject starts with "[<reference>]"
+ * (server/mail/case-templates.ts).
  */
-export async function queuedCaseMails(db: Db, queue: string, to: string, reference: string): Promise<{ jobId: string; subject: string }[]> {
-  const r = await db.execute<{ id: string; subject: string }>(sql`
-    select id::text as id, data->>'subject' as subject from pgboss.job
-    where name = ${queue} and state::text in ('created', 'retry')
-      and lower(data->>'to') = lower(${to}) and starts_with(data->>'subject', ${`[${reference}]`})
-    order by created_on, id`)
-  return r.rows.map((x) => ({ jobId: x.id, subject: x.subject }))
+export async function queuedCaseMails(
+  db: Db,
+  queue: string,
+  wanted: readonly { caseId: string; to: string; reference: string }[],
+): Promise<{ caseId: string; jobId: string; subject: string }[]> {
+  if (wanted.length === 0) return []
+  const r = await db.execute<{ case_id: string; id: string; subject: string }>(sql`
+    select w.case_id::text as case_id, j.id::text as id, j.data->>'subject' as subject
+    from unnest(${sql.param(wanted.map((w) => w.caseId))}::uuid[], ${sql.param(wanted.map((w) => w.to))}::text[], ${sql.param(wanted.map((w) => `[${w.reference}]`))}::text[]) as w(case_id, to_address, prefix)
+    join pgboss.job j on j.name = ${queue} and j.state::text in ('created', 'retry')
+      and lower(j.data->>'to') = lower(w.to_address) and starts_with(j.data->>'subject', w.prefix)
+    order by j.created_on, j.id`)
+  return r.rows.map((x) => ({ caseId: x.case_id, jobId: x.id, subject: x.subject }))
 }
 
 /**
@@ -224,15 +260,20 @@ export async function cancelAndDeleteJobs(db: Db, queue: string, jobIds: string[
   return ids
 }
 
-/** The complainant's account as the run needs it. */
-export async function findAccount(db: Db, userId: string): Promise<{ id: string; role: Role; active: boolean; email: string; lastSignedInAt: Date | null } | undefined> {
-  const [u] = await db.select({ id: users.id, role: users.role, active: users.active, email: users.email, lastSignedInAt: users.lastSignedInAt }).from(users).where(eq(users.id, userId))
-  return u
+/** The complainants' accounts as the run needs them. */
+export function findAccounts(db: Db, userIds: readonly string[]): Promise<{ id: string; role: Role; active: boolean; email: string; lastSignedInAt: Date | null }[]> {
+  if (userIds.length === 0) return Promise.resolve([])
+  return db.select({ id: users.id, role: users.role, active: users.active, email: users.email, lastSignedInAt: users.lastSignedInAt }).from(users).where(anyOf(users.id, userIds))
 }
 
-/** How many cases, other than these, still name the account as their complainant (erased cases are unlinked). */
-export function linkedCaseCount(db: Db, userId: string, except: readonly string[]): Promise<number> {
-  return db.$count(cases, and(eq(cases.complainantUserId, userId), except.length > 0 ? sql`${cases.id} not in (${uuidList(except)})` : undefined))
+/** The cases that still name each of the accounts as their complainant (erased cases are unlinked). */
+export async function casesNamingAccounts(db: Db, userIds: readonly string[]): Promise<{ userId: string; caseId: string }[]> {
+  if (userIds.length === 0) return []
+  const rows = await db
+    .select({ userId: sql<string>`${cases.complainantUserId}`, caseId: cases.id })
+    .from(cases)
+    .where(anyOf(cases.complainantUserId, userIds))
+  return rows
 }
 
 /** Deactivates a complainant's account and replaces its name and e-mail by markers (the row stays: the audit log points at it). */

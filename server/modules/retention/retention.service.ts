@@ -48,6 +48,8 @@ import { disposeObject } from './dispose-object'
 import { holdInForce } from './legal-hold.service'
 import {
   cancelAndDeleteJobs,
+  casesNamingAccounts,
+  casesWithOpenFollowUp,
   eraseAccount,
   eraseEvidenceNames,
   erasePersonalData,
@@ -55,23 +57,21 @@ import {
   evidenceNamesOf,
   evidenceNotDisposed,
   expiredCases,
-  findAccount,
+  findAccounts,
   findOfficeRetention,
   insertRetentionAction,
   latestLegalHolds,
-  linkedCaseCount,
   lockCaseForRetention,
   lockOfficeRetention,
   markEvidenceDisposed,
   markThumbnailsDisposed,
   mergeEntriesAbout,
-  openFollowUpCount,
   openFollowUpsOfClosedCases,
   pendingDisposals,
   queuedCaseMails,
   redactEvent,
   setOfficeRetentionMonths,
-  timelineWithText,
+  timelinesWithText,
 } from './retention.repo'
 
 const officeNotFound = () => notFound('office_not_found', 'No such office.')
@@ -156,18 +156,54 @@ function escapeRegExp(s: string): string {
 /** The e-mail address a deactivated complainant account keeps: unique, lowercase, undeliverable (.invalid, RFC 2606). */
 const erasedAccountEmail = (userId: string) => `erased-${userId}@erased.invalid`
 
+/** Rows grouped by a key, each group in the rows' order. */
+function groupBy<T>(rows: readonly T[], key: (row: T) => string): Map<string, T[]> {
+  const groups = new Map<string, T[]>()
+  for (const row of rows) {
+    const k = key(row)
+    const group = groups.get(k)
+    if (group) group.push(row)
+    else groups.set(k, [row])
+  }
+  return groups
+}
+
+type PlanReads = Awaited<ReturnType<typeof readPlanInputs>>
+
+/**
+ * Everything the plans of a batch of cases read from the database, one query of each kind for
+ * the whole batch (the dry run: every case it will list; the real run: the one case it has just
+ * locked). Cases whose personal data is already erased only need their evidence.
+ */
+async function readPlanInputs(ctx: ServiceContext, db: Db, batch: readonly CaseRow[]) {
+  const toErase = batch.filter((c) => c.personalDataErasedAt === null)
+  const ids = toErase.map((c) => c.id)
+  const queue = ctx.mailQueue.queueName ?? MAIL_QUEUE
+  const names = groupBy(await evidenceNamesOf(db, ids), (f) => f.caseId)
+  const timelines = groupBy(await timelinesWithText(db, ids), (e) => e.caseId)
+  const mergeEntries = groupBy(await mergeEntriesAbout(db, ids), (e) => e.aboutCaseId)
+  const mails = groupBy(await queuedCaseMails(db, queue, toErase.map((c) => ({ caseId: c.id, to: c.complainantEmail, reference: c.reference }))), (m) => m.caseId)
+  const userIds = [...new Set(toErase.flatMap((c) => (c.complainantUserId ? [c.complainantUserId] : [])))]
+  const accounts = new Map((await findAccounts(db, userIds)).map((u) => [u.id, u]))
+  const complainantIds = [...accounts.values()].filter((u) => u.role === 'complainant').map((u) => u.id)
+  const linkedCases = groupBy(await casesNamingAccounts(db, complainantIds), (l) => l.userId)
+  const evidence = groupBy(await evidenceNotDisposed(db, batch.map((c) => c.id)), (e) => e.caseId)
+  return { queue, names, timelines, mergeEntries, mails, accounts, linkedCases, evidence }
+}
+
 /**
  * What happens to the complainant's account when the case is erased: deactivated (its name and
  * e-mail replaced) when no other case still names it and it has not signed in within the
  * office's retention period before `now`; kept otherwise, saying why. `erasedThisRun`: per
  * account, the cases this run erased before (a dry run: would erase), no longer counted.
  */
-async function planAccount(db: Db, c: CaseRow, retentionMonths: number, now: Date, erasedThisRun: ReadonlyMap<string, string[]>): Promise<RetentionPlanCase['account']> {
+function planAccount(reads: PlanReads, c: CaseRow, retentionMonths: number, now: Date, erasedThisRun: ReadonlyMap<string, string[]>): RetentionPlanCase['account'] {
   if (!c.complainantUserId) return null
-  const u = await findAccount(db, c.complainantUserId)
+  const u = reads.accounts.get(c.complainantUserId)
   if (!u) return null
   if (u.role !== 'complainant') return { outcome: 'kept', userId: u.id, reason: 'not_a_complainant_account' }
-  const otherCases = await linkedCaseCount(db, u.id, [c.id, ...(erasedThisRun.get(u.id) ?? [])])
+  const notCounted = new Set([c.id, ...(erasedThisRun.get(u.id) ?? [])])
+  const otherCases = (reads.linkedCases.get(u.id) ?? []).filter((l) => !notCounted.has(l.caseId)).length
   if (otherCases > 0) return { outcome: 'kept', userId: u.id, reason: 'other_cases', otherCases }
   // the period's months back from now (calendar months, UTC)
   const windowStart = retentionEndsAt(now, -retentionMonths)
@@ -175,10 +211,9 @@ async function planAccount(db: Db, c: CaseRow, retentionMonths: number, now: Dat
   return { outcome: 'deactivated', userId: u.id }
 }
 
-/** What erasing a case changes: the plan's entry, the new field values and the redacted timeline texts. */
-async function planCase(
-  ctx: ServiceContext,
-  db: Db,
+/** What erasing a case changes: the plan's entry, the new field values and the redacted timeline texts (from the batch's reads, which hold the case). */
+function planCase(
+  reads: PlanReads,
   c: CaseRow,
   expiry: { retentionEndedAt: Date; retentionMonths: number },
   now: Date,
@@ -192,7 +227,7 @@ async function planCase(
   // to 0.01° (about 1 km), too coarse to point at one house (ERASED_POSITION_STEP_DEG)
   const coarsePosition = erase ? { latDeg: coarsenDeg(c.latDeg), lonDeg: coarsenDeg(c.lonDeg) } : null
   const names = erase
-    ? (await evidenceNamesOf(db, c.id)).filter((f) => !f.nameErased).map((f) => ({ ...f, name: erasedFileName(f.originalName, f.sha256) }))
+    ? (reads.names.get(c.id) ?? []).filter((f) => !f.nameErased).map((f) => ({ ...f, name: erasedFileName(f.originalName, f.sha256) }))
     : []
   const changes = {
     complainantName: marker,
@@ -208,7 +243,7 @@ async function planCase(
   const events: { id: number; body: string }[] = []
   const mergeEvents: { id: number; body: string }[] = []
   if (erase) {
-    for (const e of await timelineWithText(db, c.id)) {
+    for (const e of reads.timelines.get(c.id) ?? []) {
       const body = redactCaseText(e.body, identity, names)
       // the complainant's own added text always becomes a marked redacted copy; staff text only when it names them
       if (e.kind === 'complainant_information') events.push({ id: e.id, body: body === e.body ? `${body} [redacted copy, ${marker}]` : body })
@@ -217,7 +252,7 @@ async function planCase(
     // a merge wrote "<reference> (<complainant's name>) was merged into this case" on the other
     // case: its own words, so the exact name and contact are masked (the general redaction would
     // also take the case references for phone numbers)
-    for (const e of await mergeEntriesAbout(db, c.id)) {
+    for (const e of reads.mergeEntries.get(c.id) ?? []) {
       const body = maskExact(e.body, [
         [c.complainantName, '[name removed]'],
         [c.complainantEmail, '[e-mail removed]'],
@@ -227,10 +262,10 @@ async function planCase(
       if (body !== e.body) mergeEvents.push({ id: e.id, body })
     }
   }
-  const queue = ctx.mailQueue.queueName ?? MAIL_QUEUE
-  const queuedMails = erase ? await queuedCaseMails(db, queue, c.complainantEmail, c.reference) : []
-  const account = erase ? await planAccount(db, c, expiry.retentionMonths, now, erasedThisRun) : null
-  const evidence = await evidenceNotDisposed(db, c.id)
+  const queue = reads.queue
+  const queuedMails = erase ? (reads.mails.get(c.id) ?? []).map((m) => ({ jobId: m.jobId, subject: m.subject })) : []
+  const account = erase ? planAccount(reads, c, expiry.retentionMonths, now, erasedThisRun) : null
+  const evidence = (reads.evidence.get(c.id) ?? []).map((e) => ({ evidenceId: e.evidenceId, objectKey: e.objectKey, sha256: e.sha256, thumbnailKey: e.thumbnailKey }))
   const plan: RetentionPlanCase = {
     caseId: c.id,
     reference: c.reference,
@@ -295,6 +330,10 @@ export async function runRetention(
   const finished = dryRun ? pending : await finishDisposals(ctx, pending)
   const candidates = await expiredCases(ctx.db, now, scope)
   const holds = await latestLegalHolds(ctx.db, candidates.map((x) => x.c.id))
+  const withFollowUp = await casesWithOpenFollowUp(ctx.db, candidates.map((x) => x.c.id))
+  const keptBecause = (c: CaseRow): Kept['reason'] | null => (holdInForce(holds.get(c.id), now) ? 'legal_hold' : withFollowUp.has(c.id) ? 'open_follow_up' : null)
+  // the dry run reads what every plan needs at once; the real run re-reads each case under its lock
+  const dryReads = dryRun ? await readPlanInputs(ctx, ctx.db, candidates.filter((x) => keptBecause(x.c) === null).map((x) => x.c)) : null
   const kept: Kept[] = []
   const cases: RetentionPlanCase[] = []
   const erasedThisRun = new Map<string, string[]>()
@@ -303,16 +342,13 @@ export async function runRetention(
   }
   for (const { c, retentionEndedAt, retentionMonths } of candidates) {
     const expiry = { retentionEndedAt, retentionMonths }
-    if (holdInForce(holds.get(c.id), now)) {
-      kept.push({ caseId: c.id, reference: c.reference, reason: 'legal_hold' })
+    const reason = keptBecause(c)
+    if (reason) {
+      kept.push({ caseId: c.id, reference: c.reference, reason })
       continue
     }
-    if ((await openFollowUpCount(ctx.db, c.id)) > 0) {
-      kept.push({ caseId: c.id, reference: c.reference, reason: 'open_follow_up' })
-      continue
-    }
-    if (dryRun) {
-      const { plan } = await planCase(ctx, ctx.db, c, expiry, now, erasedThisRun)
+    if (dryReads) {
+      const { plan } = planCase(dryReads, c, expiry, now, erasedThisRun)
       cases.push(plan)
       noteErased(plan)
       continue
@@ -324,11 +360,11 @@ export async function runRetention(
         kept.push({ caseId: c.id, reference: c.reference, reason: 'legal_hold' })
         return null
       }
-      if ((await openFollowUpCount(db, c.id)) > 0) {
+      if ((await casesWithOpenFollowUp(db, [c.id])).has(c.id)) {
         kept.push({ caseId: c.id, reference: c.reference, reason: 'open_follow_up' })
         return null
       }
-      const { plan, erase, changes, events, mergeEvents, queue } = await planCase(ctx, db, locked, expiry, now, erasedThisRun)
+      const { plan, erase, changes, events, mergeEvents, queue } = planCase(await readPlanInputs(ctx, db, [locked]), locked, expiry, now, erasedThisRun)
       const marker = erasureMarker(now)
       if (erase) {
         await erasePersonalData(db, c.id, changes, now)
