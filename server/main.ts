@@ -4,7 +4,7 @@
  */
 import type { AddressInfo } from 'node:net'
 import type { Server } from 'node:http'
-import type { Env } from './config/env'
+import { ConfigError, type Env } from './config/env'
 import { createPool } from './db/client'
 import { prepareDatabase } from './db/roles'
 import { DEFAULT_MAIL_QUEUE_OPTIONS, startBoss, startMailWorker } from './jobs/boss'
@@ -77,8 +77,8 @@ export async function startServer(env: Env): Promise<RunningServer> {
     ? await startRetentionWorker({ pool, db: createDb(pool), boss, publicUrl: env.PUBLIC_URL.replace(/\/$/, ''), mailQueue: DEFAULT_MAIL_QUEUE_OPTIONS, objectStore, now: () => new Date() })
     : undefined
   const server: Server = await new Promise((resolve, reject) => {
-    const s = handle.app.listen(env.PORT, env.HOST, () => resolve(s))
-    s.once('error', reject)
+    // Express 5 hands a listening error (a port in use, say) to this callback too
+    const s = handle.app.listen(env.PORT, env.HOST, (err?: Error) => (err ? reject(listenError(err, env.HOST, env.PORT)) : resolve(s)))
   })
   const port = (server.address() as AddressInfo).port
   return {
@@ -100,4 +100,12 @@ export async function startServer(env: Env): Promise<RunningServer> {
       await pool.end()
     },
   }
+}
+
+/** A listening error in words an operator can act on (a ConfigError: the start script prints it in one line). */
+export function listenError(err: Error, host: string, port: number): Error {
+  const code = (err as NodeJS.ErrnoException).code
+  if (code === 'EADDRINUSE') return new ConfigError(`Port ${port} on ${host} is already in use: stop the other process, or start with another PORT.`)
+  if (code === 'EACCES') return new ConfigError(`Port ${port} on ${host} needs privileges this process does not have: choose a PORT above 1023.`)
+  return err
 }

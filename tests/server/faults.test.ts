@@ -278,6 +278,24 @@ describe('the error handler, when the database cannot be reached', () => {
   })
 })
 
+describe('a port already in use', () => {
+  it('stops a second server on it with one line naming the port (exit 78), and the first keeps serving', async () => {
+    const first = await startApp()
+    try {
+      const port = new URL(first.url).port
+      const failed: Error = await startApp({ PORT: port, PUBLIC_URL: first.url }).then(
+        () => new Error('the second server started'),
+        (e: Error) => e,
+      )
+      expect(failed.message).toMatch(new RegExp(`exited \\(78\\)[\\s\\S]*Port ${port} on 127\\.0\\.0\\.1 is already in use: stop the other process, or start with another PORT\\.`))
+      expect(failed.message).not.toContain('TypeError')
+      expect((await fetch(`${first.url}/api/health`)).status).toBe(200)
+    } finally {
+      await stopApp(first)
+    }
+  })
+})
+
 describe('losing the database', () => {
   it('keeps the app up, answers 503 database_unavailable while PostgreSQL is away, and recovers by itself', async () => {
     const app = await startApp({ JOB_MAINTENANCE_INTERVAL_SECONDS: '1', MAIL_POLL_INTERVAL_SECONDS: '0.5' })
