@@ -42,6 +42,12 @@ export function isDatabaseUnavailable(err: unknown, depth = 0): boolean {
   return isDatabaseUnavailable(e.cause, depth + 1)
 }
 
+/** Whether an error is PostgreSQL's unique violation (23505) of the named constraint, through drizzle's wrapping. */
+export function isUniqueViolation(e: unknown, constraint: string): boolean {
+  const err = (e as { cause?: unknown })?.cause ?? e
+  return typeof err === 'object' && err !== null && (err as { code?: string }).code === '23505' && (err as { constraint?: string }).constraint === constraint
+}
+
 /** One cheap round trip, given up after `timeoutMs` (the health check). */
 export async function pingDatabase(pool: pg.Pool, timeoutMs = 2000): Promise<void> {
   // node-postgres honours query_timeout per query; its types list it for clients only

@@ -9,7 +9,7 @@ import { deriveMeasurement, type DeriveAntenna, type DeriveEquipment } from '../
 import { RADIO_LIBRARY_VERSION, type MethodRef } from '../../../shared/radio'
 import type { MeasurementContent, MeasurementView } from '../../../shared/schemas/measurements'
 import type { ServiceContext } from '../../context'
-import { withTransaction, type Db } from '../../db/client'
+import { isUniqueViolation, withTransaction, type Db } from '../../db/client'
 import type { CaseRow } from '../../db/schema'
 import { badRequest, conflict, forbidden, HttpError, notFound } from '../../http/errors'
 import { mayReadMeasurements, mayWriteMeasurements, measurementsAllowedIn } from '../../policy/equipment-policy'
@@ -231,9 +231,4 @@ export async function correctMeasurement(ctx: ServiceContext, actor: Actor, meas
     })
     return presentOne(db, actor, c, row.id)
   })
-}
-
-function isUniqueViolation(e: unknown, constraint: string): boolean {
-  const err = (e as { cause?: unknown })?.cause ?? e
-  return typeof err === 'object' && err !== null && (err as { code?: string }).code === '23505' && (err as { constraint?: string }).constraint === constraint
 }

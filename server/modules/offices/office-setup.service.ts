@@ -8,13 +8,13 @@ import { areaKm2, areaWarnings, type AreaWarningDraft } from '../../../shared/do
 import type { AreaCheckRequest, OfficeInput, OfficeUpdate } from '../../../shared/schemas/offices'
 import type { OfficeView } from '../../../shared/schemas/views'
 import type { ServiceContext } from '../../context'
-import { withTransaction, type Db } from '../../db/client'
+import { isUniqueViolation, withTransaction, type Db } from '../../db/client'
 import type { Office } from '../../db/schema'
 import { conflict, forbidden, notFound } from '../../http/errors'
 import { can, type Actor } from '../../policy/policy'
 import { recordAudit } from '../audit/audit.repo'
 import { presentOffice } from './offices.service'
-import { findOffice, insertOffice, lockOffice, nameTakenByAnother, officeAreas, updateOfficeDetails, type OfficeDetails } from './offices.repo'
+import { findOffice, insertOffice, lockOffice, officeAreas, updateOfficeDetails, type OfficeDetails } from './offices.repo'
 
 export interface OfficeSaved {
   office: OfficeView
@@ -63,10 +63,9 @@ export async function updateOffice(ctx: ServiceContext, actor: Actor, officeId: 
     const before = await lockOffice(db, officeId)
     if (!before) throw notFound('office_not_found', 'No such office.')
     if (before.version !== input.version) throw conflict('stale_version', 'Someone else saved this office a moment ago. Reload to see their change, then try again.')
-    if (await nameTakenByAnother(db, input.name, officeId)) throw nameTaken(input.name)
     const after = await updateOfficeDetails(db, officeId, columnsOf(input), ctx.now()).catch((e: unknown) => {
-      // a rename racing another office's save to the same name
-      throw (e as { code?: string }).code === '23505' ? nameTaken(input.name) : e
+      // the unique name is the database's to keep: a rename to another office's name, even one racing its save
+      throw isUniqueViolation(e, 'offices_name_unique') ? nameTaken(input.name) : e
     })
     const warnings = await warningsFor(db, { officeId, officeName: after!.name, area: input.area, latDeg: input.latDeg, lonDeg: input.lonDeg })
     await auditChanges(db, actor, before, after!, warnings)

@@ -80,13 +80,7 @@ export async function lockOffice(db: Db, id: string): Promise<Office | undefined
   return o
 }
 
-/** Whether another office than `exceptId` has the name. */
-export async function nameTakenByAnother(db: Db, name: string, exceptId: string): Promise<boolean> {
-  const [o] = await db.select({ id: offices.id }).from(offices).where(and(eq(offices.name, name), ne(offices.id, exceptId)))
-  return o !== undefined
-}
-
-/** Replaces the details and bumps the version. A unique-name clash surfaces as PostgreSQL's 23505. */
+/** Replaces the details and bumps the version. A name another office has is PostgreSQL's unique violation of offices_name_unique. */
 export async function updateOfficeDetails(db: Db, id: string, details: OfficeDetails, at: Date): Promise<Office | undefined> {
   const [o] = await db
     .update(offices)
